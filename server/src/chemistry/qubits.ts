@@ -1,0 +1,35 @@
+/**
+ * Qubits needed to encode a fermionic problem of n spatial orbitals (2n spin orbitals).
+ * Jordan–Wigner (Z. Phys. 47, 631 (1928)) and Bravyi–Kitaev (Ann. Phys. 298, 210 (2002)) use one
+ * qubit per spin orbital; the parity mapping with the two-qubit reduction removes the two qubits
+ * that hold the total and the spin-up particle-number parities (Bravyi, Gambetta, Mezzacapo,
+ * Temme, arXiv:1701.08213 (2017)).
+ */
+
+export type Mapping = 'jordan-wigner' | 'bravyi-kitaev' | 'parity';
+
+export const MAPPINGS: readonly Mapping[] = ['jordan-wigner', 'bravyi-kitaev', 'parity'];
+
+export interface QubitCounts {
+  readonly jordanWigner: number;
+  readonly bravyiKitaev: number;
+  /** Parity mapping after the two-qubit reduction: 2n − 2. */
+  readonly parity: number;
+}
+
+export function qubitCounts(spatialOrbitals: number): QubitCounts {
+  const spinOrbitals = 2 * Math.max(0, spatialOrbitals);
+  return { jordanWigner: spinOrbitals, bravyiKitaev: spinOrbitals, parity: Math.max(0, spinOrbitals - 2) };
+}
+
+export function qubitsUnder(mapping: Mapping, spatialOrbitals: number): number {
+  const counts = qubitCounts(spatialOrbitals);
+  switch (mapping) {
+    case 'jordan-wigner':
+      return counts.jordanWigner;
+    case 'bravyi-kitaev':
+      return counts.bravyiKitaev;
+    case 'parity':
+      return counts.parity;
+  }
+}

@@ -1,0 +1,46 @@
+/** Length units and the conversion between them. */
+
+/** Bohr radius in ångström, CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)). */
+export const BOHR_IN_ANGSTROM = 0.529177210903;
+
+export type LengthUnit = 'angstrom' | 'bohr';
+
+export const LENGTH_UNITS: readonly LengthUnit[] = ['angstrom', 'bohr'];
+
+export function toAngstrom(value: number, unit: LengthUnit): number {
+  return unit === 'bohr' ? value * BOHR_IN_ANGSTROM : value;
+}
+
+export function fromAngstrom(value: number, unit: LengthUnit): number {
+  return unit === 'bohr' ? value / BOHR_IN_ANGSTROM : value;
+}
+
+/** Memory sizes: binary multiples (IEC 80000-13) and decimal ones. */
+export const MEMORY_UNITS: Readonly<Record<string, number>> = {
+  B: 1,
+  KiB: 1024,
+  MiB: 1024 ** 2,
+  GiB: 1024 ** 3,
+  TiB: 1024 ** 4,
+  PiB: 1024 ** 5,
+  kB: 1e3,
+  KB: 1e3,
+  MB: 1e6,
+  GB: 1e9,
+  TB: 1e12,
+  PB: 1e15,
+};
+
+/** Formats a byte count with a binary unit, for example `16.0 GiB`. */
+export function formatBytes(bytes: number): string {
+  if (!Number.isFinite(bytes)) return 'more than 10^300 B';
+  const units = ['B', 'KiB', 'MiB', 'GiB', 'TiB', 'PiB', 'EiB', 'ZiB', 'YiB'];
+  let value = bytes;
+  let unit = 0;
+  while (value >= 1024 && unit < units.length - 1) {
+    value /= 1024;
+    unit++;
+  }
+  if (value >= 1024) return `${(bytes / 1024 ** 8).toExponential(2)} YiB`;
+  return unit === 0 ? `${value} B` : `${value.toFixed(1)} ${units[unit]}`;
+}

@@ -1,0 +1,4 @@
+/** Bundle entry of the `tessera` command. */
+import { main } from './main';
+
+main();

@@ -1,0 +1,135 @@
+/**
+ * The `tessera` command line. Exit codes: 0 no errors, 1 errors found in a spec or input,
+ * 2 bad usage or a file that cannot be read.
+ */
+import { parseArgs } from 'node:util';
+import { runCheck } from './commands/check';
+import { runEstimate, type EstimateFormat } from './commands/estimate';
+import { EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
+
+declare const TESSERA_VERSION: string | undefined;
+const VERSION = typeof TESSERA_VERSION === 'string' ? TESSERA_VERSION : '0.0.0-dev';
+
+export const USAGE = `tessera ${VERSION}: plan fragment-based hybrid quantum-classical calculations
+
+Usage:
+  tessera check <file.tess>... [--format text|json]
+      Check specs; prints file:line:col: severity code message.
+  tessera estimate <file.tess> [--format text|json|markdown]
+      Electrons, basis functions, orbitals and qubits for the system and each fragment.
+  tessera estimate --xyz <file.xyz> --basis <name> [--charge N] [--multiplicity M]
+                   [--functions spherical|cartesian] [--frozen-core] [--format text|json|markdown]
+      The same for a plain XYZ file (ångström), without a spec.
+
+Options:
+  -h, --help       this text
+  -v, --version    the version
+
+Exit codes: 0 no errors; 1 errors found; 2 bad usage or unreadable file.
+All figures are planning estimates, not results of a calculation.
+`;
+
+function formatOption<T extends string>(value: string | undefined, allowed: readonly T[], fallback: T): T {
+  if (value === undefined) return fallback;
+  if ((allowed as readonly string[]).includes(value)) return value as T;
+  throw new UsageError(`--format must be one of ${allowed.join(', ')}; got '${value}'`);
+}
+
+function integerOption(name: string, value: string | undefined): number | undefined {
+  if (value === undefined) return undefined;
+  const number = Number(value);
+  if (!/^[+-]?\d+$/.test(value.trim()) || !Number.isSafeInteger(number)) throw new UsageError(`--${name} must be a whole number; got '${value}'`);
+  return number;
+}
+
+async function dispatch(argv: string[], io: CliIo): Promise<number> {
+  const [command, ...rest] = argv;
+  if (command === undefined || command === '-h' || command === '--help' || command === 'help') {
+    io.stdout(USAGE);
+    return command === undefined ? EXIT_USAGE : EXIT_OK;
+  }
+  if (command === '-v' || command === '--version') {
+    io.stdout(`${VERSION}\n`);
+    return EXIT_OK;
+  }
+  switch (command) {
+    case 'check': {
+      const { values, positionals } = parseArgs({ args: rest, allowPositionals: true, strict: true, options: { format: { type: 'string' }, help: { type: 'boolean', short: 'h' } } });
+      if (values.help) {
+        io.stdout(USAGE);
+        return EXIT_OK;
+      }
+      return runCheck({ files: positionals, format: formatOption(values.format, ['text', 'json'] as const, 'text') }, io);
+    }
+    case 'estimate': {
+      const { values, positionals } = parseArgs({
+        args: rest,
+        allowPositionals: true,
+        strict: true,
+        options: {
+          format: { type: 'string' },
+          xyz: { type: 'string' },
+          basis: { type: 'string' },
+          charge: { type: 'string' },
+          multiplicity: { type: 'string' },
+          functions: { type: 'string' },
+          'frozen-core': { type: 'boolean' },
+          help: { type: 'boolean', short: 'h' },
+        },
+      });
+      if (values.help) {
+        io.stdout(USAGE);
+        return EXIT_OK;
+      }
+      if (positionals.length > 1) throw new UsageError('estimate takes one spec file');
+      const functions = values.functions;
+      if (functions !== undefined && functions !== 'spherical' && functions !== 'cartesian') {
+        throw new UsageError(`--functions must be spherical or cartesian; got '${functions}'`);
+      }
+      const multiplicity = integerOption('multiplicity', values.multiplicity);
+      if (multiplicity !== undefined && multiplicity < 1) throw new UsageError('--multiplicity is 2S+1, at least 1');
+      const charge = integerOption('charge', values.charge);
+      return runEstimate(
+        {
+          ...(positionals[0] ? { spec: positionals[0] } : {}),
+          ...(values.xyz ? { xyz: values.xyz } : {}),
+          ...(values.basis ? { basis: values.basis } : {}),
+          ...(charge !== undefined ? { charge } : {}),
+          ...(multiplicity !== undefined ? { multiplicity } : {}),
+          ...(functions ? { functions } : {}),
+          frozenCore: values['frozen-core'] ?? false,
+          format: formatOption<EstimateFormat>(values.format, ['text', 'json', 'markdown'], 'text'),
+        },
+        io,
+      );
+    }
+    default:
+      throw new UsageError(`unknown command '${command}'; the commands are check and estimate`);
+  }
+}
+
+/** Runs the command line and returns the exit code; never throws. */
+export async function runCli(argv: string[], io: CliIo): Promise<number> {
+  try {
+    return await dispatch(argv, io);
+  } catch (error) {
+    if (error instanceof UsageError || (error as { code?: string }).code?.startsWith('ERR_PARSE_ARGS')) {
+      io.stderr(`tessera: ${(error as Error).message}\nRun 'tessera --help' for usage.\n`);
+      return EXIT_USAGE;
+    }
+    io.stderr(`tessera: internal error: ${(error as Error).stack ?? String(error)}\n`);
+    return EXIT_USAGE;
+  }
+}
+
+/** Entry of the `tessera` executable. */
+export function main(): void {
+  const io: CliIo = {
+    stdout: (text) => process.stdout.write(text),
+    stderr: (text) => process.stderr.write(text),
+    cwd: process.cwd(),
+  };
+  void runCli(process.argv.slice(2), io).then((code) => {
+    process.exitCode = code;
+  });
+}

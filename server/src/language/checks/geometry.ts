@@ -1,0 +1,98 @@
+/** Geometry: atoms present, no clashes, plausible units, and bonds cut by fragment boundaries. */
+import { BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, suspectUnits } from '../../chemistry/geometry';
+import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
+import type { RelatedInformation } from '../diagnostics';
+import type { AtomModel } from '../model';
+import { documentStart, listSome, shortAtomName, type CheckContext } from './context';
+
+/** Reports beyond this many clashes are summarised in one line. */
+const MAX_CLASH_REPORTS = 50;
+
+function where(atom: AtomModel): string {
+  return atom.source ? ` (line ${atom.source.line + 1} of the XYZ file)` : '';
+}
+
+function relatedAtom(atom: AtomModel, message: string): RelatedInformation {
+  return atom.source ? { span: { start: 0, end: 0 }, file: atom.source.file, line: atom.source.line, message } : { span: atom.span, message };
+}
+
+export function checkGeometry(context: CheckContext): void {
+  const { ast, model, sink } = context;
+  if (!ast.geometry) {
+    sink.report('missing-geometry', documentStart(ast), 'The spec has no geometry: add `geometry { <Element> [label] x y z ... }` or `geometry from "file.xyz"`.');
+    return;
+  }
+  if (model.atoms.length === 0) {
+    if (!ast.geometry.include) sink.report('missing-geometry', ast.geometry.statement.keyword.span, 'The geometry has no atoms.');
+    return;
+  }
+
+  const clashes = model.contacts.clashes;
+  for (const clash of clashes.slice(0, MAX_CLASH_REPORTS)) {
+    const a = model.atoms[clash.i]!;
+    const b = model.atoms[clash.j]!;
+    sink.report(
+      'atoms-too-close',
+      b.span,
+      `Atoms ${shortAtomName(a)} (${a.element.symbol})${where(a)} and ${shortAtomName(b)} (${b.element.symbol})${where(b)} are ${clash.distance.toFixed(3)} Å apart, closer than ${CLASH_DISTANCE} Å: a duplicated or mistyped line?`,
+      { related: [relatedAtom(a, `${shortAtomName(a)} is here`)] },
+    );
+  }
+  if (clashes.length > MAX_CLASH_REPORTS) {
+    sink.report('atoms-too-close', ast.geometry.statement.keyword.span, `${clashes.length - MAX_CLASH_REPORTS} more pairs of atoms are closer than ${CLASH_DISTANCE} Å.`);
+  }
+
+  const radii = model.atoms.map((atom) => atom.element.covalentRadius ?? 1.5);
+  const suspicion = suspectUnits(model.coordinates, radii, model.units, model.contacts);
+  if (suspicion) {
+    const declared = model.units === 'angstrom' ? 'ångström' : 'bohr';
+    const factor = model.units === 'angstrom' ? 1 / BOHR_IN_ANGSTROM : BOHR_IN_ANGSTROM;
+    const reason = ast.geometry.include ? 'XYZ files are read in ångström' : `the file reads them as ${declared}`;
+    sink.report(
+      'units-suspect',
+      ast.units?.span ?? ast.geometry.statement.keyword.span,
+      `Nearest-neighbour distances are ${suspicion.medianRatio.toFixed(2)} times the sum of covalent radii (median over ${suspicion.atomsConsidered} atoms), close to ${factor.toFixed(2)}: these coordinates look like ${suspicion.looksLike === 'bohr' ? 'bohr' : 'ångström'}, but ${reason}.` +
+        (ast.geometry.include ? '' : ` Write \`units ${suspicion.looksLike}\` if so.`),
+      { data: { units: suspicion.looksLike } },
+    );
+  }
+
+  checkCutBonds(context);
+}
+
+/** A bond joins atoms closer than 1.2 × the sum of their covalent radii (common practice, no source). */
+function checkCutBonds(context: CheckContext): void {
+  const { model, sink } = context;
+  if (model.fragments.length < 2) return;
+  const owner = model.claims.map((owners) => (owners.length === 1 ? owners[0]! : -1));
+  const cuts = new Map<string, { i: number; j: number; distance: number }[]>();
+  for (const bond of model.contacts.bonds) {
+    const a = owner[bond.i]!;
+    const b = owner[bond.j]!;
+    if (a < 0 || b < 0 || a === b) continue;
+    const key = a < b ? `${a}:${b}` : `${b}:${a}`;
+    const list = cuts.get(key);
+    if (list) list.push(bond);
+    else cuts.set(key, [bond]);
+  }
+  for (const [key, bonds] of cuts) {
+    const [first, second] = key.split(':').map(Number) as [number, number];
+    const earlier = model.fragments[first]!;
+    const later = model.fragments[second]!;
+    const described = bonds.map((bond) => {
+      const a = model.atoms[bond.i]!;
+      const b = model.atoms[bond.j]!;
+      return `${shortAtomName(a)}–${shortAtomName(b)} ${bond.distance.toFixed(2)} Å`;
+    });
+    const related: RelatedInformation[] = [
+      { span: earlier.ast.atoms?.span ?? earlier.ast.statement.keyword.span, message: `fragment '${earlier.name}'` },
+      ...bonds.slice(0, 10).map((bond) => relatedAtom(model.atoms[bond.j]!, `bond ${shortAtomName(model.atoms[bond.i]!)}–${shortAtomName(model.atoms[bond.j]!)}, ${bond.distance.toFixed(2)} Å`)),
+    ];
+    sink.report(
+      'bond-cut',
+      later.ast.atoms?.span ?? later.ast.statement.keyword.span,
+      `The boundary between '${earlier.name}' and '${later.name}' cuts ${bonds.length} covalent bond${bonds.length === 1 ? '' : 's'}: ${listSome(described, 6)} (bonded: closer than ${BOND_TOLERANCE_FACTOR} × the sum of covalent radii). Cut bonds need capping or link atoms in the embedding.`,
+      { related, data: { bonds: bonds.map((bond) => [bond.i, bond.j]) } },
+    );
+  }
+}

@@ -1,0 +1,51 @@
+/** Scans: two different atoms in different fragments, a range that runs the way the step goes. */
+import { CLASH_DISTANCE } from '../../chemistry/geometry';
+import { MAX_SCAN_POINTS } from '../model';
+import type { CheckContext } from './context';
+
+export function checkScan(context: CheckContext): void {
+  const { ast, model, sink } = context;
+  const scan = ast.scan;
+  if (!scan?.from || !scan.to) return;
+  const from = scan.from.value;
+  const to = scan.to.value;
+  if (from <= 0 || to <= 0) {
+    sink.report('invalid-scan', from <= 0 ? scan.from.span : scan.to.span, 'Scanned distances must be positive.');
+    return;
+  }
+  if (scan.step) {
+    const step = scan.step.value;
+    if (step === 0) {
+      sink.report('invalid-scan', scan.step.span, 'A step of 0 never reaches the end of the scan.');
+      return;
+    }
+    if ((to - from) * step < 0) {
+      sink.report('invalid-scan', scan.step.span, `The scan goes from ${from} to ${to}, so the step must be ${to > from ? 'positive' : 'negative'}; it is ${step}.`);
+      return;
+    }
+    const points = Math.floor((to - from) / step + 1e-9) + 1;
+    if (points > MAX_SCAN_POINTS) {
+      sink.report('invalid-scan', scan.step.span, `This step gives ${points} points; at most ${MAX_SCAN_POINTS} are accepted. Is the step mistyped?`);
+      return;
+    }
+  } else if (scan.points && scan.points.value > MAX_SCAN_POINTS) {
+    sink.report('invalid-scan', scan.points.span, `At most ${MAX_SCAN_POINTS} scan points are accepted.`);
+    return;
+  }
+  const resolved = model.scan;
+  if (!resolved) return;
+  if (resolved.first === resolved.second) {
+    sink.report('invalid-scan', scan.second!.span, 'The scan needs two different atoms.');
+    return;
+  }
+  const owners = (atom: number) => model.claims[atom] ?? [];
+  const shared = owners(resolved.first).find((fragment) => owners(resolved.second).includes(fragment));
+  if (shared !== undefined) {
+    const name = model.fragments[shared]!.name;
+    sink.report('invalid-scan', scan.statement.keyword.span, `Both scanned atoms are in fragment '${name}'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments.`);
+  }
+  const shortest = Math.min(...resolved.distances);
+  if (resolved.distances.length > 0 && shortest < CLASH_DISTANCE) {
+    sink.report('invalid-scan', scan.from.span, `The scan reaches ${shortest.toFixed(3)} Å, closer than ${CLASH_DISTANCE} Å.`);
+  }
+}

@@ -1,0 +1,125 @@
+/**
+ * Diagnostics: every problem Tessera reports has a stable code, a severity, an exact span and a
+ * message that states the numbers behind it. The registry below is the single list of codes.
+ */
+import type { Span } from './text';
+
+export type Severity = 'error' | 'warning' | 'information' | 'hint';
+
+export interface RelatedInformation {
+  readonly span: Span;
+  readonly message: string;
+  /** Absolute path of another file (an included XYZ file); absent for the spec itself. */
+  readonly file?: string;
+  /** For another file: zero-based line of the location. */
+  readonly line?: number;
+}
+
+export interface Diagnostic {
+  readonly code: DiagnosticCode;
+  readonly severity: Severity;
+  readonly span: Span;
+  readonly message: string;
+  readonly related?: readonly RelatedInformation[];
+  /** Machine-readable details for quick fixes (for example the suggested word). */
+  readonly data?: Readonly<Record<string, unknown>>;
+}
+
+interface CodeInfo {
+  readonly severity: Severity;
+  readonly title: string;
+}
+
+export const DIAGNOSTIC_CODES = {
+  // Reading the text
+  'unexpected-character': { severity: 'error', title: 'A character that is not part of the language' },
+  'unterminated-string': { severity: 'error', title: 'A string without its closing quote' },
+  'unclosed-block': { severity: 'error', title: 'A `{` without its `}`' },
+  'unexpected-token': { severity: 'error', title: 'A brace or block where none belongs' },
+  // Statements and values
+  'unknown-keyword': { severity: 'error', title: 'A keyword the language does not have' },
+  'misplaced-keyword': { severity: 'error', title: 'A keyword used in a block where it does not belong' },
+  'missing-value': { severity: 'error', title: 'A statement without the value it needs' },
+  'invalid-value': { severity: 'error', title: 'A value of the wrong kind (for example a word where a number belongs)' },
+  'extra-value': { severity: 'error', title: 'More values than the statement takes' },
+  'unexpected-block': { severity: 'error', title: 'A block after a statement that takes none' },
+  'missing-block': { severity: 'error', title: 'A statement that needs a block without one' },
+  'duplicate-statement': { severity: 'error', title: 'The same setting given twice' },
+  'unknown-value': { severity: 'error', title: 'A value that is not one of the allowed words' },
+  'unknown-method': { severity: 'error', title: 'A method name Tessera does not know' },
+  'method-tier-mismatch': { severity: 'error', title: 'A method that belongs to another tier' },
+  'unknown-ansatz': { severity: 'error', title: 'An ansatz name Tessera does not know' },
+  'unknown-mapping': { severity: 'error', title: 'A fermion-to-qubit mapping Tessera does not know' },
+  'unknown-basis': { severity: 'error', title: 'A basis-set name not in the library' },
+  'setting-ignored': { severity: 'warning', title: 'A setting that has no effect in this tier' },
+  'missing-tier': { severity: 'warning', title: 'A fragment without a solver tier' },
+  // Geometry
+  'missing-geometry': { severity: 'error', title: 'No atoms' },
+  'unknown-element': { severity: 'error', title: 'An element symbol that does not exist' },
+  'invalid-atom': { severity: 'error', title: 'An atom line without exactly three coordinates' },
+  'duplicate-label': { severity: 'error', title: 'Two atoms with the same label' },
+  'include-outside-folder': { severity: 'error', title: 'An included file outside the spec\'s folder tree' },
+  'include-unreadable': { severity: 'error', title: 'An included file that cannot be read' },
+  'include-invalid': { severity: 'error', title: 'An included XYZ file with a malformed line' },
+  'atoms-too-close': { severity: 'error', title: 'Two atoms closer than 0.5 Å' },
+  'units-suspect': { severity: 'warning', title: 'Distances that look typed in the other length unit' },
+  'bond-cut': { severity: 'warning', title: 'Covalent bonds cut by a fragment boundary' },
+  // Basis
+  'missing-basis': { severity: 'error', title: 'No basis set chosen' },
+  'basis-missing-element': { severity: 'error', title: 'An element the chosen basis does not define' },
+  // Charge and spin
+  'charge-not-integer': { severity: 'error', title: 'A charge that is not a whole number' },
+  'multiplicity-invalid': { severity: 'error', title: 'A multiplicity that is not a positive whole number' },
+  'multiplicity-parity': { severity: 'error', title: 'A multiplicity whose parity does not fit the electron count' },
+  'multiplicity-too-high': { severity: 'error', title: 'More unpaired electrons than electrons' },
+  'negative-electrons': { severity: 'error', title: 'A charge that leaves fewer than zero electrons' },
+  'fragment-charge-sum': { severity: 'error', title: 'Fragment charges that do not add up to the total charge' },
+  // Fragments
+  'duplicate-fragment': { severity: 'error', title: 'Two fragments with the same name' },
+  'unknown-atom': { severity: 'error', title: 'A selector naming an atom that does not exist' },
+  'invalid-selector': { severity: 'error', title: 'A malformed atom selector' },
+  'fragment-empty': { severity: 'error', title: 'A fragment that selects no atoms' },
+  'fragment-overlap': { severity: 'error', title: 'Atoms claimed by more than one fragment' },
+  'atoms-unassigned': { severity: 'error', title: 'Atoms in no fragment while no fragment claims `rest`' },
+  'rest-twice': { severity: 'error', title: 'More than one fragment claims `rest`' },
+  // Active space and limits
+  'active-space-invalid': { severity: 'error', title: 'An active space that does not fit its fragment' },
+  'qubit-limit-exceeded': { severity: 'error', title: 'A quantum-tier fragment that needs more qubits than the limit' },
+  'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
+  // Scan
+  'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+} as const satisfies Record<string, CodeInfo>;
+
+export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;
+
+export function diagnostic(
+  code: DiagnosticCode,
+  span: Span,
+  message: string,
+  extra: { related?: readonly RelatedInformation[]; data?: Readonly<Record<string, unknown>>; severity?: Severity } = {},
+): Diagnostic {
+  const result: Diagnostic = { code, severity: extra.severity ?? DIAGNOSTIC_CODES[code].severity, span, message };
+  return {
+    ...result,
+    ...(extra.related && extra.related.length > 0 ? { related: extra.related } : {}),
+    ...(extra.data ? { data: extra.data } : {}),
+  };
+}
+
+/** Collects diagnostics during one analysis. */
+export class DiagnosticSink {
+  readonly items: Diagnostic[] = [];
+
+  add(item: Diagnostic): void {
+    this.items.push(item);
+  }
+
+  report(
+    code: DiagnosticCode,
+    span: Span,
+    message: string,
+    extra?: { related?: readonly RelatedInformation[]; data?: Readonly<Record<string, unknown>>; severity?: Severity },
+  ): void {
+    this.items.push(diagnostic(code, span, message, extra));
+  }
+}

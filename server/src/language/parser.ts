@@ -1,0 +1,259 @@
+/**
+ * The chevrotain parser: turns tokens into statements, arguments and blocks.
+ *
+ * Grammar (newlines end statements; `;` does too; a block's `{` may sit on the next line):
+ *
+ *   document   := item* EOF
+ *   item       := Newline | ';' | statement | stray
+ *   statement  := head argument* (Newline* block)?
+ *   head       := Word | Number | String | #index | 6e | 6o | '..' | '='
+ *   argument   := the same token kinds as head
+ *   block      := '{' item* '}'
+ *
+ * Every token is accepted by some alternative, so the parser never gives up: a mistake costs at
+ * most its own statement, and everything else is still analysed. A block that is not closed ends
+ * where a top-level keyword starts a line, so a missing `}` does not swallow the rest of the file.
+ */
+import { EmbeddedActionsParser, type IToken, type TokenType } from 'chevrotain';
+import {
+  allTokens,
+  ElectronCount,
+  Equals,
+  IndexRef,
+  LBrace,
+  Newline,
+  NumberLiteral,
+  OrbitalCount,
+  RangeDots,
+  RBrace,
+  Semicolon,
+  StringLiteral,
+  tokenize,
+  UnterminatedString,
+  Word,
+} from './lexer';
+import type { Argument, ArgumentKind, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
+import { span, type Span } from './text';
+
+/** Keywords that only start top-level statements; seeing one at a line start closes an unclosed block. */
+const TOP_LEVEL_STARTERS = new Set(['spec', 'units', 'basis', 'geometry', 'fragment', 'embedding', 'scan', 'limits']);
+
+const ARGUMENT_KINDS = new Map<TokenType, ArgumentKind>([
+  [Word, 'word'],
+  [NumberLiteral, 'number'],
+  [StringLiteral, 'string'],
+  [UnterminatedString, 'string'],
+  [IndexRef, 'index'],
+  [ElectronCount, 'electrons'],
+  [OrbitalCount, 'orbitals'],
+  [RangeDots, 'range'],
+  [Equals, 'equals'],
+]);
+
+function tokenSpan(token: IToken): Span {
+  return span(token.startOffset, token.startOffset + token.image.length);
+}
+
+function unescapeString(image: string, closed: boolean): string {
+  const inner = image.slice(1, closed ? -1 : undefined);
+  return inner.replace(/\\(.)/g, '$1');
+}
+
+class SpecParser extends EmbeddedActionsParser {
+  problems: SyntaxProblem[] = [];
+  private text = '';
+
+  constructor() {
+    super(allTokens, { recoveryEnabled: false, maxLookahead: 1 });
+    this.performSelfAnalysis();
+  }
+
+  prepare(text: string): void {
+    this.problems = [];
+    this.text = text;
+  }
+
+  private toArgument(token: IToken): Argument {
+    const kind = ARGUMENT_KINDS.get(token.tokenType) ?? 'word';
+    const closedString = token.tokenType === StringLiteral;
+    if (token.tokenType === UnterminatedString) {
+      this.problems.push({
+        code: 'unterminated-string',
+        message: 'This string has no closing quote before the end of the line.',
+        span: tokenSpan(token),
+      });
+    }
+    const text = kind === 'string' ? unescapeString(token.image, closedString) : token.image;
+    return { kind, text, span: tokenSpan(token) };
+  }
+
+  private value = this.RULE('value', (): IToken => {
+    return this.OR([
+      { ALT: () => this.CONSUME(Word) },
+      { ALT: () => this.CONSUME(NumberLiteral) },
+      { ALT: () => this.CONSUME(StringLiteral) },
+      { ALT: () => this.CONSUME(UnterminatedString) },
+      { ALT: () => this.CONSUME(IndexRef) },
+      { ALT: () => this.CONSUME(ElectronCount) },
+      { ALT: () => this.CONSUME(OrbitalCount) },
+      { ALT: () => this.CONSUME(RangeDots) },
+      { ALT: () => this.CONSUME(Equals) },
+    ]);
+  });
+
+  /** True when the next non-newline token opens a block. */
+  private braceFollows(): boolean {
+    for (let i = 1; ; i++) {
+      const type = this.LA(i).tokenType;
+      if (type === Newline) continue;
+      return type === LBrace;
+    }
+  }
+
+  /** Inside a block: a top-level keyword at the start of a line means the `}` was forgotten. */
+  private topLevelKeywordStartsLine(): boolean {
+    const next = this.LA(1);
+    if (next.tokenType !== Word || !TOP_LEVEL_STARTERS.has(next.image)) return false;
+    const lineStart = this.text.lastIndexOf('\n', next.startOffset - 1) + 1;
+    return this.text.slice(lineStart, next.startOffset).trim() === '';
+  }
+
+  public document = this.RULE('document', (): Statement[] => {
+    const statements: Statement[] = [];
+    this.MANY(() => {
+      this.OR([
+        { ALT: () => this.CONSUME(Newline) },
+        { ALT: () => this.CONSUME(Semicolon) },
+        { ALT: () => statements.push(this.SUBRULE(this.statement)) },
+        {
+          ALT: () => {
+            const brace = this.CONSUME(RBrace);
+            this.ACTION(() => this.reportStray(brace, 'This `}` closes no block.'));
+          },
+        },
+        { ALT: () => this.SUBRULE(this.strayBlock) },
+      ]);
+    });
+    return statements;
+  });
+
+  private blockItems = this.RULE('blockItems', (): Statement[] => {
+    const statements: Statement[] = [];
+    this.MANY({
+      GATE: () => !this.topLevelKeywordStartsLine(),
+      DEF: () => {
+        this.OR([
+          { ALT: () => this.CONSUME(Newline) },
+          { ALT: () => this.CONSUME(Semicolon) },
+          { ALT: () => statements.push(this.SUBRULE(this.statement)) },
+          { ALT: () => this.SUBRULE(this.strayBlock) },
+        ]);
+      },
+    });
+    return statements;
+  });
+
+  private statement = this.RULE('statement', (): Statement => {
+    const head = this.SUBRULE(this.value);
+    const args: IToken[] = [];
+    this.MANY(() => args.push(this.SUBRULE2(this.value)));
+    let block: Block | undefined;
+    this.OPTION({
+      GATE: () => this.braceFollows(),
+      DEF: () => {
+        this.MANY2(() => this.CONSUME(Newline));
+        block = this.SUBRULE(this.block);
+      },
+    });
+    return this.ACTION(() => {
+      const keyword = this.toArgument(head);
+      const argumentNodes = args.map((token) => this.toArgument(token));
+      const last = block?.span ?? argumentNodes[argumentNodes.length - 1]?.span ?? keyword.span;
+      const statement: Statement = { keyword, args: argumentNodes, span: span(keyword.span.start, last.end) };
+      return block ? { ...statement, block } : statement;
+    });
+  });
+
+  private block = this.RULE('block', (): Block => {
+    const open = this.CONSUME(LBrace);
+    const statements = this.SUBRULE(this.blockItems);
+    let close: IToken | undefined;
+    this.OPTION(() => {
+      close = this.CONSUME(RBrace);
+    });
+    return this.ACTION(() => {
+      const openSpan = tokenSpan(open);
+      if (!close) {
+        this.problems.push({
+          code: 'unclosed-block',
+          message: 'This `{` is never closed: add a `}` at the end of the block.',
+          span: openSpan,
+        });
+        const lastStatement = statements[statements.length - 1];
+        return { open: openSpan, statements, span: span(openSpan.start, lastStatement?.span.end ?? openSpan.end) };
+      }
+      const closeSpan = tokenSpan(close);
+      return { open: openSpan, close: closeSpan, statements, span: span(openSpan.start, closeSpan.end) };
+    });
+  });
+
+  /** A `{` with no statement before it: its contents are skipped, with one error on the brace. */
+  private strayBlock = this.RULE('strayBlock', (): void => {
+    const block = this.SUBRULE(this.block);
+    this.ACTION(() => {
+      this.problems.push({
+        code: 'unexpected-token',
+        message: 'A block must follow a statement such as `fragment name` or `geometry`; its contents are ignored.',
+        span: block.open,
+      });
+    });
+  });
+
+  private reportStray(token: IToken, message: string): void {
+    this.problems.push({ code: 'unexpected-token', message, span: tokenSpan(token) });
+  }
+}
+
+let sharedParser: SpecParser | undefined;
+
+/** Parses spec text into a syntax tree; never throws on bad input. */
+export function parseSpec(text: string): SyntaxTree {
+  const lexed = tokenize(text);
+  const parser = (sharedParser ??= new SpecParser());
+  parser.prepare(text);
+  parser.input = lexed.tokens;
+  const statements = parser.document();
+  const problems: SyntaxProblem[] = [...lexerProblems(text, lexed.errors), ...parser.problems];
+  for (const error of parser.errors) {
+    problems.push({ code: 'syntax', message: error.message, span: tokenSpan(error.token) });
+  }
+  problems.sort((a, b) => a.span.start - b.span.start);
+  return {
+    statements,
+    comments: lexed.comments.map((token) => ({ text: token.image, span: tokenSpan(token) })),
+    problems,
+    textLength: text.length,
+  };
+}
+
+/** Consecutive characters the lexer cannot read become one problem. */
+function lexerProblems(text: string, errors: readonly { offset: number; length: number }[]): SyntaxProblem[] {
+  const problems: SyntaxProblem[] = [];
+  for (const error of errors) {
+    const previous = problems[problems.length - 1];
+    if (previous && previous.span.end === error.offset) {
+      const merged = span(previous.span.start, error.offset + error.length);
+      problems[problems.length - 1] = { ...previous, span: merged, message: badCharacterMessage(text, merged) };
+    } else {
+      const errorSpan = span(error.offset, error.offset + error.length);
+      problems.push({ code: 'bad-character', span: errorSpan, message: badCharacterMessage(text, errorSpan) });
+    }
+  }
+  return problems;
+}
+
+function badCharacterMessage(text: string, s: Span): string {
+  const shown = text.slice(s.start, Math.min(s.end, s.start + 20));
+  const plural = s.end - s.start > 1 ? 'characters' : 'character';
+  return `Unexpected ${plural} '${shown}': not part of the spec language (comments start with '# ').`;
+}

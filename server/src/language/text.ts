@@ -1,0 +1,84 @@
+/** Offsets into a document and their conversion to zero-based line/character positions. */
+
+/** A half-open range of UTF-16 offsets [start, end) into one document's text. */
+export interface Span {
+  readonly start: number;
+  readonly end: number;
+}
+
+/** Zero-based line and UTF-16 character, the same shape as an LSP position. */
+export interface Position {
+  line: number;
+  character: number;
+}
+
+/** The same shape as an LSP range. */
+export interface Range {
+  start: Position;
+  end: Position;
+}
+
+export function span(start: number, end: number): Span {
+  return { start, end };
+}
+
+export function joinSpans(first: Span, last: Span): Span {
+  return { start: Math.min(first.start, last.start), end: Math.max(first.end, last.end) };
+}
+
+export function spanContains(outer: Span, offset: number): boolean {
+  return offset >= outer.start && offset <= outer.end;
+}
+
+/** Converts between offsets and line/character positions of one text. */
+export class LineIndex {
+  private readonly lineStarts: number[];
+
+  constructor(private readonly text: string) {
+    const starts = [0];
+    for (let i = 0; i < text.length; i++) {
+      if (text.charCodeAt(i) === 10) starts.push(i + 1);
+    }
+    this.lineStarts = starts;
+  }
+
+  get lineCount(): number {
+    return this.lineStarts.length;
+  }
+
+  positionAt(offset: number): Position {
+    const clamped = Math.max(0, Math.min(offset, this.text.length));
+    let low = 0;
+    let high = this.lineStarts.length - 1;
+    while (low < high) {
+      const mid = (low + high + 1) >> 1;
+      if (this.lineStarts[mid]! <= clamped) low = mid;
+      else high = mid - 1;
+    }
+    return { line: low, character: clamped - this.lineStarts[low]! };
+  }
+
+  offsetAt(position: Position): number {
+    if (position.line < 0) return 0;
+    if (position.line >= this.lineStarts.length) return this.text.length;
+    const lineStart = this.lineStarts[position.line]!;
+    const lineEnd = this.lineEnd(position.line);
+    return Math.max(lineStart, Math.min(lineStart + position.character, lineEnd));
+  }
+
+  /** Offset of the end of a line, before its line break. */
+  lineEnd(line: number): number {
+    const next = this.lineStarts[line + 1];
+    if (next === undefined) return this.text.length;
+    const beforeBreak = next - 1;
+    return beforeBreak > 0 && this.text.charCodeAt(beforeBreak - 1) === 13 ? beforeBreak - 1 : beforeBreak;
+  }
+
+  lineStart(line: number): number {
+    return this.lineStarts[Math.max(0, Math.min(line, this.lineStarts.length - 1))]!;
+  }
+
+  rangeOf(s: Span): Range {
+    return { start: this.positionAt(s.start), end: this.positionAt(s.end) };
+  }
+}

@@ -1,0 +1,133 @@
+/**
+ * The words of the spec language: which keywords are valid in which block, what values they take,
+ * and one line on each. Validation, completion and hover all read this one table.
+ */
+
+export type BlockKind = 'top' | 'basis' | 'geometry' | 'fragment' | 'tier' | 'limits';
+
+export interface KeywordInfo {
+  readonly name: string;
+  readonly blocks: readonly BlockKind[];
+  /** How it is written, for messages and hover. */
+  readonly syntax: string;
+  readonly summary: string;
+  /** The kind of block it opens, if any. */
+  readonly opens?: BlockKind;
+}
+
+export const KEYWORDS: readonly KeywordInfo[] = [
+  { name: 'spec', blocks: ['top'], syntax: 'spec "name"', summary: 'Names this calculation plan.' },
+  { name: 'units', blocks: ['top'], syntax: 'units angstrom|bohr', summary: 'Length unit of every coordinate and distance in this file (default angstrom).' },
+  { name: 'charge', blocks: ['top', 'fragment'], syntax: 'charge <integer>', summary: 'Total charge of the system, or the formal charge of a fragment (default 0).' },
+  { name: 'multiplicity', blocks: ['top', 'fragment'], syntax: 'multiplicity <2S+1>', summary: 'Spin multiplicity 2S+1 (default: 1 for an even electron count, 2 for an odd one).' },
+  { name: 'basis', blocks: ['top'], syntax: 'basis <name> { <Element> = <name>; functions spherical|cartesian }', summary: 'The orbital basis set, with optional per-element overrides and function type.', opens: 'basis' },
+  { name: 'functions', blocks: ['basis'], syntax: 'functions spherical|cartesian', summary: 'Spherical (2l+1) or cartesian ((l+1)(l+2)/2) functions per shell; default: the basis family\'s usual convention.' },
+  { name: 'geometry', blocks: ['top'], syntax: 'geometry { <Element> [label] x y z ... }  or  geometry from "file.xyz"', summary: 'The atoms: element, optional label, and coordinates in the file\'s unit; or a plain XYZ file (always in ångström).', opens: 'geometry' },
+  { name: 'frozen-core', blocks: ['top', 'tier'], syntax: 'frozen-core on|off', summary: 'Keep the noble-gas core orbitals of each element doubly occupied and out of the correlation treatment (default on).' },
+  { name: 'fragment', blocks: ['top'], syntax: 'fragment <name> { atoms ...; charge; multiplicity; tier <level> { ... } }', summary: 'A part of the system treated by one solver tier.', opens: 'fragment' },
+  { name: 'atoms', blocks: ['fragment'], syntax: 'atoms <label> <a>..<b> #<n> #<n>..#<m> all <Element> within <d> of <atom> rest', summary: 'Which atoms belong to the fragment.' },
+  { name: 'tier', blocks: ['fragment'], syntax: 'tier quantum|correlated|mean-field { method ...; ... }', summary: 'The solver tier of this fragment and its settings.', opens: 'tier' },
+  { name: 'method', blocks: ['tier'], syntax: 'method <name>', summary: 'The electronic-structure method of the tier.' },
+  { name: 'ansatz', blocks: ['tier'], syntax: 'ansatz uccsd|k-upccgsd|hardware-efficient', summary: 'The trial state of a variational quantum algorithm.' },
+  { name: 'mapping', blocks: ['tier'], syntax: 'mapping jordan-wigner|bravyi-kitaev|parity', summary: 'How fermionic spin orbitals are encoded on qubits.' },
+  { name: 'active', blocks: ['tier'], syntax: 'active <n>e <m>o', summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core.' },
+  { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
+  { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
+  { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
+  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms.' },
+  { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
+  { name: 'qubits', blocks: ['limits'], syntax: 'qubits <n>', summary: 'Largest number of qubits a quantum-tier fragment may need.' },
+  { name: 'memory', blocks: ['limits'], syntax: 'memory <size> B|KiB|MiB|GiB|TiB', summary: 'Classical memory available, for example to a statevector simulator.' },
+];
+
+export function keywordsFor(block: BlockKind): KeywordInfo[] {
+  return KEYWORDS.filter((keyword) => keyword.blocks.includes(block));
+}
+
+export function findKeyword(name: string, block: BlockKind): KeywordInfo | undefined {
+  return KEYWORDS.find((keyword) => keyword.name === name && keyword.blocks.includes(block));
+}
+
+export interface TermInfo {
+  readonly name: string;
+  readonly summary: string;
+  /** How its cost grows, for hover. */
+  readonly scaling?: string;
+  readonly reference?: string;
+}
+
+export type TierLevel = 'quantum' | 'correlated' | 'mean-field';
+
+export const TIER_LEVELS: readonly TermInfo[] = [
+  { name: 'quantum', summary: 'Solved by a quantum algorithm (on a simulator or device): qubits, Hamiltonian terms and circuits are estimated.' },
+  { name: 'correlated', summary: 'Solved by a correlated classical method.' },
+  { name: 'mean-field', summary: 'Solved at the mean-field level.' },
+];
+
+// Scaling statements are the textbook formal scalings with system size N (Helgaker, Jørgensen,
+// Olsen, Molecular Electronic-Structure Theory, Wiley 2000), written from memory.
+export const METHODS: readonly (TermInfo & { readonly tier: TierLevel })[] = [
+  { name: 'rhf', tier: 'mean-field', summary: 'Restricted Hartree–Fock: closed-shell mean field.', scaling: 'N^4 formally (two-electron integrals), N^3 with density fitting' },
+  { name: 'rohf', tier: 'mean-field', summary: 'Restricted open-shell Hartree–Fock.', scaling: 'N^4 formally' },
+  { name: 'uhf', tier: 'mean-field', summary: 'Unrestricted Hartree–Fock: separate alpha and beta orbitals.', scaling: 'N^4 formally' },
+  { name: 'mp2', tier: 'correlated', summary: 'Second-order Møller–Plesset perturbation theory.', scaling: 'N^5' },
+  { name: 'ccsd', tier: 'correlated', summary: 'Coupled cluster with single and double excitations.', scaling: 'N^6; amplitudes o^2 v^2' },
+  { name: 'ccsd(t)', tier: 'correlated', summary: 'CCSD with perturbative triples.', scaling: 'N^7 for the triples correction' },
+  { name: 'casci', tier: 'correlated', summary: 'Complete active-space configuration interaction.', scaling: 'exponential in the active space (number of determinants)' },
+  { name: 'casscf', tier: 'correlated', summary: 'CASCI with optimized orbitals.', scaling: 'exponential in the active space, times orbital iterations' },
+  { name: 'fci', tier: 'correlated', summary: 'Full configuration interaction in the active space.', scaling: 'exponential: binomial(n, alpha) × binomial(n, beta) determinants' },
+  { name: 'vqe', tier: 'quantum', summary: 'Variational quantum eigensolver (Peruzzo et al., Nat. Commun. 5, 4213 (2014)).', scaling: 'circuit per ansatz; measurements grow with the number of Pauli terms' },
+  { name: 'qpe', tier: 'quantum', summary: 'Quantum phase estimation (Aspuru-Guzik et al., Science 309, 1704 (2005)).', scaling: 'deep circuits: Hamiltonian simulation to the target precision' },
+];
+
+export const ANSATZE: readonly TermInfo[] = [
+  { name: 'uccsd', summary: 'Unitary coupled cluster with singles and doubles.', scaling: 'parameters grow as o^2 v^2', reference: 'Peruzzo et al., Nat. Commun. 5, 4213 (2014); Romero et al., Quantum Sci. Technol. 4, 014008 (2019)' },
+  { name: 'k-upccgsd', summary: 'k products of unitary pair coupled cluster with generalized singles and doubles.', scaling: 'parameters grow as k n^2', reference: 'Lee, Huggins, Head-Gordon, Whaley, J. Chem. Theory Comput. 15, 311 (2019)' },
+  { name: 'hardware-efficient', summary: 'Layers of single-qubit rotations and entangling gates native to the device.', scaling: 'parameters grow as layers × qubits', reference: 'Kandala et al., Nature 549, 242 (2017)' },
+];
+
+export const MAPPING_TERMS: readonly TermInfo[] = [
+  { name: 'jordan-wigner', summary: 'Jordan–Wigner: one qubit per spin orbital; occupation stored locally, parity in strings of Z.', scaling: '2n qubits; Pauli weight up to O(n)', reference: 'P. Jordan, E. Wigner, Z. Phys. 47, 631 (1928)' },
+  { name: 'bravyi-kitaev', summary: 'Bravyi–Kitaev: one qubit per spin orbital; occupation and parity stored in a binary tree.', scaling: '2n qubits; Pauli weight O(log n)', reference: 'S. Bravyi, A. Kitaev, Ann. Phys. 298, 210 (2002); Seeley, Richard, Love, J. Chem. Phys. 137, 224109 (2012)' },
+  { name: 'parity', summary: 'Parity mapping; with the two-qubit reduction the two qubits fixed by particle-number and spin parity are removed.', scaling: '2n − 2 qubits', reference: 'Bravyi, Gambetta, Mezzacapo, Temme, arXiv:1701.08213 (2017)' },
+];
+
+export const EMBEDDINGS: readonly TermInfo[] = [
+  { name: 'dmet', summary: 'Density-matrix embedding: each fragment gets bath orbitals from a mean-field of the whole system; its impurity problem is up to twice the fragment size.', reference: 'Knizia, Chan, Phys. Rev. Lett. 109, 186404 (2012)' },
+  { name: 'projection', summary: 'Projection-based embedding: the fragment is solved in its own orbitals in the field of a frozen environment.', reference: 'Manby, Stella, Goodpaster, Miller, J. Chem. Theory Comput. 8, 2564 (2012)' },
+  { name: 'subtractive', summary: 'Subtractive (ONIOM-like) combination: high-level fragment energies corrected by low-level ones.', reference: 'Svensson et al., J. Phys. Chem. 100, 19357 (1996)' },
+  { name: 'none', summary: 'Fragments are planned independently.' },
+];
+
+export const UNIT_TERMS: readonly TermInfo[] = [
+  { name: 'angstrom', summary: 'Ångström, 1e-10 m.' },
+  { name: 'bohr', summary: 'Bohr radius, 0.529177210903 Å (CODATA 2018).' },
+];
+
+export const FUNCTION_TERMS: readonly TermInfo[] = [
+  { name: 'spherical', summary: 'Pure (spherical-harmonic) functions: 2l+1 per shell (5 d, 7 f).' },
+  { name: 'cartesian', summary: 'Cartesian functions: (l+1)(l+2)/2 per shell (6 d, 10 f).' },
+];
+
+export const SWITCH_TERMS: readonly TermInfo[] = [
+  { name: 'on', summary: 'Enabled.' },
+  { name: 'off', summary: 'Disabled.' },
+];
+
+export const SCAN_KINDS: readonly TermInfo[] = [
+  { name: 'distance', summary: 'A distance between two atoms.' },
+];
+
+export const SELECTOR_WORDS: readonly TermInfo[] = [
+  { name: 'rest', summary: 'Every atom that no other fragment claims.' },
+  { name: 'all', summary: '`all <Element>`: every atom of that element.' },
+  { name: 'within', summary: '`within <d> of <atom>`: every atom at most d (file units) from that atom, itself included.' },
+];
+
+export function methodsForTier(tier: TierLevel): (TermInfo & { readonly tier: TierLevel })[] {
+  return METHODS.filter((method) => method.tier === tier);
+}
+
+export function findTerm(terms: readonly TermInfo[], name: string): TermInfo | undefined {
+  return terms.find((term) => term.name === name);
+}
