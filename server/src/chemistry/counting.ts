@@ -160,8 +160,9 @@ export interface ActiveSpaceProblem {
  * Checks an active space against the orbital space it is chosen from. The active orbitals come
  * from outside the frozen core. When the active electrons have the parity the multiplicity needs,
  * the electrons left outside are even and fill whole inactive orbitals, so that needs no check.
+ * With `orbitalsKnown` false (a basis that misses some element) the orbital total is not checked.
  */
-export function checkActiveSpace(space: OrbitalSpace, request: ActiveSpaceRequest): ActiveSpaceProblem[] {
+export function checkActiveSpace(space: OrbitalSpace, request: ActiveSpaceRequest, orbitalsKnown = true): ActiveSpaceProblem[] {
   const problems: ActiveSpaceProblem[] = [];
   const { electrons, orbitals } = request;
   const unpaired = space.multiplicity - 1;
@@ -175,7 +176,7 @@ export function checkActiveSpace(space: OrbitalSpace, request: ActiveSpaceReques
       message: `${electrons} electrons do not fit in ${orbitals} orbitals (at most ${2 * orbitals}).`,
     });
   }
-  if (orbitals > availableOrbitals) {
+  if (orbitalsKnown && orbitals > availableOrbitals) {
     const frozenNote = space.frozenCore.orbitals > 0 ? ` (${space.orbitals} orbitals − ${space.frozenCore.orbitals} frozen-core)` : '';
     problems.push({
       kind: 'orbitals-exceed-available',
@@ -208,7 +209,8 @@ export function checkActiveSpace(space: OrbitalSpace, request: ActiveSpaceReques
 /**
  * The largest active space whose orbitals fit a qubit budget under a mapping. Electrons stay as
  * requested when they still fit; otherwise the space is taken half-filled (n electrons in n
- * orbitals, the usual CAS(n,n) choice around the Fermi level), adjusted to the spin's parity.
+ * orbitals, the usual CAS(n,n) choice around the Fermi level), adjusted to the spin's parity;
+ * between two equally near counts the larger one is taken.
  */
 export function largestActiveSpaceWithin(
   space: OrbitalSpace,
@@ -223,7 +225,7 @@ export function largestActiveSpaceWithin(
     electrons >= unpaired && electrons <= availableElectrons && (electrons - unpaired) % 2 === 0 && (electrons + unpaired) / 2 <= orbitals;
   if (fits(space.active.electrons)) return { electrons: space.active.electrons, orbitals };
   for (let delta = 0; delta <= orbitals + 1; delta++) {
-    for (const electrons of [orbitals - delta, orbitals + delta]) {
+    for (const electrons of [orbitals + delta, orbitals - delta]) {
       if (fits(electrons)) return { electrons, orbitals };
     }
   }

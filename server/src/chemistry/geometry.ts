@@ -20,12 +20,21 @@ export function distance(coords: ArrayLike<number>, i: number, j: number): numbe
   return Math.sqrt(dx * dx + dy * dy + dz * dz);
 }
 
-/** Buckets atoms into cubic cells of a given edge; pairs closer than the edge sit in adjacent cells. */
+/**
+ * Buckets atoms into cubic cells of a given edge, so that pairs closer than the edge sit in
+ * neighbouring cells. Cells are stored densely (counting sort into flat arrays) when the box is
+ * not much larger than the number of atoms, and in a hash map otherwise.
+ */
 export class NeighbourGrid {
-  private readonly cells = new Map<number, number[]>();
   private readonly cellSize: number;
   private readonly origin: [number, number, number];
   private readonly dims: [number, number, number];
+  private readonly cellOf: Float64Array;
+  /** Dense storage: atoms of cell c are sortedAtoms[cellStart[c] .. cellStart[c + 1]). */
+  private readonly cellStart: Int32Array | undefined;
+  private readonly sortedAtoms: Int32Array | undefined;
+  /** Sparse storage for boxes with far more cells than atoms. */
+  private readonly sparse: Map<number, number[]> | undefined;
 
   constructor(
     private readonly coords: ArrayLike<number>,
@@ -50,11 +59,27 @@ export class NeighbourGrid {
     this.cellSize = Math.max(cellSize, extent / 100_000, 1e-9);
     this.origin = min;
     this.dims = [0, 1, 2].map((k) => Math.floor((max[k]! - min[k]!) / this.cellSize) + 1) as [number, number, number];
-    for (let i = 0; i < count; i++) {
-      const key = this.keyOf(this.cellIndex(i, 0), this.cellIndex(i, 1), this.cellIndex(i, 2));
-      const bucket = this.cells.get(key);
-      if (bucket) bucket.push(i);
-      else this.cells.set(key, [i]);
+    this.cellOf = new Float64Array(count);
+    for (let i = 0; i < count; i++) this.cellOf[i] = this.keyOf(this.cellIndex(i, 0), this.cellIndex(i, 1), this.cellIndex(i, 2));
+    const totalCells = this.dims[0] * this.dims[1] * this.dims[2];
+    if (totalCells <= Math.max(1 << 16, 8 * count)) {
+      const start = new Int32Array(totalCells + 1);
+      for (let i = 0; i < count; i++) start[this.cellOf[i]! + 1]!++;
+      for (let c = 0; c < totalCells; c++) start[c + 1]! += start[c]!;
+      const fill = start.slice(0, totalCells);
+      const sorted = new Int32Array(count);
+      for (let i = 0; i < count; i++) sorted[fill[this.cellOf[i]!]!++] = i;
+      this.cellStart = start;
+      this.sortedAtoms = sorted;
+    } else {
+      const map = new Map<number, number[]>();
+      for (let i = 0; i < count; i++) {
+        const key = this.cellOf[i]!;
+        const bucket = map.get(key);
+        if (bucket) bucket.push(i);
+        else map.set(key, [i]);
+      }
+      this.sparse = map;
     }
   }
 
@@ -66,40 +91,43 @@ export class NeighbourGrid {
     return x + this.dims[0] * (y + this.dims[1] * z);
   }
 
+  private inside(x: number, y: number, z: number): boolean {
+    return x >= 0 && y >= 0 && z >= 0 && x < this.dims[0] && y < this.dims[1] && z < this.dims[2];
+  }
+
   /** Calls `visit` once for every unordered pair closer than `cutoff` (cutoff <= cell size). */
   forEachPairWithin(cutoff: number, visit: (i: number, j: number, distance: number) => void): void {
     const cutoffSquared = cutoff * cutoff;
     const coords = this.coords;
-    const [nx, ny, nz] = this.dims;
-    for (const [key, bucket] of this.cells) {
+    const count = coords.length / 3;
+    const [nx, ny] = this.dims;
+    const start = this.cellStart;
+    const sorted = this.sortedAtoms;
+    for (let i = 0; i < count; i++) {
+      const key = this.cellOf[i]!;
       const x = key % nx;
       const y = Math.floor(key / nx) % ny;
       const z = Math.floor(key / (nx * ny));
+      const xi = coords[3 * i]!;
+      const yi = coords[3 * i + 1]!;
+      const zi = coords[3 * i + 2]!;
       for (let dz = -1; dz <= 1; dz++) {
         for (let dy = -1; dy <= 1; dy++) {
           for (let dx = -1; dx <= 1; dx++) {
-            const cx = x + dx;
-            const cy = y + dy;
-            const cz = z + dz;
-            if (cx < 0 || cy < 0 || cz < 0 || cx >= nx || cy >= ny || cz >= nz) continue;
-            const otherKey = this.keyOf(cx, cy, cz);
-            if (otherKey < key) continue;
-            const other = this.cells.get(otherKey);
-            if (!other) continue;
-            const same = otherKey === key;
-            for (let a = 0; a < bucket.length; a++) {
-              const i = bucket[a]!;
-              const xi = coords[3 * i]!;
-              const yi = coords[3 * i + 1]!;
-              const zi = coords[3 * i + 2]!;
-              for (let b = same ? a + 1 : 0; b < other.length; b++) {
-                const j = other[b]!;
-                const ddx = xi - coords[3 * j]!;
-                const ddy = yi - coords[3 * j + 1]!;
-                const ddz = zi - coords[3 * j + 2]!;
-                const squared = ddx * ddx + ddy * ddy + ddz * ddz;
-                if (squared < cutoffSquared) visit(Math.min(i, j), Math.max(i, j), Math.sqrt(squared));
-              }
+            if (!this.inside(x + dx, y + dy, z + dz)) continue;
+            const cell = this.keyOf(x + dx, y + dy, z + dz);
+            // Dense storage reads a range of `sorted`; sparse storage reads the cell's bucket.
+            const bucket = sorted ? undefined : this.sparse?.get(cell);
+            const from = sorted ? start![cell]! : 0;
+            const to = sorted ? start![cell + 1]! : (bucket?.length ?? 0);
+            for (let k = from; k < to; k++) {
+              const j = sorted ? sorted[k]! : bucket![k]!;
+              if (j <= i) continue;
+              const ddx = xi - coords[3 * j]!;
+              const ddy = yi - coords[3 * j + 1]!;
+              const ddz = zi - coords[3 * j + 2]!;
+              const squared = ddx * ddx + ddy * ddy + ddz * ddz;
+              if (squared < cutoffSquared) visit(i, j, Math.sqrt(squared));
             }
           }
         }
@@ -107,21 +135,23 @@ export class NeighbourGrid {
     }
   }
 
-  /** Atoms within `radius` of atom `i` (radius <= cell size), excluding `i` itself. */
+  /** Atoms within `radius` of atom `i`, excluding `i` itself, nearest first. */
   neighboursOf(i: number, radius: number): AtomPair[] {
     const found: AtomPair[] = [];
-    const cx = this.cellIndex(i, 0);
-    const cy = this.cellIndex(i, 1);
-    const cz = this.cellIndex(i, 2);
+    const key = this.cellOf[i]!;
+    const [nx, ny] = this.dims;
+    const cx = key % nx;
+    const cy = Math.floor(key / nx) % ny;
+    const cz = Math.floor(key / (nx * ny));
     const reach = Math.ceil(radius / this.cellSize);
     for (let dz = -reach; dz <= reach; dz++) {
       for (let dy = -reach; dy <= reach; dy++) {
         for (let dx = -reach; dx <= reach; dx++) {
-          const x = cx + dx;
-          const y = cy + dy;
-          const z = cz + dz;
-          if (x < 0 || y < 0 || z < 0 || x >= this.dims[0] || y >= this.dims[1] || z >= this.dims[2]) continue;
-          for (const j of this.cells.get(this.keyOf(x, y, z)) ?? []) {
+          if (!this.inside(cx + dx, cy + dy, cz + dz)) continue;
+          const cell = this.keyOf(cx + dx, cy + dy, cz + dz);
+          const atoms = this.sortedAtoms ? this.sortedAtoms.subarray(this.cellStart![cell]!, this.cellStart![cell + 1]!) : (this.sparse?.get(cell) ?? []);
+          for (let k = 0; k < atoms.length; k++) {
+            const j = atoms[k]!;
             if (j === i) continue;
             const d = distance(this.coords, i, j);
             if (d <= radius) found.push({ i, j, distance: d });

@@ -27,6 +27,8 @@ export interface AnalyzeOptions {
   readonly files?: FileHost;
   /** Mapping for quantum tiers that name none (default jordan-wigner). */
   readonly defaultMapping?: Mapping;
+  /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
+  readonly fastGeometry?: boolean;
 }
 
 export interface Analysis {
@@ -53,7 +55,7 @@ const SYNTAX_CODES: Record<SyntaxProblem['code'], DiagnosticCode> = {
 
 export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
   const sink = new DiagnosticSink();
-  const tree = parseSpec(text);
+  const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
   for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
   const ast = interpret(tree, sink);
   const model = buildModel(ast, sink, {

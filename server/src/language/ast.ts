@@ -2,8 +2,9 @@
  * The typed syntax tree: what each statement says, with the span of every part. Built from the
  * concrete tree by `interpret.ts`; names are not resolved yet (that is `model.ts`).
  */
+import { elementByNumber } from '../chemistry/elements';
 import type { Span } from './text';
-import type { Statement } from './syntax';
+import type { AtomTable, Statement } from './syntax';
 import type { TierLevel } from './vocabulary';
 
 export interface Located<T> {
@@ -48,10 +49,51 @@ export interface AtomAst {
   readonly span: Span;
 }
 
+/**
+ * The valid atom lines of a geometry, read through one interface whether they are stored as
+ * AtomAst objects (general parser) or column-wise (fast reader, see AtomTable).
+ */
+export interface AtomList {
+  readonly length: number;
+  /** Canonical element symbol. */
+  symbol(i: number): string;
+  label(i: number): string | undefined;
+  /** Coordinate `axis` (0 x, 1 y, 2 z) in the file's unit. */
+  coordinate(i: number, axis: number): number;
+  /** The whole atom line. */
+  span(i: number): Span;
+  elementSpan(i: number): Span;
+  labelSpan(i: number): Span | undefined;
+}
+
 export interface GeometryAst {
   readonly statement: Statement;
-  readonly atoms: AtomAst[];
+  readonly atoms: AtomList;
   readonly include?: Located<string>;
+}
+
+export function atomListOf(atoms: readonly AtomAst[]): AtomList {
+  return {
+    length: atoms.length,
+    symbol: (i) => atoms[i]!.element.value,
+    label: (i) => atoms[i]!.label?.value,
+    coordinate: (i, axis) => atoms[i]!.coordinates[axis]!.value,
+    span: (i) => atoms[i]!.span,
+    elementSpan: (i) => atoms[i]!.element.span,
+    labelSpan: (i) => atoms[i]!.label?.span,
+  };
+}
+
+export function atomListOfTable(table: AtomTable): AtomList {
+  return {
+    length: table.count,
+    symbol: (i) => elementByNumber(table.atomicNumbers[i]!)!.symbol,
+    label: (i) => table.labels.get(i),
+    coordinate: (i, axis) => table.coordinates[3 * i + axis]!,
+    span: (i) => ({ start: table.lineStart[i]!, end: table.lineEnd[i]! }),
+    elementSpan: (i) => ({ start: table.lineStart[i]!, end: table.elementEnd[i]! }),
+    labelSpan: (i) => (table.labelStart[i]! >= 0 ? { start: table.labelStart[i]!, end: table.labelEnd[i]! } : undefined),
+  };
 }
 
 export type AtomRef =

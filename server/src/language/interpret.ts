@@ -5,19 +5,21 @@
  */
 import { elementBySymbol } from '../chemistry/elements';
 import { parseMemorySize } from './values';
-import type {
-  ActiveSpaceAst,
-  AtomAst,
-  AtomRef,
-  BasisAst,
-  FragmentAst,
-  GeometryAst,
-  LimitsAst,
-  Located,
-  ScanAst,
-  SelectorAst,
-  SpecAst,
-  TierAst,
+import {
+  atomListOf,
+  atomListOfTable,
+  type ActiveSpaceAst,
+  type AtomAst,
+  type AtomRef,
+  type BasisAst,
+  type FragmentAst,
+  type GeometryAst,
+  type LimitsAst,
+  type Located,
+  type ScanAst,
+  type SelectorAst,
+  type SpecAst,
+  type TierAst,
 } from './ast';
 import type { DiagnosticSink } from './diagnostics';
 import { didYouMean, suggest } from './suggest';
@@ -348,6 +350,9 @@ class Interpreter {
   }
 
   private geometry(statement: Statement): GeometryAst {
+    if (statement.args.length === 0 && statement.block?.atomTable) {
+      return { statement, atoms: atomListOfTable(statement.block.atomTable) };
+    }
     const atoms: AtomAst[] = [];
     let include: Located<string> | undefined;
     if (statement.args.length > 0) {
@@ -373,7 +378,7 @@ class Interpreter {
         if (atom) atoms.push(atom);
       }
     }
-    return include ? { statement, atoms, include } : { statement, atoms };
+    return include ? { statement, atoms: atomListOf(atoms), include } : { statement, atoms: atomListOf(atoms) };
   }
 
   private atom(statement: Statement): AtomAst | undefined {
@@ -428,7 +433,7 @@ class Interpreter {
     }
     const fragment: FragmentAst = name ? { statement, name } : { statement };
     if (!statement.block) {
-      this.sink.report('missing-block', name?.span ?? statement.keyword.span, `Fragment '${name?.value ?? ''}' needs a block with its atoms: \`fragment ${name?.value ?? 'name'} { atoms ... }\`.`);
+      this.sink.report('missing-block', name?.span ?? statement.keyword.span, `${name ? `Fragment '${name.value}'` : 'A fragment'} needs a block with its atoms: \`fragment ${name?.value ?? 'name'} { atoms ... }\`.`);
       return fragment;
     }
     const scope = `fragment@${statement.span.start}`;

@@ -86,8 +86,10 @@ export interface SpecModel {
   readonly frozenCore: boolean;
   readonly basis: BasisModel;
   readonly fragments: FragmentModel[];
-  /** For each atom, the fragments that claim it (usually one). */
-  readonly claims: number[][];
+  /** Per atom: the first fragment that claims it, or -1 when none does. */
+  readonly owner: Int32Array;
+  /** Atoms claimed by more than one fragment, with every claimant in fragment order. */
+  readonly sharedAtoms: ReadonlyMap<number, number[]>;
   readonly embedding: string;
   readonly scan: ScanModel | undefined;
   readonly limits: { readonly qubits?: number; readonly memoryBytes?: number };
@@ -113,7 +115,7 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const units = ast.units?.value ?? 'angstrom';
   const includes: string[] = [];
   const atoms = readAtoms(ast, units, sink, options, includes);
-  const coordinates = new Float64Array(atoms.positions);
+  const coordinates = atoms.positions;
   const labels = new Map<string, number>();
   for (const atom of atoms.list) {
     if (!atom.label) continue;
@@ -128,7 +130,12 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
     labels.set(atom.label, atom.index);
   }
   const basis = resolveBasis(ast);
-  const counted = atoms.list.map((atom) => countedAtom(atom.element, basis));
+  const countedByElement = new Map<string, CountedAtom>();
+  const counted = atoms.list.map((atom) => {
+    let entry = countedByElement.get(atom.element.symbol);
+    if (!entry) countedByElement.set(atom.element.symbol, (entry = countedAtom(atom.element, basis)));
+    return entry;
+  });
   const charge = ast.charge?.value ?? 0;
   const systemElectrons = electronCount(counted, charge);
   const multiplicity = ast.multiplicity?.value ?? lowestMultiplicity(systemElectrons);
@@ -143,19 +150,28 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   // them and the fragment checks report the second.
   const restOwner = selections.find((selection) => selection.claimsRest);
   if (restOwner) {
-    const claimed = new Uint8Array(atoms.list.length);
+    const claimedElsewhere = new Uint8Array(atoms.list.length);
     for (const selection of selections) {
-      if (!selection.claimsRest) for (const atom of selection.atoms) claimed[atom] = 1;
+      if (selection !== restOwner) for (const atom of selection.atoms) claimedElsewhere[atom] = 1;
     }
-    const merged = new Set(restOwner.atoms);
-    claimed.forEach((isClaimed, atom) => {
-      if (!isClaimed) merged.add(atom);
-    });
-    restOwner.atoms = [...merged].sort((a, b) => a - b);
+    const own = new Uint8Array(atoms.list.length);
+    for (const atom of restOwner.atoms) own[atom] = 1;
+    const merged: number[] = [];
+    for (let atom = 0; atom < atoms.list.length; atom++) if (own[atom] || !claimedElsewhere[atom]) merged.push(atom);
+    restOwner.atoms = merged;
   }
-  const claims: number[][] = atoms.list.map(() => []);
+  const owner = new Int32Array(atoms.list.length).fill(-1);
+  const sharedAtoms = new Map<number, number[]>();
   selections.forEach((selection, index) => {
-    for (const atom of selection.atoms) claims[atom]!.push(index);
+    for (const atom of selection.atoms) {
+      const first = owner[atom]!;
+      if (first < 0) owner[atom] = index;
+      else {
+        const claimants = sharedAtoms.get(atom);
+        if (claimants) claimants.push(index);
+        else sharedAtoms.set(atom, [first, index]);
+      }
+    }
   });
   const fragments = ast.fragments.map((fragmentAst, index) =>
     finishFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options),
@@ -174,7 +190,8 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
     frozenCore,
     basis,
     fragments,
-    claims,
+    owner,
+    sharedAtoms,
     embedding: ast.embedding?.value ?? 'none',
     scan: resolveScan(ast, resolver, units),
     limits: {
@@ -185,6 +202,14 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
     contacts,
     includes,
   };
+}
+
+/** The fragments that claim an atom, in fragment order (usually one). */
+export function claimsOf(model: SpecModel, atom: number): number[] {
+  const shared = model.sharedAtoms.get(atom);
+  if (shared) return shared;
+  const first = model.owner[atom] ?? -1;
+  return first >= 0 ? [first] : [];
 }
 
 function countedAtom(element: Element, basis: BasisModel): CountedAtom {
@@ -267,26 +292,27 @@ function tierModel(ast: TierAst, multiplicity: number, defaultFrozenCore: boolea
 
 interface ReadAtoms {
   readonly list: AtomModel[];
-  readonly positions: number[];
+  /** x, y, z of every atom in ångström. */
+  readonly positions: Float64Array;
 }
 
 function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink, options: ModelOptions, includes: string[]): ReadAtoms {
   const list: AtomModel[] = [];
-  const positions: number[] = [];
+  const none = { list, positions: new Float64Array(0) };
   const geometry = ast.geometry;
-  if (!geometry) return { list, positions };
+  if (!geometry) return none;
   if (geometry.include) {
     const include = geometry.include;
     const resolved = resolveInclude(options.path, include.value, options.files);
     if (!resolved.ok) {
       sink.report('include-outside-folder', include.span, `Cannot read "${include.value}": ${resolved.reason}.`);
-      return { list, positions };
+      return none;
     }
     includes.push(resolved.path);
     const read = options.files.readFile(resolved.path);
     if (!read.ok) {
       sink.report('include-unreadable', include.span, `Cannot read "${include.value}" (${resolved.path}): ${read.reason}.`);
-      return { list, positions };
+      return none;
     }
     const xyz = parseXyz(read.text);
     for (const problem of xyz.problems) {
@@ -297,20 +323,26 @@ function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink, option
     if (xyz.frames > 1) {
       sink.report('include-invalid', include.span, `"${include.value}" holds ${xyz.frames} frames; the first one is the geometry.`, { severity: 'information' });
     }
-    for (const atom of xyz.atoms) {
+    const positions = new Float64Array(3 * xyz.atoms.length);
+    xyz.atoms.forEach((atom, i) => {
       const element = elementBySymbol(atom.symbol)!;
-      list.push({ index: list.length, element, span: include.span, source: { file: resolved.path, line: atom.line } });
-      positions.push(atom.x, atom.y, atom.z);
-    }
+      list.push({ index: i, element, span: include.span, source: { file: resolved.path, line: atom.line } });
+      positions.set([atom.x, atom.y, atom.z], 3 * i);
+    });
     return { list, positions };
   }
-  for (const atom of geometry.atoms) {
-    const element = elementBySymbol(atom.element.value)!;
-    const entry: AtomModel = atom.label
-      ? { index: list.length, element, label: atom.label.value, span: atom.span, labelSpan: atom.label.span }
-      : { index: list.length, element, span: atom.span };
-    list.push(entry);
-    for (const coordinate of atom.coordinates) positions.push(toAngstrom(coordinate.value, units));
+  const atoms = geometry.atoms;
+  const positions = new Float64Array(3 * atoms.length);
+  for (let i = 0; i < atoms.length; i++) {
+    const element = elementBySymbol(atoms.symbol(i))!;
+    const label = atoms.label(i);
+    const labelSpan = atoms.labelSpan(i);
+    list.push(
+      label !== undefined && labelSpan
+        ? { index: i, element, label, span: atoms.span(i), labelSpan }
+        : { index: i, element, span: atoms.span(i) },
+    );
+    for (let axis = 0; axis < 3; axis++) positions[3 * i + axis] = toAngstrom(atoms.coordinate(i, axis), units);
   }
   return { list, positions };
 }

@@ -32,7 +32,8 @@ import {
   UnterminatedString,
   Word,
 } from './lexer';
-import type { Argument, ArgumentKind, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
+import { atomTableStatements, extractGeometryBodies, type FastGeometryBlock } from './geometryFastPath';
+import type { Argument, ArgumentKind, AtomTable, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
 import { span, type Span } from './text';
 
 /** Keywords that only start top-level statements; seeing one at a line start closes an unclosed block. */
@@ -216,21 +217,95 @@ class SpecParser extends EmbeddedActionsParser {
 
 let sharedParser: SpecParser | undefined;
 
+/** Deeper blocks than this are never meaningful (the language nests three levels) and would only cost stack. */
+export const MAX_BLOCK_DEPTH = 16;
+
+/**
+ * Drops braces nested deeper than MAX_BLOCK_DEPTH, with their matching closers, so that the
+ * recursive parser cannot exhaust the stack on pathological input.
+ */
+function limitNesting(tokens: IToken[], problems: SyntaxProblem[]): IToken[] {
+  let depth = 0;
+  let dropped = 0;
+  let reported = false;
+  const kept: IToken[] = [];
+  for (const token of tokens) {
+    if (token.tokenType === LBrace) {
+      if (depth >= MAX_BLOCK_DEPTH) {
+        dropped++;
+        if (!reported) {
+          problems.push({ code: 'unexpected-token', message: `Blocks are nested deeper than ${MAX_BLOCK_DEPTH} levels; the deeper braces are ignored.`, span: tokenSpan(token) });
+          reported = true;
+        }
+        continue;
+      }
+      depth++;
+    } else if (token.tokenType === RBrace) {
+      if (dropped > 0) {
+        dropped--;
+        continue;
+      }
+      depth = Math.max(0, depth - 1);
+    }
+    kept.push(token);
+  }
+  return kept;
+}
+
+export interface ParseOptions {
+  /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
+  readonly fastGeometry?: boolean;
+}
+
+/** A geometry block read by the fast reader: its statements are built from the table on first use. */
+function tableBlock(block: Block, table: AtomTable): Block {
+  let statements: Statement[] | undefined;
+  return {
+    open: block.open,
+    ...(block.close ? { close: block.close } : {}),
+    span: block.span,
+    atomTable: table,
+    get statements(): Statement[] {
+      return (statements ??= atomTableStatements(table));
+    },
+  };
+}
+
+/** Puts what the fast reader found into the geometry blocks the parser saw as empty. */
+function injectGeometry(statements: Statement[], blocks: readonly FastGeometryBlock[]): Statement[] {
+  const byOpen = new Map(blocks.map((block) => [block.open, block]));
+  const visit = (list: Statement[]): Statement[] =>
+    list.map((statement) => {
+      if (!statement.block) return statement;
+      const fast = byOpen.get(statement.block.open.start);
+      const block = fast ? tableBlock(statement.block, fast.table) : { ...statement.block, statements: visit(statement.block.statements) };
+      return { ...statement, block };
+    });
+  return visit(statements);
+}
+
 /** Parses spec text into a syntax tree; never throws on bad input. */
-export function parseSpec(text: string): SyntaxTree {
-  const lexed = tokenize(text);
+export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree {
+  const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text);
+  const lexed = tokenize(masked);
   const parser = (sharedParser ??= new SpecParser());
+  const nestingProblems: SyntaxProblem[] = [];
+  const tokens = limitNesting(lexed.tokens, nestingProblems);
   parser.prepare(text);
-  parser.input = lexed.tokens;
-  const statements = parser.document();
-  const problems: SyntaxProblem[] = [...lexerProblems(text, lexed.errors), ...parser.problems];
+  parser.input = tokens;
+  const parsed = parser.document();
+  const statements = blocks.length > 0 ? injectGeometry(parsed, blocks) : parsed;
+  const problems: SyntaxProblem[] = [...lexerProblems(text, lexed.errors), ...nestingProblems, ...parser.problems];
   for (const error of parser.errors) {
     problems.push({ code: 'syntax', message: error.message, span: tokenSpan(error.token) });
   }
   problems.sort((a, b) => a.span.start - b.span.start);
+  const comments = lexed.comments.map((token) => ({ text: token.image, span: tokenSpan(token) }));
+  for (const block of blocks) comments.push(...block.comments);
+  if (blocks.length > 0) comments.sort((a, b) => a.span.start - b.span.start);
   return {
     statements,
-    comments: lexed.comments.map((token) => ({ text: token.image, span: tokenSpan(token) })),
+    comments,
     problems,
     textLength: text.length,
   };

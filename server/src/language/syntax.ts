@@ -27,6 +27,35 @@ export interface Block {
   readonly close?: Span;
   readonly statements: Statement[];
   readonly span: Span;
+  /**
+   * For a plain geometry block read by the fast reader: its atom lines column by column. Then
+   * `statements` is built from it on first use; analysis reads the table directly.
+   */
+  readonly atomTable?: AtomTable;
+}
+
+/**
+ * Atom lines `Element [label] x y z` stored column-wise, so that a geometry of ten thousand atoms
+ * costs a few typed arrays instead of a hundred thousand small objects. Offsets point into `text`.
+ */
+export interface AtomTable {
+  readonly text: string;
+  readonly count: number;
+  /** Atomic number of each atom. */
+  readonly atomicNumbers: Uint8Array;
+  /** Labels of the labelled atoms, by atom position. */
+  readonly labels: ReadonlyMap<number, string>;
+  /** Start and end of each atom line (from the element to the last coordinate). */
+  readonly lineStart: Int32Array;
+  readonly lineEnd: Int32Array;
+  readonly elementEnd: Int32Array;
+  /** -1 when the atom has no label. */
+  readonly labelStart: Int32Array;
+  readonly labelEnd: Int32Array;
+  /** Three entries per atom. */
+  readonly coordinateStart: Int32Array;
+  readonly coordinateEnd: Int32Array;
+  readonly coordinates: Float64Array;
 }
 
 export interface Statement {

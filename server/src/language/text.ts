@@ -32,14 +32,18 @@ export function spanContains(outer: Span, offset: number): boolean {
 
 /** Converts between offsets and line/character positions of one text. */
 export class LineIndex {
-  private readonly lineStarts: number[];
+  private starts: number[] | undefined;
 
-  constructor(private readonly text: string) {
-    const starts = [0];
-    for (let i = 0; i < text.length; i++) {
-      if (text.charCodeAt(i) === 10) starts.push(i + 1);
+  constructor(private readonly text: string) {}
+
+  /** Computed on first use: analysis of a clean document never needs it. */
+  private get lineStarts(): number[] {
+    if (!this.starts) {
+      const starts = [0];
+      for (let i = this.text.indexOf('\n'); i >= 0; i = this.text.indexOf('\n', i + 1)) starts.push(i + 1);
+      this.starts = starts;
     }
-    this.lineStarts = starts;
+    return this.starts;
   }
 
   get lineCount(): number {

@@ -35,5 +35,6 @@ export function parseMemorySize(args: readonly Argument[]): MemoryReading {
   if (factor === undefined) return { ok: false, message: `Unknown memory unit '${unitText}'; use one of ${UNIT_LIST}.`, span: last.span };
   const amount = Number(amountText);
   if (!Number.isFinite(amount) || amount <= 0) return { ok: false, message: 'The memory size must be a positive number.', span: first.span };
+  if (!Number.isFinite(amount * factor)) return { ok: false, message: 'This memory size is too large to be a number.', span: first.span };
   return { ok: true, bytes: amount * factor, span: whole };
 }

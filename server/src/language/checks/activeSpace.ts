@@ -9,9 +9,10 @@ export function checkActiveSpaces(context: CheckContext): void {
     const activeAst = fragment.ast.tier?.active;
     if (!active || !activeAst || fragment.tier?.level === 'mean-field') continue;
     const space = fragment.space;
-    // Counts are not trustworthy while the spin or the basis is wrong; those errors come first.
-    if (!space.spin || space.atomsWithoutBasis > 0 || fragment.atoms.length === 0) continue;
-    for (const problem of checkActiveSpace(space, active)) {
+    // Counts are not trustworthy while the spin is wrong; that error comes first. Without a basis
+    // for every atom the orbital total is unknown, but capacity and spin can still be checked.
+    if (!space.spin || fragment.atoms.length === 0) continue;
+    for (const problem of checkActiveSpace(space, active, space.atomsWithoutBasis === 0)) {
       sink.report('active-space-invalid', activeAst.span, `Active space of '${fragment.name}': ${problem.message}`, { data: { kind: problem.kind } });
     }
   }

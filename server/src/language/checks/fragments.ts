@@ -33,19 +33,23 @@ export function checkFragments(context: CheckContext): void {
   }
 
   for (const fragment of model.fragments) {
-    if (fragment.atoms.length > 0) continue;
+    // A fragment without a block already has its own error (missing-block).
+    if (fragment.atoms.length > 0 || !fragment.ast.statement.block) continue;
     if (!fragment.ast.atoms) {
       sink.report('fragment-empty', nameSpan(fragment), `Fragment '${fragment.name}' has no atoms: add \`atoms ...\` inside its block.`);
+    } else if (model.atoms.length === 0) {
+      // No atoms were read at all; the geometry's own diagnostic says why.
+      continue;
     } else if (fragment.claimsRest && fragment.ast.atoms.selectors.length === 1) {
       sink.report('fragment-empty', fragment.ast.atoms.span, `Fragment '${fragment.name}' claims the rest, but every atom is already in another fragment.`);
-    } else if (model.atoms.length > 0) {
+    } else {
       sink.report('fragment-empty', fragment.ast.atoms.span, `Fragment '${fragment.name}' selects no atoms.`);
     }
   }
 
   // Overlaps: one report per pair of fragments, on the later fragment's atoms line.
   const overlaps = new Map<string, number[]>();
-  model.claims.forEach((owners, atom) => {
+  model.sharedAtoms.forEach((owners, atom) => {
     for (let a = 0; a < owners.length; a++) {
       for (let b = a + 1; b < owners.length; b++) {
         const key = `${owners[a]}:${owners[b]}`;
@@ -69,8 +73,8 @@ export function checkFragments(context: CheckContext): void {
   }
 
   const unassigned: number[] = [];
-  model.claims.forEach((owners, atom) => {
-    if (owners.length === 0) unassigned.push(atom);
+  model.owner.forEach((owner, atom) => {
+    if (owner < 0) unassigned.push(atom);
   });
   if (unassigned.length > 0 && restClaimants.length === 0) {
     const names = unassigned.map((atom) => shortAtomName(model.atoms[atom]!));

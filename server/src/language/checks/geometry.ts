@@ -64,11 +64,11 @@ export function checkGeometry(context: CheckContext): void {
 function checkCutBonds(context: CheckContext): void {
   const { model, sink } = context;
   if (model.fragments.length < 2) return;
-  const owner = model.claims.map((owners) => (owners.length === 1 ? owners[0]! : -1));
+  const owner = (atom: number) => (model.sharedAtoms.has(atom) ? -1 : model.owner[atom]!);
   const cuts = new Map<string, { i: number; j: number; distance: number }[]>();
   for (const bond of model.contacts.bonds) {
-    const a = owner[bond.i]!;
-    const b = owner[bond.j]!;
+    const a = owner(bond.i);
+    const b = owner(bond.j);
     if (a < 0 || b < 0 || a === b) continue;
     const key = a < b ? `${a}:${b}` : `${b}:${a}`;
     const list = cuts.get(key);

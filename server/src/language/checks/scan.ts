@@ -1,6 +1,6 @@
 /** Scans: two different atoms in different fragments, a range that runs the way the step goes. */
 import { CLASH_DISTANCE } from '../../chemistry/geometry';
-import { MAX_SCAN_POINTS } from '../model';
+import { claimsOf, MAX_SCAN_POINTS } from '../model';
 import type { CheckContext } from './context';
 
 export function checkScan(context: CheckContext): void {
@@ -38,7 +38,7 @@ export function checkScan(context: CheckContext): void {
     sink.report('invalid-scan', scan.second!.span, 'The scan needs two different atoms.');
     return;
   }
-  const owners = (atom: number) => model.claims[atom] ?? [];
+  const owners = (atom: number) => claimsOf(model, atom);
   const shared = owners(resolved.first).find((fragment) => owners(resolved.second).includes(fragment));
   if (shared !== undefined) {
     const name = model.fragments[shared]!.name;
