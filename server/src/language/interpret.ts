@@ -204,7 +204,7 @@ class Interpreter {
   private switchValue(statement: Statement): Located<boolean> | undefined {
     const args = this.args(statement, 1, `${statement.keyword.text} on|off`);
     if (!args) return undefined;
-    const value = this.term<'on' | 'off'>(args[0]!, SWITCH_TERMS, `value of '${statement.keyword.text}'`);
+    const value = this.term<'on' | 'off'>(args[0]!, SWITCH_TERMS, `'${statement.keyword.text}' setting`);
     return value ? { value: value.value === 'on', span: value.span } : undefined;
   }
 
@@ -580,7 +580,7 @@ class Interpreter {
       else if (arg.kind === 'number') {
         this.sink.report('invalid-value', arg.span, `Mark what the number counts: '${arg.text}e' for electrons or '${arg.text}o' for orbitals (${syntax}).`);
       } else {
-        this.sink.report('invalid-value', arg.span, `Unexpected ${describeArgument(arg)} in the active space; write ${syntax}.`);
+        this.sink.report('invalid-value', arg.span, `An active space does not take ${describeArgument(arg)}; write ${syntax}.`);
       }
     }
     if (!electrons || !orbitals) {
@@ -611,7 +611,7 @@ class Interpreter {
     for (let i = 3; i < args.length; i++) {
       const key = args[i]!;
       if (key.kind !== 'word' || !keys.has(key.text)) {
-        this.sink.report('invalid-value', key.span, `Unexpected ${describeArgument(key)} in the scan; write \`${syntax}\`.`);
+        this.sink.report('invalid-value', key.span, `A scan does not take ${describeArgument(key)} here; write \`${syntax}\`.`);
         continue;
       }
       const value = args[i + 1];

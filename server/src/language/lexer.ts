@@ -13,7 +13,8 @@ export const Newline = createToken({ name: 'Newline', pattern: /\n/, line_breaks
 export const Comment = createToken({ name: 'Comment', pattern: /#(?![0-9])[^\n]*/, group: 'comments' });
 export const IndexRef = createToken({ name: 'IndexRef', pattern: /#[0-9]+/ });
 export const StringLiteral = createToken({ name: 'StringLiteral', pattern: /"(?:[^"\\\n]|\\.)*"/ });
-export const UnterminatedString = createToken({ name: 'UnterminatedString', pattern: /"(?:[^"\\\n]|\\.)*/ });
+/** Stops before a line break, `\r\n` included, so that its span ends on its own line. */
+export const UnterminatedString = createToken({ name: 'UnterminatedString', pattern: /"(?:[^"\\\r\n]|\\.)*/ });
 export const LBrace = createToken({ name: 'LBrace', pattern: /\{/ });
 export const RBrace = createToken({ name: 'RBrace', pattern: /\}/ });
 export const Semicolon = createToken({ name: 'Semicolon', pattern: /;/ });

@@ -13,7 +13,7 @@ export function checkActiveSpaces(context: CheckContext): void {
     // for every atom the orbital total is unknown, but capacity and spin can still be checked.
     if (!space.spin || fragment.atoms.length === 0) continue;
     for (const problem of checkActiveSpace(space, active, space.atomsWithoutBasis === 0)) {
-      sink.report('active-space-invalid', activeAst.span, `Active space of '${fragment.name}': ${problem.message}`, { data: { kind: problem.kind } });
+      sink.report('active-space-invalid', activeAst.span, `The active space of '${fragment.name}' does not fit: ${problem.message.charAt(0).toLowerCase()}${problem.message.slice(1)}`, { data: { kind: problem.kind } });
     }
   }
 }
