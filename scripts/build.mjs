@@ -19,7 +19,7 @@ const common = {
 
 const entries = [
   { entryPoints: ['server/src/cli/bin.ts'], outfile: 'dist/cli.js', define: { TESSERA_VERSION: JSON.stringify(version) } },
-  { entryPoints: ['server/src/lsp/main.ts'], outfile: 'dist/server.js' },
+  { entryPoints: ['server/src/lsp/main.ts'], outfile: 'dist/server.js', define: { TESSERA_VERSION: JSON.stringify(version) } },
   { entryPoints: ['client/src/extension.ts'], outfile: 'dist/client/extension.js', external: ['vscode'] },
   { entryPoints: ['bench/main.ts'], outfile: 'dist/bench.js' },
 ].filter((entry) => existsSync(entry.entryPoints[0]));

@@ -20,6 +20,8 @@ Usage:
   tessera estimate --xyz <file.xyz> --basis <name> [--charge N] [--multiplicity M]
                    [--functions spherical|cartesian] [--frozen-core] [--format text|json|markdown]
       The same for a plain XYZ file (ångström), without a spec.
+  tessera lsp --stdio
+      The language server, for editors other than VS Code.
 
 Options:
   -h, --help       this text
@@ -103,8 +105,17 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         io,
       );
     }
+    case 'lsp': {
+      if (!rest.includes('--stdio') && !rest.some((arg) => arg.startsWith('--node-ipc') || arg.startsWith('--socket') || arg.startsWith('--pipe'))) {
+        throw new UsageError('lsp needs a transport: tessera lsp --stdio');
+      }
+      const { startLanguageServer } = await import('../lsp/start');
+      startLanguageServer();
+      // The server runs until the editor closes the connection.
+      return new Promise<number>(() => undefined);
+    }
     default:
-      throw new UsageError(`unknown command '${command}'; the commands are check and estimate`);
+      throw new UsageError(`unknown command '${command}'; the commands are check, estimate and lsp`);
   }
 }
 

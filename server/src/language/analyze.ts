@@ -29,6 +29,8 @@ export interface AnalyzeOptions {
   readonly defaultMapping?: Mapping;
   /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
+  /** Qubit limit for specs that set none in `limits` (an editor setting or a CLI option). */
+  readonly defaultQubitLimit?: number;
 }
 
 export interface Analysis {
@@ -62,6 +64,7 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
     files: options.files ?? diskFileHost,
     ...(options.path ? { path: options.path } : {}),
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
+    ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
   });
   const context = { ast, model, sink };
   for (const check of CHECKS) check(context);

@@ -246,23 +246,24 @@ function readAtomLine(text: string, fields: number, columns: Columns, elementCac
   return true;
 }
 
+/** The statement the general parser would have produced for atom line `i` of the table. */
+export function atomTableStatement(table: AtomTable, i: number): Statement {
+  const { text } = table;
+  const keyword: Argument = { kind: 'word', text: text.slice(table.lineStart[i], table.elementEnd[i]), span: { start: table.lineStart[i]!, end: table.elementEnd[i]! } };
+  const args: Argument[] = [];
+  const labelStart = table.labelStart[i]!;
+  if (labelStart >= 0) args.push({ kind: 'word', text: text.slice(labelStart, table.labelEnd[i]), span: { start: labelStart, end: table.labelEnd[i]! } });
+  for (let k = 0; k < 3; k++) {
+    const start = table.coordinateStart[3 * i + k]!;
+    const end = table.coordinateEnd[3 * i + k]!;
+    args.push({ kind: 'number', text: text.slice(start, end), span: { start, end } });
+  }
+  return { keyword, args, span: { start: table.lineStart[i]!, end: table.lineEnd[i]! } };
+}
+
 /** The statements the general parser would have produced for the table's lines. */
 export function atomTableStatements(table: AtomTable): Statement[] {
-  const statements: Statement[] = [];
-  const { text } = table;
-  for (let i = 0; i < table.count; i++) {
-    const keyword: Argument = { kind: 'word', text: text.slice(table.lineStart[i], table.elementEnd[i]), span: { start: table.lineStart[i]!, end: table.elementEnd[i]! } };
-    const args: Argument[] = [];
-    const labelStart = table.labelStart[i]!;
-    if (labelStart >= 0) args.push({ kind: 'word', text: text.slice(labelStart, table.labelEnd[i]), span: { start: labelStart, end: table.labelEnd[i]! } });
-    for (let k = 0; k < 3; k++) {
-      const start = table.coordinateStart[3 * i + k]!;
-      const end = table.coordinateEnd[3 * i + k]!;
-      args.push({ kind: 'number', text: text.slice(start, end), span: { start, end } });
-    }
-    statements.push({ keyword, args, span: { start: table.lineStart[i]!, end: table.lineEnd[i]! } });
-  }
-  return statements;
+  return Array.from({ length: table.count }, (_, i) => atomTableStatement(table, i));
 }
 
 /**

@@ -92,17 +92,27 @@ export interface SpecModel {
   readonly sharedAtoms: ReadonlyMap<number, number[]>;
   readonly embedding: string;
   readonly scan: ScanModel | undefined;
-  readonly limits: { readonly qubits?: number; readonly memoryBytes?: number };
+  /** `qubitsFromSpec` is false when the qubit limit is the caller's default (the spec sets none). */
+  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number };
   readonly system: OrbitalSpace;
   readonly contacts: ContactAnalysis;
   /** Absolute paths of files read for this spec. */
   readonly includes: string[];
+  /** Every place a selector or scan names an atom by label or #index, resolved. */
+  readonly atomReferences: readonly AtomReference[];
+}
+
+export interface AtomReference {
+  readonly atom: number;
+  readonly span: Span;
+  readonly kind: 'label' | 'index';
 }
 
 export interface ModelOptions {
   readonly path?: string;
   readonly files: FileHost;
   readonly defaultMapping?: Mapping;
+  readonly defaultQubitLimit?: number;
 }
 
 const DEFAULT_METHODS: Record<TierLevel, (multiplicity: number) => string> = {
@@ -195,12 +205,14 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
     embedding: ast.embedding?.value ?? 'none',
     scan: resolveScan(ast, resolver, units),
     limits: {
-      ...(ast.limits?.qubits ? { qubits: ast.limits.qubits.value } : {}),
+      ...(ast.limits?.qubits ? { qubits: ast.limits.qubits.value } : options.defaultQubitLimit ? { qubits: options.defaultQubitLimit } : {}),
+      qubitsFromSpec: ast.limits?.qubits !== undefined,
       ...(ast.limits?.memory ? { memoryBytes: ast.limits.memory.value } : {}),
     },
     system,
     contacts,
     includes,
+    atomReferences: resolver.references,
   };
 }
 
@@ -354,6 +366,8 @@ export interface Selection {
 
 /** Turns selectors into atom indices, reporting names and indices that do not exist. */
 export class SelectorResolver {
+  readonly references: AtomReference[] = [];
+
   constructor(
     private readonly atoms: readonly AtomModel[],
     private readonly labels: ReadonlyMap<string, number>,
@@ -363,6 +377,12 @@ export class SelectorResolver {
   ) {}
 
   ref(ref: AtomRef): number | undefined {
+    const atom = this.lookup(ref);
+    if (atom !== undefined) this.references.push({ atom, span: ref.span, kind: ref.kind });
+    return atom;
+  }
+
+  private lookup(ref: AtomRef): number | undefined {
     if (ref.kind === 'index') {
       if (ref.index >= 1 && ref.index <= this.atoms.length) return ref.index - 1;
       const count = this.atoms.length;

@@ -41,7 +41,7 @@ export function checkLimits(context: CheckContext): void {
     sink.report(
       'qubit-limit-exceeded',
       where,
-      `Fragment '${fragment.name}' needs ${needed} qubits under ${tier.mapping} (${activeNote}), but the limit is ${limit}.${suggestion}`,
+      `Fragment '${fragment.name}' needs ${needed} qubits under ${tier.mapping} (${activeNote}), but the limit is ${limit}${model.limits.qubitsFromSpec ? "" : " (a default from the editor or command line; the spec sets none)"}.${suggestion}`,
       fitting ? { data: { active: fitting, needed, limit } } : { data: { needed, limit } },
     );
   }

@@ -1,0 +1,99 @@
+/**
+ * Which molecular integrals the Pauli-term estimates treat as nonzero.
+ *
+ * Orbitals are real spatial orbitals, numbered 0..n−1 in register order. Each carries an irreducible
+ * representation of an abelian point group (D2h or one of its subgroups), written as a bit mask over
+ * the group's k generators: bit g is set when the character under generator g is −1. The totally
+ * symmetric irrep is 0, and the irrep of a product is the XOR of the masks, because every irrep of
+ * these groups is one-dimensional with characters ±1 (F. A. Cotton, Chemical Applications of Group
+ * Theory, 3rd ed., Wiley 1990, character tables of D2h and its subgroups).
+ *
+ * Selection rule: an integral is nonzero only when its integrand is totally symmetric, so
+ * h_ij needs Γi ⊕ Γj = 0 and (ij|kl) needs Γi ⊕ Γj ⊕ Γk ⊕ Γl = 0 (Cotton 1990, the direct-product
+ * rule for vanishing integrals). The estimates take every integral the rule allows as nonzero
+ * ("generic" integrals). A caller with real integrals can pass its own predicates instead.
+ */
+
+/**
+ * The integral sparsity read by the counters. Integrals are real, so (ij|kl) is invariant under the
+ * eight index permutations (ij|kl) = (ji|kl) = (ij|lk) = (kl|ij) = …; `allowed` must give the same
+ * answer for all eight, and `allowedOneBody(i, j)` the same as `allowedOneBody(j, i)`. The counters
+ * call each predicate on one representative only.
+ */
+export interface IntegralPattern {
+  /** Number of spatial orbitals n (the register has 2n spin orbitals). */
+  readonly orbitals: number;
+  /** Irrep masks when the pattern is the point-group selection rule; absent for explicit predicates. */
+  readonly irreps?: Uint8Array;
+  /** h_ij may be nonzero. */
+  allowedOneBody(i: number, j: number): boolean;
+  /** (ij|kl) in chemists' notation, ∫∫ φi(1)φj(1) r12⁻¹ φk(2)φl(2), may be nonzero. */
+  allowed(i: number, j: number, k: number, l: number): boolean;
+}
+
+/** The default pattern: the point-group selection rule on the given irrep masks. */
+export function symmetryPattern(irreps: ArrayLike<number>): IntegralPattern {
+  const masks = Uint8Array.from(irreps as ArrayLike<number>);
+  for (let i = 0; i < masks.length; i++) {
+    const value = (irreps as ArrayLike<number>)[i]!;
+    if (!Number.isInteger(value) || value < 0 || value > 255) throw new RangeError(`irrep mask ${value} of orbital ${i} is not an integer in 0..255`);
+  }
+  return {
+    orbitals: masks.length,
+    irreps: masks,
+    allowedOneBody: (i, j) => (masks[i]! ^ masks[j]!) === 0,
+    allowed: (i, j, k, l) => (masks[i]! ^ masks[j]! ^ masks[k]! ^ masks[l]!) === 0,
+  };
+}
+
+/** A pattern from explicit predicates, for example thresholded integrals from a mean-field run. */
+export function explicitPattern(
+  orbitals: number,
+  allowedOneBody: (i: number, j: number) => boolean,
+  allowed: (i: number, j: number, k: number, l: number) => boolean,
+): IntegralPattern {
+  if (!Number.isInteger(orbitals) || orbitals < 0) throw new RangeError(`orbital count ${orbitals} is not a non-negative integer`);
+  return { orbitals, allowedOneBody, allowed };
+}
+
+/** C1: every integral allowed. */
+export function noSymmetryPattern(orbitals: number): IntegralPattern {
+  return symmetryPattern(new Uint8Array(Math.max(0, orbitals)));
+}
+
+export interface AbelianGroup {
+  /** Symmetry operations used as generators; bit g of an irrep mask refers to generators[g]. */
+  readonly generators: readonly string[];
+  /** Irrep label → mask. */
+  readonly irreps: Readonly<Record<string, number>>;
+}
+
+/**
+ * D2h and its subgroups in the standard orientation (Cotton 1990, character tables; Mulliken labels).
+ * Masks: bit g set ⇔ character −1 under generators[g].
+ */
+export const POINT_GROUPS: Readonly<Record<string, AbelianGroup>> = {
+  // D2h: characters of C2(z), C2(y), i. B1 is symmetric under C2(z), B2 under C2(y), B3 under C2(x).
+  D2h: { generators: ['C2(z)', 'C2(y)', 'i'], irreps: { Ag: 0, B1g: 2, B2g: 1, B3g: 3, Au: 4, B1u: 6, B2u: 5, B3u: 7 } },
+  // C2v: characters of C2(z), σv(xz). B1 is symmetric under σv(xz).
+  C2v: { generators: ['C2(z)', 'σv(xz)'], irreps: { A1: 0, A2: 2, B1: 1, B2: 3 } },
+  // C2h: characters of C2(z), i.
+  C2h: { generators: ['C2(z)', 'i'], irreps: { Ag: 0, Bg: 1, Au: 2, Bu: 3 } },
+  // D2: characters of C2(z), C2(y).
+  D2: { generators: ['C2(z)', 'C2(y)'], irreps: { A: 0, B1: 2, B2: 1, B3: 3 } },
+  Cs: { generators: ['σh'], irreps: { "A'": 0, "A''": 1 } },
+  Ci: { generators: ['i'], irreps: { Ag: 0, Au: 1 } },
+  C2: { generators: ['C2'], irreps: { A: 0, B: 1 } },
+  C1: { generators: [], irreps: { A: 0 } },
+};
+
+/** Irrep masks for a list of Mulliken labels of one group; throws on an unknown label. */
+export function irrepMasks(group: string, labels: readonly string[]): Uint8Array {
+  const table = POINT_GROUPS[group];
+  if (table === undefined) throw new RangeError(`unknown point group ${group}`);
+  return Uint8Array.from(labels, (label) => {
+    const mask = table.irreps[label];
+    if (mask === undefined) throw new RangeError(`${label} is not an irrep of ${group}`);
+    return mask;
+  });
+}

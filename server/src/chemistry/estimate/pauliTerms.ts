@@ -1,0 +1,202 @@
+/**
+ * Number of distinct Pauli strings with a nonzero coefficient in the qubit Hamiltonian of an active
+ * space, identity included, counted from the structure of the Hamiltonian (see termClasses.ts)
+ * without building the operator.
+ *
+ * Mappings:
+ *  • Jordan–Wigner (Jordan & Wigner, Z. Phys. 47, 631 (1928)), Bravyi–Kitaev (Bravyi & Kitaev,
+ *    Ann. Phys. 298, 210 (2002); Seeley, Richard & Love, J. Chem. Phys. 137, 224109 (2012)) and the
+ *    unreduced parity mapping (Seeley et al. 2012) on 2n qubits give the same count, and the count
+ *    does not depend on the order of the spin orbitals on the register: each mapping sends every
+ *    product of Majorana operators to one Pauli string and distinct products to distinct strings,
+ *    so all of them count the Majorana monomials of H. (The three are related by CNOT networks of
+ *    the same mode order, Seeley et al. 2012.) Block order — all α then all β — is used throughout.
+ *  • Parity mapping with the two-qubit reduction (S. Bravyi, J. M. Gambetta, A. Mezzacapo,
+ *    K. Temme, arXiv:1701.08213 (2017)): in block order qubits n−1 and 2n−1 hold the parities of
+ *    N_α and N, every string has I or Z on them, and fixing their eigenvalues merges strings that
+ *    differ only there. Under the CNOT change of basis those two Z's are the Jordan–Wigner parity
+ *    strings P_α = Π_{α} Z and P_α P_β, so the reduced strings are the classes of monomials under
+ *    multiplication by {1, P_α, P_β, P_α P_β}. A monomial of H has at most four Majoranas, and
+ *    multiplying by P_σ replaces its σ part (at most four of the 2n σ-Majoranas) by the complement,
+ *    so two monomials of H can share a class only when 2n ≤ 8, i.e. n ≤ 4 (n ≤ 2 for P_α P_β).
+ *    For n ≥ 5 the reduced count equals the full count. For n ≤ 4 classes do merge, and a merged
+ *    class can cancel in a given sector: when a monomial's support covers every mode of spin σ,
+ *    its partner monomial in the class differs from it by P_σ, and the pair survives only when
+ *    N_σ has the parity the term needs (odd for a hop, n = 2; even for a quartet, n = 4). With
+ *    n = 1 the reduced register is empty and the single term is the sector's energy, zero in the
+ *    empty sector. The tests check all four sectors against explicit operator algebra.
+ *
+ * Counts assume generic integrals: every integral the pattern allows is nonzero and distinct
+ * integrals do not cancel each other. For n ≤ 4 the reduced-parity count also assumes nonzero
+ * diagonal integrals h_ii and (ii|ii), as real orbitals always have.
+ */
+import type { Mapping } from '../qubits';
+import type { IntegralPattern } from './integralPattern';
+import { jordanWignerStrings, walkTermClasses } from './termClasses';
+
+export interface ElectronCount {
+  readonly alpha: number;
+  readonly beta: number;
+}
+
+export interface PauliTermCounts {
+  /** Spatial orbitals n. */
+  readonly orbitals: number;
+  /** Jordan–Wigner, 2n qubits; distinct Pauli strings with nonzero coefficient, identity included. */
+  readonly jordanWigner: number;
+  /** Bravyi–Kitaev, 2n qubits; equal to Jordan–Wigner. */
+  readonly bravyiKitaev: number;
+  /** Parity mapping before the two-qubit reduction, 2n qubits; equal to Jordan–Wigner. */
+  readonly parityUnreduced: number;
+  /**
+   * Parity mapping with the two-qubit reduction, 2n − 2 qubits, in the sector of the electron count
+   * given; without one, the largest over the four sectors. Equals the full count for n ≥ 5.
+   */
+  readonly parity: number;
+  /** Reduced parity count per sector, indexed (N_α mod 2) + 2 (N_β mod 2). */
+  readonly paritySectors: readonly [number, number, number, number];
+}
+
+/** All counts for an active space. Takes O(n) under the symmetry rule, O(n⁴) for explicit predicates. */
+export function countPauliTerms(pattern: IntegralPattern, electrons?: ElectronCount): PauliTermCounts {
+  const n = pattern.orbitals;
+  const full = pattern.irreps !== undefined ? countBySymmetry(pattern.irreps) : countByClasses(pattern);
+  const sectors: [number, number, number, number] = n >= 5 ? [full, full, full, full] : reducedParitySmall(pattern);
+  let parity: number;
+  if (electrons !== undefined) {
+    const sector = (electrons.alpha & 1) + 2 * (electrons.beta & 1);
+    parity = sectors[sector]!;
+  } else {
+    parity = Math.max(...sectors);
+  }
+  return { orbitals: n, jordanWigner: full, bravyiKitaev: full, parityUnreduced: full, parity, paritySectors: sectors };
+}
+
+/** The count for one mapping (the parity mapping is the reduced one, as in qubits.ts). */
+export function pauliTermsUnder(mapping: Mapping, pattern: IntegralPattern, electrons?: ElectronCount): number {
+  const counts = countPauliTerms(pattern, electrons);
+  switch (mapping) {
+    case 'jordan-wigner':
+      return counts.jordanWigner;
+    case 'bravyi-kitaev':
+      return counts.bravyiKitaev;
+    case 'parity':
+      return counts.parity;
+  }
+}
+
+/** Full-register count from the class walk, for any pattern. */
+export function countByClasses(pattern: IntegralPattern): number {
+  let count = 0;
+  walkTermClasses(pattern, {
+    diagonal() {
+      count += 1;
+    },
+    hop() {
+      count += 2;
+    },
+    pairPair() {
+      count += 4;
+    },
+    quartet(_a, _b, _c, _d, present) {
+      count += 2 * ((present & 1) + ((present >> 1) & 1) + ((present >> 2) & 1));
+    },
+  });
+  return count;
+}
+
+/**
+ * Closed form under the point-group selection rule, with c_g orbitals of irrep g:
+ *   1 + 2n + n(2n − 1)                 identity, Z_p, Z_p Z_q (diagonal integrals always allowed)
+ * + 4 S (2n − 1)                       hops: S = Σ_g C(c_g, 2) same-irrep pairs, 2 spins × 2 strings
+ *                                      × (D = ∅, D = any of the n modes of the other spin, or any of
+ *                                      the n − 2 other modes of the same spin)
+ * + 4 Σ_x P_x²                         pair-pairs: P_x orbital pairs whose irrep product is x
+ * + 12 Q                               quartets: Q sets of four orbitals with product 0, 2 spins × 6.
+ */
+export function countBySymmetry(irreps: ArrayLike<number>): number {
+  const n = irreps.length;
+  if (n === 0) return 0;
+  const counts = new Float64Array(256);
+  for (let i = 0; i < n; i++) counts[irreps[i]!]! += 1;
+  const present: number[] = [];
+  for (let g = 0; g < 256; g++) if (counts[g]! > 0) present.push(g);
+
+  let sameIrrepPairs = 0;
+  for (const g of present) sameIrrepPairs += (counts[g]! * (counts[g]! - 1)) / 2;
+
+  // Orbital pairs a < b by product irrep.
+  const pairsByProduct = new Float64Array(256);
+  for (let s = 0; s < present.length; s++) {
+    const g = present[s]!;
+    pairsByProduct[0]! += (counts[g]! * (counts[g]! - 1)) / 2;
+    for (let t = s + 1; t < present.length; t++) {
+      const h = present[t]!;
+      pairsByProduct[g ^ h]! += counts[g]! * counts[h]!;
+    }
+  }
+  let pairPairs = 0;
+  for (let x = 0; x < 256; x++) pairPairs += pairsByProduct[x]! * pairsByProduct[x]!;
+
+  // Four-orbital subsets with product 0: choose t orbitals of each irrep, Σt = 4, XOR of the irreps
+  // taken an odd number of times = 0.
+  let ways = new Float64Array(5 * 256);
+  ways[0] = 1;
+  for (const g of present) {
+    const next = new Float64Array(5 * 256);
+    const c = counts[g]!;
+    for (let size = 0; size <= 4; size++) {
+      for (let x = 0; x < 256; x++) {
+        const w = ways[size * 256 + x]!;
+        if (w === 0) continue;
+        let choose = 1;
+        for (let t = 0; t + size <= 4 && t <= c; t++) {
+          if (t > 0) choose = (choose * (c - t + 1)) / t;
+          next[(size + t) * 256 + (t & 1 ? x ^ g : x)]! += w * choose;
+        }
+      }
+    }
+    ways = next;
+  }
+  const quartets = ways[4 * 256]!;
+
+  return 1 + 2 * n + n * (2 * n - 1) + 4 * sameIrrepPairs * (2 * n - 1) + 4 * pairPairs + 12 * quartets;
+}
+
+/**
+ * Reduced parity counts for n ≤ 4 in the four sectors, from the explicit Jordan–Wigner strings
+ * (at most 8 qubits): classes under z ↦ z ⊕ P_α, z ⊕ P_β; a class counts in a sector when one of
+ * its strings survives there (see the module comment).
+ */
+function reducedParitySmall(pattern: IntegralPattern): [number, number, number, number] {
+  const n = pattern.orbitals;
+  if (n <= 0) return [0, 0, 0, 0];
+  const strings = jordanWignerStrings(pattern, 'block');
+  if (n === 1) {
+    // Zero qubits: one term, the energy of the sector's only determinant; the empty one has none.
+    const one = strings.length > 0 ? 1 : 0;
+    return [0, one, one, one];
+  }
+  const alphaModes = 2 ** n - 1;
+  const betaModes = alphaModes * 2 ** n;
+  const result: [number, number, number, number] = [0, 0, 0, 0];
+  for (let sector = 0; sector < 4; sector++) {
+    const alphaOdd = sector & 1;
+    const betaOdd = sector >> 1;
+    const classes = new Set<number>();
+    for (let s = 0; s < strings.length; s++) {
+      const x = strings.x[s]!;
+      const z = strings.z[s]!;
+      // A support covering every mode of spin σ pairs this string with its P_σ partner; the pair
+      // survives only when N_σ mod 2 equals (n/2) mod 2 (odd for a hop when n = 2, even for a
+      // quartet when n = 4).
+      const need = (n / 2) & 1;
+      if ((x & alphaModes) === alphaModes && alphaOdd !== need) continue;
+      if ((x & betaModes) === betaModes && betaOdd !== need) continue;
+      const key = Math.min(z, z ^ alphaModes, z ^ betaModes, z ^ alphaModes ^ betaModes);
+      classes.add(x * 256 + key);
+    }
+    result[sector] = classes.size;
+  }
+  return result;
+}

@@ -1,0 +1,222 @@
+/**
+ * The language server: a thin adapter between the LSP connection and the language service.
+ * Transport (stdio or node IPC) comes from the command line, as vscode-languageserver reads it.
+ */
+import {
+  CodeActionKind,
+  createConnection,
+  DidChangeConfigurationNotification,
+  DidChangeWatchedFilesNotification,
+  ProposedFeatures,
+  ResponseError,
+  TextDocuments,
+  TextDocumentSyncKind,
+  type Connection,
+  type InitializeParams,
+  type InitializeResult,
+} from 'vscode-languageserver/node';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { MAPPINGS, type Mapping } from '../chemistry/qubits';
+import * as service from '../services';
+import { AnalysisCache, Debouncer, pathToUri, uriToPath, type AnalysisSettings } from './documents';
+
+/** Quiet time after the last keystroke before diagnostics are recomputed. */
+const DIAGNOSTICS_DELAY_MS = 40;
+
+export interface EditorSettings {
+  defaultMapping: Mapping;
+  qubitLimit: number | null;
+  inlayHints: boolean;
+  codeLens: boolean;
+}
+
+const DEFAULT_SETTINGS: EditorSettings = { defaultMapping: 'jordan-wigner', qubitLimit: null, inlayHints: true, codeLens: true };
+
+function readSettings(raw: unknown): EditorSettings {
+  const section = (raw ?? {}) as Record<string, unknown>;
+  const mapping = section['defaultMapping'];
+  const limit = section['qubitLimit'];
+  const inlay = (section['inlayHints'] as Record<string, unknown> | undefined)?.['enabled'];
+  const lens = (section['codeLens'] as Record<string, unknown> | undefined)?.['enabled'];
+  return {
+    defaultMapping: typeof mapping === 'string' && (MAPPINGS as readonly string[]).includes(mapping) ? (mapping as Mapping) : DEFAULT_SETTINGS.defaultMapping,
+    qubitLimit: typeof limit === 'number' && Number.isInteger(limit) && limit > 0 ? limit : null,
+    inlayHints: typeof inlay === 'boolean' ? inlay : true,
+    codeLens: typeof lens === 'boolean' ? lens : true,
+  };
+}
+
+export function startLanguageServer(connection: Connection = createConnection(ProposedFeatures.all)): Connection {
+  const documents = new TextDocuments(TextDocument);
+  const cache = new AnalysisCache((uri) => documents.get(uri));
+  const debouncer = new Debouncer(DIAGNOSTICS_DELAY_MS);
+  let settings = DEFAULT_SETTINGS;
+  let canPullConfiguration = false;
+  let canWatchFiles = false;
+
+  const analysisOf = (uri: string) => {
+    const document = documents.get(uri);
+    return document ? cache.get(document) : undefined;
+  };
+
+  const publish = (uri: string) => {
+    const document = documents.get(uri);
+    if (!document) return;
+    const version = document.version;
+    const analysis = cache.get(document);
+    // A newer version may have arrived while this one was analysed; its own run will publish.
+    if (documents.get(uri)?.version !== version) return;
+    void connection.sendDiagnostics({ uri, version, diagnostics: service.doValidation(analysis, uri, pathToUri) });
+  };
+
+  const applySettings = (next: EditorSettings) => {
+    settings = next;
+    const analysisSettings: AnalysisSettings = { defaultMapping: next.defaultMapping, ...(next.qubitLimit ? { defaultQubitLimit: next.qubitLimit } : {}) };
+    cache.configure(analysisSettings);
+    for (const document of documents.all()) publish(document.uri);
+    void connection.sendNotification('tessera/settingsChanged');
+  };
+
+  const pullSettings = async () => {
+    if (!canPullConfiguration) return;
+    try {
+      applySettings(readSettings(await connection.workspace.getConfiguration('tessera')));
+    } catch (error) {
+      connection.console.warn(`Could not read the tessera settings: ${(error as Error).message}`);
+    }
+  };
+
+  connection.onInitialize((params: InitializeParams): InitializeResult => {
+    const capabilities = params.capabilities;
+    canPullConfiguration = capabilities.workspace?.configuration === true;
+    canWatchFiles = capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
+    const initial = (params.initializationOptions as { settings?: unknown } | undefined)?.settings;
+    if (initial) settings = readSettings(initial);
+    cache.configure({ defaultMapping: settings.defaultMapping, ...(settings.qubitLimit ? { defaultQubitLimit: settings.qubitLimit } : {}) });
+    return {
+      capabilities: {
+        textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental },
+        hoverProvider: true,
+        completionProvider: { triggerCharacters: [' ', '='], resolveProvider: false },
+        definitionProvider: true,
+        referencesProvider: true,
+        documentHighlightProvider: true,
+        renameProvider: { prepareProvider: true },
+        documentSymbolProvider: true,
+        workspaceSymbolProvider: true,
+        semanticTokensProvider: { legend: service.semanticTokensLegend, full: true },
+        foldingRangeProvider: true,
+        selectionRangeProvider: true,
+        documentFormattingProvider: true,
+        documentRangeFormattingProvider: true,
+        codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] },
+        inlayHintProvider: true,
+        codeLensProvider: { resolveProvider: false },
+      },
+      serverInfo: { name: 'tessera', version: typeof TESSERA_VERSION === 'string' ? TESSERA_VERSION : '0.0.0-dev' },
+    };
+  });
+
+  connection.onInitialized(() => {
+    if (canPullConfiguration) {
+      void connection.client.register(DidChangeConfigurationNotification.type, { section: 'tessera' });
+      void pullSettings();
+    }
+    if (canWatchFiles) {
+      void connection.client.register(DidChangeWatchedFilesNotification.type, { watchers: [{ globPattern: '**/*.xyz' }] });
+    }
+  });
+
+  connection.onDidChangeConfiguration((change) => {
+    if (canPullConfiguration) void pullSettings();
+    else applySettings(readSettings((change.settings as Record<string, unknown> | undefined)?.['tessera']));
+  });
+
+  connection.onDidChangeWatchedFiles((change) => {
+    for (const event of change.changes) {
+      const file = uriToPath(event.uri);
+      if (!file) continue;
+      for (const uri of cache.dependents(file)) {
+        cache.invalidate(uri);
+        debouncer.schedule(uri, () => publish(uri));
+      }
+    }
+  });
+
+  documents.onDidOpen((event) => publish(event.document.uri));
+  documents.onDidChangeContent((event) => {
+    const uri = event.document.uri;
+    debouncer.schedule(uri, () => publish(uri));
+    // An open XYZ file included by other specs: re-check them.
+    const file = uriToPath(uri);
+    if (file?.endsWith('.xyz')) {
+      for (const dependent of cache.dependents(file)) {
+        cache.invalidate(dependent);
+        debouncer.schedule(dependent, () => publish(dependent));
+      }
+    }
+  });
+  documents.onDidClose((event) => {
+    debouncer.cancel(event.document.uri);
+    cache.remove(event.document.uri);
+    void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
+  });
+
+  const onDocument =
+    <P extends { textDocument: { uri: string } }, R>(handler: (analysis: NonNullable<ReturnType<typeof analysisOf>>, params: P) => R, empty: R) =>
+    (params: P): R => {
+      const analysis = analysisOf(params.textDocument.uri);
+      return analysis ? handler(analysis, params) : empty;
+    };
+
+  connection.onHover(onDocument((analysis, params) => service.doHover(analysis, params.position), null));
+  connection.onCompletion(onDocument((analysis, params) => service.doComplete(analysis, params.position), { isIncomplete: false, items: [] }));
+  connection.onDefinition(onDocument((analysis, params) => service.findDefinition(analysis, params.textDocument.uri, params.position), null));
+  connection.onReferences(onDocument((analysis, params) => service.findReferences(analysis, params.textDocument.uri, params.position, params.context.includeDeclaration), []));
+  connection.onDocumentHighlight(onDocument((analysis, params) => service.findDocumentHighlights(analysis, params.position), []));
+  connection.onPrepareRename(
+    onDocument((analysis, params) => {
+      const check = service.prepareRename(analysis, params.position);
+      if (!check.ok) throw new ResponseError(0, check.message);
+      return { range: check.range, placeholder: check.placeholder };
+    }, null),
+  );
+  connection.onRenameRequest(
+    onDocument((analysis, params) => {
+      const result = service.rename(analysis, params.textDocument.uri, params.position, params.newName);
+      if ('error' in result) throw new ResponseError(0, result.error);
+      return result;
+    }, null),
+  );
+  connection.onDocumentSymbol(onDocument((analysis) => service.findDocumentSymbols(analysis), []));
+  connection.onWorkspaceSymbol((params) => {
+    const open = documents.all().map((document) => ({ uri: document.uri, analysis: cache.get(document) }));
+    return service.findWorkspaceSymbols(open, params.query);
+  });
+  connection.languages.semanticTokens.on(onDocument((analysis) => service.getSemanticTokens(analysis), { data: [] }));
+  connection.onFoldingRanges(onDocument((analysis) => service.getFoldingRanges(analysis), []));
+  connection.onSelectionRanges(onDocument((analysis, params) => service.getSelectionRanges(analysis, params.positions), []));
+  connection.onDocumentFormatting(onDocument((analysis, params) => service.format(analysis.text, undefined, { indent: params.options.tabSize }), []));
+  connection.onDocumentRangeFormatting(onDocument((analysis, params) => service.format(analysis.text, params.range, { indent: params.options.tabSize }), []));
+  connection.onCodeAction(onDocument((analysis, params) => service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), []));
+  connection.languages.inlayHint.on(onDocument((analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), []));
+  connection.onCodeLens(onDocument((analysis) => (settings.codeLens ? service.getCodeLenses(analysis) : []), []));
+
+  connection.onRequest('tessera/report', (params: { uri: string }) => {
+    const analysis = analysisOf(params.uri);
+    return analysis ? { markdown: service.reportMarkdown(analysis) } : null;
+  });
+  connection.onRequest('tessera/summary', (params: { uri: string }) => {
+    const analysis = analysisOf(params.uri);
+    if (!analysis) return null;
+    const largest = service.largestQubitCount(analysis);
+    const errors = analysis.diagnostics.filter((d) => d.severity === 'error').length;
+    return { largestQubits: largest?.qubits ?? null, fragment: largest?.fragment ?? null, errors, limit: analysis.model.limits.qubits ?? null };
+  });
+
+  documents.listen(connection);
+  connection.listen();
+  return connection;
+}
+
+declare const TESSERA_VERSION: string | undefined;

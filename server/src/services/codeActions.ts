@@ -1,0 +1,142 @@
+/**
+ * Quick fixes for diagnostics: the nearest valid multiplicity, a word's suggested spelling, a
+ * home for unassigned atoms, a per-element basis that covers a missing element, the largest
+ * active space that fits the qubit limit, and the length unit the coordinates look like.
+ */
+import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
+import type { Analysis } from '../language/analyze';
+import type { FragmentModel } from '../language/model';
+import { toRange } from './positions';
+
+function edit(uri: string, edits: TextEdit[]): WorkspaceEdit {
+  return { changes: { [uri]: edits } };
+}
+
+function quickFix(title: string, diagnostic: LspDiagnostic, workspaceEdit: WorkspaceEdit, preferred = false): CodeAction {
+  return { title, kind: CodeActionKind.QuickFix, diagnostics: [diagnostic], edit: workspaceEdit, ...(preferred ? { isPreferred: true } : {}) };
+}
+
+function endOfDocument(analysis: Analysis): { line: number; character: number } {
+  return analysis.lines.positionAt(analysis.text.length);
+}
+
+/** `#3..#5 #9` style references to atoms, labels where they exist. */
+function atomList(analysis: Analysis, atoms: readonly number[]): string {
+  const parts: string[] = [];
+  let i = 0;
+  while (i < atoms.length) {
+    const first = atoms[i]!;
+    const label = analysis.model.atoms[first]!.label;
+    let last = first;
+    while (!label && i + 1 < atoms.length && atoms[i + 1] === last + 1 && !analysis.model.atoms[atoms[i + 1]!]!.label) {
+      i++;
+      last = atoms[i]!;
+    }
+    parts.push(label ?? (last > first ? `#${first + 1}..#${last + 1}` : `#${first + 1}`));
+    i++;
+  }
+  return parts.join(' ');
+}
+
+function uniqueFragmentName(analysis: Analysis, base: string): string {
+  const taken = new Set(analysis.model.fragments.map((f) => f.name));
+  if (!taken.has(base)) return base;
+  for (let n = 2; ; n++) if (!taken.has(`${base}${n}`)) return `${base}${n}`;
+}
+
+function fragmentAtomsEdit(analysis: Analysis, fragment: FragmentModel, addition: string): TextEdit | undefined {
+  const atoms = fragment.ast.atoms;
+  if (atoms) return { range: toRange(analysis, { start: atoms.span.end, end: atoms.span.end }), newText: ` ${addition}` };
+  const block = fragment.ast.statement.block;
+  if (!block) return undefined;
+  return { range: toRange(analysis, { start: block.open.end, end: block.open.end }), newText: `\n  atoms ${addition}` };
+}
+
+function unassignedFixes(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, atoms: readonly number[]): CodeAction[] {
+  const actions: CodeAction[] = [];
+  const name = uniqueFragmentName(analysis, 'environment');
+  const end = endOfDocument(analysis);
+  const needsBreak = analysis.text.length > 0 && !analysis.text.endsWith('\n');
+  actions.push(
+    quickFix(
+      `Add a fragment '${name}' that takes the ${atoms.length} unassigned atom${atoms.length === 1 ? '' : 's'} (atoms rest)`,
+      diagnostic,
+      edit(uri, [{ range: { start: end, end }, newText: `${needsBreak ? '\n' : ''}\nfragment ${name} {\n  atoms rest\n  tier mean-field { method rhf }\n}\n` }]),
+      true,
+    ),
+  );
+  const list = atomList(analysis, atoms);
+  for (const fragment of analysis.model.fragments.slice(0, 6)) {
+    const change = fragmentAtomsEdit(analysis, fragment, list);
+    if (change) actions.push(quickFix(`Put the unassigned atoms into fragment '${fragment.name}'`, diagnostic, edit(uri, [change])));
+  }
+  return actions;
+}
+
+function basisOverrideFixes(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, element: string, candidates: readonly string[]): CodeAction[] {
+  const basis = analysis.ast.basis;
+  if (!basis) return [];
+  const existing = basis.overrides.find((override) => override.element.value === element);
+  return candidates.slice(0, 4).map((candidate, index) => {
+    let change: TextEdit;
+    if (existing) {
+      change = { range: toRange(analysis, existing.basis.span), newText: candidate };
+    } else if (basis.statement.block?.close) {
+      const close = basis.statement.block.close;
+      const lineOfClose = analysis.lines.positionAt(close.start);
+      const closeOnOwnLine = analysis.text.slice(analysis.lines.lineStart(lineOfClose.line), close.start).trim() === '';
+      change = closeOnOwnLine
+        ? { range: { start: { line: lineOfClose.line, character: 0 }, end: { line: lineOfClose.line, character: 0 } }, newText: `  ${element} = ${candidate}\n` }
+        : { range: toRange(analysis, { start: close.start, end: close.start }), newText: `${element} = ${candidate} ` };
+    } else {
+      const after = basis.name?.span.end ?? basis.statement.keyword.span.end;
+      change = { range: toRange(analysis, { start: after, end: after }), newText: ` {\n  ${element} = ${candidate}\n}` };
+    }
+    return quickFix(`Use ${candidate} for ${element} (per-element basis)`, diagnostic, edit(uri, [change]), index === 0);
+  });
+}
+
+function activeSpaceFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, active: { electrons: number; orbitals: number }): CodeAction[] {
+  const range = diagnostic.range;
+  const start = analysis.lines.offsetAt(range.start);
+  const fragment = analysis.model.fragments.find((f) => f.ast.tier && start >= f.ast.tier.statement.span.start && start <= f.ast.tier.statement.span.end);
+  const tier = fragment?.ast.tier;
+  if (!fragment || !tier) return [];
+  const text = `active ${active.electrons}e ${active.orbitals}o`;
+  let change: TextEdit;
+  if (tier.active) change = { range: toRange(analysis, tier.active.span), newText: text };
+  else if (tier.statement.block) change = { range: toRange(analysis, { start: tier.statement.block.open.end, end: tier.statement.block.open.end }), newText: ` ${text};` };
+  else return [];
+  return [quickFix(`Shrink the active space of '${fragment.name}' to ${active.electrons}e ${active.orbitals}o`, diagnostic, edit(uri, [change]), true)];
+}
+
+function unitsFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, units: string): CodeAction[] {
+  const given = analysis.ast.units;
+  const change: TextEdit = given
+    ? { range: toRange(analysis, given.span), newText: units }
+    : { range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, newText: `units ${units}\n` };
+  return [quickFix(`Read the coordinates as ${units}`, diagnostic, edit(uri, [change]))];
+}
+
+export function getCodeActions(analysis: Analysis, uri: string, diagnostics: readonly LspDiagnostic[]): CodeAction[] {
+  const actions: CodeAction[] = [];
+  for (const diagnostic of diagnostics) {
+    if (diagnostic.source !== undefined && diagnostic.source !== 'tessera') continue;
+    const data = (diagnostic.data ?? {}) as Record<string, unknown>;
+    const code = (data['code'] as string | undefined) ?? String(diagnostic.code ?? '');
+    if ((code === 'multiplicity-parity' || code === 'multiplicity-too-high') && typeof data['multiplicity'] === 'number') {
+      actions.push(quickFix(`Set the multiplicity to ${data['multiplicity']}`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: String(data['multiplicity']) }]), true));
+    } else if (typeof data['replacement'] === 'string') {
+      actions.push(quickFix(`Replace with '${data['replacement']}'`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: data['replacement'] }]), true));
+    } else if (code === 'atoms-unassigned' && Array.isArray(data['atoms'])) {
+      actions.push(...unassignedFixes(analysis, uri, diagnostic, data['atoms'] as number[]));
+    } else if (code === 'basis-missing-element' && typeof data['element'] === 'string' && Array.isArray(data['candidates'])) {
+      actions.push(...basisOverrideFixes(analysis, uri, diagnostic, data['element'], data['candidates'] as string[]));
+    } else if (code === 'qubit-limit-exceeded' && data['active']) {
+      actions.push(...activeSpaceFix(analysis, uri, diagnostic, data['active'] as { electrons: number; orbitals: number }));
+    } else if (code === 'units-suspect' && typeof data['units'] === 'string') {
+      actions.push(...unitsFix(analysis, uri, diagnostic, data['units']));
+    }
+  }
+  return actions;
+}

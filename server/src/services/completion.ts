@@ -1,0 +1,171 @@
+/**
+ * Completion that knows where the cursor is: only the keywords of the block it stands in, and
+ * after a keyword only the values that keyword takes (basis sets ranked by coverage of the
+ * file's elements, methods of the enclosing tier, atom labels in selectors, ...).
+ */
+import { CompletionItemKind, type CompletionItem, type CompletionList, type Position } from 'vscode-languageserver-types';
+import { allBasisSets } from '../chemistry/basis/library';
+import { ELEMENTS } from '../chemistry/elements';
+import { MEMORY_UNITS } from '../chemistry/units';
+import type { Analysis } from '../language/analyze';
+import type { Statement } from '../language/syntax';
+import {
+  ANSATZE,
+  EMBEDDINGS,
+  FUNCTION_TERMS,
+  keywordsFor,
+  MAPPING_TERMS,
+  methodsForTier,
+  SCAN_KINDS,
+  SELECTOR_WORDS,
+  SWITCH_TERMS,
+  TIER_LEVELS,
+  UNIT_TERMS,
+  type BlockKind,
+  type TermInfo,
+  type TierLevel,
+} from '../language/vocabulary';
+import { locate, type CursorContext } from './locate';
+import { toOffset, toRange } from './positions';
+
+/** Keywords that may appear more than once in their block. */
+const REPEATABLE = new Set(['fragment']);
+
+/** Elements offered in a geometry block before any atom is written: the common ones first. */
+const COMMON_ELEMENTS = ['H', 'C', 'N', 'O', 'F', 'P', 'S', 'Cl', 'Br', 'I', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Mn', 'Cr', 'Ti', 'Pd', 'Pt'];
+
+function terms(list: readonly TermInfo[], kind: CompletionItemKind): CompletionItem[] {
+  return list.map((term) => ({ label: term.name, kind, detail: term.summary, ...(term.reference ? { documentation: term.reference } : {}) }));
+}
+
+function present(statements: readonly Statement[]): Set<string> {
+  return new Set(statements.map((statement) => statement.keyword.text));
+}
+
+function keywordItems(context: CursorContext, analysis: Analysis): CompletionItem[] {
+  const siblings = context.parents.length > 0 ? (context.parents[context.parents.length - 1]!.block?.statements ?? []) : analysis.tree.statements;
+  const used = present(siblings.filter((s) => s !== context.statement));
+  return keywordsFor(context.block)
+    .filter((keyword) => REPEATABLE.has(keyword.name) || !used.has(keyword.name))
+    .map((keyword) => ({ label: keyword.name, kind: CompletionItemKind.Keyword, detail: keyword.syntax, documentation: keyword.summary }));
+}
+
+function elementItems(analysis: Analysis): CompletionItem[] {
+  const inFile = [...new Set(analysis.model.atoms.map((atom) => atom.element.symbol))];
+  const order = [...inFile, ...COMMON_ELEMENTS.filter((s) => !inFile.includes(s)), ...ELEMENTS.map((e) => e.symbol).filter((s) => !inFile.includes(s) && !COMMON_ELEMENTS.includes(s))];
+  return order.map((symbol, rank) => {
+    const element = ELEMENTS.find((e) => e.symbol === symbol)!;
+    return { label: symbol, kind: CompletionItemKind.Constant, detail: `${element.name}, Z = ${element.z}`, sortText: String(rank).padStart(4, '0') };
+  });
+}
+
+/** Basis sets, those defining every element wanted first; the others say which element they lack. */
+export function basisItems(analysis: Analysis, wanted?: readonly string[]): CompletionItem[] {
+  const elements = wanted ?? [...new Set(analysis.model.atoms.map((atom) => atom.element.symbol))];
+  return allBasisSets().map((basis, rank) => {
+    const missing = elements.filter((symbol) => !basis.shellsFor(symbol));
+    return {
+      label: basis.displayName,
+      kind: CompletionItemKind.Module,
+      detail: missing.length === 0 ? `${basis.family.title}: covers every element here` : `lacks ${missing.slice(0, 4).join(', ')}${missing.length > 4 ? ', …' : ''}`,
+      sortText: `${missing.length === 0 ? 0 : 1}${String(rank).padStart(3, '0')}`,
+    };
+  });
+}
+
+function labelItems(analysis: Analysis): CompletionItem[] {
+  return [...analysis.model.labels.entries()].map(([label, atom]) => ({
+    label,
+    kind: CompletionItemKind.Variable,
+    detail: `atom #${atom + 1} ${analysis.model.atoms[atom]!.element.symbol}`,
+  }));
+}
+
+function tierLevelOf(context: CursorContext): TierLevel | undefined {
+  const tier = [...context.parents].reverse().find((statement) => statement.keyword.text === 'tier');
+  const level = tier?.args[0]?.text;
+  return TIER_LEVELS.some((t) => t.name === level) ? (level as TierLevel) : undefined;
+}
+
+function multiplicityItems(electrons: number): CompletionItem[] {
+  const items: CompletionItem[] = [];
+  for (let m = electrons % 2 === 0 ? 1 : 2; m <= Math.min(electrons + 1, 9); m += 2) {
+    items.push({ label: String(m), kind: CompletionItemKind.Value, detail: `valid for ${electrons} electrons` });
+  }
+  return items;
+}
+
+function valueItems(context: CursorContext, analysis: Analysis): CompletionItem[] {
+  const statement = context.statement!;
+  const keyword = statement.keyword.text;
+  const index = context.argumentIndex;
+  const previous = statement.args[index - 1]?.text;
+  const block: BlockKind = context.block;
+  if (block === 'basis' && statement.args[0]?.kind === 'equals' && index === 1) return basisItems(analysis, [statement.keyword.text]);
+  if (block === 'geometry') return [];
+  switch (keyword) {
+    case 'units':
+      return index === 0 ? terms(UNIT_TERMS, CompletionItemKind.EnumMember) : [];
+    case 'basis':
+      return block === 'top' && index === 0 ? basisItems(analysis) : [];
+    case 'functions':
+      return index === 0 ? terms(FUNCTION_TERMS, CompletionItemKind.EnumMember) : [];
+    case 'frozen-core':
+    case 'taper':
+      return index === 0 ? terms(SWITCH_TERMS, CompletionItemKind.EnumMember) : [];
+    case 'embedding':
+      return index === 0 ? terms(EMBEDDINGS, CompletionItemKind.EnumMember) : [];
+    case 'tier':
+      return index === 0 ? terms(TIER_LEVELS, CompletionItemKind.EnumMember) : [];
+    case 'method': {
+      const level = tierLevelOf(context);
+      return index === 0 ? terms(level ? methodsForTier(level) : [], CompletionItemKind.EnumMember) : [];
+    }
+    case 'ansatz':
+      return index === 0 ? terms(ANSATZE, CompletionItemKind.EnumMember) : [];
+    case 'mapping':
+      return index === 0 ? terms(MAPPING_TERMS, CompletionItemKind.EnumMember) : [];
+    case 'multiplicity': {
+      if (index !== 0) return [];
+      const fragment = block === 'fragment' ? analysis.model.fragments.find((f) => f.ast.statement === context.parents[context.parents.length - 1]) : undefined;
+      return multiplicityItems((fragment?.space ?? analysis.model.system).electrons);
+    }
+    case 'atoms':
+      if (previous === 'all') return elementItems(analysis).slice(0, new Set(analysis.model.atoms.map((a) => a.element.symbol)).size || 20);
+      if (previous === 'within') return [];
+      if (statement.args[index - 2]?.text === 'within') return [{ label: 'of', kind: CompletionItemKind.Keyword }];
+      return [...labelItems(analysis), ...terms(SELECTOR_WORDS, CompletionItemKind.Keyword)];
+    case 'scan': {
+      if (index === 0) return terms(SCAN_KINDS, CompletionItemKind.EnumMember);
+      if (index === 1 || index === 2) return labelItems(analysis);
+      const given = new Set(statement.args.map((arg) => arg.text));
+      const expectsNumber = ['from', 'to', 'step', 'points'].includes(previous ?? '');
+      return expectsNumber ? [] : ['from', 'to', 'step', 'points'].filter((word) => !given.has(word)).map((word) => ({ label: word, kind: CompletionItemKind.Keyword }));
+    }
+    case 'memory':
+      return index === 1 ? Object.keys(MEMORY_UNITS).map((unit) => ({ label: unit, kind: CompletionItemKind.Unit })) : [];
+    default:
+      return [];
+  }
+}
+
+export function doComplete(analysis: Analysis, position: Position): CompletionList {
+  const offset = toOffset(analysis, position);
+  const context = locate(analysis.text, analysis.tree.statements, offset);
+  const atStatementStart = !context.statement || context.token?.index === -1;
+  let items: CompletionItem[];
+  if (atStatementStart) {
+    if (context.block === 'geometry') items = elementItems(analysis);
+    else if (context.block === 'basis') items = [...keywordItems(context, analysis), ...elementItems(analysis).slice(0, 10).map((item) => ({ ...item, insertText: `${item.label} = `, detail: `per-element basis for ${item.detail}` }))];
+    else items = keywordItems(context, analysis);
+  } else {
+    items = valueItems(context, analysis);
+  }
+  // Replace the word being typed, if any.
+  const token = context.token;
+  if (token && (token.node.kind === 'word' || token.node.kind === 'number')) {
+    const range = toRange(analysis, token.node.span);
+    items = items.map((item) => ({ ...item, textEdit: { range, newText: item.insertText ?? item.label } }));
+  }
+  return { isIncomplete: false, items };
+}

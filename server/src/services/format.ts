@@ -1,0 +1,198 @@
+/**
+ * The formatter: two-space indentation by block depth, single spaces between tokens, and
+ * geometry blocks aligned in columns with coordinates at one fixed number of decimals per block.
+ * It keeps every line where it is (so range formatting is a matter of lines), never changes a
+ * number's value, leaves lines it cannot read untouched, and running it twice changes nothing.
+ */
+import type { IToken } from 'chevrotain';
+import type { Range, TextEdit } from 'vscode-languageserver-types';
+import { elementBySymbol } from '../chemistry/elements';
+import { LBrace, RangeDots, RBrace, Semicolon, tokenize, Word } from '../language/lexer';
+import { LineIndex } from '../language/text';
+
+export interface FormatOptions {
+  /** Spaces per block level (default 2). */
+  readonly indent?: number;
+  /** Smallest number of decimals for coordinates (default 4). */
+  readonly minimumDecimals?: number;
+}
+
+/** Coordinates are written with at most this many decimals; beyond, a block keeps its numbers as typed. */
+const MAX_DECIMALS = 10;
+/** Fixed-point digits are exact below this magnitude for MAX_DECIMALS (doubles keep ~15–16 digits). */
+const MAX_MAGNITUDE = 1e5;
+
+interface Line {
+  readonly text: string;
+  readonly tokens: IToken[];
+  readonly comment?: IToken;
+  /** Column of the comment in the original line. */
+  readonly commentColumn?: number;
+  readonly unreadable: boolean;
+}
+
+function splitLines(text: string): { lines: Line[]; lineIndex: LineIndex } {
+  const lineIndex = new LineIndex(text);
+  const lexed = tokenize(text);
+  const rawLines = text.split('\n');
+  const lines: Line[] = rawLines.map((raw) => ({ text: raw.replace(/\r$/, ''), tokens: [], unreadable: false }));
+  const lineOf = (offset: number) => lineIndex.positionAt(offset).line;
+  for (const token of lexed.tokens) {
+    if (token.tokenType.name === 'Newline') continue;
+    const line = lines[lineOf(token.startOffset)]!;
+    line.tokens.push(token);
+    if (token.tokenType.name === 'UnterminatedString') (line as { unreadable: boolean }).unreadable = true;
+  }
+  for (const comment of lexed.comments) {
+    const line = lines[lineOf(comment.startOffset)] as { comment?: IToken; commentColumn?: number };
+    line.comment = comment;
+    line.commentColumn = lineIndex.positionAt(comment.startOffset).character;
+  }
+  for (const error of lexed.errors) (lines[lineOf(error.offset)] as { unreadable: boolean }).unreadable = true;
+  return { lines, lineIndex };
+}
+
+/** Joins tokens with single spaces; `..` binds to its neighbours and `;` to the token before it. */
+function joinTokens(tokens: readonly IToken[]): string {
+  let out = '';
+  tokens.forEach((token, index) => {
+    const previous = tokens[index - 1];
+    const glue = !previous || token.tokenType === RangeDots || previous.tokenType === RangeDots || token.tokenType === Semicolon;
+    out += (glue ? '' : ' ') + token.image;
+  });
+  return out;
+}
+
+/**
+ * Appends a trailing comment: at its original column when the code still ends before it (so that
+ * comments aligned by hand stay aligned), otherwise two spaces after the code.
+ */
+function withComment(body: string, comment: IToken | undefined, column?: number): string {
+  const text = comment ? comment.image.replace(/\s+$/, '') : '';
+  if (!text) return body;
+  if (!body.trim()) return body + text;
+  const at = column !== undefined && column >= body.length + 2 ? column : body.length + 2;
+  return body.padEnd(at) + text;
+}
+
+interface AtomRow {
+  readonly line: number;
+  readonly element: string;
+  readonly label?: string;
+  readonly numbers: [IToken, IToken, IToken];
+  readonly comment?: IToken;
+  readonly commentColumn?: number;
+}
+
+/** Decimals needed to write a literal's value exactly in fixed point, or Infinity. */
+function decimalsNeeded(literal: string): number {
+  const match = /^[+-]?(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?$/.exec(literal);
+  if (!match) return Infinity;
+  const fraction = match[2] ?? '';
+  const exponent = Number(match[3] ?? '0');
+  return Math.max(0, fraction.replace(/0+$/, '').length - exponent);
+}
+
+function atomRow(line: Line, index: number): AtomRow | undefined {
+  const tokens = line.tokens;
+  if (line.unreadable || tokens.length < 4 || tokens.length > 5) return undefined;
+  const [first] = tokens;
+  if (first!.tokenType !== Word || !elementBySymbol(first!.image)) return undefined;
+  const hasLabel = tokens.length === 5;
+  if (hasLabel && tokens[1]!.tokenType !== Word) return undefined;
+  const numbers = tokens.slice(hasLabel ? 2 : 1);
+  if (numbers.some((token) => token.tokenType.name !== 'NumberLiteral')) return undefined;
+  return {
+    line: index,
+    element: first!.image,
+    ...(hasLabel ? { label: tokens[1]!.image } : {}),
+    numbers: numbers as [IToken, IToken, IToken],
+    ...(line.comment ? { comment: line.comment, commentColumn: line.commentColumn ?? 0 } : {}),
+  };
+}
+
+/** Formats a run of atom rows as aligned columns. */
+function alignRows(rows: readonly AtomRow[], indent: string, minimumDecimals: number): Map<number, string> {
+  const out = new Map<number, string>();
+  const values = rows.flatMap((row) => row.numbers.map((token) => token.image));
+  const decimals = Math.max(minimumDecimals, ...values.map(decimalsNeeded));
+  const fixed = decimals <= MAX_DECIMALS && values.every((value) => Math.abs(Number(value)) < MAX_MAGNITUDE);
+  const written = rows.map((row) => row.numbers.map((token) => (fixed ? Number(token.image).toFixed(decimals) : token.image)));
+  const elementWidth = Math.max(...rows.map((row) => row.element.length));
+  const labelWidth = Math.max(0, ...rows.map((row) => row.label?.length ?? 0));
+  const numberWidth = Math.max(...written.flat().map((text) => text.length));
+  rows.forEach((row, index) => {
+    const parts = [row.element.padEnd(elementWidth)];
+    if (labelWidth > 0) parts.push((row.label ?? '').padEnd(labelWidth));
+    parts.push(...written[index]!.map((text) => text.padStart(numberWidth)));
+    out.set(row.line, withComment(indent + parts.join('  '), row.comment, row.commentColumn).replace(/\s+$/, ''));
+  });
+  return out;
+}
+
+/** The formatted text of every line (same number of lines as the input). */
+export function formatLines(text: string, options: FormatOptions = {}): string[] {
+  const unit = ' '.repeat(options.indent ?? 2);
+  const minimumDecimals = options.minimumDecimals ?? 4;
+  const { lines } = splitLines(text);
+  const result: string[] = [];
+  let depth = 0;
+  /** Open blocks, innermost last: whether each is a geometry block. */
+  const blocks: boolean[] = [];
+  let pendingGeometry = false;
+  let rows: AtomRow[] = [];
+  const flushRows = () => {
+    if (rows.length === 0) return;
+    for (const [line, formatted] of alignRows(rows, unit.repeat(depth), minimumDecimals)) result[line] = formatted;
+    rows = [];
+  };
+  lines.forEach((line, index) => {
+    const tokens = line.tokens;
+    const startsWithClose = tokens[0]?.tokenType === RBrace;
+    const inGeometry = blocks[blocks.length - 1] === true;
+    const row = inGeometry ? atomRow(line, index) : undefined;
+    if (row) {
+      rows.push(row);
+      result[index] = line.text;
+      return;
+    }
+    if (tokens.length > 0 || line.comment) flushRows();
+    const level = Math.max(0, depth - (startsWithClose ? 1 : 0));
+    if (line.unreadable) result[index] = line.text;
+    else if (tokens.length === 0 && !line.comment) result[index] = '';
+    else result[index] = withComment(unit.repeat(level) + joinTokens(tokens), line.comment, line.commentColumn).replace(/\s+$/, '');
+    for (const token of tokens) {
+      if (token.tokenType === Word && token.image === 'geometry') pendingGeometry = true;
+      else if (token.tokenType === LBrace) {
+        blocks.push(pendingGeometry);
+        pendingGeometry = false;
+        depth++;
+      } else if (token.tokenType === RBrace) {
+        if (blocks.length > 0) {
+          blocks.pop();
+          depth--;
+        }
+      } else if (token.tokenType === Semicolon) pendingGeometry = false;
+    }
+    if (tokens.length > 0 && tokens[tokens.length - 1]!.tokenType !== Word && tokens[tokens.length - 1]!.tokenType !== LBrace) pendingGeometry = false;
+  });
+  flushRows();
+  return result;
+}
+
+export function formatText(text: string, options: FormatOptions = {}): string {
+  return formatLines(text, options).join('\n');
+}
+
+/** Edits that format the document, or only the lines a range touches. */
+export function format(text: string, range?: Range, options: FormatOptions = {}): TextEdit[] {
+  const formatted = formatLines(text, options);
+  const original = text.split('\n').map((line) => line.replace(/\r$/, ''));
+  const edits: TextEdit[] = [];
+  original.forEach((line, index) => {
+    if (range && (index < range.start.line || index > range.end.line)) return;
+    const wanted = formatted[index] ?? line;
+    if (wanted !== line) edits.push({ range: { start: { line: index, character: 0 }, end: { line: index, character: line.length } }, newText: wanted });
+  });
+  return edits;
+}

@@ -1,0 +1,195 @@
+/**
+ * Hover cards: fragments (their resource figures), atoms, basis sets, and every keyword and value
+ * word of the language.
+ */
+import { MarkupKind, type Hover } from 'vscode-languageserver-types';
+import { findBasisSet, type BasisSet } from '../chemistry/basis/library';
+import { ELEMENTS } from '../chemistry/elements';
+import { NeighbourGrid } from '../chemistry/geometry';
+import { BOHR_IN_ANGSTROM } from '../chemistry/units';
+import type { Analysis } from '../language/analyze';
+import { claimsOf, type AtomModel } from '../language/model';
+import type { Argument } from '../language/syntax';
+import {
+  ANSATZE,
+  EMBEDDINGS,
+  FUNCTION_TERMS,
+  findKeyword,
+  MAPPING_TERMS,
+  METHODS,
+  SCAN_KINDS,
+  SELECTOR_WORDS,
+  SWITCH_TERMS,
+  TIER_LEVELS,
+  UNIT_TERMS,
+  type TermInfo,
+} from '../language/vocabulary';
+import { fragmentCard } from './cards';
+import { locate, type CursorContext } from './locate';
+import { toOffset, toRange } from './positions';
+import type { Position } from 'vscode-languageserver-types';
+
+function markdown(value: string, analysis: Analysis, node: Argument): Hover {
+  return { contents: { kind: MarkupKind.Markdown, value }, range: toRange(analysis, node.span) };
+}
+
+const gridCache = new WeakMap<Analysis, NeighbourGrid>();
+/** Neighbour search radius for atom cards, Å. */
+const NEIGHBOUR_RADIUS = 4;
+
+function neighbours(analysis: Analysis, atom: number): { atom: number; distance: number }[] {
+  let grid = gridCache.get(analysis);
+  if (!grid) {
+    grid = new NeighbourGrid(analysis.model.coordinates, NEIGHBOUR_RADIUS);
+    gridCache.set(analysis, grid);
+  }
+  return grid.neighboursOf(atom, NEIGHBOUR_RADIUS).map((pair) => ({ atom: pair.j, distance: pair.distance }));
+}
+
+function atomTitle(atom: AtomModel): string {
+  return atom.label ? `${atom.label} (#${atom.index + 1})` : `#${atom.index + 1}`;
+}
+
+export function atomCard(analysis: Analysis, index: number): string {
+  const { model } = analysis;
+  const atom = model.atoms[index]!;
+  const c = model.coordinates;
+  const xyz = [c[3 * index]!, c[3 * index + 1]!, c[3 * index + 2]!];
+  const inBohr = xyz.map((value) => value / BOHR_IN_ANGSTROM);
+  const fragments = claimsOf(model, index).map((fragment) => `\`${model.fragments[fragment]!.name}\``);
+  const near = neighbours(analysis, index).slice(0, 4);
+  const lines = [
+    `**${atom.element.name}** ${atomTitle(atom)} · ${atom.element.symbol}, Z = ${atom.element.z}`,
+    '',
+    `| | |`,
+    `| --- | --- |`,
+    `| position | ${xyz.map((v) => v.toFixed(4)).join('  ')} Å |`,
+    `| | ${inBohr.map((v) => v.toFixed(4)).join('  ')} bohr |`,
+    `| fragment | ${fragments.length > 0 ? fragments.join(', ') : 'none'} |`,
+    `| covalent radius | ${atom.element.covalentRadius?.toFixed(2) ?? '–'} Å (Cordero et al. 2008) |`,
+  ];
+  if (atom.source) lines.push(`| read from | line ${atom.source.line + 1} of \`${atom.source.file.split('/').pop()}\` |`);
+  lines.push(
+    `| nearest | ${near.length > 0 ? near.map((n) => `${atomTitle(model.atoms[n.atom]!)} ${model.atoms[n.atom]!.element.symbol} ${n.distance.toFixed(3)} Å`).join(', ') : `none within ${NEIGHBOUR_RADIUS} Å`} |`,
+  );
+  return lines.join('\n');
+}
+
+/** `H–Kr, Rb–Rn` style ranges of atomic numbers. */
+function elementRanges(symbols: readonly string[]): string {
+  const numbers = symbols.map((symbol) => ELEMENTS.find((e) => e.symbol === symbol)?.z ?? 0).filter((z) => z > 0).sort((a, b) => a - b);
+  const ranges: string[] = [];
+  let start = numbers[0];
+  for (let i = 1; i <= numbers.length; i++) {
+    const previous = numbers[i - 1]!;
+    if (numbers[i] !== previous + 1) {
+      const first = ELEMENTS[start! - 1]!.symbol;
+      const last = ELEMENTS[previous - 1]!.symbol;
+      ranges.push(start === previous ? first : `${first}–${last}`);
+      start = numbers[i];
+    }
+  }
+  return ranges.join(', ');
+}
+
+export function basisCard(analysis: Analysis, basis: BasisSet): string {
+  const present = [...new Set(analysis.model.atoms.map((atom) => atom.element.symbol))];
+  const rows = present.map((symbol) => {
+    const spherical = basis.functionCount(symbol, 'spherical');
+    const cartesian = basis.functionCount(symbol, 'cartesian');
+    const ecp = basis.ecpCoreElectrons(symbol);
+    return spherical === undefined
+      ? `| ${symbol} | **not defined** | | |`
+      : `| ${symbol} | ${spherical} | ${cartesian} | ${ecp > 0 ? `${ecp} e⁻ in ECP` : ''} |`;
+  });
+  return [
+    `**${basis.displayName}** · ${basis.family.title}`,
+    '',
+    `Defines ${basis.elements.length} elements: ${elementRanges(basis.elements)}. Usual function type: ${basis.functions}.`,
+    ...(rows.length > 0 ? ['', '| element | spherical | cartesian | |', '| --- | ---: | ---: | --- |', ...rows] : []),
+    ...(basis.family.references.length > 0 ? ['', ...basis.family.references.map((reference) => `- ${reference}`)] : []),
+  ].join('\n');
+}
+
+function termCard(term: TermInfo, kind: string): string {
+  return [
+    `**${term.name}** · ${kind}`,
+    '',
+    term.summary,
+    ...(term.scaling ? ['', `Cost: ${term.scaling}.`] : []),
+    ...(term.reference ? ['', `_${term.reference}_`] : []),
+  ].join('\n');
+}
+
+/** The value words of each statement, for hover on the word after a keyword. */
+const VALUE_TERMS: Readonly<Record<string, { terms: readonly TermInfo[]; kind: string }>> = {
+  units: { terms: UNIT_TERMS, kind: 'length unit' },
+  functions: { terms: FUNCTION_TERMS, kind: 'function type' },
+  tier: { terms: TIER_LEVELS, kind: 'solver tier' },
+  method: { terms: METHODS, kind: 'method' },
+  ansatz: { terms: ANSATZE, kind: 'ansatz' },
+  mapping: { terms: MAPPING_TERMS, kind: 'fermion-to-qubit mapping' },
+  embedding: { terms: EMBEDDINGS, kind: 'embedding' },
+  'frozen-core': { terms: SWITCH_TERMS, kind: 'switch' },
+  taper: { terms: SWITCH_TERMS, kind: 'switch' },
+  scan: { terms: SCAN_KINDS, kind: 'scan coordinate' },
+  atoms: { terms: SELECTOR_WORDS, kind: 'selector' },
+};
+
+/** Binary search of the inline atom whose line holds the offset. */
+function atomAtLine(analysis: Analysis, offset: number): number | undefined {
+  const atoms = analysis.model.atoms;
+  let low = 0;
+  let high = atoms.length - 1;
+  while (low <= high) {
+    const mid = (low + high) >> 1;
+    const span = atoms[mid]!.span;
+    if (atoms[mid]!.source) return undefined;
+    if (offset < span.start) high = mid - 1;
+    else if (offset > span.end) low = mid + 1;
+    else return mid;
+  }
+  return undefined;
+}
+
+/** The atom a token refers to: a label or #index in a selector or scan, or an atom line. */
+export function atomAt(analysis: Analysis, context: CursorContext): number | undefined {
+  const token = context.token;
+  if (!token) return undefined;
+  const reference = analysis.model.atomReferences.find((ref) => ref.span.start === token.node.span.start && ref.span.end === token.node.span.end);
+  if (reference) return reference.atom;
+  if (context.block === 'geometry' && (token.index === -1 || (token.index === 0 && token.node.kind === 'word'))) return atomAtLine(analysis, token.node.span.start);
+  return undefined;
+}
+
+export function doHover(analysis: Analysis, position: Position): Hover | null {
+  const offset = toOffset(analysis, position);
+  const context = locate(analysis.text, analysis.tree.statements, offset);
+  const token = context.token;
+  const statement = context.statement;
+  if (!token || !statement) return null;
+  const keywordText = statement.keyword.text;
+
+  const atom = atomAt(analysis, context);
+  if (atom !== undefined) return markdown(atomCard(analysis, atom), analysis, token.node);
+
+  if (token.index === -1) {
+    const keyword = findKeyword(keywordText, context.block);
+    return keyword ? markdown(`**${keyword.name}**\n\n${keyword.summary}\n\n\`${keyword.syntax}\``, analysis, token.node) : null;
+  }
+
+  if (context.block === 'top' && keywordText === 'fragment' && token.index === 0) {
+    const fragment = analysis.model.fragments.find((f) => f.ast.name?.span.start === token.node.span.start);
+    if (fragment) return markdown(fragmentCard(analysis, fragment.index), analysis, token.node);
+  }
+  if ((context.block === 'top' && keywordText === 'basis' && token.index === 0) || (context.block === 'basis' && token.index === 1)) {
+    const basis = findBasisSet(token.node.text);
+    if (basis) return markdown(basisCard(analysis, basis), analysis, token.node);
+  }
+  const values = VALUE_TERMS[keywordText];
+  if (values && token.node.kind === 'word') {
+    const term = values.terms.find((t) => t.name === token.node.text.toLowerCase());
+    if (term) return markdown(termCard(term, values.kind), analysis, token.node);
+  }
+  return null;
+}

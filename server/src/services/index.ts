@@ -1,0 +1,16 @@
+/**
+ * The editor-agnostic language service: one facade of plain functions over an analysed document,
+ * each implemented in its own module. The LSP server in server/src/lsp is a thin adapter over it.
+ */
+export { doComplete, basisItems } from './completion';
+export { getCodeActions } from './codeActions';
+export { doValidation, toLspDiagnostic, fileUri, type UriOf } from './diagnostics';
+export { format, formatText, formatLines, type FormatOptions } from './format';
+export { doHover, atomCard, basisCard } from './hover';
+export { getCodeLenses, getInlayHints, largestQubitCount, fragmentCostLabel } from './hints';
+export { findDefinition, findDocumentHighlights, findReferences, prepareRename, rename } from './navigation';
+export { getSemanticTokens, semanticTokensLegend } from './semanticTokens';
+export { getFoldingRanges, getSelectionRanges } from './structure';
+export { findDocumentSymbols, findWorkspaceSymbols } from './symbols';
+export { estimateOf, fragmentCard } from './cards';
+export { reportMarkdown } from './report';

@@ -1,0 +1,94 @@
+/**
+ * Go to definition, find references, rename and document highlights for atom labels (defined in
+ * the geometry, referenced by selectors and scans) and fragment names.
+ */
+import { DocumentHighlightKind, type DocumentHighlight, type Location, type Position, type Range, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
+import type { Analysis } from '../language/analyze';
+import type { Span } from '../language/text';
+import { atomAt } from './hover';
+import { locate } from './locate';
+import { toOffset, toRange } from './positions';
+
+export interface SymbolOccurrences {
+  readonly kind: 'atom' | 'fragment';
+  readonly name: string;
+  /** Where it is defined (an atom's label or line, a fragment's name). */
+  readonly definition: Span;
+  /** Where it is used (label references only; `#n` references do not change with a rename). */
+  readonly references: readonly Span[];
+  /** `#n` references, which point at the same atom but carry no name. */
+  readonly indexReferences: readonly Span[];
+}
+
+export function occurrencesAt(analysis: Analysis, position: Position): SymbolOccurrences | undefined {
+  const offset = toOffset(analysis, position);
+  const context = locate(analysis.text, analysis.tree.statements, offset);
+  const token = context.token;
+  if (!token) return undefined;
+  const { model } = analysis;
+  const atom = atomAt(analysis, context);
+  if (atom !== undefined) {
+    const entry = model.atoms[atom]!;
+    const uses = model.atomReferences.filter((ref) => ref.atom === atom);
+    return {
+      kind: 'atom',
+      name: entry.label ?? `#${atom + 1}`,
+      definition: entry.labelSpan ?? entry.span,
+      references: uses.filter((ref) => ref.kind === 'label').map((ref) => ref.span),
+      indexReferences: uses.filter((ref) => ref.kind === 'index').map((ref) => ref.span),
+    };
+  }
+  const fragment = model.fragments.find((f) => f.ast.name && f.ast.name.span.start === token.node.span.start);
+  if (fragment?.ast.name) {
+    return { kind: 'fragment', name: fragment.name, definition: fragment.ast.name.span, references: [], indexReferences: [] };
+  }
+  return undefined;
+}
+
+export function findDefinition(analysis: Analysis, uri: string, position: Position): Location | null {
+  const found = occurrencesAt(analysis, position);
+  return found ? { uri, range: toRange(analysis, found.definition) } : null;
+}
+
+export function findReferences(analysis: Analysis, uri: string, position: Position, includeDeclaration: boolean): Location[] {
+  const found = occurrencesAt(analysis, position);
+  if (!found) return [];
+  const spans = [...(includeDeclaration ? [found.definition] : []), ...found.references, ...found.indexReferences];
+  return spans.map((span) => ({ uri, range: toRange(analysis, span) }));
+}
+
+export function findDocumentHighlights(analysis: Analysis, position: Position): DocumentHighlight[] {
+  const found = occurrencesAt(analysis, position);
+  if (!found) return [];
+  return [
+    { range: toRange(analysis, found.definition), kind: DocumentHighlightKind.Write },
+    ...[...found.references, ...found.indexReferences].map((span) => ({ range: toRange(analysis, span), kind: DocumentHighlightKind.Read })),
+  ];
+}
+
+const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
+
+export type RenameCheck = { ok: true; range: Range; placeholder: string } | { ok: false; message: string };
+
+export function prepareRename(analysis: Analysis, position: Position): RenameCheck {
+  const found = occurrencesAt(analysis, position);
+  if (!found) return { ok: false, message: 'Only atom labels and fragment names can be renamed.' };
+  const offset = toOffset(analysis, position);
+  const atomEntry = found.kind === 'atom' ? analysis.model.atoms.find((atom) => atom.labelSpan === found.definition) : undefined;
+  if (found.kind === 'atom' && !atomEntry) return { ok: false, message: 'This atom has no label to rename; add one after its element symbol.' };
+  const spans = [found.definition, ...found.references];
+  const under = spans.find((span) => offset >= span.start && offset <= span.end);
+  if (!under) return { ok: false, message: 'A #index names the atom by position; rename its label instead.' };
+  return { ok: true, range: toRange(analysis, under), placeholder: found.name };
+}
+
+export function rename(analysis: Analysis, uri: string, position: Position, newName: string): WorkspaceEdit | { error: string } {
+  const check = prepareRename(analysis, position);
+  if (!check.ok) return { error: check.message };
+  if (!NAME.test(newName)) return { error: `'${newName}' is not a valid name: use letters, digits and _, starting with a letter.` };
+  const found = occurrencesAt(analysis, position)!;
+  const taken = found.kind === 'atom' ? analysis.model.labels.has(newName) : analysis.model.fragments.some((f) => f.name === newName);
+  if (taken && newName !== found.name) return { error: `'${newName}' is already the name of another ${found.kind}.` };
+  const edits: TextEdit[] = [found.definition, ...found.references].map((span) => ({ range: toRange(analysis, span), newText: newName }));
+  return { changes: { [uri]: edits } };
+}
