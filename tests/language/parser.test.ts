@@ -232,7 +232,7 @@ limits {
     expect(model.scan?.first).toBe(0);
     expect(model.scan?.second).toBe(4);
     expect(model.scan?.distances).toEqual([2.6, 2.8, 3, 3.2, 3.4]);
-    expect(model.limits).toEqual({ qubits: 24, memoryBytes: 16 * 1024 ** 3 });
+    expect(model.limits).toEqual({ qubits: 24, qubitsFromSpec: true, memoryBytes: 16 * 1024 ** 3 });
   });
 
   it('reads `scan ... points n` as n evenly spaced distances', () => {

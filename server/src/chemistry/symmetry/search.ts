@@ -22,7 +22,7 @@
  * A candidate is first matched with a looser radius (3 × tolerance), its direction refined by
  * least squares over the matched pairs, and then matched again within the tolerance.
  */
-import { apply, cross, dot, improperRotation, inversion, norm, normalized, reflection, rotation, row, topEigenvector, type Mat } from './linalg';
+import { cross, dot, improperRotation, inversion, norm, normalized, reflection, rotation, row, topEigenvector, type Mat } from './linalg';
 import type { ImageFinder, OperationMatch } from './images';
 import type { PrincipalAxes } from './inertia';
 
@@ -195,7 +195,7 @@ export function searchElements(context: SearchContext): FoundElements {
   const { coordinates, atomicNumbers, tolerance, principal } = context;
   const count = atomicNumbers.length;
   const found: { axes: FoundAxis[]; mirrors: FoundMirror[] } = { axes: [], mirrors: [] };
-  const inversionMatch = confirmElement(context, 'rotation', Float64Array.of(0, 0, 1), 1) && context.finder.match(inversion(), tolerance);
+  const inversionMatch = context.finder.match(inversion(), tolerance);
 
   const axisCandidates = new DirectionSet();
   const mirrorCandidates = new DirectionSet();
@@ -294,7 +294,7 @@ export function searchElements(context: SearchContext): FoundElements {
     const confirmed = confirmElement(context, 'mirror', candidate, 2);
     if (confirmed && !found.mirrors.some((mirror) => sameAxis(mirror.normal, confirmed.direction))) found.mirrors.push({ normal: confirmed.direction, match: confirmed.match });
   }
-  return { axes: found.axes, mirrors: found.mirrors, inversion: inversionMatch || undefined };
+  return { axes: found.axes, mirrors: found.mirrors, inversion: inversionMatch };
 }
 
 /**
@@ -339,4 +339,3 @@ export function hasImproperAxis(context: SearchContext, axis: Float64Array, orde
   return confirmElement(context, 'improper', axis, order)?.match;
 }
 
-export { apply };
