@@ -1,7 +1,14 @@
 /** `npm run bench`: every benchmark, printed as Markdown tables. */
 import { benchAnalysis } from './analysis';
+import { benchLanguageServer } from './lsp';
 
-const sections: (() => string[])[] = [benchAnalysis];
+type Section = () => string[] | Promise<string[]>;
 
-console.log(`# Tessera benchmarks (Node ${process.version}, ${new Date().toISOString()})\n`);
-for (const section of sections) console.log(`${section().join('\n')}\n`);
+const sections: Section[] = [benchAnalysis, () => benchLanguageServer()];
+
+async function main(): Promise<void> {
+  console.log(`# Tessera benchmarks (Node ${process.version}, ${new Date().toISOString()})\n`);
+  for (const section of sections) console.log(`${(await section()).join('\n')}\n`);
+}
+
+void main();

@@ -21,7 +21,7 @@ import * as service from '../services';
 import { AnalysisCache, Debouncer, pathToUri, uriToPath, type AnalysisSettings } from './documents';
 
 /** Quiet time after the last keystroke before diagnostics are recomputed. */
-const DIAGNOSTICS_DELAY_MS = 40;
+const DIAGNOSTICS_DELAY_MS = 20;
 
 export interface EditorSettings {
   defaultMapping: Mapping;
