@@ -7,9 +7,8 @@ import * as path from 'node:path';
 import { normalizeBasisName } from '../../chemistry/basis/library';
 import { analyze, type Analysis } from '../../language/analyze';
 import { parseXyz } from '../../language/xyz';
-import { buildEstimateReport, PLANNING_NOTE, type EstimateReport } from '../../report/estimate';
-import { conventionLines, estimateTables, headerLines } from '../../report/format/estimateTables';
-import { renderMarkdownTable, renderTextTable } from '../../report/format/table';
+import { buildEstimateReport } from '../../report/estimate';
+import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
 import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
 
@@ -104,27 +103,6 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
   return { analysis, file, diagnostics };
 }
 
-function renderText(report: EstimateReport, markdown: boolean): string {
-  const title = `Tessera estimate: ${report.spec.name ?? report.spec.path ?? 'spec'}`;
-  const tables = estimateTables(report);
-  if (markdown) {
-    return [
-      `## ${title}`,
-      '',
-      `> ${PLANNING_NOTE}`,
-      '',
-      ...headerLines(report).map((line) => `- ${line}`),
-      '',
-      ...tables.flatMap((table) => [renderMarkdownTable(table), '']),
-      '### Conventions',
-      '',
-      ...conventionLines(report).map((line) => `- ${line}`),
-      '',
-    ].join('\n');
-  }
-  return [title, PLANNING_NOTE, ...headerLines(report), '', ...tables.flatMap((table) => [renderTextTable(table), '']), 'Conventions:', ...conventionLines(report).map((line) => `  ${line}`), ''].join('\n');
-}
-
 export function runEstimate(options: EstimateOptions, io: CliIo): number {
   if (options.spec && options.xyz) throw new UsageError('give either a spec file or --xyz <file>, not both');
   if (!options.spec && !options.xyz) throw new UsageError('estimate needs a spec file, or --xyz <file> --basis <name>');
@@ -138,7 +116,7 @@ export function runEstimate(options: EstimateOptions, io: CliIo): number {
   if (options.format === 'json') {
     io.stdout(`${JSON.stringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, null, 2)}\n`);
   } else {
-    io.stdout(renderText(report, options.format === 'markdown'));
+    io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
     for (const diagnostic of prepared.diagnostics) {
       const line = diagnostic.line > 0 ? formatDiagnosticLine(diagnostic) : `${diagnostic.file}: ${diagnostic.severity} ${diagnostic.code} ${diagnostic.message}`;
       io.stderr(`${line}\n`);

@@ -29,9 +29,9 @@ function escapeMarkdown(cell: string): string {
   return cell.replace(/\|/g, '\\|');
 }
 
-export function renderMarkdownTable(table: Table): string {
+export function renderMarkdownTable(table: Table, heading = '###'): string {
   const out: string[] = [];
-  if (table.title) out.push(`### ${table.title}`, '');
+  if (table.title) out.push(`${heading} ${table.title}`, '');
   out.push(`| ${table.headers.map(escapeMarkdown).join(' | ')} |`);
   out.push(`|${table.headers.map((_, column) => (table.numeric?.[column] ? ' ---: ' : ' --- ')).join('|')}|`);
   for (const row of table.rows) out.push(`| ${row.map(escapeMarkdown).join(' | ')} |`);
