@@ -26,6 +26,10 @@
  *      double on x1 < x2 < x3 < x4: m = (x2 − x1 − 1) + (x4 − x3 − 1), CNOTs = 13 + 2m
  *    i.e. 2(w − 1) and 2w + 5 in terms of the weight w above. Only CNOTs are counted for this
  *    construction; its single-qubit gates and depth are left undefined.
+ *    Caveat: the 2- and 13-CNOT qubit-excitation circuits are the paper's; the parity overhead 2m
+ *    is our reconstruction of its fermionic circuits (ladder + controlled-Z), written without the
+ *    paper's text at hand. Check the constants against the paper's fermionic-excitation section
+ *    before quoting them as its equations.
  */
 import { hardwareEfficientModel, type HardwareEfficientLayout } from './ansatz';
 import { uccsdExcitationWeights, type ExcitationWeights, type RegisterLayout } from './weights';

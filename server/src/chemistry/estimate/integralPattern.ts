@@ -36,7 +36,7 @@ export function symmetryPattern(irreps: ArrayLike<number>): IntegralPattern {
   const masks = Uint8Array.from(irreps as ArrayLike<number>);
   for (let i = 0; i < masks.length; i++) {
     const value = (irreps as ArrayLike<number>)[i]!;
-    if (!Number.isInteger(value) || value < 0 || value > 255) throw new RangeError(`irrep mask ${value} of orbital ${i} is not an integer in 0..255`);
+    if (!Number.isInteger(value) || value < 0 || value > 7) throw new RangeError(`irrep mask ${value} of orbital ${i} is not a whole number 0–7 (D2h or a subgroup)`);
   }
   return {
     orbitals: masks.length,

@@ -24,11 +24,14 @@
  *    its partner monomial in the class differs from it by P_σ, and the pair survives only when
  *    N_σ has the parity the term needs (odd for a hop, n = 2; even for a quartet, n = 4). With
  *    n = 1 the reduced register is empty and the single term is the sector's energy, zero in the
- *    empty sector. The tests check all four sectors against explicit operator algebra.
+ *    empty sector. With n = 3 and explicit predicates a hop class can also vanish when N_σ is odd
+ *    (see hopSurvivesOddSector); the selection rule never allows that. The tests check all four
+ *    sectors against explicit operator algebra.
  *
  * Counts assume generic integrals: every integral the pattern allows is nonzero and distinct
  * integrals do not cancel each other. For n ≤ 4 the reduced-parity count also assumes nonzero
- * diagonal integrals h_ii and (ii|ii), as real orbitals always have.
+ * diagonal integrals h_ii and (ii|ii), as real orbitals always have (without them a few more
+ * classes can cancel in small sectors). The full-register counts need no such assumption.
  */
 import type { Mapping } from '../qubits';
 import type { IntegralPattern } from './integralPattern';
@@ -117,16 +120,16 @@ export function countByClasses(pattern: IntegralPattern): number {
 export function countBySymmetry(irreps: ArrayLike<number>): number {
   const n = irreps.length;
   if (n === 0) return 0;
-  const counts = new Float64Array(256);
+  const counts = new Float64Array(8);
   for (let i = 0; i < n; i++) counts[irreps[i]!]! += 1;
   const present: number[] = [];
-  for (let g = 0; g < 256; g++) if (counts[g]! > 0) present.push(g);
+  for (let g = 0; g < 8; g++) if (counts[g]! > 0) present.push(g);
 
   let sameIrrepPairs = 0;
   for (const g of present) sameIrrepPairs += (counts[g]! * (counts[g]! - 1)) / 2;
 
   // Orbital pairs a < b by product irrep.
-  const pairsByProduct = new Float64Array(256);
+  const pairsByProduct = new Float64Array(8);
   for (let s = 0; s < present.length; s++) {
     const g = present[s]!;
     pairsByProduct[0]! += (counts[g]! * (counts[g]! - 1)) / 2;
@@ -136,29 +139,29 @@ export function countBySymmetry(irreps: ArrayLike<number>): number {
     }
   }
   let pairPairs = 0;
-  for (let x = 0; x < 256; x++) pairPairs += pairsByProduct[x]! * pairsByProduct[x]!;
+  for (let x = 0; x < 8; x++) pairPairs += pairsByProduct[x]! * pairsByProduct[x]!;
 
   // Four-orbital subsets with product 0: choose t orbitals of each irrep, Σt = 4, XOR of the irreps
   // taken an odd number of times = 0.
-  let ways = new Float64Array(5 * 256);
+  let ways = new Float64Array(5 * 8);
   ways[0] = 1;
   for (const g of present) {
-    const next = new Float64Array(5 * 256);
+    const next = new Float64Array(5 * 8);
     const c = counts[g]!;
     for (let size = 0; size <= 4; size++) {
-      for (let x = 0; x < 256; x++) {
-        const w = ways[size * 256 + x]!;
+      for (let x = 0; x < 8; x++) {
+        const w = ways[size * 8 + x]!;
         if (w === 0) continue;
         let choose = 1;
         for (let t = 0; t + size <= 4 && t <= c; t++) {
           if (t > 0) choose = (choose * (c - t + 1)) / t;
-          next[(size + t) * 256 + (t & 1 ? x ^ g : x)]! += w * choose;
+          next[(size + t) * 8 + (t & 1 ? x ^ g : x)]! += w * choose;
         }
       }
     }
     ways = next;
   }
-  const quartets = ways[4 * 256]!;
+  const quartets = ways[4 * 8]!;
 
   return 1 + 2 * n + n * (2 * n - 1) + 4 * sameIrrepPairs * (2 * n - 1) + 4 * pairPairs + 12 * quartets;
 }
@@ -193,10 +196,38 @@ function reducedParitySmall(pattern: IntegralPattern): [number, number, number, 
       const need = (n / 2) & 1;
       if ((x & alphaModes) === alphaModes && alphaOdd !== need) continue;
       if ((x & betaModes) === betaModes && betaOdd !== need) continue;
+      if (n === 3 && !hopSurvivesOddSector(pattern, x, z, alphaOdd, betaOdd)) continue;
       const key = Math.min(z, z ^ alphaModes, z ^ betaModes, z ^ alphaModes ^ betaModes);
       classes.add(x * 256 + key);
     }
     result[sector] = classes.size;
   }
   return result;
+}
+
+/**
+ * n = 3: a hop between orbitals i and k of spin σ with D = ∅ shares its class with the same hop
+ * with Z on the third σ mode l (P_σ = Z_i Z_k Z_l). On the hop's support Z_i Z_k = −1, so Z_l is
+ * fixed by N_σ, and with N_σ odd (l empty) the class coefficient is the D = ∅ coefficient minus
+ * the n_l part: h_ik + ½ Σ_j (ik|jj), the sum from the other spin. It vanishes when the pattern
+ * forbids all of these, which the selection rule never does (they share the irrep product Γi ⊕ Γk
+ * with the (il|lk) that put the strings there) but an explicit predicate can.
+ */
+function hopSurvivesOddSector(pattern: IntegralPattern, x: number, z: number, alphaOdd: number, betaOdd: number): boolean {
+  const alphaModes = 0b000111;
+  const betaModes = 0b111000;
+  for (const [modes, odd, other] of [
+    [alphaModes, alphaOdd, betaModes],
+    [betaModes, betaOdd, alphaModes],
+  ] as const) {
+    if (odd === 0 || (x & modes) !== x || (z & other) !== 0 || x === 0) continue;
+    const orbitals = modes === alphaModes ? x : x >> 3;
+    if (orbitals === 0b111 || (orbitals & (orbitals - 1)) === 0) continue;
+    const i = orbitals & 1 ? 0 : 1;
+    const k = orbitals & 4 ? 2 : 1;
+    if (pattern.allowedOneBody(i, k)) return true;
+    for (let j = 0; j < 3; j++) if (pattern.allowed(i, k, j, j)) return true;
+    return false;
+  }
+  return true;
 }

@@ -53,18 +53,26 @@ export interface TermClassVisitor {
   quartet(a: number, b: number, c: number, d: number, present: number): void;
 }
 
+/** Largest table of pair-pair flags kept in memory (32 MB, n ≈ 105); beyond it the predicate is called directly. */
+const MAX_TABLE_BYTES = 2 ** 25;
+
 /**
  * Two-electron allowedness for every pair of orbital pairs, (ij|kl) with i ≤ j and k ≤ l, filled
  * once so the loops below call the caller's predicate O(n⁴/8) times and then read a byte array.
  */
 class PairPairTable {
   readonly pairs: number;
-  private readonly bits: Uint8Array;
+  private readonly bits: Uint8Array | undefined;
 
   constructor(private readonly pattern: IntegralPattern) {
     const n = pattern.orbitals;
     this.pairs = (n * (n + 1)) / 2;
-    this.bits = new Uint8Array(this.pairs * this.pairs);
+    if (this.pairs * this.pairs > MAX_TABLE_BYTES) {
+      this.bits = undefined;
+      return;
+    }
+    const bits = new Uint8Array(this.pairs * this.pairs);
+    this.bits = bits;
     for (let j = 0; j < n; j++) {
       for (let i = 0; i <= j; i++) {
         const left = PairPairTable.index(i, j);
@@ -73,8 +81,8 @@ class PairPairTable {
             const right = PairPairTable.index(k, l);
             if (right < left) continue;
             const value = pattern.allowed(i, j, k, l) ? 1 : 0;
-            this.bits[left * this.pairs + right] = value;
-            this.bits[right * this.pairs + left] = value;
+            bits[left * this.pairs + right] = value;
+            bits[right * this.pairs + left] = value;
           }
         }
       }
@@ -87,6 +95,7 @@ class PairPairTable {
 
   /** (ij|kl) allowed. */
   get(i: number, j: number, k: number, l: number): boolean {
+    if (this.bits === undefined) return this.pattern.allowed(i, j, k, l);
     return this.bits[PairPairTable.index(i, j) * this.pairs + PairPairTable.index(k, l)] === 1;
   }
 }
