@@ -128,6 +128,57 @@ export class ImageFinder {
     return best;
   }
 
+  /** Whether some atom of element `element` lies within `radius` of (x, y, z). */
+  hasAtomNear(element: number, x: number, y: number, z: number, radius: number): boolean {
+    this.stamp++;
+    return this.nearest(element, x, y, z, radius, new Float64Array(1)) >= 0;
+  }
+
+  /**
+   * Distances from each atom to its nearest and second-nearest other atom, capped at `cap`
+   * (capping keeps them continuous in the coordinates: moving every atom by at most δ changes
+   * each by at most 2δ, so they separate atoms that no symmetry can exchange).
+   */
+  neighbourDistances(cap: number): { first: Float64Array; second: Float64Array } {
+    const first = new Float64Array(this.count).fill(cap);
+    const second = new Float64Array(this.count).fill(cap);
+    const coords = this.coordinates;
+    const [nx, ny] = [this.dims[0]!, this.dims[1]!];
+    for (let i = 0; i < this.count; i++) {
+      const x = coords[3 * i]!;
+      const y = coords[3 * i + 1]!;
+      const z = coords[3 * i + 2]!;
+      const [x0, x1] = [this.axisCell(x - cap, 0), this.axisCell(x + cap, 0)];
+      const [y0, y1] = [this.axisCell(y - cap, 1), this.axisCell(y + cap, 1)];
+      const [z0, z1] = [this.axisCell(z - cap, 2), this.axisCell(z + cap, 2)];
+      let d1 = cap * cap;
+      let d2 = cap * cap;
+      for (let cz = z0; cz <= z1; cz++) {
+        for (let cy = y0; cy <= y1; cy++) {
+          const base = nx * (cy + ny * cz);
+          for (let cx = x0; cx <= x1; cx++) {
+            const cell = base + cx;
+            for (let k = this.cellStart[cell]!; k < this.cellStart[cell + 1]!; k++) {
+              const j = this.cellAtoms[k]!;
+              if (j === i) continue;
+              const dx = coords[3 * j]! - x;
+              const dy = coords[3 * j + 1]! - y;
+              const dz = coords[3 * j + 2]! - z;
+              const squared = dx * dx + dy * dy + dz * dz;
+              if (squared < d1) {
+                d2 = d1;
+                d1 = squared;
+              } else if (squared < d2) d2 = squared;
+            }
+          }
+        }
+      }
+      first[i] = Math.sqrt(d1);
+      second[i] = Math.sqrt(d2);
+    }
+    return { first, second };
+  }
+
   /**
    * Applies `m` (about the origin) to every atom and pairs each image with an unclaimed atom of
    * the same element within `radius`. Undefined as soon as one atom has no partner.

@@ -172,6 +172,15 @@ export function symmetricEigen(matrix: ArrayLike<number>): SymmetricEigen {
   return { values, vectors };
 }
 
+/**
+ * Distance of point r from the line through the origin along unit u, from the perpendicular
+ * component itself (not √(|r|² − (r·u)²), which loses half the digits near the axis).
+ */
+export function distanceFromAxis(r: ArrayLike<number>, u: ArrayLike<number>): number {
+  const h = r[0]! * u[0]! + r[1]! * u[1]! + r[2]! * u[2]!;
+  return Math.hypot(r[0]! - h * u[0]!, r[1]! - h * u[1]!, r[2]! - h * u[2]!);
+}
+
 /** Row k of a row-major matrix as a new vector. */
 export function row(m: Mat, k: number): Float64Array {
   return m.slice(3 * k, 3 * k + 3);

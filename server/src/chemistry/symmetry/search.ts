@@ -4,8 +4,9 @@
  *
  * Candidates come from geometry, not from a scan of directions:
  * - every operation fixes the centre of mass and maps atoms onto atoms of the same element at the
- *   same distance from it, so atoms fall into classes by (element, distance) — for a symmetric top
- *   also by distance from the plane ⊥ the unique axis — and an atom's image lies in its class;
+ *   same distance from it and with the same nearest- and second-nearest-neighbour distances, so
+ *   atoms fall into classes by those invariants — for a symmetric top also by distance from the
+ *   plane ⊥ the unique axis — and an atom's image lies in its class;
  * - with a reference atom a from the smallest class and a second atom b not collinear with a:
  *   an n-fold axis (n ≥ 3) either passes through a or is normal to the plane of a, C_n a and
  *   C_n⁻¹ a, an isosceles triangle with apex a; a two-fold axis u is along a + C2 a unless
@@ -21,8 +22,12 @@
  *
  * A candidate is first matched with a looser radius (3 × tolerance), its direction refined by
  * least squares over the matched pairs, and then matched again within the tolerance.
+ *
+ * Guards that bound the work on large, nearly symmetric-looking clusters (each a place where a
+ * symmetry could in principle be missed): at most MAX_TRIANGLES isosceles candidates, and on a
+ * class larger than RING_SCAN_LIMIT only the orders 2 to 6 are probed (see possibleOrders).
  */
-import { cross, dot, improperRotation, inversion, norm, normalized, reflection, rotation, row, topEigenvector, type Mat } from './linalg';
+import { cross, distanceFromAxis, dot, improperRotation, inversion, norm, normalized, reflection, rotation, row, topEigenvector, type Mat } from './linalg';
 import type { ImageFinder, OperationMatch } from './images';
 import type { PrincipalAxes } from './inertia';
 
@@ -121,55 +126,53 @@ interface AtomClasses {
 }
 
 /**
- * Groups atoms by element and distance from the centre (and, given `axis`, by |height| along it):
- * sorted values split wherever neighbours differ by more than `gap` (single linkage), so atoms
- * closer than `gap` always share a class.
+ * Groups atoms by invariants no symmetry operation changes: element, distance from the centre,
+ * distances to the nearest and second-nearest neighbour and, given `axis`, |height| along it.
+ * Each list of values is sorted and split wherever neighbours differ by more than `gap` (single
+ * linkage), one invariant after another, so atoms whose invariants all agree within `gap` always
+ * share a class.
  */
-function classify(coordinates: Float64Array, atomicNumbers: Int32Array, gap: number, axis: Float64Array | undefined): AtomClasses {
+function classify(coordinates: Float64Array, atomicNumbers: Int32Array, gap: number, axis: Float64Array | undefined, neighbours: { first: Float64Array; second: Float64Array }): AtomClasses {
   const count = atomicNumbers.length;
-  const radius = new Float64Array(count);
-  const height = new Float64Array(count);
+  const keys: Float64Array[] = [new Float64Array(count), neighbours.first, neighbours.second];
   for (let i = 0; i < count; i++) {
-    const r = coordinates.subarray(3 * i, 3 * i + 3);
-    radius[i] = norm(r);
-    height[i] = axis ? Math.abs(dot(r, axis)) : 0;
+    const x = coordinates[3 * i]!;
+    const y = coordinates[3 * i + 1]!;
+    const z = coordinates[3 * i + 2]!;
+    keys[0]![i] = Math.sqrt(x * x + y * y + z * z);
   }
-  const order = Array.from({ length: count }, (_, i) => i).sort((a, b) => atomicNumbers[a]! - atomicNumbers[b]! || radius[a]! - radius[b]!);
-  const groups: number[][] = [];
-  let current: number[] = [];
-  for (let k = 0; k < order.length; k++) {
-    const i = order[k]!;
-    const previous = k > 0 ? order[k - 1]! : -1;
-    if (previous >= 0 && (atomicNumbers[i] !== atomicNumbers[previous] || radius[i]! - radius[previous]! > gap)) {
-      groups.push(current);
-      current = [];
-    }
-    current.push(i);
+  if (axis) keys.push(Float64Array.from({ length: count }, (_, i) => Math.abs(coordinates[3 * i]! * axis[0]! + coordinates[3 * i + 1]! * axis[1]! + coordinates[3 * i + 2]! * axis[2]!)));
+  // Start from one group per element, then split by each invariant in turn.
+  const byElement = new Map<number, number[]>();
+  for (let i = 0; i < count; i++) {
+    const list = byElement.get(atomicNumbers[i]!);
+    if (list) list.push(i);
+    else byElement.set(atomicNumbers[i]!, [i]);
   }
-  if (current.length > 0) groups.push(current);
-  const members: Int32Array[] = [];
-  for (const group of groups) {
-    if (!axis) {
-      members.push(Int32Array.from(group).sort());
-      continue;
-    }
-    group.sort((a, b) => height[a]! - height[b]!);
-    let part: number[] = [];
-    for (let k = 0; k < group.length; k++) {
-      if (k > 0 && height[group[k]!]! - height[group[k - 1]!]! > gap) {
-        members.push(Int32Array.from(part).sort());
-        part = [];
+  let groups = [...byElement.values()];
+  for (const key of keys) {
+    const next: number[][] = [];
+    for (const group of groups) {
+      group.sort((p, q) => key[p]! - key[q]!);
+      let part: number[] = [group[0]!];
+      for (let k = 1; k < group.length; k++) {
+        if (key[group[k]!]! - key[group[k - 1]!]! > gap) {
+          next.push(part);
+          part = [];
+        }
+        part.push(group[k]!);
       }
-      part.push(group[k]!);
+      next.push(part);
     }
-    members.push(Int32Array.from(part).sort());
+    groups = next;
   }
+  const members = groups.map((group) => Int32Array.from(group).sort());
   const classOf = new Int32Array(count);
   members.forEach((list, c) => list.forEach((i) => (classOf[i] = c)));
   return { classOf, members };
 }
 
-/** Unit directions with duplicates (within about 0.01 rad, either sign) removed. */
+/** Unit directions with duplicates (equal to about 0.001 rad, either sign) removed. */
 class DirectionSet {
   readonly list: Float64Array[] = [];
   private readonly keys = new Set<string>();
@@ -181,12 +184,15 @@ class DirectionSet {
     let k = 0;
     for (let c = 1; c < 3; c++) if (Math.abs(u[c]!) > Math.abs(u[k]!)) k = c;
     if (u[k]! < 0) for (let c = 0; c < 3; c++) u[c] = -u[c]!;
-    const key = `${Math.round(u[0]! * 100)},${Math.round(u[1]! * 100)},${Math.round(u[2]! * 100)}`;
+    const key = `${Math.round(u[0]! * 1000)},${Math.round(u[1]! * 1000)},${Math.round(u[2]! * 1000)}`;
     if (this.keys.has(key)) return;
     this.keys.add(key);
     this.list.push(u);
   }
 }
+
+/** Neighbour distances beyond this (Å) count as equal (common practice, no source). */
+const NEIGHBOUR_CAP = 2.5;
 
 /** Largest number of isosceles-triangle candidates taken from one reference atom (a guard). */
 const MAX_TRIANGLES = 20_000;
@@ -199,19 +205,27 @@ export function searchElements(context: SearchContext): FoundElements {
 
   const axisCandidates = new DirectionSet();
   const mirrorCandidates = new DirectionSet();
-  for (let k = 0; k < 3; k++) {
-    axisCandidates.add(row(principal.axes, k));
-    mirrorCandidates.add(row(principal.axes, k));
-  }
-
   const unique = principal.kind === 'symmetric' ? row(principal.axes, principal.uniqueAxis) : undefined;
+  // Principal axes are candidates only where they are defined: all three for an asymmetric top,
+  // the unique one for a symmetric top (a degenerate pair's eigenvectors are arbitrary).
+  if (principal.kind === 'asymmetric') {
+    for (let k = 0; k < 3; k++) {
+      axisCandidates.add(row(principal.axes, k));
+      mirrorCandidates.add(row(principal.axes, k));
+    }
+  } else if (unique) {
+    axisCandidates.add(unique);
+    mirrorCandidates.add(unique);
+  }
   // Reference atoms and their classes (only needed for symmetric and spherical tops).
   let classes: AtomClasses | undefined;
   let a = -1;
   let b = -1;
-  const gap = 2 * COARSE_FACTOR * tolerance;
+  // Partners within the tolerance differ by at most 2·tolerance in every invariant; a little slack
+  // covers the shift of the centre of mass.
+  const gap = 2.5 * tolerance;
   if (principal.kind !== 'asymmetric') {
-    classes = classify(coordinates, atomicNumbers, gap, unique);
+    classes = classify(coordinates, atomicNumbers, gap, unique, context.finder.neighbourDistances(NEIGHBOUR_CAP));
     const radiusOf = (i: number) => norm(coordinates.subarray(3 * i, 3 * i + 3));
     const offCentre = classes.members.filter((list) => radiusOf(list[0]!) > gap);
     offCentre.sort((p, q) => p.length - q.length || radiusOf(q[0]!) - radiusOf(p[0]!));
@@ -278,7 +292,7 @@ export function searchElements(context: SearchContext): FoundElements {
     const isUnique = unique !== undefined && Math.abs(dot(candidate, unique)) > 0.999;
     if (!allowed(candidate, isUnique)) continue;
     if (found.axes.some((axis) => sameAxis(axis.axis, candidate))) continue;
-    const orders = principal.kind === 'asymmetric' ? [2] : possibleOrders(context, classes!, candidate, a, b);
+    const orders = principal.kind === 'asymmetric' || (unique && !isUnique) ? [2] : possibleOrders(context, classes!, candidate, a, b, gap);
     for (const order of orders) {
       const confirmed = confirmElement(context, 'rotation', candidate, order);
       if (confirmed) {
@@ -297,41 +311,63 @@ export function searchElements(context: SearchContext): FoundElements {
   return { axes: found.axes, mirrors: found.mirrors, inversion: inversionMatch };
 }
 
+/** Classes larger than this get probed orders instead of a scan of the ring (a guard). */
+const RING_SCAN_LIMIT = 64;
+/** Orders probed on such classes: those of the cubic and icosahedral groups, and 6. */
+const PROBED_ORDERS = [6, 5, 4, 3, 2];
+
 /**
  * Orders an axis might have, highest first: the angles, seen along the axis, between a reference
  * atom off the axis and the atoms of its class at the same height and distance from the axis.
- * C_n sends the atom to one of them at exactly 2π/n.
+ * C_n sends the atom to one of them at exactly 2π/n. For a class larger than RING_SCAN_LIMIT
+ * the orders 6, 5, 4, 3, 2 are probed instead (one look-up each); a spherical top (the only kind
+ * that gets here with a large class besides a symmetric top's unique axis) has axes of order
+ * 2 to 5 unless its moments are equal by accident, so an order above 6 on a large class of such
+ * an accidental spherical top is the one thing this can miss.
  */
-function possibleOrders(context: SearchContext, classes: AtomClasses, axis: Float64Array, a: number, b: number): number[] {
+function possibleOrders(context: SearchContext, classes: AtomClasses, axis: Float64Array, a: number, b: number, gap: number): number[] {
   const { coordinates, tolerance } = context;
-  const window = 2 * COARSE_FACTOR * tolerance;
-  const offAxis = (i: number) => {
-    if (i < 0) return -1;
-    const r = coordinates.subarray(3 * i, 3 * i + 3);
-    const h = dot(r, axis);
-    return Math.sqrt(Math.max(0, dot(r, r) - h * h));
-  };
+  const window = gap + COARSE_FACTOR * tolerance;
+  const offAxis = (i: number) => (i < 0 ? -1 : distanceFromAxis(coordinates.subarray(3 * i, 3 * i + 3), axis));
   const reference = offAxis(a) > window ? a : offAxis(b) > window ? b : -1;
   if (reference < 0) return [];
+  const members = classes.members[classes.classOf[reference]!]!;
   const r = coordinates.subarray(3 * reference, 3 * reference + 3);
+  const isUniqueAxis = context.principal.kind === 'symmetric';
+  if (members.length > RING_SCAN_LIMIT && !isUniqueAxis) {
+    const element = context.atomicNumbers[reference]!;
+    return PROBED_ORDERS.filter((n) => {
+      const image = rotationImage(axis, (2 * Math.PI) / n, r);
+      return context.finder.hasAtomNear(element, image[0]!, image[1]!, image[2]!, COARSE_FACTOR * tolerance);
+    });
+  }
   const h = dot(r, axis);
   const rho = offAxis(reference);
   const e1 = normalized([r[0]! - h * axis[0]!, r[1]! - h * axis[1]!, r[2]! - h * axis[2]!])!;
   const e2 = cross(axis, e1);
   const orders = new Set<number>();
-  for (const c of classes.members[classes.classOf[reference]!]!) {
+  for (const c of members) {
     if (c === reference) continue;
-    const rc = coordinates.subarray(3 * c, 3 * c + 3);
-    const hc = dot(rc, axis);
+    const x = coordinates[3 * c]!;
+    const y = coordinates[3 * c + 1]!;
+    const z = coordinates[3 * c + 2]!;
+    const hc = x * axis[0]! + y * axis[1]! + z * axis[2]!;
     if (Math.abs(hc - h) > window) continue;
-    const pc = [rc[0]! - hc * axis[0]!, rc[1]! - hc * axis[1]!, rc[2]! - hc * axis[2]!];
-    if (Math.abs(norm(pc) - rho) > window) continue;
-    const angle = Math.abs(Math.atan2(dot(pc, e2), dot(pc, e1)));
+    const px = x - hc * axis[0]!;
+    const py = y - hc * axis[1]!;
+    const pz = z - hc * axis[2]!;
+    if (Math.abs(Math.sqrt(px * px + py * py + pz * pz) - rho) > window) continue;
+    const angle = Math.abs(Math.atan2(px * e2[0]! + py * e2[1]! + pz * e2[2]!, px * e1[0]! + py * e1[1]! + pz * e1[2]!));
     if (angle * rho < window) continue;
     const n = Math.round((2 * Math.PI) / angle);
     if (n >= 2 && Math.abs(angle - (2 * Math.PI) / n) * rho <= window) orders.add(n);
   }
   return [...orders].sort((p, q) => q - p);
+}
+
+function rotationImage(axis: Float64Array, angle: number, r: ArrayLike<number>): Float64Array {
+  const m = rotation(axis, angle);
+  return Float64Array.of(m[0]! * r[0]! + m[1]! * r[1]! + m[2]! * r[2]!, m[3]! * r[0]! + m[4]! * r[1]! + m[5]! * r[2]!, m[6]! * r[0]! + m[7]! * r[1]! + m[8]! * r[2]!);
 }
 
 /** Tries the improper rotation S_order about `axis` (used to tell S2n from Cn). */
