@@ -315,14 +315,14 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     trigger: water('fragment w { atoms rest; tier quantum { mapping parity; ⟦active 8e 8o⟧ } }\nlimits { qubits 12 }', '', 'basis cc-pVDZ'),
     // Under the parity mapping with the two-qubit reduction, 7 orbitals need 2 × 7 − 2 = 12 qubits.
     nearMiss: water('fragment w { atoms rest; tier quantum { mapping parity; active 8e 7o } }\nlimits { qubits 12 }', '', 'basis cc-pVDZ'),
-    message: ["Fragment 'w' needs 14 qubits under parity (active space 8e 8o), but the limit is 12. The largest active space that fits is `active 8e 7o`."],
+    message: ["Fragment 'w' needs 14 qubits (parity; active space 8e 8o), but the limit is 12. To fit: `taper on` brings it to 12 qubits; or the largest active space that fits is `active 8e 7o` (12 qubits)."],
   },
   'memory-limit-exceeded': {
     // A statevector of 2^n amplitudes of 16 bytes (complex double; common practice, no source):
     // 4 orbitals = 8 qubits = 4096 B, above a 4 KB (4000 B) limit and within 4 KiB (4096 B).
     trigger: water('fragment w { atoms rest; tier quantum { ⟦active 4e 4o⟧ } }\nlimits { memory 4 KB }'),
     nearMiss: water('fragment w { atoms rest; tier quantum { active 4e 4o } }\nlimits { memory 4 KiB }'),
-    message: ['statevector of 8 qubits', 'needs 4.0 KiB', 'the memory limit is 3.9 KiB'],
+    message: ['statevector of 8 qubits', 'needs 4.00 KiB', 'the memory limit is 3.9 KiB'],
   },
   // Scan
   'invalid-scan': {
@@ -643,7 +643,7 @@ describe('limits', () => {
     // 23 outside the frozen core, so 46 qubits under Jordan–Wigner.
     const { diagnostic } = expectDiagnostic(water('fragment w { atoms rest; ⟦tier⟧ quantum { } }\nlimits { qubits 12 }', '', 'basis cc-pVDZ'), 'qubit-limit-exceeded');
     expect(diagnostic.message).toBe(
-      "Fragment 'w' needs 46 qubits under jordan-wigner (no active space given, so all 23 orbitals outside the frozen core are active), but the limit is 12. The largest active space that fits is `active 8e 6o`.",
+      "Fragment 'w' needs 46 qubits (jordan-wigner; no active space given, so all 23 orbitals of its own space outside the frozen core are active), but the limit is 12. To fit: the largest active space that fits is `active 8e 6o` (12 qubits).",
     );
     expect(diagnostic.data).toEqual({ active: { electrons: 8, orbitals: 6 }, needed: 46, limit: 12 });
   });
@@ -668,9 +668,9 @@ describe('limits', () => {
       'memory-limit-exceeded',
     );
     expect(diagnostic.message).toBe(
-      "Simulating fragment 'w' as a statevector of 46 qubits under jordan-wigner (no active space given, so all 23 orbitals outside the frozen core are active) needs 1.0 PiB (2^46 amplitudes × 16 bytes), but the memory limit is 64.0 GiB.",
+      "Simulating fragment 'w' as a statevector of 46 qubits (jordan-wigner; no active space given, so all 23 orbitals of its own space outside the frozen core are active) needs 1.00 PiB (2^46 amplitudes × 16 bytes), but the memory limit is 64.0 GiB.",
     );
-    expect(diagnostic.data).toEqual({ bytes: 2 ** 50, limit: 64 * 1024 ** 3 });
+    expect(diagnostic.data).toEqual({ qubits: 46, limit: 64 * 1024 ** 3 });
     expect(diagnostic.related?.map((r) => analysis.text.slice(r.span.start, r.span.end))).toEqual(['64 GiB']);
   });
 });
@@ -940,7 +940,7 @@ describe('values', () => {
       [water(ONE_FRAGMENT, '⟦multiplicity⟧'), "'multiplicity' needs a value: write `multiplicity <2S+1>`."],
       [water(ONE_FRAGMENT, '', '⟦basis⟧'), "'basis' needs a value: write `basis <name>`."],
       [water('fragment w { ⟦atoms⟧; tier mean-field { } }'), 'List the atoms: labels, #indices, ranges like n1..n4, `all H`, `within 3.0 of zn` or `rest`.'],
-      [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`.'],
+      [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`.'],
       [water('fragment w { atoms rest; tier quantum { ⟦method⟧ } }'), "'method' needs a value: write `method <name>`."],
       [water(`${ONE_FRAGMENT}\nlimits { ⟦memory⟧ }`), 'Give the memory with a unit: `memory 16 GiB` (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB).'],
       [water(ONE_FRAGMENT, '', 'basis sto-3g { ⟦H =⟧ }'), "Name the basis for H after '=': `H = def2-TZVP`."],
@@ -966,7 +966,7 @@ describe('values', () => {
     const cases: [string, string][] = [
       [water(ONE_FRAGMENT, 'multiplicity ⟦triplet⟧'), "The multiplicity must be a number, not 'triplet'."],
       [water('fragment w { atoms rest; tier quantum { layers ⟦0⟧ } }'), "The number of layers must be a whole number of at least 1; '0' is not."],
-      [water('fragment w { atoms rest; tier quantum { active ⟦4⟧ 4o; active 4e 4o } }'), "Mark what the number counts: '4e' for electrons or '4o' for orbitals (active <n>e <m>o, for example `active 6e 6o`)."],
+      [water('fragment w { atoms rest; tier quantum { active ⟦4⟧ 4o; active 4e 4o } }'), "Mark what the number counts: '4e' for electrons or '4o' for orbitals (active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`)."],
       [water(`${ONE_FRAGMENT}\nlimits { qubits ⟦2.5⟧ }`), "The qubit limit must be a whole number of at least 1; '2.5' is not."],
       [water(`${ONE_FRAGMENT}\nlimits { memory 16 ⟦XB⟧ }`), "Unknown memory unit 'XB'; use one of B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB."],
       [water(`${ONE_FRAGMENT}\nlimits { memory ⟦16⟧ }`), 'Add a unit to the memory size: 16 GiB? (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB)'],

@@ -75,9 +75,6 @@ describe('samples/mistakes.tess', () => {
    * with the reason it appears. They are listed so that the comparison stays exact.
    */
   const ALSO_REPORTED: Readonly<Record<string, readonly { code: DiagnosticCode; reason: string }[]>> = {
-    '9 electrons do not fit 4 orbitals': [
-      { code: 'qubit-limit-exceeded', reason: '4 active orbitals need 8 qubits under jordan-wigner, and the file sets `qubits 4`' },
-    ],
     'h2 is in two fragments': [
       { code: 'bond-cut', reason: 'h3 sits on h2, so it is bonded to o, which is in the other fragment' },
     ],

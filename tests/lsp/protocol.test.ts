@@ -195,7 +195,7 @@ describe('settings', () => {
       let diagnostics = await configured.diagnostics(uri);
       for (let i = 0; i < 5 && !diagnostics.some((d) => d.code === 'qubit-limit-exceeded'); i++) diagnostics = await configured.diagnostics(uri);
       const limit = diagnostics.find((d) => d.code === 'qubit-limit-exceeded')!;
-      expect(limit.message).toContain('needs 12 qubits under parity');
+      expect(limit.message).toContain('needs 12 qubits (parity;');
       expect(limit.message).toContain('the spec sets none');
       expect(configured.serverRequests).toContain('workspace/configuration');
     } finally {

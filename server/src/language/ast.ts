@@ -107,9 +107,18 @@ export type SelectorAst =
   | { readonly kind: 'within'; readonly distance: number; readonly of: AtomRef; readonly span: Span }
   | { readonly kind: 'rest'; readonly span: Span };
 
+export interface ActiveIrrepAst {
+  readonly label: Located<string>;
+  readonly count: Located<number>;
+  readonly span: Span;
+}
+
 export interface ActiveSpaceAst {
   readonly electrons?: Located<number>;
+  /** Given as `6o`, or the sum of the per-irrep counts. */
   readonly orbitals?: Located<number>;
+  /** Orbitals per irrep of the fragment's point group, when given (`A1=3 B2=1`). */
+  readonly irreps: readonly ActiveIrrepAst[];
   readonly span: Span;
 }
 

@@ -8,6 +8,7 @@ import { parseMemorySize } from './values';
 import {
   atomListOf,
   atomListOfTable,
+  type ActiveIrrepAst,
   type ActiveSpaceAst,
   type AtomAst,
   type AtomRef,
@@ -570,24 +571,38 @@ class Interpreter {
     return tier;
   }
 
+  /** active 6e 6o, or per irrep of the fragment's point group: active 6e A1=3 B1=1 B2=2 */
   private activeSpace(statement: Statement): ActiveSpaceAst {
     let electrons: Located<number> | undefined;
     let orbitals: Located<number> | undefined;
-    const syntax = 'active <n>e <m>o, for example `active 6e 6o`';
-    for (const arg of statement.args) {
+    const irreps: ActiveIrrepAst[] = [];
+    const syntax = 'active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`';
+    const args = statement.args;
+    for (let i = 0; i < args.length; i++) {
+      const arg = args[i]!;
       if (arg.kind === 'electrons' && !electrons) electrons = { value: Number(arg.text.slice(0, -1)), span: arg.span };
       else if (arg.kind === 'orbitals' && !orbitals) orbitals = { value: Number(arg.text.slice(0, -1)), span: arg.span };
-      else if (arg.kind === 'number') {
+      else if (arg.kind === 'word' && args[i + 1]?.kind === 'equals') {
+        const count = args[i + 2];
+        i += 2;
+        const value = count ? this.wholeNumber(count, `The orbital count of ${arg.text}`, 0) : undefined;
+        if (!count) this.sink.report('missing-value', joinSpans(arg.span, args[i - 1]!.span), `Give the number of ${arg.text} orbitals after '=': \`${arg.text}=2\`.`);
+        if (value) irreps.push({ label: { value: arg.text, span: arg.span }, count: value, span: joinSpans(arg.span, value.span) });
+      } else if (arg.kind === 'number') {
         this.sink.report('invalid-value', arg.span, `Mark what the number counts: '${arg.text}e' for electrons or '${arg.text}o' for orbitals (${syntax}).`);
       } else {
         this.sink.report('invalid-value', arg.span, `An active space does not take ${describeArgument(arg)}; write ${syntax}.`);
       }
     }
+    if (!orbitals && irreps.length > 0) {
+      const total = irreps.reduce((sum, irrep) => sum + irrep.count.value, 0);
+      orbitals = { value: total, span: joinSpans(irreps[0]!.span, irreps[irreps.length - 1]!.span) };
+    }
     if (!electrons || !orbitals) {
       const missing = !electrons && !orbitals ? 'electrons and orbitals' : !electrons ? 'the electron count' : 'the orbital count';
       this.sink.report('missing-value', statement.span, `The active space needs ${missing}: ${syntax}.`);
     }
-    const located: ActiveSpaceAst = { span: statement.span };
+    const located: ActiveSpaceAst = { span: statement.span, irreps };
     return { ...located, ...(electrons ? { electrons } : {}), ...(orbitals ? { orbitals } : {}) };
   }
 

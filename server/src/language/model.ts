@@ -37,6 +37,8 @@ export interface TierModel {
   readonly ansatz: string | undefined;
   readonly mapping: Mapping | undefined;
   readonly active: { readonly electrons: number; readonly orbitals: number } | undefined;
+  /** Active orbitals per irrep label, when the spec gives them. */
+  readonly activeIrreps: readonly { readonly label: string; readonly count: number }[] | undefined;
   readonly frozenCore: boolean;
   readonly taper: boolean;
   readonly layers: number;
@@ -295,6 +297,7 @@ function tierModel(ast: TierAst, multiplicity: number, defaultFrozenCore: boolea
     ansatz: quantum ? (ast.ansatz?.value ?? (method === 'vqe' ? 'uccsd' : undefined)) : undefined,
     mapping: quantum ? ((ast.mapping?.value as Mapping | undefined) ?? options.defaultMapping ?? 'jordan-wigner') : undefined,
     active,
+    activeIrreps: ast.active && ast.active.irreps.length > 0 ? ast.active.irreps.map((irrep) => ({ label: irrep.label.value, count: irrep.count.value })) : undefined,
     frozenCore: ast.frozenCore?.value ?? defaultFrozenCore,
     taper: ast.taper?.value ?? false,
     layers: ast.layers?.value ?? 1,

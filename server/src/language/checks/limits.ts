@@ -1,48 +1,60 @@
-/** Resource limits: the qubits and statevector memory each quantum-tier fragment needs against `limits { qubits; memory }`. */
-import { largestActiveSpaceWithin } from '../../chemistry/counting';
-import { qubitsUnder, type Mapping } from '../../chemistry/qubits';
-import { formatBytes } from '../../chemistry/units';
+/**
+ * Resource limits: the qubits each quantum-tier fragment's solver needs (its active space inside
+ * the DMET impurity or its own orbitals, under its mapping, tapered when `taper on`) against
+ * `limits { qubits }`, and the memory of a statevector simulation against `limits { memory }`.
+ */
+import { compareWithMemoryLimit } from '../../chemistry/cost/classical';
+import { formatBytes } from '../../chemistry/cost/format';
+import { fitActiveSpace, qubitsFor } from '../../chemistry/estimate/plan';
+import { formatBytes as formatPlainBytes } from '../../chemistry/units';
+import { estimatesOf } from '../estimates';
 import type { CheckContext } from './context';
-
-/** Spatial orbitals that fit a qubit budget: 2n qubits, or 2n − 2 under the reduced parity mapping. */
-export function orbitalsWithinQubits(limit: number, mapping: Mapping): number {
-  return mapping === 'parity' ? Math.floor((limit + 2) / 2) : Math.floor(limit / 2);
-}
-
-/** Bytes of a statevector of n qubits: 2^n double-precision complex amplitudes of 16 bytes each (common practice, no source). */
-export function statevectorBytes(qubits: number): number {
-  return 16 * 2 ** qubits;
-}
 
 export function checkLimits(context: CheckContext): void {
   const { ast, model, sink } = context;
   const limit = model.limits.qubits;
   const memory = model.limits.memoryBytes;
   if (limit === undefined && memory === undefined) return;
+  const estimates = estimatesOf(model);
   for (const fragment of model.fragments) {
     const tier = fragment.tier;
     if (tier?.level !== 'quantum' || !tier.mapping || fragment.atoms.length === 0) continue;
-    const needed = qubitsUnder(tier.mapping, fragment.space.active.orbitals);
+    const plan = estimates.fragment(fragment.index);
+    const input = estimates.planInput(fragment.index);
+    if (!plan || !input || plan.qubits.required === null) continue;
+    const needed = plan.qubits.required;
     const where = fragment.ast.tier?.active?.span ?? fragment.ast.tier?.statement.keyword.span ?? fragment.ast.statement.keyword.span;
-    const activeNote = tier.active ? `active space ${tier.active.electrons}e ${tier.active.orbitals}o` : `no active space given, so all ${fragment.space.active.orbitals} orbitals outside the frozen core are active`;
-    if (memory !== undefined && statevectorBytes(needed) > memory) {
-      const bytes = statevectorBytes(needed);
+    const sizeNote = tier.active
+      ? `active space ${tier.active.electrons}e ${tier.active.orbitals}o`
+      : `no active space given, so all ${plan.active.orbitals} orbitals of its ${plan.problem.embedding === 'dmet' ? 'DMET impurity' : 'own space'} outside the frozen core are active`;
+    const how = `${tier.mapping}${tier.taper ? ', tapered' : ''}`;
+
+    const statevector = plan.classical.statevectorBytes;
+    if (memory !== undefined && statevector && !compareWithMemoryLimit(statevector, memory).fits) {
       const limitSpan = ast.limits?.memory?.span;
       sink.report(
         'memory-limit-exceeded',
         where,
-        `Simulating fragment '${fragment.name}' as a statevector of ${needed} qubits under ${tier.mapping} (${activeNote}) needs ${formatBytes(bytes)} (2^${needed} amplitudes × 16 bytes), but the memory limit is ${formatBytes(memory)}.`,
-        { data: { bytes, limit: memory }, ...(limitSpan ? { related: [{ span: limitSpan, message: 'memory limit' }] } : {}) },
+        `Simulating fragment '${fragment.name}' as a statevector of ${needed} qubits (${how}; ${sizeNote}) needs ${formatBytes(statevector)} (2^${needed} amplitudes × 16 bytes), but the memory limit is ${formatPlainBytes(memory)}.`,
+        { data: { qubits: needed, limit: memory }, ...(limitSpan ? { related: [{ span: limitSpan, message: 'memory limit' }] } : {}) },
       );
     }
     if (limit === undefined || needed <= limit) continue;
-    const fitting = largestActiveSpaceWithin(fragment.space, orbitalsWithinQubits(limit, tier.mapping));
-    const suggestion = fitting ? ` The largest active space that fits is \`active ${fitting.electrons}e ${fitting.orbitals}o\`.` : '';
+
+    const ideas: string[] = [];
+    if (!tier.taper && plan.qubits.tapered <= limit) ideas.push(`\`taper on\` brings it to ${plan.qubits.tapered} qubits`);
+    if (tier.mapping !== 'parity') {
+      const parity = qubitsFor({ ...input, mapping: 'parity' }, plan.active.orbitals, plan.active.alpha, plan.active.beta);
+      if (parity !== null && parity <= limit) ideas.push(`\`mapping parity\` needs ${parity}`);
+    }
+    const fitting = fitActiveSpace(input, limit);
+    if (fitting) ideas.push(`the largest active space that fits is \`active ${fitting.electrons}e ${fitting.orbitals}o\` (${fitting.qubits} qubits)`);
+    const fromDefault = model.limits.qubitsFromSpec ? '' : ' (a default from the editor or command line; the spec sets none)';
     sink.report(
       'qubit-limit-exceeded',
       where,
-      `Fragment '${fragment.name}' needs ${needed} qubits under ${tier.mapping} (${activeNote}), but the limit is ${limit}${model.limits.qubitsFromSpec ? "" : " (a default from the editor or command line; the spec sets none)"}.${suggestion}`,
-      fitting ? { data: { active: fitting, needed, limit } } : { data: { needed, limit } },
+      `Fragment '${fragment.name}' needs ${needed} qubits (${how}; ${sizeNote}), but the limit is ${limit}${fromDefault}.${ideas.length > 0 ? ` To fit: ${ideas.join('; or ')}.` : ''}`,
+      { data: { needed, limit, ...(fitting ? { active: { electrons: fitting.electrons, orbitals: fitting.orbitals } } : {}) } },
     );
   }
 }

@@ -1,0 +1,312 @@
+/**
+ * The cost of one fragment's solver, from its orbital space, the embedding, its tier and the point
+ * group: the problem the solver sees (DMET impurity or the fragment's own orbitals), the active
+ * space and its irreps, qubits under each mapping and after tapering, Pauli terms, measurement
+ * groups, ansatz parameters, circuit costs and classical memory. Every figure names its convention.
+ * Planning estimates: counting rules applied to generic integrals, not a calculation.
+ */
+import {
+  kUpccgsdCount,
+  hardwareEfficientModel,
+  referenceIrreps,
+  spinOrbitalCounts,
+  uccsdSpinAdaptedCount,
+  uccsdSpinAdaptedCountWithSymmetry,
+  uccsdSpinOrbitalCount,
+  uccsdSpinOrbitalCountWithSymmetry,
+  type ExcitationCount,
+} from '../cost/ansatz';
+import { hardwareEfficientCircuit, uccsdFermionicExcitationCircuit, uccsdPauliRotationCircuit, type CircuitCost } from '../cost/circuits';
+import { ccsdAmplitudeCount, ciVectorBytes, fciDeterminantCount, statevectorBytes, type AmplitudeCount, type DeterminantCount } from '../cost/classical';
+import { dmetSizesForSpaces, ownOrbitalSizes, type EmbeddedSizes } from '../cost/dmet';
+import type { Magnitude } from '../cost/magnitude';
+import type { OrbitalSpace } from '../counting';
+import { qubitCounts, type Mapping } from '../qubits';
+import { symmetryPattern } from './integralPattern';
+import { measurementGroups, estimateQubitWiseGroups, type MeasurementEstimate } from './measurement';
+import { countPauliTerms } from './pauliTerms';
+import { taperQubits } from './tapering';
+
+/** Orbitals of one irrep (mask as in symmetry/characterTables.ts). */
+export interface IrrepShare {
+  readonly label: string;
+  readonly mask: number;
+  readonly count: number;
+}
+
+export interface PlanSymmetry {
+  /** The abelian group used (D2h or a subgroup). */
+  readonly group: string;
+  readonly generatorCount: number;
+  /** Orbitals per irrep outside the frozen core, of the orbital space the solver sees. */
+  readonly available: readonly IrrepShare[];
+  /** The full group is non-abelian: abelian selection rules then only bound the integral count. */
+  readonly fullGroupNonAbelian: boolean;
+  readonly fullGroup: string;
+}
+
+export interface PlanInput {
+  readonly fragment: OrbitalSpace;
+  readonly system: OrbitalSpace;
+  readonly embedding: 'dmet' | 'projection' | 'subtractive' | 'none';
+  readonly tier: 'quantum' | 'correlated' | 'mean-field';
+  readonly method: string;
+  readonly ansatz: string | undefined;
+  readonly mapping: Mapping | undefined;
+  readonly taper: boolean;
+  readonly layers: number;
+  /** The active space as written: totals, and per irrep when given. */
+  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[] };
+  readonly symmetry?: PlanSymmetry;
+}
+
+export interface ActiveFigures {
+  readonly electrons: number;
+  readonly orbitals: number;
+  readonly alpha: number;
+  readonly beta: number;
+  readonly source: 'given' | 'problem';
+  /** Orbitals per irrep of the active space, and whether that split was given or assumed. */
+  readonly irreps: readonly IrrepShare[];
+  readonly irrepsSource: 'given' | 'proportional' | 'none';
+}
+
+export interface PlanEstimate {
+  readonly problem: EmbeddedSizes;
+  readonly active: ActiveFigures;
+  readonly qubits: {
+    readonly jordanWigner: number;
+    readonly bravyiKitaev: number;
+    readonly parity: number;
+    readonly tapered: number;
+    readonly taperingSymmetries: readonly string[];
+    /** Under the fragment's mapping, tapered when `taper on`. */
+    readonly required: number | null;
+  };
+  readonly pauliTerms: { readonly jordanWigner: number; readonly bravyiKitaev: number; readonly parity: number; readonly identityIncluded: true; readonly upperBound: boolean; readonly convention: string };
+  readonly measurement: MeasurementEstimate;
+  readonly ansatz: AnsatzFigures | null;
+  readonly circuit: { readonly standard: CircuitCost; readonly compact: CircuitCost | null } | null;
+  readonly classical: { readonly determinants: DeterminantCount; readonly ciVectorBytes: Magnitude; readonly ccsd: AmplitudeCount; readonly statevectorBytes: Magnitude | null };
+  /** Problems that prevent an estimate (an active space larger than the problem, an invalid spin). */
+  readonly notes: readonly string[];
+}
+
+export type AnsatzFigures =
+  | { readonly kind: 'uccsd'; readonly parameters: number; readonly spinOrbital: ExcitationCount; readonly spinOrbitalScreened: ExcitationCount; readonly spinAdapted: ExcitationCount | null; readonly spinAdaptedScreened: ExcitationCount | null }
+  | { readonly kind: 'k-upccgsd'; readonly parameters: number; readonly layers: number; readonly description: string }
+  | { readonly kind: 'hardware-efficient'; readonly parameters: number; readonly layers: number; readonly description: string };
+
+/** Above this many qubits the measurement groups are estimated instead of coloured explicitly. */
+export const EXPLICIT_GROUPING_LIMIT = 14;
+
+/**
+ * Largest-remainder apportionment of `total` orbitals over the irreps in proportion to `shares`
+ * (ties go to the earlier irrep). With total at most the shares' sum no irrep gets more than it has.
+ */
+export function apportion(shares: readonly IrrepShare[], total: number): IrrepShare[] {
+  const available = shares.reduce((sum, share) => sum + share.count, 0);
+  if (available === 0 || total <= 0) return shares.map((share) => ({ ...share, count: 0 }));
+  const exact = shares.map((share) => (share.count * total) / available);
+  const counts = exact.map(Math.floor);
+  let left = total - counts.reduce((sum, count) => sum + count, 0);
+  const order = exact.map((value, i) => ({ i, remainder: value - Math.floor(value) })).sort((a, b) => b.remainder - a.remainder || a.i - b.i);
+  for (const { i } of order) {
+    if (left === 0) break;
+    counts[i]!++;
+    left--;
+  }
+  return shares.map((share, i) => ({ ...share, count: counts[i]! }));
+}
+
+/**
+ * One irrep per active orbital, spread evenly: the orbitals of each irrep take the positions
+ * (k + ½)/count_g, merged in order. The reference determinant fills them in this order, a planning
+ * assumption when the orbital energies are unknown.
+ */
+export function spreadIrreps(shares: readonly IrrepShare[]): number[] {
+  const positions: { at: number; mask: number }[] = [];
+  for (const share of shares) for (let k = 0; k < share.count; k++) positions.push({ at: (k + 0.5) / share.count, mask: share.mask });
+  positions.sort((a, b) => a.at - b.at || a.mask - b.mask);
+  return positions.map((position) => position.mask);
+}
+
+function problemSizes(input: PlanInput): EmbeddedSizes | undefined {
+  const { fragment, system } = input;
+  if (fragment.spin === undefined) return undefined;
+  if (input.embedding === 'dmet' && input.tier !== 'mean-field') {
+    const dmet = dmetSizesForSpaces(system, fragment);
+    if (dmet) return dmet;
+  }
+  const frozen = fragment.frozenCore.orbitals;
+  return ownOrbitalSizes(input.embedding === 'dmet' ? 'none' : input.embedding, {
+    orbitals: Math.max(0, fragment.orbitals - frozen),
+    alpha: Math.max(0, fragment.spin.alpha - frozen),
+    beta: Math.max(0, fragment.spin.beta - frozen),
+  });
+}
+
+function ansatzFigures(input: PlanInput, active: ActiveFigures, orbitalIrreps: readonly number[], qubits: number): AnsatzFigures | null {
+  if (input.tier !== 'quantum' || input.method !== 'vqe' || !input.ansatz) return null;
+  const { orbitals, alpha, beta } = active;
+  switch (input.ansatz) {
+    case 'uccsd': {
+      const spinOrbital = uccsdSpinOrbitalCount(spinOrbitalCounts(orbitals, alpha, beta));
+      const screened = uccsdSpinOrbitalCountWithSymmetry(referenceIrreps(orbitalIrreps, alpha, beta));
+      const closed = alpha === beta;
+      const reference = referenceIrreps(orbitalIrreps, alpha, beta);
+      return {
+        kind: 'uccsd',
+        parameters: screened.total,
+        spinOrbital,
+        spinOrbitalScreened: screened,
+        spinAdapted: closed ? uccsdSpinAdaptedCount(alpha, orbitals - alpha) : null,
+        spinAdaptedScreened: closed ? uccsdSpinAdaptedCountWithSymmetry(reference.occupiedAlpha, reference.virtualAlpha) : null,
+      };
+    }
+    case 'k-upccgsd': {
+      const count = kUpccgsdCount(orbitals, input.layers);
+      return { kind: 'k-upccgsd', parameters: count.total, layers: input.layers, description: count.description };
+    }
+    case 'hardware-efficient': {
+      const model = hardwareEfficientModel(qubits, input.layers);
+      return { kind: 'hardware-efficient', parameters: model.parameters, layers: input.layers, description: model.description };
+    }
+    default:
+      return null;
+  }
+}
+
+const measurementCache = new Map<string, MeasurementEstimate>();
+
+function measurementFor(orbitalIrreps: readonly number[], terms: number): MeasurementEstimate {
+  const qubits = 2 * orbitalIrreps.length;
+  if (qubits > EXPLICIT_GROUPING_LIMIT) {
+    return { qubits, terms, groups: estimateQubitWiseGroups(terms), exact: false, method: 'estimate: 0.21 × (terms − 1), fitted to explicit greedy groupings of 8–20 qubits' };
+  }
+  const key = orbitalIrreps.join(',');
+  let found = measurementCache.get(key);
+  if (!found) {
+    found = measurementGroups(symmetryPattern(Uint8Array.from(orbitalIrreps)));
+    measurementCache.set(key, found);
+  }
+  return found;
+}
+
+/** The active orbitals' irreps: as given, apportioned from the problem's irreps, or none (C1). */
+function activeIrreps(input: PlanInput, orbitals: number): { irreps: IrrepShare[]; source: ActiveFigures['irrepsSource'] } {
+  if (input.active?.perIrrep && input.active.orbitals === orbitals) return { irreps: [...input.active.perIrrep], source: 'given' };
+  // Also for a DMET impurity, whose bath orbitals are taken to split like the fragment's own.
+  if (input.symmetry && input.symmetry.generatorCount > 0) return { irreps: apportion(input.symmetry.available, orbitals), source: 'proportional' };
+  return { irreps: [{ label: 'A', mask: 0, count: orbitals }], source: 'none' };
+}
+
+function requiredQubits(input: PlanInput, counts: ReturnType<typeof qubitCounts>, tapered: number): number | null {
+  if (!input.mapping) return null;
+  if (input.taper) return tapered;
+  return counts[input.mapping === 'jordan-wigner' ? 'jordanWigner' : input.mapping === 'bravyi-kitaev' ? 'bravyiKitaev' : 'parity'];
+}
+
+/** Qubits the fragment's solver needs for an active space of `orbitals` and the given spin split. */
+export function qubitsFor(input: PlanInput, orbitals: number, alpha: number, beta: number): number | null {
+  const { irreps, source } = activeIrreps(input, orbitals);
+  const tapered = taperQubits(Uint8Array.from(spreadIrreps(irreps)), source === 'none' ? 0 : (input.symmetry?.generatorCount ?? 0), { alpha, beta }).tapered;
+  return requiredQubits(input, qubitCounts(orbitals), tapered);
+}
+
+/**
+ * The largest active space inside the solver's problem whose qubits fit `limit`. Electrons stay as
+ * requested when they still fit; otherwise the space is taken half-filled (n electrons in n
+ * orbitals, the usual CAS(n,n) choice around the Fermi level), adjusted to the spin's parity;
+ * between two equally near counts the larger one is taken.
+ */
+export function fitActiveSpace(input: PlanInput, limit: number): { electrons: number; orbitals: number; qubits: number } | undefined {
+  const problem = problemSizes(input);
+  if (!problem || !input.mapping) return undefined;
+  const unpaired = input.fragment.multiplicity - 1;
+  const wanted = input.active?.electrons ?? problem.electrons;
+  const fits = (electrons: number, orbitals: number) =>
+    electrons >= unpaired && electrons <= problem.electrons && (electrons - unpaired) % 2 === 0 && (electrons + unpaired) / 2 <= orbitals;
+  for (let orbitals = Math.min(problem.orbitals, Math.floor(limit / 2) + 4); orbitals >= 1; orbitals--) {
+    let electrons: number | undefined;
+    if (fits(wanted, orbitals)) electrons = wanted;
+    for (let delta = 0; electrons === undefined && delta <= orbitals + 1; delta++) {
+      for (const candidate of [orbitals + delta, orbitals - delta]) {
+        if (electrons === undefined && fits(candidate, orbitals)) electrons = candidate;
+      }
+    }
+    if (electrons === undefined) continue;
+    const qubits = qubitsFor(input, orbitals, (electrons + unpaired) / 2, (electrons - unpaired) / 2);
+    if (qubits !== null && qubits <= limit) return { electrons, orbitals, qubits };
+  }
+  return undefined;
+}
+
+/** Everything for one fragment; undefined when its charge and multiplicity do not fit. */
+export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
+  const problem = problemSizes(input);
+  if (!problem) return undefined;
+  const notes: string[] = [];
+  const unpaired = input.fragment.multiplicity - 1;
+  let electrons = problem.electrons;
+  let orbitals = problem.orbitals;
+  if (input.active) {
+    if (input.active.orbitals > problem.orbitals) notes.push(`the active space (${input.active.orbitals} orbitals) is larger than the problem the solver sees (${problem.orbitals})`);
+    if (input.active.electrons > problem.electrons) notes.push(`the active space holds more electrons (${input.active.electrons}) than the problem (${problem.electrons})`);
+    electrons = input.active.electrons;
+    orbitals = input.active.orbitals;
+  }
+  if (unpaired > electrons || (electrons - unpaired) % 2 !== 0 || (electrons + unpaired) / 2 > orbitals || orbitals < 0) {
+    notes.push(`${electrons} electrons in ${orbitals} orbitals cannot have multiplicity ${input.fragment.multiplicity}`);
+    return undefined;
+  }
+  const alpha = (electrons + unpaired) / 2;
+  const beta = (electrons - unpaired) / 2;
+
+  const { irreps, source: irrepsSource } = activeIrreps(input, orbitals);
+  const orbitalIrreps = spreadIrreps(irreps);
+  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps, irrepsSource };
+
+  const counts = qubitCounts(orbitals);
+  const tapering = taperQubits(Uint8Array.from(orbitalIrreps), irrepsSource === 'none' ? 0 : (input.symmetry?.generatorCount ?? 0), { alpha, beta });
+  const required = requiredQubits(input, counts, tapering.tapered);
+  const pauli = countPauliTerms(symmetryPattern(Uint8Array.from(orbitalIrreps)), { alpha, beta });
+  const upperBound = input.symmetry?.fullGroupNonAbelian === true;
+  const qubitsForCircuits = required ?? counts.jordanWigner;
+
+  const layout = { orbitals, alpha, beta, order: 'interleaved' as const, irreps: orbitalIrreps };
+  let circuit: PlanEstimate['circuit'] = null;
+  if (input.tier === 'quantum' && input.method === 'vqe') {
+    if (input.ansatz === 'uccsd') circuit = { standard: uccsdPauliRotationCircuit(layout), compact: uccsdFermionicExcitationCircuit(layout) };
+    else if (input.ansatz === 'hardware-efficient') circuit = { standard: hardwareEfficientCircuit(qubitsForCircuits, input.layers), compact: null };
+  }
+  const determinants = fciDeterminantCount(orbitals, alpha, beta);
+  return {
+    problem,
+    active,
+    qubits: {
+      ...counts,
+      tapered: tapering.tapered,
+      taperingSymmetries: tapering.independent.map((symmetry) => symmetry.label),
+      required,
+    },
+    pauliTerms: {
+      jordanWigner: pauli.jordanWigner,
+      bravyiKitaev: pauli.bravyiKitaev,
+      parity: pauli.parity,
+      identityIncluded: true,
+      upperBound,
+      convention: `distinct Pauli strings, identity included, for generic real integrals allowed by ${input.symmetry?.group ?? 'C1'} selection rules${upperBound ? ` (an upper bound: the full group ${input.symmetry!.fullGroup} forbids more)` : ''}`,
+    },
+    measurement: measurementFor(orbitalIrreps, pauli.jordanWigner),
+    ansatz: ansatzFigures(input, active, orbitalIrreps, qubitsForCircuits),
+    circuit,
+    classical: {
+      determinants,
+      ciVectorBytes: ciVectorBytes(determinants.determinants),
+      ccsd: ccsdAmplitudeCount(orbitals, alpha, beta),
+      statevectorBytes: input.tier === 'quantum' ? statevectorBytes(qubitsForCircuits) : null,
+    },
+    notes,
+  };
+}
