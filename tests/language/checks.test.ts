@@ -306,6 +306,13 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     message: ["Fragment 'a' already claims the rest; only one fragment can."],
   },
   // Active space and limits
+  'near-symmetry': {
+    // One H of water moved 0.02 Å along z: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å
+    // (the best C2v fit shares the shift between the two H atoms).
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', 'O o 0 0 0.1173\nH h1 0 0.7572 -0.4692\nH h2 0 -0.7572 -0.4492').replace('⟦', '').replace('geometry {', '⟦geometry⟧ {'),
+    nearMiss: water(ONE_FRAGMENT),
+    message: [/^The geometry is C2v within 0\.0\d\d Å, but Cs at the 0\.01 Å tolerance/],
+  },
   'active-space-invalid': {
     trigger: water('fragment w { atoms rest; tier quantum { ⟦active 6e 2o⟧ } }'),
     nearMiss: water('fragment w { atoms rest; tier quantum { active 4e 2o } }'),

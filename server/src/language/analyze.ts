@@ -12,6 +12,7 @@ import { checkGeometry } from './checks/geometry';
 import { checkLimits } from './checks/limits';
 import { checkScan } from './checks/scan';
 import { checkSpin } from './checks/spin';
+import { checkSymmetry } from './checks/symmetry';
 import { checkTiers } from './checks/tiers';
 import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
@@ -45,7 +46,7 @@ export interface Analysis {
 }
 
 /** The checks, in the order their findings are most useful to read. */
-export const CHECKS: readonly Check[] = [checkGeometry, checkBasis, checkSpin, checkFragments, checkTiers, checkActiveSpaces, checkLimits, checkScan];
+export const CHECKS: readonly Check[] = [checkGeometry, checkSymmetry, checkBasis, checkSpin, checkFragments, checkTiers, checkActiveSpaces, checkLimits, checkScan];
 
 const SYNTAX_CODES: Record<SyntaxProblem['code'], DiagnosticCode> = {
   syntax: 'unexpected-token',

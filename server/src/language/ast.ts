@@ -64,6 +64,7 @@ export interface AtomList {
   span(i: number): Span;
   elementSpan(i: number): Span;
   labelSpan(i: number): Span | undefined;
+  coordinateSpan(i: number, axis: number): Span;
 }
 
 export interface GeometryAst {
@@ -81,6 +82,7 @@ export function atomListOf(atoms: readonly AtomAst[]): AtomList {
     span: (i) => atoms[i]!.span,
     elementSpan: (i) => atoms[i]!.element.span,
     labelSpan: (i) => atoms[i]!.label?.span,
+    coordinateSpan: (i, axis) => atoms[i]!.coordinates[axis]!.span,
   };
 }
 
@@ -93,6 +95,7 @@ export function atomListOfTable(table: AtomTable): AtomList {
     span: (i) => ({ start: table.lineStart[i]!, end: table.lineEnd[i]! }),
     elementSpan: (i) => ({ start: table.lineStart[i]!, end: table.elementEnd[i]! }),
     labelSpan: (i) => (table.labelStart[i]! >= 0 ? { start: table.labelStart[i]!, end: table.labelEnd[i]! } : undefined),
+    coordinateSpan: (i, axis) => ({ start: table.coordinateStart[3 * i + axis]!, end: table.coordinateEnd[3 * i + axis]! }),
   };
 }
 

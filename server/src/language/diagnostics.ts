@@ -64,6 +64,7 @@ export const DIAGNOSTIC_CODES = {
   'atoms-too-close': { severity: 'error', title: 'Two atoms closer than 0.5 Å' },
   'units-suspect': { severity: 'warning', title: 'Distances that look typed in the other length unit' },
   'bond-cut': { severity: 'warning', title: 'Covalent bonds cut by a fragment boundary' },
+  'near-symmetry': { severity: 'information', title: 'A geometry a small distance away from a higher point group' },
   // Basis
   'missing-basis': { severity: 'error', title: 'No basis set chosen' },
   'basis-missing-element': { severity: 'error', title: 'An element the chosen basis does not define' },

@@ -49,7 +49,22 @@ function fragmentAtomsEdit(analysis: Analysis, fragment: FragmentModel, addition
   if (atoms) return { range: toRange(analysis, { start: atoms.span.end, end: atoms.span.end }), newText: ` ${addition}` };
   const block = fragment.ast.statement.block;
   if (!block) return undefined;
-  return { range: toRange(analysis, { start: block.open.end, end: block.open.end }), newText: `\n  atoms ${addition}` };
+  // On a line of its own unless the block goes on after `{` on the same line: there the statement
+  // has to end with `;` before the next one.
+  const rest = analysis.text.slice(block.open.end, lineEndAfter(analysis.text, block.open.end));
+  const newText = restIsBlank(rest) ? `\n  atoms ${addition}` : ` atoms ${addition};`;
+  return { range: toRange(analysis, { start: block.open.end, end: block.open.end }), newText };
+}
+
+function lineEndAfter(text: string, offset: number): number {
+  const newline = text.indexOf('\n', offset);
+  return newline < 0 ? text.length : newline;
+}
+
+/** Whether what follows on a line is only blanks or a comment. */
+function restIsBlank(rest: string): boolean {
+  const trimmed = rest.trim();
+  return trimmed === '' || (trimmed.startsWith('#') && !/^#[0-9]/.test(trimmed));
 }
 
 function unassignedFixes(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, atoms: readonly number[]): CodeAction[] {
@@ -85,9 +100,13 @@ function basisOverrideFixes(analysis: Analysis, uri: string, diagnostic: LspDiag
       const close = basis.statement.block.close;
       const lineOfClose = analysis.lines.positionAt(close.start);
       const closeOnOwnLine = analysis.text.slice(analysis.lines.lineStart(lineOfClose.line), close.start).trim() === '';
+      // With `}` after other statements on its line, the override follows them after a `;`.
+      const before = analysis.text.slice(basis.statement.block.open.end, close.start);
+      const after = basis.statement.block.open.end + before.trimEnd().length;
+      const needsSemicolon = before.trim() !== '' && !before.trimEnd().endsWith(';');
       change = closeOnOwnLine
         ? { range: { start: { line: lineOfClose.line, character: 0 }, end: { line: lineOfClose.line, character: 0 } }, newText: `  ${element} = ${candidate}\n` }
-        : { range: toRange(analysis, { start: close.start, end: close.start }), newText: `${element} = ${candidate} ` };
+        : { range: toRange(analysis, { start: after, end: after }), newText: `${needsSemicolon ? ';' : ''} ${element} = ${candidate}` };
     } else {
       const after = basis.name?.span.end ?? basis.statement.keyword.span.end;
       change = { range: toRange(analysis, { start: after, end: after }), newText: ` {\n  ${element} = ${candidate}\n}` };

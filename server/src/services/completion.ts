@@ -134,6 +134,8 @@ function valueItems(context: CursorContext, analysis: Analysis): CompletionItem[
       if (previous === 'all') return elementItems(analysis).slice(0, new Set(analysis.model.atoms.map((a) => a.element.symbol)).size || 20);
       if (previous === 'within') return [];
       if (statement.args[index - 2]?.text === 'within') return [{ label: 'of', kind: CompletionItemKind.Keyword }];
+      // `within <d> of` names one atom: selector words do not belong there.
+      if (previous === 'of' && statement.args[index - 3]?.text === 'within') return labelItems(analysis);
       return [...labelItems(analysis), ...terms(SELECTOR_WORDS, CompletionItemKind.Keyword)];
     case 'scan': {
       if (index === 0) return terms(SCAN_KINDS, CompletionItemKind.EnumMember);

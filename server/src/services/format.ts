@@ -7,7 +7,7 @@
 import type { IToken } from 'chevrotain';
 import type { Range, TextEdit } from 'vscode-languageserver-types';
 import { elementBySymbol } from '../chemistry/elements';
-import { LBrace, RangeDots, RBrace, Semicolon, tokenize, Word } from '../language/lexer';
+import { ElectronCount, LBrace, NumberLiteral, OrbitalCount, RangeDots, RBrace, Semicolon, tokenize, Word } from '../language/lexer';
 import { LineIndex } from '../language/text';
 
 export interface FormatOptions {
@@ -52,12 +52,34 @@ function splitLines(text: string): { lines: Line[]; lineIndex: LineIndex } {
   return { lines, lineIndex };
 }
 
-/** Joins tokens with single spaces; `..` binds to its neighbours and `;` to the token before it. */
+function adjacent(first: IToken, second: IToken): boolean {
+  return first.startOffset + first.image.length === second.startOffset;
+}
+
+/**
+ * Whether a token reads as the same token when a space follows it. Not always: `1e-3` directly
+ * before `.5` is read as a word (a number cannot be followed by `.`), but as a number on its own;
+ * separating the two would change what the line says and make formatting twice differ from once.
+ */
+function readsAlone(token: IToken): boolean {
+  const lexed = tokenize(`${token.image} `);
+  return lexed.errors.length === 0 && lexed.tokens.length === 1 && lexed.tokens[0]!.tokenType === token.tokenType;
+}
+
+/** Tokens that cannot be followed by `.` without becoming unreadable (`1..` does not lex). */
+const NO_DOT_AFTER = new Set([NumberLiteral, ElectronCount, OrbitalCount]);
+
+/**
+ * Joins tokens with single spaces; `..` binds to its neighbours and `;` to the token before it,
+ * except that `..` keeps its space after a number, which would otherwise stop reading as one.
+ */
 function joinTokens(tokens: readonly IToken[]): string {
   let out = '';
   tokens.forEach((token, index) => {
     const previous = tokens[index - 1];
-    const glue = !previous || token.tokenType === RangeDots || previous.tokenType === RangeDots || token.tokenType === Semicolon;
+    const dotsAfterNumber = token.tokenType === RangeDots && previous !== undefined && NO_DOT_AFTER.has(previous.tokenType);
+    const mustStayJoined = previous !== undefined && adjacent(previous, token) && !readsAlone(previous);
+    const glue = !previous || mustStayJoined || (token.tokenType === RangeDots && !dotsAfterNumber) || previous.tokenType === RangeDots || token.tokenType === Semicolon;
     out += (glue ? '' : ' ') + token.image;
   });
   return out;
@@ -88,9 +110,16 @@ interface AtomRow {
 function decimalsNeeded(literal: string): number {
   const match = /^[+-]?(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?$/.exec(literal);
   if (!match) return Infinity;
-  const fraction = match[2] ?? '';
-  const exponent = Number(match[3] ?? '0');
-  return Math.max(0, fraction.replace(/0+$/, '').length - exponent);
+  // The value is digits × 10^scale; trailing zeros of the digits raise the scale. The fewest
+  // decimals that write it exactly are −scale (0 for a whole number or zero).
+  let digits = `${match[1] ?? ''}${match[2] ?? ''}`.replace(/^0+/, '');
+  let scale = Number(match[3] ?? '0') - (match[2] ?? '').length;
+  if (digits === '') return 0;
+  while (digits.endsWith('0')) {
+    digits = digits.slice(0, -1);
+    scale++;
+  }
+  return Math.max(0, -scale);
 }
 
 function atomRow(line: Line, index: number): AtomRow | undefined {
@@ -99,7 +128,7 @@ function atomRow(line: Line, index: number): AtomRow | undefined {
   const [first] = tokens;
   if (first!.tokenType !== Word || !elementBySymbol(first!.image)) return undefined;
   const hasLabel = tokens.length === 5;
-  if (hasLabel && tokens[1]!.tokenType !== Word) return undefined;
+  if (hasLabel && (tokens[1]!.tokenType !== Word || !readsAlone(tokens[1]!))) return undefined;
   const numbers = tokens.slice(hasLabel ? 2 : 1);
   if (numbers.some((token) => token.tokenType.name !== 'NumberLiteral')) return undefined;
   return {

@@ -74,7 +74,10 @@ function statementAt(text: string, statements: readonly Statement[], offset: num
   }
   if (found < 0) return undefined;
   const statement = statements[found]!;
-  if (statement.block && offset >= statement.block.open.start) return { statement };
+  const block = statement.block;
+  // Inside its block, or anywhere after an unclosed `{`; past the `}`, a block statement ends on
+  // that line like any other statement, and the lines after it start new statements.
+  if (block && offset >= block.open.start && (!block.close || offset <= block.close.end)) return { statement };
   // The statement reaches to the end of its line (where the next argument would be typed), but not
   // past a `;` that ends it.
   const reach = lineEndAfter(text, statement.span.end);
@@ -110,10 +113,15 @@ export function locate(text: string, statements: readonly Statement[], offset: n
 }
 
 function withToken(statement: Statement, offset: number): { token?: { node: Argument; index: number }; argumentIndex: number } {
-  const touches = (node: Argument) => offset >= node.span.start && offset <= node.span.end;
   let argumentIndex = 0;
   for (const arg of statement.args) if (arg.span.end < offset) argumentIndex++;
-  if (touches(statement.keyword)) return { token: { node: statement.keyword, index: -1 }, argumentIndex: 0 };
-  const index = statement.args.findIndex(touches);
-  return index >= 0 ? { token: { node: statement.args[index]!, index }, argumentIndex } : { argumentIndex };
+  // The token the cursor is on (inside it or before its first character); failing that, the one it
+  // stands just after (a word being typed). Where two tokens touch, as `..` and `#9` in `n1..#9`,
+  // the cursor before `#` is on `#9`, not at the end of `..`.
+  const nodes = [statement.keyword, ...statement.args];
+  let found = nodes.findIndex((node) => offset >= node.span.start && offset < node.span.end);
+  if (found < 0) found = nodes.findIndex((node) => offset === node.span.end);
+  if (found < 0) return { argumentIndex };
+  if (found === 0) return { token: { node: statement.keyword, index: -1 }, argumentIndex: 0 };
+  return { token: { node: nodes[found]!, index: found - 1 }, argumentIndex };
 }

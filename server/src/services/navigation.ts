@@ -67,6 +67,8 @@ export function findDocumentHighlights(analysis: Analysis, position: Position): 
 }
 
 const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
+/** Words that `atoms` reads as selectors: a label spelt like one would stop naming its atom there. */
+const SELECTOR_WORDS = new Set(['rest', 'all', 'within']);
 
 export type RenameCheck = { ok: true; range: Range; placeholder: string } | { ok: false; message: string };
 
@@ -78,7 +80,10 @@ export function prepareRename(analysis: Analysis, position: Position): RenameChe
   if (found.kind === 'atom' && !atomEntry) return { ok: false, message: 'This atom has no label to rename; add one after its element symbol.' };
   const spans = [found.definition, ...found.references];
   const under = spans.find((span) => offset >= span.start && offset <= span.end);
-  if (!under) return { ok: false, message: 'A #index names the atom by position; rename its label instead.' };
+  if (!under) {
+    const onIndex = found.indexReferences.some((span) => offset >= span.start && offset <= span.end);
+    return { ok: false, message: onIndex ? 'A #index names the atom by position; rename its label instead.' : `Put the cursor on the label '${found.name}' to rename it.` };
+  }
   return { ok: true, range: toRange(analysis, under), placeholder: found.name };
 }
 
@@ -87,6 +92,7 @@ export function rename(analysis: Analysis, uri: string, position: Position, newN
   if (!check.ok) return { error: check.message };
   if (!NAME.test(newName)) return { error: `'${newName}' is not a valid name: use letters, digits and _, starting with a letter.` };
   const found = occurrencesAt(analysis, position)!;
+  if (found.kind === 'atom' && SELECTOR_WORDS.has(newName)) return { error: `'${newName}' cannot be a label: \`atoms ${newName}\` is a selector.` };
   const taken = found.kind === 'atom' ? analysis.model.labels.has(newName) : analysis.model.fragments.some((f) => f.name === newName);
   if (taken && newName !== found.name) return { error: `'${newName}' is already the name of another ${found.kind}.` };
   const edits: TextEdit[] = [found.definition, ...found.references].map((span) => ({ range: toRange(analysis, span), newText: newName }));

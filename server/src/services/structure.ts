@@ -53,8 +53,11 @@ export function getSelectionRanges(analysis: Analysis, positions: readonly Posit
       spans.push(parent.span);
     }
     spans.push({ start: 0, end: analysis.text.length });
+    // Every range must contain the position: a cursor in a trailing comment or after the last
+    // argument is on the statement's line but outside its span.
+    const containing = spans.filter((span) => span.start <= offset && offset <= span.end);
     let range: SelectionRange | undefined;
-    for (const span of spans.reverse()) {
+    for (const span of containing.reverse()) {
       if (range && span.start === analysis.lines.offsetAt(range.range.start) && span.end === analysis.lines.offsetAt(range.range.end)) continue;
       range = range ? { range: toRange(analysis, span), parent: range } : { range: toRange(analysis, span) };
     }

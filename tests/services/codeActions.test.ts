@@ -1,0 +1,246 @@
+/**
+ * Quick fixes: for each one, apply its edit to the text, analyse again, and check that the
+ * diagnostic it answers is gone and no new error came with it.
+ *
+ * Geometries are invented test data unless a comment names a source.
+ */
+import { describe, expect, it } from 'vitest';
+import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic } from 'vscode-languageserver-types';
+import { analyze } from '../../server/src/language/analyze';
+import type { DiagnosticCode } from '../../server/src/language/diagnostics';
+import { doValidation, getCodeActions } from '../../server/src/services';
+import { applyEdits, editsFor, URI } from './service';
+
+/** Water at r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979); from memory). */
+const WATER = `geometry {
+  O o 0 0 0.1173
+  H h1 0 0.7572 -0.4692
+  H h2 0 -0.7572 -0.4692
+}
+`;
+/** The same water in bohr: each coordinate divided by 0.529177210903 Å (CODATA 2018). */
+const WATER_IN_BOHR = `geometry {
+  O o 0 0 0.2217
+  H h1 0 1.4309 -0.8867
+  H h2 0 -1.4309 -0.8867
+}
+`;
+const MEAN_FIELD = 'fragment w { atoms rest; tier mean-field { method rhf } }\n';
+
+interface Applied {
+  readonly action: CodeAction;
+  readonly text: string;
+  readonly before: DiagnosticCode[];
+  readonly after: DiagnosticCode[];
+}
+
+/** The quick fixes for every diagnostic of `code` in the text, each applied on its own. */
+function fixes(text: string, code: DiagnosticCode): Applied[] {
+  const analysis = analyze(text);
+  const diagnostics = doValidation(analysis, URI).filter((d) => d.code === code);
+  expect(diagnostics.length, `expected a '${code}' diagnostic`).toBeGreaterThan(0);
+  return getCodeActions(analysis, URI, diagnostics).map((action) => {
+    const fixed = applyEdits(text, editsFor(action.edit));
+    return {
+      action,
+      text: fixed,
+      before: analysis.diagnostics.map((d) => d.code),
+      after: analyze(fixed).diagnostics.map((d) => d.code),
+    };
+  });
+}
+
+/** Asserts the fix removed `code` and brought no error or warning the text did not have. */
+function expectFixed(applied: Applied, code: DiagnosticCode): void {
+  expect(applied.after, applied.text).not.toContain(code);
+  for (const after of applied.after) expect(applied.before, `'${after}' after the fix:\n${applied.text}`).toContain(after);
+  expect(applied.action.kind).toBe(CodeActionKind.QuickFix);
+}
+
+describe('multiplicity', () => {
+  it('parity: a doublet of water (10 electrons) becomes a singlet', () => {
+    const [fix] = fixes(`multiplicity 2\nbasis sto-3g\n${WATER}${MEAN_FIELD}`, 'multiplicity-parity');
+    expect(fix!.action.title).toBe('Set the multiplicity to 1');
+    expect(fix!.action.isPreferred).toBe(true);
+    expect(fix!.text.startsWith('multiplicity 1\n')).toBe(true);
+    expectFixed(fix!, 'multiplicity-parity');
+  });
+
+  // O + 2 H = 8 + 2 = 10 electrons (IUPAC periodic table); 2S+1 is valid when 2S ≤ N and N − 2S is
+  // even (spin algebra; common practice, no source).
+  it('too high: 10 electrons allow at most 10 unpaired, multiplicity 11', () => {
+    const [fix] = fixes(`multiplicity 13\nbasis sto-3g\n${WATER}${MEAN_FIELD}`, 'multiplicity-too-high');
+    expect(fix!.action.title).toBe('Set the multiplicity to 11');
+    expectFixed(fix!, 'multiplicity-too-high');
+  });
+
+  it('in a fragment: OH, 9 electrons, cannot be a singlet', () => {
+    const text = `basis sto-3g\n${WATER}fragment oh {\n  atoms o h1\n  charge 0\n  multiplicity 1\n  tier mean-field { method rohf }\n}\nfragment p { atoms h2; tier mean-field { method rohf } }\n`;
+    const [fix] = fixes(text, 'multiplicity-parity');
+    expect(fix!.text).toContain('  multiplicity 2\n');
+    expectFixed(fix!, 'multiplicity-parity');
+  });
+});
+
+describe('replacement spelling', () => {
+  const cases: { name: string; text: string; code: DiagnosticCode; title: string; expected: string }[] = [
+    { name: 'a keyword', text: `bassis sto-3g\n${WATER}${MEAN_FIELD}`, code: 'unknown-keyword', title: "Replace with 'basis'", expected: 'basis sto-3g\n' },
+    { name: 'a basis name', text: `basis cc-pvdzz\n${WATER}${MEAN_FIELD}`, code: 'unknown-basis', title: "Replace with 'cc-pVDZ'", expected: 'basis cc-pVDZ\n' },
+    { name: 'a mapping', text: `basis sto-3g\n${WATER}fragment w { atoms rest; tier quantum { method vqe; mapping jordan-wigne } }\n`, code: 'unknown-mapping', title: "Replace with 'jordan-wigner'", expected: 'mapping jordan-wigner }' },
+    { name: 'a method', text: `basis sto-3g\n${WATER}fragment w { atoms rest; tier quantum { method vqee } }\n`, code: 'unknown-method', title: "Replace with 'vqe'", expected: 'method vqe }' },
+    { name: 'a method of another tier', text: `basis sto-3g\n${WATER}fragment w { atoms rest; tier correlated { method vqe } }\n`, code: 'method-tier-mismatch', title: "Replace with 'mp2'", expected: 'method mp2 }' },
+    { name: 'an atom label', text: `basis sto-3g\n${WATER}fragment w { atoms o h1 hh2; tier mean-field { method rhf } }\n`, code: 'unknown-atom', title: "Replace with 'h2'", expected: 'atoms o h1 h2;' },
+  ];
+  for (const c of cases) {
+    it(c.name, () => {
+      const [fix] = fixes(c.text, c.code);
+      expect(fix!.action.title).toBe(c.title);
+      expect(fix!.text).toContain(c.expected);
+      expectFixed(fix!, c.code);
+    });
+  }
+});
+
+describe('unassigned atoms', () => {
+  it('into a new fragment that takes `atoms rest`', () => {
+    const text = `basis sto-3g\n${WATER}fragment w { atoms o h1; tier mean-field { method rhf } }`;
+    const [fix] = fixes(text, 'atoms-unassigned');
+    expect(fix!.action.title).toBe("Add a fragment 'environment' that takes the 1 unassigned atom (atoms rest)");
+    expect(fix!.action.isPreferred).toBe(true);
+    expect(fix!.text.endsWith('} }\n\nfragment environment {\n  atoms rest\n  tier mean-field { method rhf }\n}\n')).toBe(true);
+    // Cutting the O–H bond between the fragments is a warning the new fragment brings: allowed.
+    expect(fix!.after).not.toContain('atoms-unassigned');
+    expect(analyze(fix!.text).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+  });
+
+  it('under a name not yet taken', () => {
+    const text = `basis sto-3g\n${WATER}fragment environment { atoms o h1; tier mean-field { method rhf } }\n`;
+    const [fix] = fixes(text, 'atoms-unassigned');
+    expect(fix!.text).toContain('fragment environment2 {');
+  });
+
+  it('into an existing fragment, after its atoms', () => {
+    const text = `basis sto-3g\n${WATER}fragment w { atoms o h1; tier mean-field { method rhf } }\n`;
+    const intoW = fixes(text, 'atoms-unassigned').find((fix) => fix.action.title === "Put the unassigned atoms into fragment 'w'")!;
+    expect(intoW.text).toContain('fragment w { atoms o h1 h2; tier');
+    expectFixed(intoW, 'atoms-unassigned');
+  });
+
+  it('names unlabelled atoms by #index ranges', () => {
+    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0.1173\n  H 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\nfragment w {\n  atoms o\n  tier mean-field { method rohf }\n}\n`;
+    const intoW = fixes(text, 'atoms-unassigned').find((fix) => fix.action.title.includes("fragment 'w'"))!;
+    expect(intoW.text).toContain('  atoms o #2..#3\n');
+    expectFixed(intoW, 'atoms-unassigned');
+  });
+
+  it('into a fragment without `atoms`, written over several lines', () => {
+    const text = `basis sto-3g\n${WATER}fragment w { atoms o h1; tier mean-field { method rhf } }\nfragment v {\n  tier mean-field { method rohf }\n}\n`;
+    const intoV = fixes(text, 'atoms-unassigned').find((fix) => fix.action.title.includes("fragment 'v'"))!;
+    expect(intoV.text).toContain('fragment v {\n  atoms h2\n  tier mean-field { method rohf }\n}');
+    expect(intoV.after).not.toContain('atoms-unassigned');
+    expect(intoV.after).not.toContain('fragment-empty');
+  });
+
+  it('into a fragment without `atoms`, written on one line', () => {
+    const text = `basis sto-3g\n${WATER}fragment w { atoms o h1; tier mean-field { method rhf } }\nfragment v { tier mean-field { method rohf } }\n`;
+    const intoV = fixes(text, 'atoms-unassigned').find((fix) => fix.action.title.includes("fragment 'v'"))!;
+    expect(intoV.text).toContain('fragment v { atoms h2; tier mean-field { method rohf } }');
+    expect(intoV.after).not.toContain('atoms-unassigned');
+    expect(intoV.after).not.toContain('fragment-empty');
+    expect(analyze(intoV.text).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+  });
+});
+
+describe('basis override for an element the basis lacks', () => {
+  /** RbCl: 6-31G stops at Kr, so it lacks Rb (Z = 37) (nwchem-data agrees: tests/fixtures/basis-counts.nwchem.json). */
+  const RBCL = `geometry {\n  Rb rb 0 0 0\n  Cl cl 0 0 2.79\n}\n${MEAN_FIELD}`;
+  const cases: { name: string; basis: string; expected: string }[] = [
+    { name: 'without a basis block: one is added', basis: 'basis 6-31G', expected: 'basis 6-31G {\n  Rb = STO-3G\n}\n' },
+    { name: 'with a block whose `}` has a line of its own', basis: 'basis 6-31G {\n  functions cartesian\n}', expected: 'basis 6-31G {\n  functions cartesian\n  Rb = STO-3G\n}\n' },
+    { name: 'with a one-line block holding a statement', basis: 'basis 6-31G { functions cartesian }', expected: 'basis 6-31G { functions cartesian; Rb = STO-3G }\n' },
+    { name: 'with a one-line block ending in `;`', basis: 'basis 6-31G { functions cartesian; }', expected: 'basis 6-31G { functions cartesian; Rb = STO-3G }\n' },
+    { name: 'with an empty block', basis: 'basis 6-31G { }', expected: 'basis 6-31G { Rb = STO-3G }\n' },
+    { name: 'with an override that lacks the element too', basis: 'basis def2-svp {\n  Rb = 6-31G\n}', expected: 'basis def2-svp {\n  Rb = STO-3G\n}\n' },
+  ];
+  for (const c of cases) {
+    it(c.name, () => {
+      const applied = fixes(`${c.basis}\n${RBCL}`, 'basis-missing-element');
+      // The bases of the library that define Rb, in library order: STO-3G, 3-21G, def2-SVP, ...
+      // (nwchem-data has Rb in these and not in 6-31G, cc-pVDZ or 6-311G**: tests/fixtures/basis-counts.nwchem.json).
+      expect(applied.map((fix) => fix.action.title)).toEqual([
+        'Use STO-3G for Rb (per-element basis)',
+        'Use 3-21G for Rb (per-element basis)',
+        'Use def2-SVP for Rb (per-element basis)',
+        'Use def2-SVPD for Rb (per-element basis)',
+      ]);
+      expect(applied[0]!.action.isPreferred).toBe(true);
+      expect(applied[0]!.text.startsWith(c.expected)).toBe(true);
+      for (const fix of applied) expectFixed(fix, 'basis-missing-element');
+    });
+  }
+});
+
+describe('active space that exceeds the qubit limit', () => {
+  it('shrinks a given active space to the largest that fits', () => {
+    // STO-3G water: O [2s1p] = 5 and H [1s] = 1 each (Hehre, Stewart, Pople, J. Chem. Phys. 51,
+    // 2657 (1969)), 7 orbitals; 8 + 2 × 1 = 10 electrons. 8e 6o needs 2 × 6 = 12 qubits under
+    // Jordan–Wigner; 8 qubits allow 4 orbitals.
+    const text = `basis sto-3g\n${WATER}fragment w { atoms rest; tier quantum { method vqe; active 8e 6o } }\nlimits { qubits 8 }\n`;
+    const [fix] = fixes(text, 'qubit-limit-exceeded');
+    expect(fix!.action.title).toBe("Shrink the active space of 'w' to 8e 4o");
+    expect(fix!.text).toContain('tier quantum { method vqe; active 8e 4o } }');
+    expectFixed(fix!, 'qubit-limit-exceeded');
+  });
+
+  it('adds an active space where none is given', () => {
+    // Frozen core on: 7 − 1 = 6 orbitals and 10 − 2 = 8 electrons outside O 1s (the noble-gas core,
+    // common practice), 12 qubits; 6 qubits allow 3 orbitals.
+    const text = `basis sto-3g\n${WATER}fragment w {\n  atoms rest\n  tier quantum { method vqe }\n}\nlimits { qubits 6 }\n`;
+    const [fix] = fixes(text, 'qubit-limit-exceeded');
+    expect(fix!.action.title).toBe("Shrink the active space of 'w' to 4e 3o");
+    expect(fix!.text).toContain('tier quantum { active 4e 3o; method vqe }');
+    expectFixed(fix!, 'qubit-limit-exceeded');
+  });
+
+  it('counts the parity mapping\'s two saved qubits', () => {
+    // Parity with the two-qubit reduction needs 2n − 2 qubits (Bravyi, Gambetta, Mezzacapo,
+    // Temme, arXiv:1701.08213 (2017)): 6 qubits allow 4 orbitals.
+    const text = `basis sto-3g\n${WATER}fragment w { atoms rest; tier quantum { method vqe; mapping parity; active 8e 6o } }\nlimits { qubits 6 }\n`;
+    const [fix] = fixes(text, 'qubit-limit-exceeded');
+    expect(fix!.text).toContain('active 8e 4o');
+    expectFixed(fix!, 'qubit-limit-exceeded');
+  });
+});
+
+describe('length unit', () => {
+  it('adds `units bohr` for coordinates that look like bohr', () => {
+    const [fix] = fixes(`basis sto-3g\n${WATER_IN_BOHR}${MEAN_FIELD}`, 'units-suspect');
+    expect(fix!.action.title).toBe('Read the coordinates as bohr');
+    expect(fix!.text.startsWith('units bohr\nbasis sto-3g\n')).toBe(true);
+    expectFixed(fix!, 'units-suspect');
+  });
+
+  it('replaces a unit that does not fit the coordinates', () => {
+    const [fix] = fixes(`units bohr\nbasis sto-3g\n${WATER}${MEAN_FIELD}`, 'units-suspect');
+    expect(fix!.action.title).toBe('Read the coordinates as angstrom');
+    expect(fix!.text.startsWith('units angstrom\nbasis sto-3g\n')).toBe(true);
+    expectFixed(fix!, 'units-suspect');
+  });
+});
+
+describe('diagnostics without a fix, and from elsewhere', () => {
+  it('offers nothing for a diagnostic without fix data', () => {
+    const analysis = analyze(`basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h 0 0 0.1\n}\n${MEAN_FIELD}`);
+    const diagnostics = doValidation(analysis, URI).filter((d) => d.code === 'atoms-too-close');
+    expect(diagnostics.length).toBe(1);
+    expect(getCodeActions(analysis, URI, diagnostics)).toEqual([]);
+  });
+
+  it('ignores diagnostics another tool published', () => {
+    const analysis = analyze(`multiplicity 2\nbasis sto-3g\n${WATER}${MEAN_FIELD}`);
+    const own = doValidation(analysis, URI).find((d) => d.code === 'multiplicity-parity')!;
+    const foreign: LspDiagnostic = { ...own, source: 'spell-checker' };
+    expect(getCodeActions(analysis, URI, [foreign])).toEqual([]);
+    expect(getCodeActions(analysis, URI, [own]).length).toBe(1);
+  });
+});

@@ -1,0 +1,89 @@
+/**
+ * Inlay hints after fragment names and the code lens with the totals of the spec. Electron counts
+ * add up atomic numbers (IUPAC periodic table); frozen cores are the noble-gas cores (common practice).
+ */
+import { describe, expect, it } from 'vitest';
+import { InlayHintKind } from 'vscode-languageserver-types';
+import { analyze } from '../../server/src/language/analyze';
+import { getCodeLenses, getInlayHints, largestQubitCount } from '../../server/src/services';
+import { positionOf, readSample } from './service';
+
+const zinc = analyze(readSample('zn-site-h2s-scan.tess'));
+
+describe('inlay hints', () => {
+  it('after each fragment name: qubits for a quantum tier, orbitals and electrons otherwise', () => {
+    const hints = getInlayHints(zinc);
+    expect(hints.map((hint) => [hint.position, hint.label])).toEqual([
+      // site: active 10e 10o under Jordan–Wigner, 2 × 10 = 20 qubits.
+      [positionOf(zinc, 'fragment site', 13), '20 qubits'],
+      // guest, H2S in def2-SVP: S [4s3p1d] = 18, H [2s1p] = 5 each (tests/fixtures/basis-counts.nwchem.json):
+      // 18 + 2 × 5 = 28 orbitals; 16 + 2 × 1 = 18 electrons.
+      [positionOf(zinc, 'fragment guest', 14), '28 orbitals · 18 e⁻'],
+      // frame, two formates HCOO in def2-SVP: (2 × 14 for O + 14 for C + 5 for H) × 2 = 94
+      // orbitals (same fixture); (8 + 8 + 6 + 1) × 2 = 46 electrons, + 2 for the charge −2 = 48.
+      [positionOf(zinc, 'fragment frame', 14), '94 orbitals · 48 e⁻'],
+    ]);
+    for (const hint of hints) {
+      expect(hint.kind).toBe(InlayHintKind.Type);
+      expect(hint.paddingLeft).toBe(true);
+    }
+  });
+
+  it('explain the hint in its tooltip', () => {
+    const [site, guest] = getInlayHints(zinc);
+    expect(site!.tooltip).toBe('quantum: 10e 10o active, jordan-wigner. Planning estimate.');
+    // The correlated guest keeps all 23 orbitals outside the frozen S 1s2s2p core (5 orbitals) and
+    // its 18 − 10 = 8 electrons active: 28 − 5 = 23.
+    expect(guest!.tooltip).toBe('correlated: 8e 23o active. Planning estimate.');
+  });
+
+  it('only in the requested range', () => {
+    const line = positionOf(zinc, 'fragment guest').line;
+    const hints = getInlayHints(zinc, { start: { line, character: 0 }, end: { line: line + 1, character: 0 } });
+    expect(hints.map((hint) => hint.label)).toEqual(['28 orbitals · 18 e⁻']);
+  });
+
+  it('under the parity mapping, two qubits fewer: 2 × 4 − 2 = 6 for water in cc-pVDZ, 4e 4o', () => {
+    // Parity with the two-qubit reduction (Bravyi, Gambetta, Mezzacapo, Temme, arXiv:1701.08213 (2017)).
+    expect(getInlayHints(analyze(readSample('molecules/water-cc-pvdz.tess'))).map((hint) => hint.label)).toEqual(['6 qubits']);
+  });
+
+  it('none for a fragment without a name', () => {
+    const analysis = analyze('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment { atoms rest; tier mean-field { method rhf } }\n');
+    expect(getInlayHints(analysis)).toEqual([]);
+  });
+});
+
+describe('code lens', () => {
+  it('states the totals of the spec above its first statement', () => {
+    const [lens, ...others] = getCodeLenses(zinc);
+    expect(others).toEqual([]);
+    // 20 atoms. Electrons: Zn 30 + 2 NH3 (10 each) + 2 HCOO (23 each) + H2S 18 = 114.
+    // Spherical functions: Zn 48 in def2-TZVP; in def2-SVP N 14 (× 2), O 14 (× 4), C 14 (× 2),
+    // S 18, H 5 (× 10) (tests/fixtures/basis-counts.nwchem.json): 48 + 28 + 56 + 28 + 18 + 50 = 228.
+    // Scan from 2.3 to 3.5 Å in steps of 0.2 Å: 7 points.
+    expect(lens!.command).toEqual({
+      title: '20 atoms · 114 e⁻ · 228 spherical functions · 3 fragments · largest quantum fragment 20 qubits (site) · × 7 scan points',
+      command: 'tessera.showReport',
+      arguments: [],
+    });
+    expect(lens!.range).toEqual({ start: positionOf(zinc, 'spec "zn'), end: positionOf(zinc, 'spec "zn', 4) });
+  });
+
+  it('counts cartesian functions when the basis asks for them, and leaves out what is absent', () => {
+    // Dinitrogen in cc-pVTZ, cartesian: N [4s3p2d1f] = 4 + 9 + 12 + 10 = 35 (tests/fixtures/basis-counts.nwchem.json), × 2.
+    const [lens] = getCodeLenses(analyze(readSample('molecules/dinitrogen-bases.tess')));
+    expect(lens!.command!.title).toBe('2 atoms · 14 e⁻ · 70 cartesian functions · 1 fragment · largest quantum fragment 16 qubits (n2)');
+  });
+
+  it('names no quantum fragment when there is none', () => {
+    const analysis = analyze('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n');
+    // STO-3G: one function per H (Hehre, Stewart, Pople, J. Chem. Phys. 51, 2657 (1969)).
+    expect(getCodeLenses(analysis)[0]!.command!.title).toBe('2 atoms · 2 e⁻ · 2 spherical functions · 1 fragment');
+    expect(largestQubitCount(analysis)).toBeUndefined();
+  });
+
+  it('none for an empty spec', () => {
+    expect(getCodeLenses(analyze('# only a comment\n'))).toEqual([]);
+  });
+});

@@ -1,0 +1,220 @@
+/**
+ * Semantic tokens (decoded from the LSP delta encoding), folding ranges and selection ranges.
+ *
+ * Geometries are invented test data.
+ */
+import { describe, expect, it } from 'vitest';
+import { FoldingRangeKind, type Position, type Range, type SelectionRange } from 'vscode-languageserver-types';
+import { analyze } from '../../server/src/language/analyze';
+import { getFoldingRanges, getSelectionRanges, getSemanticTokens, semanticTokensLegend } from '../../server/src/services';
+import { marked, readSample, SAMPLE_NAMES } from './service';
+
+/** A decoded token: its text, type and modifiers. */
+type Token = [text: string, type: string, modifiers?: string];
+
+/**
+ * Decodes LSP semantic tokens: five integers per token, the line relative to the previous token,
+ * the start character relative to it when on the same line, the length, the type and the modifier bits.
+ */
+function decode(text: string, data: readonly number[]): (Token & { line?: number })[] {
+  const lines = text.split('\n');
+  const tokens: Token[] = [];
+  let line = 0;
+  let character = 0;
+  expect(data.length % 5).toBe(0);
+  for (let i = 0; i < data.length; i += 5) {
+    const [deltaLine, deltaStart, length, type, modifiers] = data.slice(i, i + 5) as [number, number, number, number, number];
+    line += deltaLine;
+    character = deltaLine === 0 ? character + deltaStart : deltaStart;
+    const names = semanticTokensLegend.tokenModifiers.filter((_, bit) => modifiers & (1 << bit));
+    const token: Token = [lines[line]!.slice(character, character + length), semanticTokensLegend.tokenTypes[type]!];
+    if (names.length > 0) token.push(names.join(','));
+    tokens.push(token);
+  }
+  return tokens;
+}
+
+const SPEC = `spec "t"  # name
+units bohr
+basis sto-3g {
+  Zn = def2-svp
+  functions cartesian
+}
+geometry {
+  O o 0 0 0
+  H 0 1.8 0
+}
+fragment w {
+  atoms o #2 all H within 2.5 of o rest
+  tier quantum { method vqe; mapping parity; active 2e 2o }
+}
+embedding dmet
+scan distance o #2 from 1.0 to 2.0 step 0.5
+limits { qubits 4; memory 16 GiB }
+`;
+
+const EXPECTED: Token[] = [
+  ['spec', 'keyword'], ['"t"', 'string'], ['# name', 'comment'],
+  ['units', 'keyword'], ['bohr', 'unit'],
+  ['basis', 'keyword'], ['sto-3g', 'namespace'],
+  ['Zn', 'type'], ['=', 'operator'], ['def2-svp', 'namespace'],
+  ['functions', 'keyword'], ['cartesian', 'enumMember'],
+  ['geometry', 'keyword'],
+  ['O', 'type'], ['o', 'variable', 'declaration'], ['0', 'number'], ['0', 'number'], ['0', 'number'],
+  ['H', 'type'], ['0', 'number'], ['1.8', 'number'], ['0', 'number'],
+  ['fragment', 'keyword'], ['w', 'class', 'declaration'],
+  ['atoms', 'keyword'], ['o', 'variable'], ['#2', 'variable'], ['all', 'keyword'], ['H', 'type'], ['within', 'keyword'], ['2.5', 'number'], ['of', 'keyword'], ['o', 'variable'], ['rest', 'keyword'],
+  ['tier', 'keyword'], ['quantum', 'enumMember'], ['method', 'keyword'], ['vqe', 'enumMember'], ['mapping', 'keyword'], ['parity', 'enumMember'], ['active', 'keyword'], ['2e', 'number'], ['2o', 'number'],
+  ['embedding', 'keyword'], ['dmet', 'enumMember'],
+  ['scan', 'keyword'], ['distance', 'enumMember'], ['o', 'variable'], ['#2', 'variable'], ['from', 'keyword'], ['1.0', 'number'], ['to', 'keyword'], ['2.0', 'number'], ['step', 'keyword'], ['0.5', 'number'],
+  ['limits', 'keyword'], ['qubits', 'keyword'], ['4', 'number'], ['memory', 'keyword'], ['16', 'number'], ['GiB', 'unit'],
+];
+
+describe('semantic tokens', () => {
+  for (const fastGeometry of [true, false]) {
+    it(`decode to the expected types (${fastGeometry ? 'fast' : 'general'} geometry reader)`, () => {
+      const analysis = analyze(SPEC, { fastGeometry });
+      expect(decode(SPEC, getSemanticTokens(analysis).data)).toEqual(EXPECTED);
+    });
+  }
+
+  it('mark a misspelt keyword as nothing, and a known keyword in the wrong block as nothing', () => {
+    const text = 'bassis sto-3g\nfragment f {\n  method vqe\n}\n';
+    const tokens = decode(text, getSemanticTokens(analyze(text)).data);
+    expect(tokens.filter(([word]) => word === 'bassis' || word === 'method')).toEqual([]);
+    expect(tokens).toContainEqual(['fragment', 'keyword']);
+  });
+
+  it('measure a comment on a CRLF line without its carriage return', () => {
+    const text = 'spec "t" # note\r\nunits bohr\r\n';
+    expect(decode(text.replace(/\r/g, ''), getSemanticTokens(analyze(text)).data)).toEqual([
+      ['spec', 'keyword'], ['"t"', 'string'], ['# note', 'comment'], ['units', 'keyword'], ['bohr', 'unit'],
+    ]);
+  });
+
+  it('are sorted and never overlap on any sample', () => {
+    for (const name of SAMPLE_NAMES) {
+      const data = getSemanticTokens(analyze(readSample(name))).data;
+      for (let i = 5; i < data.length; i += 5) {
+        const sameLine = data[i] === 0;
+        if (sameLine) expect(data[i + 1]!, `${name}: token ${i / 5} starts inside the previous one`).toBeGreaterThanOrEqual(data[i - 3]!);
+        expect(data[i]!, name).toBeGreaterThanOrEqual(0);
+      }
+    }
+  });
+});
+
+describe('folding ranges', () => {
+  it('fold each multi-line block up to the line before its `}`, and runs of comment lines', () => {
+    const text = `# a comment
+# over three
+# lines
+spec "t"
+basis sto-3g {
+  functions cartesian
+}
+# a lone comment
+fragment w {
+  atoms rest
+  tier quantum {
+    method vqe
+  }
+}
+limits { qubits 4 }
+units bohr  # trailing
+# two comment
+# lines at the end
+`;
+    const ranges = getFoldingRanges(analyze(text));
+    expect(ranges).toEqual([
+      { startLine: 4, endLine: 5 },
+      { startLine: 8, endLine: 12 },
+      { startLine: 10, endLine: 11 },
+      { startLine: 0, endLine: 2, kind: FoldingRangeKind.Comment },
+      { startLine: 16, endLine: 17, kind: FoldingRangeKind.Comment },
+    ]);
+  });
+
+  it('fold a geometry block without looking inside it', () => {
+    const ranges = getFoldingRanges(analyze(readSample('molecules/water-cc-pvdz.tess')));
+    // Lines (0-based): comments 0–2, geometry 7–11, fragment 13–21 with its tier 15–20.
+    expect(ranges).toEqual([
+      { startLine: 7, endLine: 10 },
+      { startLine: 13, endLine: 20 },
+      { startLine: 15, endLine: 19 },
+      { startLine: 0, endLine: 2, kind: FoldingRangeKind.Comment },
+    ]);
+  });
+
+  it('fold an unclosed block to its last line of content', () => {
+    expect(getFoldingRanges(analyze('fragment w {\n  atoms rest\n  tier mean-field {\n    method rhf\n\n'))).toEqual([
+      { startLine: 0, endLine: 3 },
+      { startLine: 2, endLine: 3 },
+    ]);
+  });
+});
+
+describe('selection ranges', () => {
+  const TEXT = `spec "t"  # na$Ame
+geometry {
+  O o 0 0 0
+  H h$B1 0 0.96 0
+}
+fragment w {
+  atoms o h1
+  tier quantum { method v$Cqe; mapping parity }
+}
+`;
+
+  function chain(marker: string): string[] {
+    const m = marked(TEXT.replace(marker, '$0').replace(/\$[A-Z]/g, ''));
+    const [selection] = getSelectionRanges(m.analysis, [m.cursor]);
+    return texts(m.analysis.text, selection!, m.cursor);
+  }
+
+  it('grow token → statement → block → statement with its block → document in a tier', () => {
+    const whole = TEXT.replace(/\$[A-Z]/g, '');
+    expect(chain('$C')).toEqual([
+      'vqe',
+      'method vqe',
+      ' method vqe; mapping parity ',
+      'tier quantum { method vqe; mapping parity }',
+      '\n  atoms o h1\n  tier quantum { method vqe; mapping parity }\n',
+      'fragment w {\n  atoms o h1\n  tier quantum { method vqe; mapping parity }\n}',
+      whole,
+    ]);
+  });
+
+  it('grow from an atom label in a geometry block', () => {
+    const whole = TEXT.replace(/\$[A-Z]/g, '');
+    expect(chain('$B')).toEqual(['h1', 'H h1 0 0.96 0', '\n  O o 0 0 0\n  H h1 0 0.96 0\n', 'geometry {\n  O o 0 0 0\n  H h1 0 0.96 0\n}', whole]);
+  });
+
+  it('contain the position even in a trailing comment', () => {
+    const whole = TEXT.replace(/\$[A-Z]/g, '');
+    expect(chain('$A')).toEqual([whole]);
+  });
+
+  it('answer one chain per position', () => {
+    const m = marked(TEXT.replace(/\$[A-Z]/g, ''));
+    const positions: Position[] = [{ line: 0, character: 1 }, { line: 3, character: 4 }, { line: 9, character: 0 }];
+    const selections = getSelectionRanges(m.analysis, positions);
+    expect(selections.length).toBe(3);
+    selections.forEach((selection, i) => expect(texts(m.analysis.text, selection, positions[i]!)[0]).toBe(['spec', 'h1', m.analysis.text][i]));
+  });
+});
+
+/** The text of each range of a selection chain, innermost first, checking each contains the last. */
+function texts(text: string, selection: SelectionRange, position: Position): string[] {
+  const analysis = analyze(text);
+  const out: string[] = [];
+  let previous: Range = { start: position, end: position };
+  for (let current: SelectionRange | undefined = selection; current; current = current.parent) {
+    const start = analysis.lines.offsetAt(current.range.start);
+    const end = analysis.lines.offsetAt(current.range.end);
+    expect(start <= analysis.lines.offsetAt(previous.start) && analysis.lines.offsetAt(previous.end) <= end, `${JSON.stringify(current.range)} contains ${JSON.stringify(previous)}`).toBe(true);
+    out.push(text.slice(start, end));
+    previous = current.range;
+  }
+  return out;
+}
