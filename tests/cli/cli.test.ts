@@ -71,7 +71,7 @@ describe('tessera estimate', () => {
     expect(result.code).toBe(0);
     expect(result.stdout).toContain('Planning estimates');
     expect(result.stdout).toMatch(/site\s+quantum\s+vqe\s+uccsd\s+jordan-wigner/);
-    expect(result.stdout).toContain('Qubits for the active space');
+    expect(result.stdout).toContain('Qubits and Hamiltonian');
   });
 
   it('gives Markdown tables', async () => {

@@ -14,8 +14,9 @@ describe('inlay hints', () => {
   it('after each fragment name: qubits for a quantum tier, orbitals and electrons otherwise', () => {
     const hints = getInlayHints(zinc);
     expect(hints.map((hint) => [hint.position, hint.label])).toEqual([
-      // site: active 10e 10o under Jordan–Wigner, 2 × 10 = 20 qubits.
-      [positionOf(zinc, 'fragment site', 13), '20 qubits'],
+      // site: active 10e 10o under Jordan–Wigner, 2 × 10 = 20 qubits; tapering in the fragment's own
+      // group C2 removes 3 (N_α and N_β parity and the C2 generator; Bravyi et al. 2017): 17.
+      [positionOf(zinc, 'fragment site', 13), '20 qubits · 17 tapered'],
       // guest, H2S in def2-SVP: S [4s3p1d] = 18, H [2s1p] = 5 each (tests/fixtures/basis-counts.nwchem.json):
       // 18 + 2 × 5 = 28 orbitals; 16 + 2 × 1 = 18 electrons.
       [positionOf(zinc, 'fragment guest', 14), '28 orbitals · 18 e⁻'],
@@ -32,9 +33,10 @@ describe('inlay hints', () => {
   it('explain the hint in its tooltip', () => {
     const [site, guest] = getInlayHints(zinc);
     expect(site!.tooltip).toBe('quantum: 10e 10o active, jordan-wigner. Planning estimate.');
-    // The correlated guest keeps all 23 orbitals outside the frozen S 1s2s2p core (5 orbitals) and
-    // its 18 − 10 = 8 electrons active: 28 − 5 = 23.
-    expect(guest!.tooltip).toBe('correlated: 8e 23o active. Planning estimate.');
+    // The correlated guest under `embedding dmet`: its 28 − 5 = 23 orbitals outside the frozen
+    // S 1s2s2p core get 23 bath orbitals, and the impurity holds 2 × 23 = 46 orbitals and 46
+    // electrons, all active (DMET with a single-determinant bath: Knizia & Chan 2012; Wouters et al. 2016).
+    expect(guest!.tooltip).toBe('correlated: 46e 46o active. Planning estimate.');
   });
 
   it('only in the requested range', () => {
@@ -45,7 +47,10 @@ describe('inlay hints', () => {
 
   it('under the parity mapping, two qubits fewer: 2 × 4 − 2 = 6 for water in cc-pVDZ, 4e 4o', () => {
     // Parity with the two-qubit reduction (Bravyi, Gambetta, Mezzacapo, Temme, arXiv:1701.08213 (2017)).
-    expect(getInlayHints(analyze(readSample('molecules/water-cc-pvdz.tess'))).map((hint) => hint.label)).toEqual(['6 qubits']);
+    // Tapering: 4 active orbitals spread over C2v irreps in proportion to the 10 A1, 2 A2, 4 B1 and
+    // 7 B2 orbitals outside the core (2 A1, 1 B1, 1 B2); both generators act on them, so with the
+    // two number parities 4 qubits go (Bravyi et al. 2017): 8 − 4 = 4.
+    expect(getInlayHints(analyze(readSample('molecules/water-cc-pvdz.tess'))).map((hint) => hint.label)).toEqual(['6 qubits · 4 tapered']);
   });
 
   it('none for a fragment without a name', () => {
@@ -63,7 +68,7 @@ describe('code lens', () => {
     // S 18, H 5 (× 10) (tests/fixtures/basis-counts.nwchem.json): 48 + 28 + 56 + 28 + 18 + 50 = 228.
     // Scan from 2.3 to 3.5 Å in steps of 0.2 Å: 7 points.
     expect(lens!.command).toEqual({
-      title: '20 atoms · 114 e⁻ · 228 spherical functions · 3 fragments · largest quantum fragment 20 qubits (site) · × 7 scan points',
+      title: '20 atoms · 114 e⁻ · 228 spherical functions · 3 fragments · largest quantum fragment 17 qubits (site) · × 7 scan points',
       command: 'tessera.showReport',
       arguments: [],
     });

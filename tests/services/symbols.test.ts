@@ -36,9 +36,9 @@ describe('outline', () => {
       { name: 'spec zn-site-h2s-approach', kind: SymbolKind.File, detail: 'zn-site-h2s-approach', lines: [5, 5] },
       { name: 'basis def2-svp', kind: SymbolKind.Module, detail: 'def2-svp', lines: [11, 13] },
       { name: 'geometry', kind: SymbolKind.Struct, detail: '20 atoms', lines: [15, 36] },
-      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits', lines: [39, 50], children: [['tier quantum', SymbolKind.Method]] },
-      { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms', lines: [53, 56], children: [['tier correlated', SymbolKind.Method]] },
-      { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms', lines: [59, 63], children: [['tier mean-field', SymbolKind.Method]] },
+      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 17 tapered', lines: [39, 50], children: [['tier quantum', SymbolKind.Method]] },
+      { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms · 28 orbitals · 18 e⁻', lines: [53, 56], children: [['tier correlated', SymbolKind.Method]] },
+      { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms · 94 orbitals · 48 e⁻', lines: [59, 63], children: [['tier mean-field', SymbolKind.Method]] },
       { name: 'embedding', kind: SymbolKind.Property, detail: 'dmet', lines: [65, 65] },
       { name: 'scan', kind: SymbolKind.Event, detail: '7 points', lines: [67, 67] },
       { name: 'limits', kind: SymbolKind.Object, detail: '', lines: [69, 72] },
@@ -62,7 +62,7 @@ describe('outline', () => {
     // water-cc-pvdz.tess: active 4e 4o, parity with the two-qubit reduction (Bravyi, Gambetta,
     // Mezzacapo, Temme, arXiv:1701.08213 (2017)).
     const symbols = findDocumentSymbols(analyze(readSample('molecules/water-cc-pvdz.tess')));
-    expect(symbols.find((symbol) => symbol.kind === SymbolKind.Class)?.detail).toBe('quantum · 3 atoms · 6 qubits');
+    expect(symbols.find((symbol) => symbol.kind === SymbolKind.Class)?.detail).toBe('quantum · 3 atoms · 6 qubits · 4 tapered');
   });
 
   it('leaves out statements that are not outline entries and unknown keywords', () => {

@@ -84,6 +84,7 @@ export function planSymmetry(figures: SymmetryFigures | undefined): PlanSymmetry
   return {
     group: figures.group,
     generatorCount: table.generators.length,
+    generatorNames: table.generators,
     available: figures.available,
     fullGroupNonAbelian: !(ABELIAN_GROUPS as readonly string[]).includes(full),
     fullGroup: full,
@@ -126,7 +127,8 @@ export class SpecEstimates {
   planInput(index: number): PlanInput | undefined {
     const fragment = this.model.fragments[index]!;
     const tier = fragment.tier;
-    if (!tier || fragment.atoms.length === 0 || fragment.space.atomsWithoutBasis > 0) return undefined;
+    // A mean-field tier has no active space to size: its cost is the orbital count alone.
+    if (!tier || tier.level === 'mean-field' || fragment.atoms.length === 0 || fragment.space.atomsWithoutBasis > 0) return undefined;
     const symmetry = planSymmetry(this.fragmentSymmetry(fragment.index));
     const perIrrep = tier.activeIrreps && symmetry ? activeIrrepShares(symmetry, tier.activeIrreps) : undefined;
     const active = tier.active ? { ...tier.active, ...(perIrrep ? { perIrrep } : {}) } : undefined;

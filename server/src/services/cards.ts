@@ -43,19 +43,58 @@ function fragmentHeadline(fragment: FragmentFigures): string {
   return `**fragment ${fragment.name}** · ${parts.join(' · ')}`;
 }
 
+function irrepText(record: Record<string, number>): string {
+  return Object.entries(record)
+    .map(([label, count]) => `${count} ${label}`)
+    .join(', ');
+}
+
+/** Rows of the cost figures a plan estimate adds (quantum and correlated tiers). */
+function planRows(fragment: FragmentFigures, limit: number | null): string[] {
+  const rows: string[] = [];
+  if (fragment.pointGroup) rows.push(`| point group | ${fragment.pointGroup}${fragment.fullPointGroup && fragment.fullPointGroup !== fragment.pointGroup ? ` (full group ${fragment.fullPointGroup})` : ''}, the fragment's own |`);
+  if (fragment.problem) {
+    const bath = fragment.problem.bath.alpha === fragment.problem.bath.beta ? `${fragment.problem.bath.alpha}` : `${fragment.problem.bath.alpha} α / ${fragment.problem.bath.beta} β`;
+    rows.push(
+      fragment.problem.embedding === 'dmet'
+        ? `| DMET impurity | ${fragment.problem.electrons}e ${fragment.problem.orbitals}o (fragment + ${bath} bath orbitals) |`
+        : `| solver's problem | ${fragment.problem.electrons}e ${fragment.problem.orbitals}o (${fragment.problem.embedding === 'none' ? 'the fragment\'s own orbitals' : `${fragment.problem.embedding} embedding`}) |`,
+    );
+  }
+  if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
+  if (fragment.qubits.tapered !== null) rows.push(`| tapered | ${fragment.qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
+  if (fragment.qubitsRequired !== null) rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${fragment.qubitsRequired === fragment.qubits.tapered && fragment.qubits.tapered !== null ? ', tapered' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
+  if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${fragment.pauliTerms.jordanWigner} (identity included) |`);
+  if (fragment.measurement && fragment.tier === 'quantum') rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups |`);
+  if (fragment.ansatzCost) {
+    const unscreened = fragment.ansatzCost.unscreened !== null && fragment.ansatzCost.unscreened !== fragment.ansatzCost.parameters ? ` (${fragment.ansatzCost.unscreened} without point-group screening)` : '';
+    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${fragment.ansatzCost.parameters} parameters${unscreened} |`);
+  }
+  if (fragment.circuit) rows.push(`| circuit | ${fragment.circuit.cnots} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${fragment.circuit.compactCnots} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${fragment.circuit.depth}` : ''} |`);
+  if (fragment.classical) {
+    rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes |`);
+    if (fragment.classical.statevectorBytes) rows.push(`| statevector | ${fragment.classical.statevectorBytes.text} |`);
+  }
+  return rows;
+}
+
 export function fragmentCard(analysis: Analysis, index: number): string {
   const report = estimateOf(analysis);
   const fragment = report.fragments[index]!;
-  const needed = fragment.qubitsRequired !== null ? [`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${report.limits.qubits !== null ? ` (limit ${report.limits.qubits})` : ''} |`] : [];
+  const conventions = [`electrons = ${report.conventions.electrons}`, `fragment charge = ${report.conventions.fragmentCharge}`, `frozen core = ${report.conventions.frozenCore}`];
+  if (fragment.problem) conventions.push(fragment.problem.convention);
+  if (fragment.pauliTerms) conventions.push(`Pauli terms: ${report.conventions.pauliTerms}`);
+  if (fragment.qubits.tapered !== null) conventions.push(`qubits: ${report.conventions.qubits}`);
   return [
     fragmentHeadline(fragment),
     '',
     '| | |',
     '| --- | --- |',
     ...spaceRows(fragment),
-    ...needed,
+    ...planRows(fragment, report.limits.qubits),
+    ...fragment.notes.map((note) => `| note | ${note} |`),
     '',
-    `_Conventions: electrons = ${report.conventions.electrons}; fragment charge = ${report.conventions.fragmentCharge}; frozen core = ${report.conventions.frozenCore}; qubits: ${report.conventions.qubits}._`,
+    `_Conventions: ${conventions.join('; ')}._`,
     '',
     `_${PLANNING_NOTE}_`,
   ].join('\n');

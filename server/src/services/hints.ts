@@ -5,9 +5,19 @@ import type { FragmentFigures } from '../report/estimate';
 import { estimateOf } from './cards';
 import { toRange } from './positions';
 
-/** The short cost label of a fragment, as shown in hints, outline and status bar. */
+/** Qubits under the fragment's mapping before tapering, or null outside the quantum tier. */
+function untaperedQubits(figures: FragmentFigures): number | null {
+  if (figures.qubitsRequired === null || !figures.mapping) return null;
+  return figures.mapping === 'parity' ? figures.qubits.parity : figures.mapping === 'bravyi-kitaev' ? figures.qubits.bravyiKitaev : figures.qubits.jordanWigner;
+}
+
+/** The short cost label of a fragment, as shown in hints and the outline: `20 qubits · 17 tapered`. */
 export function fragmentCostLabel(figures: FragmentFigures): string {
-  if (figures.qubitsRequired !== null) return `${figures.qubitsRequired} qubits`;
+  const qubits = untaperedQubits(figures);
+  if (qubits !== null) {
+    const tapered = figures.qubits.tapered;
+    return tapered !== null && tapered < qubits ? `${qubits} qubits · ${tapered} tapered` : `${qubits} qubits`;
+  }
   return `${figures.orbitals} orbitals · ${figures.electrons} e⁻`;
 }
 

@@ -3,6 +3,7 @@ import { SymbolKind, type DocumentSymbol, type SymbolInformation } from 'vscode-
 import type { Analysis } from '../language/analyze';
 import type { Statement } from '../language/syntax';
 import { estimateOf } from './cards';
+import { fragmentCostLabel } from './hints';
 import { toRange } from './positions';
 
 const KINDS: Readonly<Record<string, SymbolKind>> = {
@@ -24,8 +25,7 @@ function detailOf(analysis: Analysis, statement: Statement): string {
       const fragment = model.fragments.find((f) => f.ast.statement === statement);
       if (!fragment) return '';
       const figures = estimateOf(analysis).fragments[fragment.index]!;
-      const qubits = figures.qubitsRequired !== null ? ` · ${figures.qubitsRequired} qubits` : '';
-      return `${fragment.tier?.level ?? 'no tier'} · ${fragment.atoms.length} atoms${qubits}`;
+      return `${fragment.tier?.level ?? 'no tier'} · ${fragment.atoms.length} atoms · ${fragmentCostLabel(figures)}`;
     }
     case 'scan':
       return model.scan ? `${model.scan.distances.length} points` : '';

@@ -38,6 +38,8 @@ export interface PlanSymmetry {
   /** The abelian group used (D2h or a subgroup). */
   readonly group: string;
   readonly generatorCount: number;
+  /** Names of the generators (bit g of a mask refers to generator g), for messages. */
+  readonly generatorNames: readonly string[];
   /** Orbitals per irrep outside the frozen core, of the orbital space the solver sees. */
   readonly available: readonly IrrepShare[];
   /** The full group is non-abelian: abelian selection rules then only bound the integral count. */
@@ -287,7 +289,9 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
     qubits: {
       ...counts,
       tapered: tapering.tapered,
-      taperingSymmetries: tapering.independent.map((symmetry) => symmetry.label),
+      taperingSymmetries: tapering.independent.map((symmetry) =>
+        symmetry.generator !== undefined ? (input.symmetry?.generatorNames[symmetry.generator] ?? symmetry.label) : symmetry.label === 'N_alpha parity' ? 'N_α parity' : symmetry.label === 'N_beta parity' ? 'N_β parity' : symmetry.label,
+      ),
       required,
     },
     pauliTerms: {

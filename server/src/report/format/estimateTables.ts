@@ -8,8 +8,8 @@ function spin(figures: SpaceFigures): string {
   return figures.alpha === null ? `${figures.electrons} (invalid spin)` : `${figures.electrons} (${figures.alpha}/${figures.beta})`;
 }
 
-function orNone(value: number | string | null): string {
-  return value === null ? dash : String(value);
+function orNone(value: number | string | null | undefined): string {
+  return value === null || value === undefined ? dash : String(value);
 }
 
 function rowsFor(report: EstimateReport): { name: string; figures: SpaceFigures; fragment?: FragmentFigures }[] {
@@ -19,12 +19,23 @@ function rowsFor(report: EstimateReport): { name: string; figures: SpaceFigures;
   ];
 }
 
+function groupText(figures: SpaceFigures): string {
+  if (!figures.pointGroup) return dash;
+  return figures.fullPointGroup && figures.fullPointGroup !== figures.pointGroup ? `${figures.pointGroup} (${figures.fullPointGroup})` : figures.pointGroup;
+}
+
+function problemText(fragment: FragmentFigures | undefined): string {
+  if (!fragment?.problem) return dash;
+  const label = fragment.problem.embedding === 'dmet' ? 'impurity ' : '';
+  return `${label}${fragment.problem.electrons}e ${fragment.problem.orbitals}o`;
+}
+
 export function estimateTables(report: EstimateReport): Table[] {
   const rows = rowsFor(report);
   const plan: Table = {
     title: 'Plan',
-    headers: ['part', 'tier', 'method', 'ansatz', 'mapping', 'atoms', 'formula', 'charge', 'mult'],
-    numeric: [false, false, false, false, false, true, false, true, true],
+    headers: ['part', 'tier', 'method', 'ansatz', 'mapping', 'atoms', 'formula', 'charge', 'mult', 'point group'],
+    numeric: [false, false, false, false, false, true, false, true, true, false],
     rows: rows.map(({ name, figures, fragment }) => [
       name,
       fragment ? orNone(fragment.tier) : dash,
@@ -35,12 +46,13 @@ export function estimateTables(report: EstimateReport): Table[] {
       figures.formula || dash,
       figures.charge > 0 ? `+${figures.charge}` : String(figures.charge),
       String(figures.multiplicity),
+      groupText(figures),
     ]),
   };
   const orbitals: Table = {
     title: 'Electrons and orbitals',
-    headers: ['part', 'electrons (α/β)', 'functions sph/cart', 'orbitals', 'frozen core', 'occupied', 'virtual', 'active space'],
-    numeric: [false, true, true, true, true, true, true, true],
+    headers: ['part', 'electrons (α/β)', 'functions sph/cart', 'orbitals', 'frozen core', 'occupied', 'virtual'],
+    numeric: [false, true, true, true, true, true, true],
     rows: rows.map(({ name, figures }) => [
       name,
       spin(figures),
@@ -49,33 +61,72 @@ export function estimateTables(report: EstimateReport): Table[] {
       String(figures.frozenCore.orbitals),
       orNone(figures.occupied),
       orNone(figures.virtual),
-      `${figures.active.electrons}e ${figures.active.orbitals}o`,
     ]),
   };
   const qubits: Table = {
-    title: 'Qubits for the active space',
-    headers: ['part', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2-qubit reduced)', 'needed'],
-    numeric: [false, true, true, true, true],
+    title: 'Qubits and Hamiltonian',
+    headers: ['part', 'problem', 'active', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered', 'needed', 'Pauli terms', 'QWC groups'],
+    numeric: [false, true, true, true, true, true, true, true, true, true],
     rows: rows.map(({ name, figures, fragment }) => [
       name,
+      problemText(fragment),
+      `${figures.active.electrons}e ${figures.active.orbitals}o`,
       String(figures.qubits.jordanWigner),
       String(figures.qubits.bravyiKitaev),
       String(figures.qubits.parity),
-      fragment?.qubitsRequired !== undefined && fragment.qubitsRequired !== null ? `${fragment.qubitsRequired} (${fragment.mapping})` : dash,
+      orNone(figures.qubits.tapered),
+      fragment?.qubitsRequired !== undefined && fragment.qubitsRequired !== null ? `${fragment.qubitsRequired}` : dash,
+      figures.pauliTerms ? `${figures.pauliTerms.upperBound ? '≤ ' : ''}${figures.pauliTerms.jordanWigner}` : dash,
+      fragment?.measurement ? `${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups}` : dash,
     ]),
   };
-  return [plan, orbitals, qubits];
+  const quantum = report.fragments.filter((fragment) => fragment.tier === 'quantum' && (fragment.ansatzCost || fragment.circuit));
+  const tables = [plan, orbitals, qubits];
+  if (quantum.length > 0) {
+    tables.push({
+      title: 'Ansatz and circuit (one Trotter step)',
+      headers: ['part', 'ansatz', 'parameters', 'without symmetry', 'CNOTs', 'compact CNOTs', 'depth', 'statevector'],
+      numeric: [false, false, true, true, true, true, true, true],
+      rows: quantum.map((fragment) => [
+        fragment.name,
+        orNone(fragment.ansatzCost?.kind),
+        orNone(fragment.ansatzCost?.parameters),
+        orNone(fragment.ansatzCost?.unscreened),
+        orNone(fragment.circuit?.cnots),
+        orNone(fragment.circuit?.compactCnots),
+        orNone(fragment.circuit?.depth),
+        fragment.classical?.statevectorBytes?.text ?? dash,
+      ]),
+    });
+  }
+  const classical = report.fragments.filter((fragment) => fragment.classical);
+  if (classical.length > 0) {
+    tables.push({
+      title: 'Classical cost of the active space',
+      headers: ['part', 'full-CI determinants', 'CI vector', 'CCSD amplitudes'],
+      numeric: [false, true, true, true],
+      rows: classical.map((fragment) => [fragment.name, fragment.classical!.determinants.text, fragment.classical!.ciVectorBytes.text, fragment.classical!.ccsdAmplitudes.text]),
+    });
+  }
+  return tables;
 }
 
 export function conventionLines(report: EstimateReport): string[] {
   const c = report.conventions;
+  const dmet = report.fragments.find((fragment) => fragment.problem?.embedding === 'dmet')?.problem?.convention;
   return [
     `electrons: ${c.electrons}`,
     `spin: ${c.spin}`,
     `orbitals: ${c.orbitals}`,
     `frozen core: ${c.frozenCore}`,
     `active space: ${c.activeSpace}`,
+    ...(dmet ? [`embedding: ${dmet.replace(/^DMET impurity: [^;]*; /, 'DMET impurity: ')}`] : []),
     `qubits: ${c.qubits}`,
+    `Pauli terms: ${c.pauliTerms}`,
+    `measurement: ${c.measurement}`,
+    `ansatz: ${c.ansatz}`,
+    `circuit: ${c.circuit}`,
+    `classical: ${c.classical}`,
     `fragment charge: ${c.fragmentCharge}`,
   ];
 }
@@ -84,12 +135,19 @@ export function headerLines(report: EstimateReport): string[] {
   const overrides = Object.entries(report.basis.overrides).map(([symbol, name]) => `${symbol}: ${name}`);
   const basis = `${report.basis.name ?? '(none)'}${overrides.length > 0 ? ` (${overrides.join(', ')})` : ''}, ${report.basis.functions} functions`;
   const lines = [`basis ${basis}`, `embedding ${report.embedding}`];
+  const system = report.system;
+  if (system.pointGroup) {
+    const irreps = system.orbitalsPerIrrep ? Object.entries(system.orbitalsPerIrrep).map(([label, count]) => `${count} ${label}`).join(', ') : '';
+    lines.push(`point group ${system.fullPointGroup}, counted in ${system.pointGroup}${irreps ? `: orbitals ${irreps}` : ''}`);
+  }
+  if (system.nearSymmetry) lines.push(`near symmetry: ${system.nearSymmetry.group} within ${system.nearSymmetry.within.toFixed(3)} Å`);
   if (report.scan) {
     const first = report.scan.distances[0];
     const last = report.scan.distances[report.scan.distances.length - 1];
+    const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: per-point costs below repeat ${report.scan.points} times`
+        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: ${totals.fragmentCalculations} fragment calculations, ${totals.measurementCircuits} measurement circuits per energy evaluation in all${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}; per-point figures below`
         : 'scan: no valid points',
     );
   }
