@@ -1,10 +1,13 @@
 /** `npm run bench`: every benchmark, printed as Markdown tables. */
 import { benchAnalysis } from './analysis';
+import { benchIrreps } from './irreps';
 import { benchLanguageServer } from './lsp';
+import { benchPauli } from './pauli';
+import { benchSymmetry } from './symmetry';
 
 type Section = () => string[] | Promise<string[]>;
 
-const sections: Section[] = [benchAnalysis, () => benchLanguageServer()];
+const sections: Section[] = [benchAnalysis, benchSymmetry, benchIrreps, benchPauli, () => benchLanguageServer()];
 
 async function main(): Promise<void> {
   console.log(`# Tessera benchmarks (Node ${process.version}, ${new Date().toISOString()})\n`);

@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic } from 'vscode-languageserver-types';
 import { analyze } from '../../server/src/language/analyze';
 import type { DiagnosticCode } from '../../server/src/language/diagnostics';
-import { doValidation, getCodeActions } from '../../server/src/services';
+import { doValidation, estimateOf, getCodeActions, toLspDiagnostic } from '../../server/src/services';
 import { applyEdits, editsFor, URI } from './service';
 
 /** Water at r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979); from memory). */
@@ -242,5 +242,25 @@ describe('diagnostics without a fix, and from elsewhere', () => {
     const foreign: LspDiagnostic = { ...own, source: 'spell-checker' };
     expect(getCodeActions(analysis, URI, [foreign])).toEqual([]);
     expect(getCodeActions(analysis, URI, [own]).length).toBe(1);
+  });
+});
+
+describe('symmetrize', () => {
+  it('makes a nearly symmetric water exactly C2v, and the near-symmetry note goes', () => {
+    // One H of water moved 0.02 Å: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å.
+    const text = 'basis sto-3g\ngeometry {\n  O o 0.0000 0.0000 0.1173\n  H h1 0.0000 0.7572 -0.4692\n  H h2 0.0000 -0.7572 -0.4492\n}\n';
+    const before = analyze(text);
+    const note = before.diagnostics.find((d) => d.code === 'near-symmetry')!;
+    expect(note.message).toContain('C2v within');
+    const lsp = toLspDiagnostic(before, URI, note);
+    const fix = getCodeActions(before, URI, [lsp]).find((action) => action.title === 'Symmetrize the geometry to C2v')!;
+    const after = analyze(applyEdits(text, fix.edit!.changes![URI]!));
+    expect(after.diagnostics.map((d) => d.code)).not.toContain('near-symmetry');
+    expect(estimateOf(after).system.fullPointGroup).toBe('C2v');
+    // The two O–H distances are equal again.
+    const c = after.model.coordinates;
+    const d1 = Math.hypot(c[3]! - c[0]!, c[4]! - c[1]!, c[5]! - c[2]!);
+    const d2 = Math.hypot(c[6]! - c[0]!, c[7]! - c[1]!, c[8]! - c[2]!);
+    expect(Math.abs(d1 - d2)).toBeLessThan(1e-4);
   });
 });

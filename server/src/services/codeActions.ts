@@ -4,7 +4,11 @@
  * active space that fits the qubit limit, and the length unit the coordinates look like.
  */
 import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
+import { symmetrize } from '../chemistry/symmetry';
+import { fromAngstrom } from '../chemistry/units';
 import type { Analysis } from '../language/analyze';
+import { estimatesOf } from '../language/estimates';
+import { decimalsNeeded } from './format';
 import type { FragmentModel } from '../language/model';
 import { toRange } from './positions';
 
@@ -137,6 +141,33 @@ function unitsFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, un
   return [quickFix(`Read the coordinates as ${units}`, diagnostic, edit(uri, [change]))];
 }
 
+/** Rewrites every inline coordinate with the geometry made exactly symmetric in its near group. */
+function symmetrizeFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic): CodeAction[] {
+  const geometry = analysis.ast.geometry;
+  const figures = estimatesOf(analysis.model).systemSymmetry();
+  if (!geometry || geometry.include || !figures?.symmetry.nearGroup) return [];
+  const atoms = geometry.atoms;
+  if (atoms.length !== analysis.model.atoms.length) return [];
+  const symmetric = symmetrize(analysis.model.coordinates, figures.symmetry);
+  let decimals = 4;
+  for (let i = 0; i < atoms.length; i++) {
+    for (let axis = 0; axis < 3; axis++) {
+      const span = atoms.coordinateSpan(i, axis);
+      decimals = Math.max(decimals, Math.min(10, decimalsNeeded(analysis.text.slice(span.start, span.end))));
+    }
+  }
+  const edits: TextEdit[] = [];
+  for (let i = 0; i < atoms.length; i++) {
+    for (let axis = 0; axis < 3; axis++) {
+      const value = fromAngstrom(symmetric[3 * i + axis]!, analysis.model.units);
+      const text = (Math.abs(value) < 0.5 * 10 ** -decimals ? 0 : value).toFixed(decimals);
+      const span = atoms.coordinateSpan(i, axis);
+      if (analysis.text.slice(span.start, span.end) !== text) edits.push({ range: toRange(analysis, span), newText: text });
+    }
+  }
+  return edits.length > 0 ? [quickFix(`Symmetrize the geometry to ${figures.symmetry.nearGroup.group}`, diagnostic, edit(uri, edits), true)] : [];
+}
+
 export function getCodeActions(analysis: Analysis, uri: string, diagnostics: readonly LspDiagnostic[]): CodeAction[] {
   const actions: CodeAction[] = [];
   for (const diagnostic of diagnostics) {
@@ -153,6 +184,8 @@ export function getCodeActions(analysis: Analysis, uri: string, diagnostics: rea
       actions.push(...basisOverrideFixes(analysis, uri, diagnostic, data['element'], data['candidates'] as string[]));
     } else if (code === 'qubit-limit-exceeded' && data['active']) {
       actions.push(...activeSpaceFix(analysis, uri, diagnostic, data['active'] as { electrons: number; orbitals: number }));
+    } else if (code === 'near-symmetry') {
+      actions.push(...symmetrizeFix(analysis, uri, diagnostic));
     } else if (code === 'units-suspect' && typeof data['units'] === 'string') {
       actions.push(...unitsFix(analysis, uri, diagnostic, data['units']));
     }

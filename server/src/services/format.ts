@@ -107,7 +107,8 @@ interface AtomRow {
 }
 
 /** Decimals needed to write a literal's value exactly in fixed point, or Infinity. */
-function decimalsNeeded(literal: string): number {
+/** The fewest decimals that write a number literal's value exactly in fixed point (Infinity if not a number). */
+export function decimalsNeeded(literal: string): number {
   const match = /^[+-]?(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?$/.exec(literal);
   if (!match) return Infinity;
   // The value is digits × 10^scale; trailing zeros of the digits raise the scale. The fewest
