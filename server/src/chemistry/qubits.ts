@@ -22,14 +22,13 @@ export function qubitCounts(spatialOrbitals: number): QubitCounts {
   return { jordanWigner: spinOrbitals, bravyiKitaev: spinOrbitals, parity: Math.max(0, spinOrbitals - 2) };
 }
 
+/** The key under which per-mapping figures are stored (`jordanWigner`, `bravyiKitaev`, `parity`). */
+export type MappingKey = keyof QubitCounts;
+
+export function mappingKey(mapping: Mapping): MappingKey {
+  return mapping === 'jordan-wigner' ? 'jordanWigner' : mapping === 'bravyi-kitaev' ? 'bravyiKitaev' : 'parity';
+}
+
 export function qubitsUnder(mapping: Mapping, spatialOrbitals: number): number {
-  const counts = qubitCounts(spatialOrbitals);
-  switch (mapping) {
-    case 'jordan-wigner':
-      return counts.jordanWigner;
-    case 'bravyi-kitaev':
-      return counts.bravyiKitaev;
-    case 'parity':
-      return counts.parity;
-  }
+  return qubitCounts(spatialOrbitals)[mappingKey(mapping)];
 }

@@ -27,56 +27,44 @@ function isSpace(code: number): boolean {
   return code === 32 || code === 9 || code === 13 || code === 12 || code === 11 || code === 0xa0 || code === 0xfeff;
 }
 
-/** An Int32Array or Float64Array that doubles when full: far less garbage than pushing to arrays. */
-class GrowableInt32 {
-  private data = new Int32Array(256);
+/** A typed array that doubles when full: far less garbage than pushing to plain arrays. */
+class Growable<T extends Int32Array | Float64Array> {
+  private data: T;
   length = 0;
+
+  constructor(private readonly make: (size: number) => T) {
+    this.data = make(256);
+  }
 
   push(value: number): void {
     if (this.length === this.data.length) {
-      const bigger = new Int32Array(this.data.length * 2);
+      const bigger = this.make(this.data.length * 2);
       bigger.set(this.data);
       this.data = bigger;
     }
     this.data[this.length++] = value;
   }
 
-  toArray(): Int32Array {
-    return this.data.slice(0, this.length);
+  toArray(): T {
+    return this.data.slice(0, this.length) as T;
   }
 }
 
-class GrowableFloat64 {
-  private data = new Float64Array(768);
-  length = 0;
-
-  push(value: number): void {
-    if (this.length === this.data.length) {
-      const bigger = new Float64Array(this.data.length * 2);
-      bigger.set(this.data);
-      this.data = bigger;
-    }
-    this.data[this.length++] = value;
-  }
-
-  toArray(): Float64Array {
-    return this.data.slice(0, this.length);
-  }
-}
+const int32 = () => new Growable((size) => new Int32Array(size));
 
 /** Column storage while reading. */
 class Columns {
   count = 0;
-  readonly atomicNumbers = new GrowableInt32();
+  readonly atomicNumbers = int32();
   readonly labels = new Map<number, string>();
-  readonly lineStart = new GrowableInt32();
-  readonly lineEnd = new GrowableInt32();
-  readonly elementEnd = new GrowableInt32();
-  readonly labelStart = new GrowableInt32();
-  readonly labelEnd = new GrowableInt32();
-  readonly coordinateStart = new GrowableInt32();
-  readonly coordinateEnd = new GrowableInt32();
-  readonly coordinates = new GrowableFloat64();
+  readonly lineStart = int32();
+  readonly lineEnd = int32();
+  readonly elementEnd = int32();
+  readonly labelStart = int32();
+  readonly labelEnd = int32();
+  readonly coordinateStart = int32();
+  readonly coordinateEnd = int32();
+  readonly coordinates = new Growable((size) => new Float64Array(size));
 
   table(text: string): AtomTable {
     return {

@@ -1,5 +1,6 @@
 /** Inlay hints after each fragment name, and a code lens with the totals above the spec. */
 import { InlayHintKind, type CodeLens, type InlayHint, type Range } from 'vscode-languageserver-types';
+import { mappingKey, type Mapping } from '../chemistry/qubits';
 import type { Analysis } from '../language/analyze';
 import type { FragmentFigures } from '../report/estimate';
 import { estimateOf } from './cards';
@@ -8,7 +9,7 @@ import { toRange } from './positions';
 /** Qubits under the fragment's mapping before tapering, or null outside the quantum tier. */
 function untaperedQubits(figures: FragmentFigures): number | null {
   if (figures.qubitsRequired === null || !figures.mapping) return null;
-  return figures.mapping === 'parity' ? figures.qubits.parity : figures.mapping === 'bravyi-kitaev' ? figures.qubits.bravyiKitaev : figures.qubits.jordanWigner;
+  return figures.qubits[mappingKey(figures.mapping as Mapping)];
 }
 
 /** The short cost label of a fragment, as shown in hints and the outline: `20 qubits · 17 tapered`. */

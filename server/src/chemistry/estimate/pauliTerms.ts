@@ -33,7 +33,7 @@
  * diagonal integrals h_ii and (ii|ii), as real orbitals always have (without them a few more
  * classes can cancel in small sectors). The full-register counts need no such assumption.
  */
-import type { Mapping } from '../qubits';
+import { mappingKey, type Mapping } from '../qubits';
 import type { IntegralPattern } from './integralPattern';
 import { jordanWignerStrings, walkTermClasses } from './termClasses';
 
@@ -77,15 +77,7 @@ export function countPauliTerms(pattern: IntegralPattern, electrons?: ElectronCo
 
 /** The count for one mapping (the parity mapping is the reduced one, as in qubits.ts). */
 export function pauliTermsUnder(mapping: Mapping, pattern: IntegralPattern, electrons?: ElectronCount): number {
-  const counts = countPauliTerms(pattern, electrons);
-  switch (mapping) {
-    case 'jordan-wigner':
-      return counts.jordanWigner;
-    case 'bravyi-kitaev':
-      return counts.bravyiKitaev;
-    case 'parity':
-      return counts.parity;
-  }
+  return countPauliTerms(pattern, electrons)[mappingKey(mapping)];
 }
 
 /** Full-register count from the class walk, for any pattern. */

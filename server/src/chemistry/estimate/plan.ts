@@ -21,7 +21,7 @@ import { ccsdAmplitudeCount, ciVectorBytes, fciDeterminantCount, statevectorByte
 import { dmetSizesForSpaces, ownOrbitalSizes, type EmbeddedSizes } from '../cost/dmet';
 import type { Magnitude } from '../cost/magnitude';
 import type { OrbitalSpace } from '../counting';
-import { qubitCounts, type Mapping } from '../qubits';
+import { mappingKey, qubitCounts, type Mapping } from '../qubits';
 import { symmetryPattern } from './integralPattern';
 import { measurementGroups, estimateQubitWiseGroups, type MeasurementEstimate } from './measurement';
 import { countPauliTerms } from './pauliTerms';
@@ -206,7 +206,7 @@ function activeIrreps(input: PlanInput, orbitals: number): { irreps: IrrepShare[
 function requiredQubits(input: PlanInput, counts: ReturnType<typeof qubitCounts>, tapered: number): number | null {
   if (!input.mapping) return null;
   if (input.taper) return tapered;
-  return counts[input.mapping === 'jordan-wigner' ? 'jordanWigner' : input.mapping === 'bravyi-kitaev' ? 'bravyiKitaev' : 'parity'];
+  return counts[mappingKey(input.mapping)];
 }
 
 /** Qubits the fragment's solver needs for an active space of `orbitals` and the given spin split. */
