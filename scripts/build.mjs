@@ -1,7 +1,7 @@
 // Bundles the command line, the language server, the VS Code client and the benchmark with esbuild.
 // Run by `npm ci` (the `prepare` script) so that `npx tessera` works right after installing.
 import { build } from 'esbuild';
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import * as path from 'node:path';
 
@@ -10,7 +10,8 @@ const { version } = JSON.parse(readFileSync(path.join(root, 'package.json'), 'ut
 
 /**
  * Builds the bundles into `outdir` (default dist/). `production` minifies and drops source maps;
- * `only` limits the build to the named bundles (cli, server, client, bench).
+ * `only` limits the build to the named bundles (cli, server, client, webview, bench). The webview
+ * scripts are browser bundles (the 3D viewer included) with the licences of what they bundle.
  */
 export async function buildBundles({ outdir = path.join(root, 'dist'), production = false, only } = {}) {
   const common = {
@@ -30,8 +31,33 @@ export async function buildBundles({ outdir = path.join(root, 'dist'), productio
     { name: 'server', entryPoints: ['server/src/lsp/main.ts'], outfile: path.join(outdir, 'server.js') },
     { name: 'client', entryPoints: ['client/src/extension.ts'], outfile: path.join(outdir, 'client', 'extension.js'), external: ['vscode'] },
     { name: 'bench', entryPoints: ['bench/main.ts'], outfile: path.join(outdir, 'bench.js') },
+    ...['structure', 'costs'].map((view) => ({
+      name: 'webview',
+      entryPoints: [`client/webview/${view}.ts`],
+      outfile: path.join(outdir, 'webview', `${view}.js`),
+      platform: 'browser',
+      target: 'es2022',
+      format: 'iife',
+    })),
   ].filter((entry) => existsSync(path.join(root, entry.entryPoints[0])) && (!only || only.includes(entry.name)));
   await Promise.all(entries.map(({ name, ...entry }) => build({ ...common, ...entry })));
+  if (entries.some((entry) => entry.name === 'webview')) writeNotices(path.join(outdir, 'webview', 'third-party-notices.txt'));
+}
+
+/** The packages bundled into the webview scripts: 3Dmol.js and what its build carries inside. */
+const WEBVIEW_PACKAGES = ['3dmol', 'iobuffer', 'netcdfjs', 'pako', 'upng-js'];
+
+/** The licences of the bundled packages, which their terms ask to ship with the binaries. */
+function writeNotices(file) {
+  const sections = WEBVIEW_PACKAGES.map((name) => {
+    const folder = path.join(root, 'node_modules', name);
+    const manifest = JSON.parse(readFileSync(path.join(folder, 'package.json'), 'utf8'));
+    const licence = ['LICENSE', 'LICENSE.md', 'LICENSE.txt', 'license'].map((f) => path.join(folder, f)).find((f) => existsSync(f));
+    if (!licence) throw new Error(`${name} ships no licence file; the notices need one`);
+    return `${manifest.name} ${manifest.version} (${manifest.license})\n${'-'.repeat(72)}\n${readFileSync(licence, 'utf8').trim()}\n`;
+  });
+  mkdirSync(path.dirname(file), { recursive: true });
+  writeFileSync(file, `The structure view (dist/webview/structure.js) bundles the following packages.\n\n${sections.join('\n\n')}`);
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {

@@ -1,14 +1,19 @@
 /**
  * The VS Code extension: starts the Tessera language server, shows the largest fragment's qubit
- * count in the status bar, and opens the resource report beside the editor. No analysis here.
+ * count in the status bar, and opens the resource report, the structure view and the cost plots
+ * beside the editor. No analysis here: every figure comes from the language server.
  */
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
+import { makeNonce } from './views/html';
+import { CostsPanel, StructurePanel, type ViewHost } from './views/panels';
 
 let client: LanguageClient | undefined;
 let statusItem: vscode.StatusBarItem | undefined;
 let reportPanel: vscode.WebviewPanel | undefined;
 let reportUri: string | undefined;
+let structurePanel: StructurePanel | undefined;
+let costsPanel: CostsPanel | undefined;
 
 interface Summary {
   largestQubits: number | null;
@@ -56,7 +61,7 @@ async function refreshStatus(): Promise<void> {
 }
 
 function webviewHtml(webview: vscode.Webview, body: string): string {
-  const nonce = Array.from({ length: 32 }, () => Math.floor(Math.random() * 36).toString(36)).join('');
+  const nonce = makeNonce();
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:;">
@@ -71,7 +76,31 @@ code { font-family: var(--vscode-editor-font-family); }
 </style></head><body>${body}</body></html>`;
 }
 
-async function showReport(): Promise<void> {
+/** The active spec, or else the one a view last showed (when the view itself has the focus). */
+function specForView(lastUri: string | undefined): vscode.TextDocument | undefined {
+  return activeSpec() ?? (lastUri ? vscode.workspace.textDocuments.find((d) => d.uri.toString() === lastUri) : undefined);
+}
+
+function showStructure(): void {
+  const document = specForView(structurePanel?.visibleUri);
+  if (!document || !structurePanel) {
+    void vscode.window.showInformationMessage('Tessera: open a .tess spec to see its structure.');
+    return;
+  }
+  structurePanel.show(document);
+}
+
+function showCosts(): void {
+  const document = specForView(costsPanel?.visibleUri);
+  if (!document || !costsPanel) {
+    void vscode.window.showInformationMessage('Tessera: open a .tess spec to see its cost plots.');
+    return;
+  }
+  costsPanel.show(document);
+}
+
+/** Shows the report; `reveal` false only refreshes an open one, leaving its group's tabs alone. */
+async function showReport(reveal = true): Promise<void> {
   const document = activeSpec() ?? (reportUri ? vscode.workspace.textDocuments.find((d) => d.uri.toString() === reportUri) : undefined);
   if (!document || !client) {
     void vscode.window.showInformationMessage('Tessera: open a .tess spec to see its resource report.');
@@ -89,7 +118,7 @@ async function showReport(): Promise<void> {
   }
   reportPanel.title = `Report: ${document.uri.path.split('/').pop() ?? 'spec'}`;
   reportPanel.webview.html = webviewHtml(reportPanel.webview, html);
-  reportPanel.reveal(vscode.ViewColumn.Beside, true);
+  if (reveal) reportPanel.reveal(vscode.ViewColumn.Beside, true);
 }
 
 export async function activate(context: vscode.ExtensionContext): Promise<void> {
@@ -105,22 +134,45 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   };
   client = new LanguageClient('tessera', 'Tessera', serverOptions, clientOptions);
 
+  const viewHost: ViewHost = {
+    request: <R>(method: string, params: unknown) => client?.sendRequest<R>(method, params),
+    extensionUri: context.extensionUri,
+    log: (line) => client?.outputChannel.appendLine(line),
+  };
+  structurePanel = new StructurePanel(viewHost);
+  costsPanel = new CostsPanel(viewHost);
+  const panels = [structurePanel, costsPanel];
+
   statusItem = vscode.window.createStatusBarItem('tessera.qubits', vscode.StatusBarAlignment.Right, 100);
   statusItem.name = 'Tessera qubits';
   statusItem.command = 'tessera.showReport';
   context.subscriptions.push(
     statusItem,
-    vscode.commands.registerCommand('tessera.showReport', showReport),
+    ...panels,
+    vscode.commands.registerCommand('tessera.showReport', () => showReport()),
+    vscode.commands.registerCommand('tessera.showStructure', showStructure),
+    vscode.commands.registerCommand('tessera.showCosts', showCosts),
     vscode.commands.registerCommand('tessera.restartServer', async () => {
       await client?.restart();
       await refreshStatus();
+      for (const panel of panels) void panel.refresh();
     }),
-    vscode.window.onDidChangeActiveTextEditor(() => void refreshStatus()),
+    vscode.window.onDidChangeActiveTextEditor((editor) => {
+      void refreshStatus();
+      for (const panel of panels) panel.activeEditorChanged(editor);
+    }),
+    vscode.workspace.onDidChangeTextDocument((event) => {
+      for (const panel of panels) panel.documentChanged(event.document);
+    }),
+    vscode.workspace.onDidCloseTextDocument((document) => {
+      for (const panel of panels) panel.documentClosed(document);
+    }),
+    vscode.window.onDidChangeTextEditorSelection((event) => structurePanel?.selectionChanged(event.textEditor)),
     vscode.languages.onDidChangeDiagnostics((event) => {
       const active = activeSpec();
       if (!active || !event.uris.some((uri) => uri.toString() === active.uri.toString())) return;
       void refreshStatus();
-      if (reportPanel && reportUri === active.uri.toString()) void showReport();
+      if (reportPanel && reportUri === active.uri.toString()) void showReport(false);
     }),
   );
   await client.start();

@@ -6,7 +6,9 @@
  *  2. builds the bundles and the .vsix (`npm run build`, `npm run package`);
  *  3. installs the .vsix into code-server, serves a workspace of the samples on loopback and
  *     runs the workbench checks in headless Chromium (vscode-checks.mjs);
- *  4. runs the second LSP client, headless Neovim, against `tessera lsp --stdio` (nvim-lsp.mjs).
+ *  4. runs the structure view and cost panel pages in headless Chromium, outside VS Code
+ *     (views-checks.mjs);
+ *  5. runs the second LSP client, headless Neovim, against `tessera lsp --stdio` (nvim-lsp.mjs).
  *
  * Screenshots go to tests/e2e/screenshots/ (git ignores it); the run folder to
  * .cache/e2e/runs/<id>/ (kept when something fails, for its logs). `--doc-images` also copies the
@@ -21,6 +23,7 @@ import { CodeServer, isolatedEnv, makeWorkspace, tail } from './lib/code-server.
 import { launchBrowser, openWorkbench } from './lib/workbench.mjs';
 import { runNeovimCheck } from './nvim-lsp.mjs';
 import { publishDocImages, runWorkbenchChecks } from './vscode-checks.mjs';
+import { runViewChecks, viewData } from './views-checks.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const cache = process.env.TESSERA_E2E_CACHE ?? path.join(root, '.cache', 'e2e');
@@ -53,7 +56,7 @@ function tessera(args) {
 }
 
 /** What the command line says about the workspace's files: the figures the editors must show. */
-function referenceFigures(workspace) {
+async function referenceFigures(workspace) {
   const diagnosticsOf = (file) => tessera(['check', path.join(workspace, file)]).files[0].diagnostics;
   const demo = tessera(['estimate', path.join(workspace, 'zn-site-h2s-scan.tess')]);
   const quantum = demo.fragments.filter((f) => f.qubitsRequired !== null).sort((a, b) => b.qubitsRequired - a.qubitsRequired);
@@ -69,6 +72,8 @@ function referenceFigures(workspace) {
     demoFigures: demo.fragments.map(({ name, qubitsRequired, orbitals }) => ({ name, qubitsRequired, orbitals })),
     demoLargest: { fragment: quantum[0].name, qubits: quantum[0].qubitsRequired },
     quickFix: { ...multiplicity[0], nearest: Number(nearest) },
+    // The language server's answers for the views (atom lines, colours, charts) over stdio.
+    views: await viewData(root, path.join(workspace, 'zn-site-h2s-scan.tess')),
   };
 }
 
@@ -120,7 +125,9 @@ async function main() {
   mkdirSync(shots, { recursive: true });
   mkdirSync(runDir, { recursive: true });
   const workspace = makeWorkspace(root, path.join(runDir, 'workspace'));
-  const reference = referenceFigures(workspace);
+  const reference = await referenceFigures(workspace);
+  const viewResults = await runViewChecks({ root, runDir, shots, toolsDir: path.join(cache, 'tools'), webviewDir: path.join(root, '.cache', 'vsix-stage', 'dist', 'webview'), log });
+  phase('view pages in headless Chromium');
   server = new CodeServer({ installDir: path.join(cache, 'code-server'), runDir });
   server.prepare();
   const extensions = server.installExtension(vsix);
@@ -136,6 +143,7 @@ async function main() {
   phase('start code-server and the workbench');
 
   const { results, measurements } = await runWorkbenchChecks({ page, workspace, shots, reference, log });
+  results.unshift(...viewResults);
   if (interrupted) throw new Error(`interrupted by ${interrupted}`);
   phase('workbench checks');
   await cleanUp();

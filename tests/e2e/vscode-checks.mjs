@@ -6,9 +6,10 @@
  *
  * Every check runs even when an earlier one failed; each leaves a screenshot.
  */
-import { copyFileSync, mkdirSync, readFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import * as path from 'node:path';
 import { activeEditor, allRowLabels, dismiss, filterProblems, goTo, hidePanel, hideSideBar, openFile, plain, runCommand, showProblems, visibleLines, waitForLine } from './lib/workbench.mjs';
+import { sampleCanvas } from './views-checks.mjs';
 
 /** Longest wait for anything the workbench should show; these machines can be busy. */
 const WAIT = 30_000;
@@ -37,6 +38,36 @@ function numberColumns(row) {
     values.push(Number(match[0]));
   }
   return { columns, values, decimals: [...row.matchAll(/-?\d+\.(\d*)/g)].map((m) => m[1].length) };
+}
+
+/** The frame (a webview's inner document) in which `selector` matches, waiting up to `timeout`. */
+async function frameWith(page, selector, timeout = WAIT) {
+  const deadline = Date.now() + timeout;
+  while (Date.now() < deadline) {
+    for (const frame of page.frames()) {
+      if (await frame.evaluate((s) => document.querySelector(s) !== null, selector).catch(() => false)) return frame;
+    }
+    await page.waitForTimeout(250);
+  }
+  throw new Error(`no webview shows '${selector}' within ${timeout} ms`);
+}
+
+/** The cost label the views show for a fragment: its qubits when it needs some, else its orbitals. */
+function costLabel({ qubitsRequired, orbitals }) {
+  return qubitsRequired !== null ? `${qubitsRequired} qubits` : `${orbitals} orbitals`;
+}
+
+/** Waits for a file to appear with some content; returns its bytes. */
+async function waitForFile(page, file) {
+  const deadline = Date.now() + WAIT;
+  while (Date.now() < deadline) {
+    if (existsSync(file) && statSync(file).size > 0) {
+      await page.waitForTimeout(200); // let the write finish
+      return readFileSync(file);
+    }
+    await page.waitForTimeout(200);
+  }
+  throw new Error(`${path.basename(file)} was not written within ${WAIT} ms`);
 }
 
 /**
@@ -351,6 +382,122 @@ export async function runWorkbenchChecks({ page, workspace, shots, reference, lo
     return `tab 'Report: zn-site-h2s-scan.tess' in a second editor group right of the spec; the webview shows '${body.split('\n')[0]}' with the fragments ${reference.demoFragments.join(', ')}`;
   });
 
+  // --- structure view -------------------------------------------------------------------------
+  const specTab = page.locator('.tabs-container .tab', { has: page.locator('.label-name', { hasText: /^zn-site-h2s-scan\.tess$/ }) }).first();
+  const structure = reference.views.structure;
+  await check('k', 'Show Structure draws the fragments and follows the editor', async () => {
+    await specTab.click();
+    // The cursor outside every fragment block, so that the view picks none out.
+    await goTo(page, 1, 1);
+    await runCommand(page, 'Tessera: Show Structure');
+    const tab = page.locator('.tabs-container .tab[aria-label*="Structure: zn-site-h2s-scan.tess"]');
+    await tab.waitFor({ timeout: WAIT });
+    const frame = await frameWith(page, '#fragments li[data-fragment]');
+    const marked = await frame.$$eval('#fragments li[aria-current="true"]', (rows) => rows.length);
+    if (marked !== 0) throw new Error(`${marked} fragments marked in the key with the cursor on line 1`);
+    // The key: each fragment with the cost the command line gives it.
+    const key = await frame.$$eval('#fragments li[data-fragment]', (rows) => rows.map((row) => `${row.querySelector('.name').textContent}: ${row.querySelector('.cost').textContent}`));
+    const wantedKey = reference.demoFigures.map((figures) => `${figures.name}: ${costLabel(figures)}`);
+    if (key.join(' / ') !== wantedKey.join(' / ')) throw new Error(`key reads ${key.join(' / ')}, \`tessera estimate\` gives ${wantedKey.join(' / ')}`);
+    // The canvas: pixels of every fragment's colour.
+    const colours = Object.fromEntries(structure.fragments.map((f) => [f.name, f.colour]));
+    let sample = null;
+    const deadline = Date.now() + WAIT;
+    while ((!sample || Object.values(sample.counts).some((n) => n < 40)) && Date.now() < deadline) {
+      await page.waitForTimeout(300);
+      sample = await frame.evaluate(sampleCanvas, { colours }).catch(() => null);
+    }
+    if (!sample) throw new Error('the structure view drew no canvas');
+    const faint = Object.entries(sample.counts).filter(([, n]) => n < 40);
+    if (faint.length > 0) throw new Error(`too few pixels of ${faint.map(([name, n]) => `${name} (${n})`).join(', ')}`);
+    const counts = Object.entries(sample.counts).map(([name, n]) => `${name} ${n}`).join(', ');
+    const viewBox = await page.locator('.editor-group-container', { has: tab }).first().boundingBox();
+    // Park the mouse on the view's key, away from buttons whose tooltips would cover the picture.
+    await page.mouse.move(viewBox.x + viewBox.width - 12, viewBox.y + viewBox.height - 12);
+    await page.waitForTimeout(600);
+    await docShot('structure-view', viewBox, 0);
+    // The cursor in a fragment block picks that fragment out in the view.
+    const guest = structure.fragments.findIndex((f) => f.tier === 'correlated');
+    const guestName = structure.fragments[guest].name;
+    await specTab.click();
+    await goTo(page, lineOf(demo, 'tier correlated'), 5);
+    await frame.locator(`#fragments li[data-fragment="${guest}"][aria-current="true"]`).waitFor({ timeout: WAIT });
+    // A click on an atom of that fragment selects the atom's line in the editor.
+    sample = null;
+    const again = Date.now() + WAIT;
+    while ((!sample?.centres?.[guestName] || sample.counts[guestName] < 40) && Date.now() < again) {
+      await page.waitForTimeout(300);
+      sample = await frame.evaluate(sampleCanvas, { colours: { [guestName]: colours[guestName] }, centres: true }).catch(() => null);
+    }
+    const centre = sample?.centres?.[guestName];
+    if (!centre) throw new Error(`no pixel of ${guestName} to click`);
+    const frameBox = await (await frame.frameElement()).boundingBox();
+    await page.mouse.click(frameBox.x + centre.x, frameBox.y + centre.y);
+    const guestLines = structure.atoms.filter((atom) => atom.fragment === guest).map((atom) => atom.line + 1);
+    const selection = page.locator('#status\\.editor\\.selection');
+    let shown = '';
+    const clicked = Date.now() + WAIT;
+    while (Date.now() < clicked) {
+      shown = plain(await selection.innerText().catch(() => ''));
+      const line = Number(/Ln (\d+)/.exec(shown)?.[1]);
+      if (guestLines.includes(line) && /selected/.test(shown)) break;
+      await page.waitForTimeout(200);
+    }
+    const line = Number(/Ln (\d+)/.exec(shown)?.[1]);
+    if (!guestLines.includes(line)) throw new Error(`after the click the editor shows '${shown}'; the ${guestName} atoms are on lines ${guestLines.join(', ')}`);
+    const text = readFileSync(demo, 'utf8').split('\n')[line - 1].trim();
+    // Live: an edit of the fragment's name reaches the key.
+    await goTo(page, lineOf(demo, `fragment ${guestName} `), `fragment ${guestName}`.length + 1);
+    await page.keyboard.type('x');
+    try {
+      await frame.locator('#fragments .name', { hasText: new RegExp(`^${guestName}x$`) }).waitFor({ timeout: WAIT });
+    } finally {
+      await specTab.click();
+      await page.keyboard.press('Control+Z');
+    }
+    await frame.locator('#fragments .name', { hasText: new RegExp(`^${guestName}$`) }).waitFor({ timeout: WAIT });
+    return `key: ${key.join(' / ')}; canvas pixels ${counts}; cursor in '${guestName}' marked it in the key; a click on a ${guestName} atom selected line ${line} ('${text}'); renaming the fragment reached the key`;
+  });
+
+  // --- cost panel -----------------------------------------------------------------------------
+  await check('l', 'Show Cost Plots shows the charts and saves SVG and PNG exports', async () => {
+    const costs = reference.views.costs;
+    await specTab.click();
+    await runCommand(page, 'Tessera: Show Cost Plots');
+    const tab = page.locator('.tabs-container .tab[aria-label*="Costs: zn-site-h2s-scan.tess"]');
+    await tab.waitFor({ timeout: WAIT });
+    const frame = await frameWith(page, '#plot-scan > svg');
+    const titles = await frame.$$eval('.ts-figure > svg', (svgs) => svgs.map((svg) => svg.querySelector('text')?.textContent ?? ''));
+    const wanted = ['Qubits per fragment (planning estimate)', `Cost against active-space size: ${costs.fragments.find((f) => f.index === costs.selected).name} (planning estimate)`, 'Cumulative cost along the scan (planning estimate)'];
+    if (titles.join(' / ') !== wanted.join(' / ')) throw new Error(`charts: ${titles.join(' / ')}`);
+    const options = await frame.$$eval('#fragment option', (rows) => rows.map((row) => row.textContent));
+    if (options.join() !== costs.fragments.map((f) => f.name).join()) throw new Error(`selector offers ${options.join(', ')}`);
+    const other = costs.fragments.find((f) => f.index !== costs.selected);
+    await frame.locator('#fragment').selectOption(String(other.index));
+    await frame.locator('#plot-growth > svg', { hasText: `active-space size: ${other.name}` }).waitFor({ timeout: WAIT });
+    const tabBox = await page.locator('.editor-group-container', { has: tab }).first().boundingBox();
+    await page.mouse.move(tabBox.x + tabBox.width - 12, tabBox.y + tabBox.height - 12);
+    await page.waitForTimeout(600);
+    await docShot('cost-panel', tabBox, 0);
+    // Exports: the save dialog (code-server's own, in the quick input) proposes the spec's folder.
+    const saved = [];
+    for (const [plot, format] of [['qubits', 'svg'], ['growth', 'png']]) {
+      const file = path.join(workspace, `zn-site-h2s-scan-${plot}.${format}`);
+      await frame.locator(`[data-plot="${plot}"] button[data-export="${format}"]`).click();
+      const input = page.locator('.quick-input-widget input');
+      await input.waitFor({ state: 'visible', timeout: WAIT });
+      await page.waitForFunction((name) => (document.querySelector('.quick-input-widget input')?.value ?? '').endsWith(name), path.basename(file), { timeout: WAIT }).catch(async () => {
+        throw new Error(`the save dialog proposes '${await input.inputValue()}', not ${path.basename(file)}`);
+      });
+      await page.keyboard.press('Enter');
+      const bytes = await waitForFile(page, file);
+      if (format === 'svg' && bytes.toString('utf8') !== costs.svg.qubits) throw new Error('the saved SVG differs from the chart the language server drew');
+      if (format === 'png' && (bytes.readUInt32BE(0) !== 0x89504e47 || bytes.readUInt32BE(16) !== 1280 || bytes.readUInt32BE(20) !== 680)) throw new Error(`the saved PNG is not a 1280×680 PNG (${bytes.length} bytes)`);
+      saved.push(`${path.basename(file)} (${bytes.length} bytes)`);
+    }
+    return `charts: ${titles.join(' / ')}; selector ${options.join(', ')} → ${other.name}; saved ${saved.join(', ')}`;
+  });
+
   return { results, measurements };
 }
 
@@ -359,7 +506,7 @@ export function publishDocImages(shots, root) {
   const target = path.join(root, 'docs', 'images');
   mkdirSync(target, { recursive: true });
   const copied = [];
-  for (const name of ['problems-panel', 'hover-card', 'inlay-hints-code-lens', 'report-view']) {
+  for (const name of ['problems-panel', 'hover-card', 'inlay-hints-code-lens', 'report-view', 'structure-view']) {
     const from = path.join(shots, 'docs', `${name}.png`);
     copyFileSync(from, path.join(target, `${name}.png`));
     copied.push(path.join('docs', 'images', `${name}.png`));

@@ -53,6 +53,9 @@ describe('the .vsix package', () => {
         'extension/changelog.md',
         'extension/dist/client/extension.js',
         'extension/dist/server.js',
+        'extension/dist/webview/costs.js',
+        'extension/dist/webview/structure.js',
+        'extension/dist/webview/third-party-notices.txt',
         'extension/grammar/tessera.tmLanguage.json',
         'extension/icons/tessera-file.svg',
         'extension/icons/tessera.png',
@@ -78,7 +81,7 @@ describe('the .vsix package', () => {
     for (const grammar of packaged.contributes.grammars) expect(has(grammar.path)).toBe(true);
     for (const snippet of packaged.contributes.snippets) expect(has(snippet.path)).toBe(true);
     const commands = packaged.contributes.commands.map((c: { command: string }) => c.command);
-    expect(commands).toEqual(expect.arrayContaining(['tessera.showReport', 'tessera.restartServer']));
+    expect(commands).toEqual(expect.arrayContaining(['tessera.showReport', 'tessera.showStructure', 'tessera.showCosts', 'tessera.restartServer']));
     expect(Object.keys(packaged.contributes.configuration.properties)).toEqual(
       expect.arrayContaining(['tessera.defaultMapping', 'tessera.qubitLimit', 'tessera.inlayHints.enabled', 'tessera.codeLens.enabled', 'tessera.trace.server']),
     );
@@ -94,6 +97,17 @@ describe('the .vsix package', () => {
     const client = files.get('extension/dist/client/extension.js')!.toString('utf8');
     expect(client).toMatch(/require\(["']vscode["']\)/);
     expect(client).not.toMatch(/require\(["']vscode-languageclient/);
+    // The extension holds no analysis: the parser (chevrotain) and the basis-set data stay in the server.
+    expect(server).toMatch(/chevrotain/i);
+    expect(server).toMatch(/def2-svp/i);
+    for (const bundle of ['extension/dist/client/extension.js', 'extension/dist/webview/structure.js', 'extension/dist/webview/costs.js']) {
+      expect(files.get(bundle)!.toString('utf8')).not.toMatch(/chevrotain|def2-svp/i);
+    }
+    // The webview scripts are self-contained browser bundles, and the viewer's licence ships with them.
+    for (const view of ['structure', 'costs']) expect(files.get(`extension/dist/webview/${view}.js`)!.toString('utf8')).not.toMatch(/\brequire\(["']/);
+    const notices = files.get('extension/dist/webview/third-party-notices.txt')!.toString('utf8');
+    expect(notices).toContain('3dmol');
+    expect(notices).toContain('University of Pittsburgh');
     const total = [...files.values()].reduce((sum, buffer) => sum + buffer.length, 0);
     expect(total).toBeLessThan(2 * 1024 * 1024);
   });

@@ -5,10 +5,10 @@
 import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
+import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
+import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
 import { EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
-
-declare const TESSERA_VERSION: string | undefined;
-const VERSION = typeof TESSERA_VERSION === 'string' ? TESSERA_VERSION : '0.0.0-dev';
+import { VERSION } from './version';
 
 export const USAGE = `tessera ${VERSION}: plan fragment-based hybrid quantum-classical calculations
 
@@ -20,6 +20,23 @@ Usage:
   tessera estimate --xyz <file.xyz> --basis <name> [--charge N] [--multiplicity M]
                    [--functions spherical|cartesian] [--frozen-core] [--format text|json|markdown]
       The same for a plain XYZ file (ångström), without a spec.
+  tessera export <file.tess> --to xyz|qcschema [--out <file>]
+      The geometry for other programs; standard output unless --out. A spec with errors is not
+      exported (exit 1, the diagnostics on standard error).
+      xyz: ångström, element symbols only (no labels); one frame per scan point when the spec
+        scans, the comment line naming the spec, the point and the scanned distance.
+      qcschema: one JSON object { format: "tessera-qcschema-export", format_version: 1, spec,
+        system, fragments: [...], scan: null | { first_atom, second_atom, moving_atoms,
+        distances_angstrom, molecules: [...] } } whose system, fragments[] and scan.molecules[]
+        are QCSchema molecules (schema_version 2, geometry in bohr). Atoms are grouped by
+        fragment, as QCSchema fragments need; extras.tessera.spec_atom_numbers gives each atom's
+        #n in the spec, and extras.tessera holds the basis, tiers and embedding.
+  tessera report <file.tess> [--format markdown|html|csv] [--out <file>]
+      The resource report as a document (default markdown): every figure of the system and each
+      fragment, the conventions, the problems with their lines and the scan totals. html is one
+      standalone page with the plots inline as SVG; csv has one row per part, columns spec, then
+      the figures' keys in the JSON estimate (part, name, tier, ..., qubits.jordanWigner, ...),
+      then note. Written even when the spec has errors (exit 1).
   tessera lsp --stdio
       The language server, for editors other than VS Code.
 
@@ -27,7 +44,7 @@ Options:
   -h, --help       this text
   -v, --version    the version
 
-Exit codes: 0 no errors; 1 errors found; 2 bad usage or unreadable file.
+Exit codes: 0 no errors; 1 errors found; 2 bad usage, or a file that cannot be read or written.
 All figures are planning estimates, not results of a calculation.
 `;
 
@@ -105,6 +122,50 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         io,
       );
     }
+    case 'export': {
+      const { values, positionals } = parseArgs({
+        args: rest,
+        allowPositionals: true,
+        strict: true,
+        options: { to: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+      });
+      if (values.help) {
+        io.stdout(USAGE);
+        return EXIT_OK;
+      }
+      if (positionals.length > 1) throw new UsageError('export takes one spec file');
+      const to = values.to;
+      if (to !== undefined && !(EXPORT_TARGETS as readonly string[]).includes(to)) throw new UsageError(`--to must be one of ${EXPORT_TARGETS.join(', ')}; got '${to}'`);
+      return runExport(
+        {
+          ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),
+          ...(to !== undefined ? { to: to as ExportTarget } : {}),
+          ...(values.out !== undefined ? { out: values.out } : {}),
+        },
+        io,
+      );
+    }
+    case 'report': {
+      const { values, positionals } = parseArgs({
+        args: rest,
+        allowPositionals: true,
+        strict: true,
+        options: { format: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+      });
+      if (values.help) {
+        io.stdout(USAGE);
+        return EXIT_OK;
+      }
+      if (positionals.length > 1) throw new UsageError('report takes one spec file');
+      return runReport(
+        {
+          ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),
+          format: formatOption<ReportFormat>(values.format, REPORT_FORMATS, 'markdown'),
+          ...(values.out !== undefined ? { out: values.out } : {}),
+        },
+        io,
+      );
+    }
     case 'lsp': {
       if (!rest.includes('--stdio') && !rest.some((arg) => arg.startsWith('--node-ipc') || arg.startsWith('--socket') || arg.startsWith('--pipe'))) {
         throw new UsageError('lsp needs a transport: tessera lsp --stdio');
@@ -115,7 +176,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       return new Promise<number>(() => undefined);
     }
     default:
-      throw new UsageError(`unknown command '${command}'; the commands are check, estimate and lsp`);
+      throw new UsageError(`unknown command '${command}'; the commands are check, estimate, export, report and lsp`);
   }
 }
 

@@ -213,6 +213,26 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
     const errors = analysis.diagnostics.filter((d) => d.severity === 'error').length;
     return { largestQubits: largest?.qubits ?? null, fragment: largest?.fragment ?? null, errors, limit: analysis.model.limits.qubits ?? null };
   });
+  // Data for the extension's structure view and cost panel.
+  const analysisOfParams = (params: unknown) => {
+    const uri = (params as { uri?: unknown } | null)?.uri;
+    return typeof uri === 'string' ? analysisOf(uri) : undefined;
+  };
+  connection.onRequest('tessera/structure', (params: unknown) => {
+    const analysis = analysisOfParams(params);
+    return analysis ? service.structureOf(analysis) : null;
+  });
+  connection.onRequest('tessera/costs', (params: unknown) => {
+    const analysis = analysisOfParams(params);
+    const fragment = (params as { fragment?: unknown } | null)?.fragment;
+    return analysis ? service.costPlots(analysis, Number.isInteger(fragment) ? (fragment as number) : null) : null;
+  });
+  connection.onRequest('tessera/viewTarget', (params: unknown) => {
+    const analysis = analysisOfParams(params);
+    const position = (params as { position?: { line?: unknown; character?: unknown } | null } | null)?.position;
+    if (!analysis || !position || !Number.isInteger(position.line) || !Number.isInteger(position.character)) return null;
+    return service.viewTargetAt(analysis, { line: Math.max(0, position.line as number), character: Math.max(0, position.character as number) });
+  });
 
   documents.listen(connection);
   connection.listen();

@@ -14,3 +14,4 @@ export { getFoldingRanges, getSelectionRanges } from './structure';
 export { findDocumentSymbols, findWorkspaceSymbols } from './symbols';
 export { estimateOf, fragmentCard } from './cards';
 export { reportMarkdown } from './report';
+export { costPlots, growthFragments, structureOf, viewTargetAt, type CostPlots, type StructureView } from './views';

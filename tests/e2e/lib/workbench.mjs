@@ -23,6 +23,8 @@ export async function launchBrowser({ toolsDir, runDir, env }) {
       '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
       '--disable-background-networking', '--disable-component-update', '--disable-sync',
       '--host-resolver-rules=MAP * ~NOTFOUND, EXCLUDE 127.0.0.1, EXCLUDE localhost',
+      // WebGL for the structure view without a GPU: ANGLE on SwiftShader.
+      '--use-angle=swiftshader', '--enable-unsafe-swiftshader',
     ],
   });
   return {

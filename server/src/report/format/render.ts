@@ -2,7 +2,8 @@
 import type { EstimateReport } from '../estimate';
 import { PLANNING_NOTE } from '../estimate';
 import { conventionLines, estimateTables, headerLines } from './estimateTables';
-import { renderMarkdownTable, renderTextTable } from './table';
+import { figuresTable, scanTable } from './figures';
+import { renderMarkdownTable, renderTextTable, type Table } from './table';
 
 export interface ProblemLine {
   readonly line: number;
@@ -11,14 +12,14 @@ export interface ProblemLine {
   readonly message: string;
 }
 
-function title(report: EstimateReport): string {
+export function reportTitle(report: EstimateReport): string {
   return report.spec.name ?? report.spec.path ?? 'spec';
 }
 
 export function renderEstimateText(report: EstimateReport): string {
   const tables = estimateTables(report);
   return [
-    `Tessera estimate: ${title(report)}`,
+    `Tessera estimate: ${reportTitle(report)}`,
     PLANNING_NOTE,
     ...headerLines(report),
     '',
@@ -29,18 +30,35 @@ export function renderEstimateText(report: EstimateReport): string {
   ].join('\n');
 }
 
+/** The tables of a report: the estimate tables, and with `full` the table of every figure by part and the scan totals. */
+export function reportTables(report: EstimateReport, full = false): Table[] {
+  const tables = estimateTables(report);
+  if (!full) return tables;
+  const scan = scanTable(report);
+  return [...tables, figuresTable(report), ...(scan ? [scan] : [])];
+}
+
+export interface MarkdownOptions {
+  /** Heading level of the title: 1 for a document, 2 for a section (default 1). */
+  level?: number;
+  /** Errors and warnings with their 1-based lines; a Problems section when given. */
+  problems?: readonly ProblemLine[];
+  /** Adds the table of every figure by part and the scan totals (the `tessera report` document). */
+  full?: boolean;
+}
+
 /** Markdown with `heading` levels starting at `level` (1 for a document, 2 for a section). */
-export function renderEstimateMarkdown(report: EstimateReport, options: { level?: number; problems?: readonly ProblemLine[] } = {}): string {
+export function renderEstimateMarkdown(report: EstimateReport, options: MarkdownOptions = {}): string {
   const level = options.level ?? 1;
   const h = (depth: number) => '#'.repeat(level + depth);
   const lines = [
-    `${h(0)} Resource report: ${title(report)}`,
+    `${h(0)} Resource report: ${reportTitle(report)}`,
     '',
     `> ${PLANNING_NOTE}`,
     '',
     ...headerLines(report).map((line) => `- ${line}`),
     '',
-    ...estimateTables(report).flatMap((table) => [renderMarkdownTable(table, h(1)), '']),
+    ...reportTables(report, options.full).flatMap((table) => [renderMarkdownTable(table, h(1)), '']),
     `${h(1)} Conventions`,
     '',
     ...conventionLines(report).map((line) => `- ${line}`),

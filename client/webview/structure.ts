@@ -1,0 +1,343 @@
+/// <reference lib="dom" />
+/// <reference lib="dom.iterable" />
+/**
+ * The structure view's script: draws the spec's atoms with 3Dmol.js, coloured by fragment, with
+ * bonds cut by fragment boundaries dashed and the scanned distance as an arrow; fills the key;
+ * reports clicks on atoms and on fragments of the key to the extension. Everything it shows comes
+ * from the extension's messages (the language server's `tessera/structure` answer).
+ */
+import { createViewer, Vector2, type AtomSpec, type GLViewer } from '3dmol';
+import { checkStructureHostMessage, type StructureViewMessage, type ViewAtom, type ViewStructure } from '../src/views/protocol';
+import { element, post, receive } from './host';
+
+const BACKGROUND = '#fbfaf6';
+/** Cut bonds: dashed, near black, so they differ from every fragment colour. */
+const CUT_BOND = '#1f1f1f';
+/** The scanned distance: a violet arrow (not a fragment colour). */
+const SCAN = '#6a3d9a';
+const HIGHLIGHT_RING = '#3b7bd6';
+const ATOM_SCALE = 0.27;
+const HIGHLIGHTED_SCALE = 0.36;
+const BOND_RADIUS = 0.11;
+
+const send = (message: StructureViewMessage) => post(message);
+
+const container = element<HTMLDivElement>('viewer');
+const viewer: GLViewer = createViewer(container, { backgroundColor: BACKGROUND, antialias: true, hoverDuration: 120 });
+viewer.enableFog(false);
+
+const status = element<HTMLDivElement>('status');
+const labelsToggle = element<HTMLInputElement>('labels');
+
+let data: ViewStructure | null = null;
+/** Whether the camera still frames the whole structure (no turn or zoom by hand since). */
+let framed = true;
+let highlightedFragment: number | null = null;
+let highlightedAtom: number | null = null;
+
+/** A colour mixed towards white: how atoms outside the highlighted fragment are drawn. */
+function faded(hex: string, amount = 0.68): string {
+  const channel = (offset: number) => {
+    const value = parseInt(hex.slice(offset, offset + 2), 16);
+    return Math.round(value + (255 - value) * amount)
+      .toString(16)
+      .padStart(2, '0');
+  };
+  return `#${channel(1)}${channel(3)}${channel(5)}`;
+}
+
+function colourOf(atom: ViewAtom): string {
+  const base = atom.fragment >= 0 ? data!.fragments[atom.fragment]!.colour : data!.unassignedColour;
+  return highlightedFragment !== null && atom.fragment !== highlightedFragment ? faded(base) : base;
+}
+
+function atomName(atom: ViewAtom): string {
+  return `${atom.element}${atom.label ? ` ${atom.label}` : ''} #${atom.index + 1}`;
+}
+
+function describe(atom: ViewAtom): string {
+  const fragment = atom.fragment >= 0 ? `fragment ${data!.fragments[atom.fragment]!.name}` : 'in no fragment';
+  const line = atom.line >= 0 ? ` · line ${atom.line + 1}, click to go there` : ' · read from an XYZ file';
+  return `${atomName(atom)} · ${fragment}${line}`;
+}
+
+type Vector = { x: number; y: number; z: number };
+type Matrix = [number, number, number, number, number, number, number, number, number];
+const IDENTITY: Matrix = [1, 0, 0, 0, 1, 0, 0, 0, 1];
+
+/** Product of two rotation matrices (row-major). */
+function times(a: Matrix, b: Matrix): Matrix {
+  const c: number[] = [];
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) c.push(a[3 * i]! * b[j]! + a[3 * i + 1]! * b[3 + j]! + a[3 * i + 2]! * b[6 + j]!);
+  return c as Matrix;
+}
+
+/** The rotation by `angle` about the x axis. */
+function aboutX(angle: number): Matrix {
+  return [1, 0, 0, 0, Math.cos(angle), -Math.sin(angle), 0, Math.sin(angle), Math.cos(angle)];
+}
+
+function apply(m: Matrix, v: Vector): Vector {
+  return { x: m[0] * v.x + m[1] * v.y + m[2] * v.z, y: m[3] * v.x + m[4] * v.y + m[5] * v.z, z: m[6] * v.x + m[7] * v.y + m[8] * v.z };
+}
+
+/**
+ * The rotation the view applies to the coordinates so that the scanned distance lies across the
+ * screen (along +x) rather than along the line of sight, turned about it so that the atoms spread
+ * most along the screen's height and least in depth (fewest atoms hidden behind others); the
+ * identity without a scan. Drawing only: the spec's coordinates are not changed.
+ */
+function orientation(structure: ViewStructure): Matrix {
+  if (!structure.scan) return IDENTITY;
+  const a = structure.atoms[structure.scan.first]!;
+  const b = structure.atoms[structure.scan.second]!;
+  const length = Math.hypot(b.x - a.x, b.y - a.y, b.z - a.z);
+  if (length < 1e-6) return IDENTITY;
+  const u = { x: (b.x - a.x) / length, y: (b.y - a.y) / length, z: (b.z - a.z) / length };
+  // Rodrigues: the rotation about u × x̂ by the angle between u and x̂.
+  const cos = u.x;
+  let align: Matrix;
+  if (cos > 1 - 1e-9) align = IDENTITY;
+  else if (cos < -1 + 1e-9) align = [-1, 0, 0, 0, 1, 0, 0, 0, -1];
+  else {
+    const sin = Math.hypot(u.y, u.z);
+    const k = { x: 0, y: u.z / sin, z: -u.y / sin };
+    const t = 1 - cos;
+    align = [
+      cos + k.x * k.x * t, k.x * k.y * t - k.z * sin, k.x * k.z * t + k.y * sin,
+      k.y * k.x * t + k.z * sin, cos + k.y * k.y * t, k.y * k.z * t - k.x * sin,
+      k.z * k.x * t - k.y * sin, k.z * k.y * t + k.x * sin, cos + k.z * k.z * t,
+    ];
+  }
+  // The principal axis of the atoms' spread across the scan, turned onto the screen's y axis.
+  const turned = structure.atoms.map((atom) => apply(align, atom));
+  const meanY = turned.reduce((sum, p) => sum + p.y, 0) / turned.length;
+  const meanZ = turned.reduce((sum, p) => sum + p.z, 0) / turned.length;
+  let yy = 0;
+  let zz = 0;
+  let yz = 0;
+  for (const p of turned) {
+    yy += (p.y - meanY) ** 2;
+    zz += (p.z - meanZ) ** 2;
+    yz += (p.y - meanY) * (p.z - meanZ);
+  }
+  const axis = 0.5 * Math.atan2(2 * yz, yy - zz);
+  return times(aboutX(-axis), align);
+}
+
+let rotation: Matrix = IDENTITY;
+
+function point(atom: ViewAtom): Vector {
+  return apply(rotation, atom);
+}
+
+function middle(a: ViewAtom, b: ViewAtom): Vector {
+  const p = point(a);
+  const q = point(b);
+  return { x: (p.x + q.x) / 2, y: (p.y + q.y) / 2, z: (p.z + q.z) / 2 };
+}
+
+function drawBonds(structure: ViewStructure): void {
+  for (const bond of structure.bonds) {
+    const a = structure.atoms[bond.i]!;
+    const b = structure.atoms[bond.j]!;
+    if (bond.cut) {
+      viewer.addCylinder({ start: point(a), end: point(b), radius: BOND_RADIUS * 0.8, color: CUT_BOND, dashed: true, dashLength: 0.22, gapLength: 0.16, fromCap: 1, toCap: 1 });
+      continue;
+    }
+    const half = middle(a, b);
+    viewer.addCylinder({ start: point(a), end: half, radius: BOND_RADIUS, color: colourOf(a), fromCap: 1 });
+    viewer.addCylinder({ start: half, end: point(b), radius: BOND_RADIUS, color: colourOf(b), toCap: 1 });
+  }
+}
+
+function scanRange(distances: readonly number[]): string {
+  if (distances.length === 0) return 'no points';
+  const low = Math.min(...distances);
+  const high = Math.max(...distances);
+  return `${low.toFixed(2)}–${high.toFixed(2)} Å, ${distances.length} point${distances.length === 1 ? '' : 's'}`;
+}
+
+function drawScan(structure: ViewStructure): void {
+  const detail = element<HTMLParagraphElement>('scan-detail');
+  element('mark-scan').hidden = !structure.scan;
+  if (!structure.scan) {
+    detail.hidden = true;
+    return;
+  }
+  const first = structure.atoms[structure.scan.first]!;
+  const second = structure.atoms[structure.scan.second]!;
+  viewer.addArrow({ start: point(first), end: point(second), radius: 0.09, radiusRatio: 2.2, mid: 0.86, color: SCAN });
+  detail.textContent = `Scan: ${atomName(first)} → ${atomName(second)}, ${scanRange(structure.scan.distances)}; moves ${structure.scan.moving.length} atom${structure.scan.moving.length === 1 ? '' : 's'}.`;
+  detail.hidden = false;
+}
+
+/** The scan's label and, when the toggle is on, every atom's; drawn at the next render. */
+function drawLabels(structure: ViewStructure): void {
+  viewer.removeAllLabels();
+  if (structure.scan) {
+    const first = structure.atoms[structure.scan.first]!;
+    const second = structure.atoms[structure.scan.second]!;
+    const style = { position: middle(first, second), fontSize: 12, fontColor: '#ffffff', backgroundColor: SCAN, backgroundOpacity: 0.88, borderThickness: 0, inFront: true, alignment: 'topCenter', screenOffset: new Vector2(0, -14) };
+    viewer.addLabel(`scan ${scanRange(structure.scan.distances)}`, style, undefined, true);
+  }
+  if (!labelsToggle.checked) return;
+  for (const atom of structure.atoms) {
+    const style = { position: point(atom), fontSize: 10, fontColor: '#111111', backgroundColor: '#ffffff', backgroundOpacity: 0.78, borderThickness: 0, inFront: true, alignment: 'center' };
+    viewer.addLabel(atomName(atom), style, undefined, true);
+  }
+}
+
+/** Redraws everything; keeps the camera unless `fit`. */
+function draw(fit: boolean): void {
+  const view = viewer.getView();
+  viewer.clear();
+  const structure = data;
+  if (!structure || structure.atoms.length === 0) {
+    status.textContent = structure ? 'This spec has no atoms yet.' : '';
+    viewer.render();
+    return;
+  }
+  const model = viewer.addModel();
+  rotation = orientation(structure);
+  model.addAtoms(structure.atoms.map((atom): AtomSpec => ({ elem: atom.element, ...point(atom), serial: atom.index, index: atom.index, color: colourOf(atom) })));
+  model.setStyle({}, { sphere: { scale: ATOM_SCALE } });
+  if (highlightedFragment !== null) {
+    const inFragment = (atom: AtomSpec) => typeof atom.serial === 'number' && structure.atoms[atom.serial]?.fragment === highlightedFragment;
+    model.setStyle({ predicate: inFragment }, { sphere: { scale: HIGHLIGHTED_SCALE } });
+  }
+  if (highlightedAtom !== null && highlightedAtom < structure.atoms.length) {
+    viewer.addSphere({ center: point(structure.atoms[highlightedAtom]!), radius: 0.75, color: HIGHLIGHT_RING, opacity: 0.35 });
+  }
+  model.setClickable({}, true, (atom: AtomSpec) => {
+    if (typeof atom.serial === 'number') send({ type: 'revealAtom', atom: atom.serial });
+  });
+  model.setHoverable(
+    {},
+    true,
+    (atom: AtomSpec) => {
+      const hovered = typeof atom.serial === 'number' ? structure.atoms[atom.serial] : undefined;
+      if (hovered) status.textContent = describe(hovered);
+    },
+    () => {
+      status.textContent = '';
+    },
+  );
+  drawBonds(structure);
+  drawScan(structure);
+  drawLabels(structure);
+  if (fit) frame();
+  else viewer.setView(view);
+  viewer.render();
+}
+
+/**
+ * Frames the whole structure with a margin. The viewer fits the height; in a view narrower than
+ * it is tall, zoom out by the aspect ratio so that the width fits too.
+ */
+function frame(): void {
+  viewer.zoomTo();
+  const aspect = container.clientHeight > 0 ? container.clientWidth / container.clientHeight : 1;
+  viewer.zoom(0.95 * Math.min(1, aspect));
+  framed = true;
+}
+
+function fillKey(structure: ViewStructure): void {
+  const list = element<HTMLUListElement>('fragments');
+  list.replaceChildren();
+  structure.fragments.forEach((fragment, index) => {
+    const item = document.createElement('li');
+    item.dataset['fragment'] = String(index);
+    item.tabIndex = 0;
+    item.title = `Go to fragment ${fragment.name}`;
+    item.setAttribute('aria-current', String(index === highlightedFragment));
+    const chip = document.createElement('span');
+    chip.className = 'chip';
+    chip.style.backgroundColor = fragment.colour;
+    const name = document.createElement('span');
+    name.className = 'name';
+    name.textContent = fragment.name;
+    const cost = document.createElement('span');
+    cost.className = 'cost';
+    cost.textContent = fragment.cost;
+    const tier = document.createElement('span');
+    tier.className = 'tier';
+    tier.textContent = `${fragment.tier ?? 'no tier'} · ${fragment.atoms} atom${fragment.atoms === 1 ? '' : 's'}`;
+    item.append(chip, name, cost, tier);
+    const reveal = () => send({ type: 'revealFragment', fragment: index });
+    item.addEventListener('click', reveal);
+    item.addEventListener('keydown', (event) => {
+      if (event.key === 'Enter' || event.key === ' ') {
+        event.preventDefault();
+        reveal();
+      }
+    });
+    list.append(item);
+  });
+  if (structure.fragments.length === 0) {
+    const item = document.createElement('li');
+    item.textContent = 'No fragments yet.';
+    list.append(item);
+  }
+  element('unassigned-dot').style.backgroundColor = structure.unassignedColour;
+  element('mark-unassigned').hidden = !structure.atoms.some((atom) => atom.fragment < 0);
+  element('mark-cut').hidden = !structure.bonds.some((bond) => bond.cut);
+}
+
+function markKey(): void {
+  for (const item of element('fragments').querySelectorAll<HTMLLIElement>('li[data-fragment]')) {
+    item.setAttribute('aria-current', String(Number(item.dataset['fragment']) === highlightedFragment));
+  }
+}
+
+receive(checkStructureHostMessage, (message) => {
+  switch (message.type) {
+    case 'structure': {
+      const previous = data;
+      data = message.data;
+      if (highlightedFragment !== null && highlightedFragment >= data.fragments.length) highlightedFragment = null;
+      if (highlightedAtom !== null && highlightedAtom >= data.atoms.length) highlightedAtom = null;
+      element('title').textContent = message.title;
+      fillKey(data);
+      status.textContent = '';
+      // A different structure (other spec, atoms added or removed) is framed anew.
+      draw(!previous || previous.atoms.length !== data.atoms.length || previous.spec !== data.spec);
+      break;
+    }
+    case 'highlight': {
+      const fragment = data && message.fragment !== null && message.fragment < data.fragments.length ? message.fragment : null;
+      const atom = data && message.atom !== null && message.atom < data.atoms.length ? message.atom : null;
+      if (fragment === highlightedFragment && atom === highlightedAtom) break;
+      highlightedFragment = fragment;
+      highlightedAtom = atom;
+      markKey();
+      draw(false);
+      break;
+    }
+    case 'unavailable':
+      data = null;
+      element('fragments').replaceChildren();
+      draw(false);
+      status.textContent = message.message;
+      break;
+  }
+});
+
+labelsToggle.addEventListener('change', () => {
+  if (!data) return;
+  drawLabels(data);
+  viewer.render();
+});
+element('fit').addEventListener('click', () => {
+  frame();
+  viewer.render();
+});
+// Turning or zooming by hand: later resizes keep the camera.
+for (const event of ['pointerdown', 'wheel']) container.addEventListener(event, () => (framed = false), { capture: true, passive: true });
+new ResizeObserver(() => {
+  viewer.resize();
+  if (framed && data) frame();
+  viewer.render();
+}).observe(container);
+
+send({ type: 'ready' });

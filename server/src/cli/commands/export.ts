@@ -1,0 +1,51 @@
+/**
+ * `tessera export <spec> --to xyz|qcschema [--out <file>]`: the geometry of a spec for other
+ * programs. XYZ: ångström, element symbols only, one frame per scan point when the spec scans.
+ * QCSchema: the system, each fragment and each scan point as `qcschema_molecule` objects, geometry
+ * in bohr (layout in report/export/qcschema.ts). A spec with errors is not exported: the
+ * diagnostics go to standard error and the exit code is 1, so that no half-checked geometry leaves.
+ */
+import { buildEstimateReport } from '../../report/estimate';
+import { buildQcSchemaExport } from '../../report/export/qcschema';
+import { renderXyz } from '../../report/export/xyz';
+import { structureData } from '../../report/structure';
+import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { checkOutPath, loadSpec, printDiagnostics, specTitle, writeOutput } from '../specFile';
+import { VERSION } from '../version';
+
+export const EXPORT_TARGETS = ['xyz', 'qcschema'] as const;
+export type ExportTarget = (typeof EXPORT_TARGETS)[number];
+
+export interface ExportOptions {
+  spec?: string;
+  to?: ExportTarget;
+  out?: string;
+}
+
+export function runExport(options: ExportOptions, io: CliIo): number {
+  if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema [--out <file>]');
+  if (!options.to) throw new UsageError('export needs --to xyz or --to qcschema');
+  checkOutPath(options.out, options.spec, io);
+  const spec = loadSpec(options.spec, io);
+  if (!spec) return EXIT_USAGE;
+  printDiagnostics(spec, io);
+  if (spec.errors > 0) {
+    io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
+    return EXIT_ERRORS;
+  }
+  const report = buildEstimateReport(spec.analysis);
+  const data = structureData(spec.analysis, report);
+  const title = specTitle(spec);
+  let text: string;
+  try {
+    text =
+      options.to === 'xyz'
+        ? renderXyz(data, { title, version: VERSION })
+        : `${JSON.stringify(buildQcSchemaExport(spec.analysis, report, data, { title, version: VERSION }), null, 2)}\n`;
+  } catch (error) {
+    if (!(error instanceof RangeError)) throw error;
+    io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);
+    return EXIT_ERRORS;
+  }
+  return writeOutput(text, options.out, io) ? EXIT_OK : EXIT_USAGE;
+}

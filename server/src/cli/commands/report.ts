@@ -1,0 +1,52 @@
+/**
+ * `tessera report <spec> [--format markdown|html|csv] [--out <file>]`: the resource report of a
+ * spec as a document. Every number comes from the estimate report (report/estimate.ts), the same
+ * one `tessera estimate --format json` prints. Markdown and HTML carry the tables, the table of
+ * every figure by part, the scan totals, the conventions and the problems with their lines; HTML
+ * adds the plots inline as SVG; CSV has one row per part (columns in report/format/csv.ts). A spec
+ * with errors still gets its report (the problems are in it), and the exit code is 1.
+ */
+import { buildEstimateReport } from '../../report/estimate';
+import { renderEstimateCsv } from '../../report/format/csv';
+import { renderReportHtml } from '../../report/format/html';
+import { renderEstimateMarkdown, type ProblemLine } from '../../report/format/render';
+import { activeSpaceGrowth } from '../../report/structure';
+import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { checkOutPath, loadSpec, printDiagnostics, writeOutput } from '../specFile';
+import { VERSION } from '../version';
+
+export const REPORT_FORMATS = ['markdown', 'html', 'csv'] as const;
+export type ReportFormat = (typeof REPORT_FORMATS)[number];
+
+export interface ReportOptions {
+  spec?: string;
+  format: ReportFormat;
+  out?: string;
+}
+
+export function runReport(options: ReportOptions, io: CliIo): number {
+  if (!options.spec) throw new UsageError('report needs a spec file: tessera report <file.tess> [--format markdown|html|csv] [--out <file>]');
+  checkOutPath(options.out, options.spec, io);
+  const spec = loadSpec(options.spec, io);
+  if (!spec) return EXIT_USAGE;
+  const { analysis } = spec;
+  const report = buildEstimateReport(analysis);
+  const problems: ProblemLine[] = spec.diagnostics
+    .filter((d) => d.severity === 'error' || d.severity === 'warning')
+    .map((d) => ({ line: d.line, severity: d.severity, code: d.code, message: d.message }));
+  let text: string;
+  if (options.format === 'csv') {
+    text = renderEstimateCsv(report);
+  } else if (options.format === 'html') {
+    const growth = analysis.model.fragments
+      .filter((fragment) => fragment.tier?.level === 'quantum')
+      .map((fragment) => ({ fragment: fragment.name, points: activeSpaceGrowth(analysis, fragment.index) }));
+    text = renderReportHtml(report, { problems, growth, generator: `Tessera ${VERSION}` });
+  } else {
+    text = renderEstimateMarkdown(report, { level: 1, problems, full: true });
+  }
+  printDiagnostics(spec, io);
+  if (!writeOutput(text, options.out, io)) return EXIT_USAGE;
+  if (spec.errors > 0) io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'}: the figures in the report may be incomplete.\n`);
+  return spec.errors > 0 ? EXIT_ERRORS : EXIT_OK;
+}

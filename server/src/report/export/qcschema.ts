@@ -1,0 +1,251 @@
+/**
+ * The geometry and partition of a spec as QCSchema molecules (MolSSI QCSchema, `qcschema_molecule`
+ * version 2): the system with its fragments, one molecule per fragment, and one system molecule per
+ * scan point. Geometry is in bohr, QCSchema's unit.
+ *
+ * Layout of the exported document (stable; `format_version` changes when it does):
+ *
+ *   { format: "tessera-qcschema-export", format_version: 1, spec,
+ *     system: <molecule>, fragments: [<molecule>, ...],
+ *     scan: null | { first_atom, second_atom, moving_atoms, distances_angstrom, molecules: [<molecule>, ...] } }
+ *
+ * Atom order: QCSchema lists the atoms of each fragment contiguously, fragments in order (the
+ * reference implementation, QCElemental, refuses fragments it would have to reorder), so the
+ * system molecule groups its atoms by fragment, in the spec's fragment order and, inside a
+ * fragment, in the spec's atom order. `extras.tessera.spec_atom_numbers` gives each atom's number
+ * in the spec (1-based, as `#n`). Indices in `fragments`, `cut_bonds` and `scan` are 0-based
+ * positions in the exported system molecule.
+ *
+ * What QCSchema has no field for (the basis, the tiers, the embedding, cut bonds) sits under
+ * `extras.tessera`, the place the schema leaves for a producer's own data.
+ */
+import { scanFrames } from '../../chemistry/scan';
+import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
+import { elementBySymbol } from '../../chemistry/elements';
+import type { Analysis } from '../../language/analyze';
+import type { TierModel } from '../../language/model';
+import type { EstimateReport } from '../estimate';
+import type { StructureData } from '../structure';
+import { coordinatesOf } from './xyz';
+
+export const QCSCHEMA_EXPORT_FORMAT = 'tessera-qcschema-export';
+export const QCSCHEMA_EXPORT_VERSION = 1;
+
+export interface QcProvenance {
+  creator: string;
+  version: string;
+  routine: string;
+}
+
+export interface TierExtras {
+  level: string;
+  method: string;
+  ansatz: string | null;
+  mapping: string | null;
+  /** The active space as the spec gives it, or null when it gives none. */
+  active: { electrons: number; orbitals: number } | null;
+  active_irreps: Record<string, number> | null;
+  frozen_core: boolean;
+  taper: boolean;
+  layers: number;
+}
+
+export interface BasisExtras {
+  name: string | null;
+  overrides: Record<string, string>;
+  functions: 'spherical' | 'cartesian';
+}
+
+export interface TesseraExtras {
+  spec: string;
+  part: 'system' | 'fragment' | 'scan-point';
+  spec_atom_numbers: number[];
+  basis: BasisExtras;
+  frozen_core: boolean;
+  embedding?: string;
+  fragments?: { name: string; tier: TierExtras | null }[];
+  cut_bonds?: [number, number][];
+  fragment?: string;
+  fragment_index?: number;
+  tier?: TierExtras | null;
+  scan_point?: { point: number; points: number; distance_angstrom: number };
+}
+
+export interface QcMolecule {
+  schema_name: 'qcschema_molecule';
+  schema_version: 2;
+  name: string;
+  comment?: string;
+  symbols: string[];
+  /** Flat x, y, z per atom, in bohr. */
+  geometry: number[];
+  atomic_numbers: number[];
+  atom_labels: string[];
+  molecular_charge: number;
+  molecular_multiplicity: number;
+  fragments?: number[][];
+  fragment_charges?: number[];
+  fragment_multiplicities?: number[];
+  fix_com: true;
+  fix_orientation: true;
+  provenance: QcProvenance;
+  extras: { tessera: TesseraExtras };
+}
+
+export interface QcSchemaExport {
+  format: typeof QCSCHEMA_EXPORT_FORMAT;
+  format_version: typeof QCSCHEMA_EXPORT_VERSION;
+  spec: string;
+  system: QcMolecule;
+  fragments: QcMolecule[];
+  scan: {
+    first_atom: number;
+    second_atom: number;
+    moving_atoms: number[];
+    distances_angstrom: number[];
+    molecules: QcMolecule[];
+  } | null;
+}
+
+export interface QcSchemaExportOptions {
+  /** The spec's name, else its file name. */
+  readonly title: string;
+  readonly version: string;
+  /** The routine recorded in provenance. */
+  readonly routine?: string;
+}
+
+function tierExtras(tier: TierModel | undefined): TierExtras | null {
+  if (!tier) return null;
+  return {
+    level: tier.level,
+    method: tier.method,
+    ansatz: tier.ansatz ?? null,
+    mapping: tier.mapping ?? null,
+    active: tier.active ? { electrons: tier.active.electrons, orbitals: tier.active.orbitals } : null,
+    active_irreps: tier.activeIrreps ? Object.fromEntries(tier.activeIrreps.map((irrep) => [irrep.label, irrep.count])) : null,
+    frozen_core: tier.frozenCore,
+    taper: tier.taper,
+    layers: tier.layers,
+  };
+}
+
+/** The exported order of the spec's atoms: grouped by fragment when the spec has fragments. */
+export function qcAtomOrder(data: StructureData, fragmentAtoms: readonly (readonly number[])[]): number[] {
+  if (fragmentAtoms.length === 0) return data.atoms.map((_, i) => i);
+  const order = fragmentAtoms.flatMap((atoms) => [...atoms]);
+  // Atoms in no fragment (only possible in a spec with errors, which is not exported) go last.
+  const placed = new Uint8Array(data.atoms.length);
+  for (const atom of order) placed[atom] = 1;
+  data.atoms.forEach((_, i) => {
+    if (!placed[i]) order.push(i);
+  });
+  return order;
+}
+
+function toBohr(value: number): number {
+  return value / BOHR_IN_ANGSTROM;
+}
+
+/** Builds the export. The spec should be free of errors: the CLI refuses to export one that is not. */
+export function buildQcSchemaExport(analysis: Analysis, report: EstimateReport, data: StructureData, options: QcSchemaExportOptions): QcSchemaExport {
+  const { model } = analysis;
+  const provenance: QcProvenance = { creator: 'Tessera', version: options.version, routine: options.routine ?? 'tessera export --to qcschema' };
+  const basis: BasisExtras = { name: report.basis.name, overrides: { ...report.basis.overrides }, functions: report.basis.functions };
+  const fragmentAtoms = model.fragments.map((fragment) => fragment.atoms);
+  const order = qcAtomOrder(data, fragmentAtoms);
+  const position = new Int32Array(data.atoms.length).fill(-1);
+  order.forEach((atom, k) => (position[atom] = k));
+  const symbolsOf = (atoms: readonly number[]) => atoms.map((atom) => data.atoms[atom]!.element);
+  const numbersOf = (atoms: readonly number[]) => atoms.map((atom) => elementBySymbol(data.atoms[atom]!.element)?.z ?? 0);
+  const labelsOf = (atoms: readonly number[]) => atoms.map((atom) => data.atoms[atom]!.label ?? '');
+  const geometryOf = (coordinates: Float64Array, atoms: readonly number[]) => atoms.flatMap((atom) => [0, 1, 2].map((k) => toBohr(coordinates[3 * atom + k]!)));
+  const tiers = model.fragments.map((fragment) => tierExtras(fragment.tier));
+  const partition =
+    model.fragments.length > 0
+      ? {
+          fragments: fragmentAtoms.map((atoms) => atoms.map((atom) => position[atom]!)),
+          fragment_charges: model.fragments.map((fragment) => fragment.charge),
+          fragment_multiplicities: model.fragments.map((fragment) => fragment.multiplicity),
+        }
+      : {};
+  const coordinates = coordinatesOf(data);
+
+  const systemMolecule = (name: string, frame: Float64Array, extras: Partial<TesseraExtras>, part: TesseraExtras['part']): QcMolecule => ({
+    schema_name: 'qcschema_molecule',
+    schema_version: 2,
+    name,
+    symbols: symbolsOf(order),
+    geometry: geometryOf(frame, order),
+    atomic_numbers: numbersOf(order),
+    atom_labels: labelsOf(order),
+    molecular_charge: model.charge,
+    molecular_multiplicity: model.multiplicity,
+    ...partition,
+    fix_com: true,
+    fix_orientation: true,
+    provenance,
+    extras: {
+      tessera: {
+        spec: options.title,
+        part,
+        spec_atom_numbers: order.map((atom) => atom + 1),
+        basis,
+        frozen_core: model.frozenCore,
+        embedding: model.embedding,
+        fragments: model.fragments.map((fragment, index) => ({ name: fragment.name, tier: tiers[index]! })),
+        ...extras,
+      },
+    },
+  });
+
+  const cutBonds = data.bonds
+    .filter((bond) => bond.cut)
+    .map((bond) => [position[bond.i]!, position[bond.j]!].sort((a, b) => a - b) as [number, number])
+    .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  const system = systemMolecule(options.title, coordinates, { cut_bonds: cutBonds }, 'system');
+
+  const fragments = model.fragments.map((fragment, index): QcMolecule => ({
+    schema_name: 'qcschema_molecule',
+    schema_version: 2,
+    name: `${options.title}/${fragment.name}`,
+    comment: `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
+    symbols: symbolsOf(fragment.atoms),
+    geometry: geometryOf(coordinates, fragment.atoms),
+    atomic_numbers: numbersOf(fragment.atoms),
+    atom_labels: labelsOf(fragment.atoms),
+    molecular_charge: fragment.charge,
+    molecular_multiplicity: fragment.multiplicity,
+    fix_com: true,
+    fix_orientation: true,
+    provenance,
+    extras: {
+      tessera: {
+        spec: options.title,
+        part: 'fragment',
+        spec_atom_numbers: fragment.atoms.map((atom) => atom + 1),
+        basis,
+        frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
+        fragment: fragment.name,
+        fragment_index: index,
+        tier: tiers[index]!,
+      },
+    },
+  }));
+
+  let scan: QcSchemaExport['scan'] = null;
+  if (data.scan) {
+    const frames = scanFrames(coordinates, data.scan.first, data.scan.second, data.scan.moving, data.scan.distances);
+    scan = {
+      first_atom: position[data.scan.first]!,
+      second_atom: position[data.scan.second]!,
+      moving_atoms: data.scan.moving.map((atom) => position[atom]!).sort((a, b) => a - b),
+      distances_angstrom: [...data.scan.distances],
+      molecules: frames.map((frame, k) =>
+        systemMolecule(`${options.title}/scan-${k + 1}`, frame.coordinates, { scan_point: { point: k + 1, points: frames.length, distance_angstrom: frame.distance } }, 'scan-point'),
+      ),
+    };
+  }
+
+  return { format: QCSCHEMA_EXPORT_FORMAT, format_version: QCSCHEMA_EXPORT_VERSION, spec: options.title, system, fragments, scan };
+}

@@ -1,0 +1,86 @@
+/**
+ * The geometry of a spec as plain XYZ text (ångström): one frame, or one frame per scan point with
+ * the moving atoms shifted as the scan says. XYZ has no labels, so each line keeps only the element
+ * symbol. The comment line of each frame names the spec and, for a scan, the point and the distance.
+ */
+import { scanFrames } from '../../chemistry/scan';
+import type { StructureAtom, StructureData } from '../structure';
+
+/** Decimals of every coordinate: rounding moves an atom by at most 5e-11 Å. */
+export const XYZ_DECIMALS = 10;
+
+export interface XyzExportOptions {
+  /** Names the spec in the comment lines (the spec's name, else its file name). */
+  readonly title: string;
+  /** The Tessera version, written into the comment lines. */
+  readonly version: string;
+}
+
+export interface XyzFrame {
+  readonly comment: string;
+  /** x, y, z of every atom in ångström, in the spec's atom order. */
+  readonly coordinates: Float64Array;
+  /** The scanned distance in ångström, or null for a spec without a scan. */
+  readonly distance: number | null;
+}
+
+/** One line of text: XYZ comment lines cannot hold a line break. */
+function oneLine(text: string): string {
+  return text.replace(/[\r\n]+/g, ' ').trim();
+}
+
+export function formatCoordinate(value: number): string {
+  const text = value.toFixed(XYZ_DECIMALS);
+  // A coordinate that rounds to zero is written without a sign.
+  return /^-0\.0+$/.test(text) ? text.slice(1) : text;
+}
+
+/** How an atom is named in a comment: its label, else `#n` (1-based, as in the spec). */
+export function atomName(atom: StructureAtom): string {
+  return atom.label ?? `#${atom.index + 1}`;
+}
+
+export function coordinatesOf(data: StructureData): Float64Array {
+  const coordinates = new Float64Array(3 * data.atoms.length);
+  data.atoms.forEach((atom, i) => {
+    coordinates[3 * i] = atom.x;
+    coordinates[3 * i + 1] = atom.y;
+    coordinates[3 * i + 2] = atom.z;
+  });
+  return coordinates;
+}
+
+/**
+ * The frames to write: the geometry itself, or one per scan point (the geometry as written in the
+ * spec is then not a frame of its own unless a scan point reproduces it). Throws a RangeError when
+ * the two scanned atoms coincide (the analysis reports that as an error first).
+ */
+export function xyzFrames(data: StructureData, options: XyzExportOptions): XyzFrame[] {
+  const title = oneLine(options.title);
+  const coordinates = coordinatesOf(data);
+  const scan = data.scan;
+  if (!scan) {
+    return [{ comment: `${title}; coordinates in angstrom; exported by Tessera ${options.version}`, coordinates, distance: null }];
+  }
+  const first = atomName(data.atoms[scan.first]!);
+  const second = atomName(data.atoms[scan.second]!);
+  const frames = scanFrames(coordinates, scan.first, scan.second, scan.moving, scan.distances);
+  return frames.map((frame, k) => ({
+    comment: `${title}; scan point ${k + 1} of ${frames.length}; distance ${first}-${second} ${frame.distance.toFixed(6)} angstrom; exported by Tessera ${options.version}`,
+    coordinates: frame.coordinates,
+    distance: frame.distance,
+  }));
+}
+
+/** XYZ text: for each frame the atom count, the comment line and one `symbol x y z` line per atom. */
+export function renderXyz(data: StructureData, options: XyzExportOptions): string {
+  const lines: string[] = [];
+  for (const frame of xyzFrames(data, options)) {
+    lines.push(String(data.atoms.length), oneLine(frame.comment));
+    data.atoms.forEach((atom, i) => {
+      const xyz = [0, 1, 2].map((k) => formatCoordinate(frame.coordinates[3 * i + k]!).padStart(XYZ_DECIMALS + 8));
+      lines.push(`${atom.element.padEnd(2)} ${xyz.join(' ')}`);
+    });
+  }
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,147 @@
+/**
+ * Every figure of the system and of each fragment under its stable key (its path in the JSON
+ * estimate), with a short label: the CSV columns and the full per-part table of the Markdown and
+ * HTML reports. Values are read from the estimate report by key, never computed here.
+ */
+import type { EstimateReport, FragmentFigures, SpaceFigures } from '../estimate';
+import type { Table } from './table';
+
+export interface FigureColumn {
+  /** Path in the JSON estimate (`qubits.jordanWigner` is `fragments[i].qubits.jordanWigner`). */
+  readonly key: string;
+  readonly label: string;
+}
+
+/** The figures, in column order. `part` and `name` identify the row and are not paths. */
+export const FIGURE_COLUMNS: readonly FigureColumn[] = [
+  { key: 'part', label: 'part (system or fragment)' },
+  { key: 'name', label: 'name' },
+  { key: 'tier', label: 'tier' },
+  { key: 'method', label: 'method' },
+  { key: 'ansatz', label: 'ansatz' },
+  { key: 'mapping', label: 'mapping' },
+  { key: 'atoms', label: 'atoms' },
+  { key: 'formula', label: 'formula' },
+  { key: 'charge', label: 'charge' },
+  { key: 'multiplicity', label: 'multiplicity' },
+  { key: 'electrons', label: 'electrons' },
+  { key: 'alpha', label: 'alpha electrons' },
+  { key: 'beta', label: 'beta electrons' },
+  { key: 'ecpCoreElectrons', label: 'electrons replaced by ECPs' },
+  { key: 'functions', label: 'function type' },
+  { key: 'basisFunctions.spherical', label: 'basis functions, spherical' },
+  { key: 'basisFunctions.cartesian', label: 'basis functions, cartesian' },
+  { key: 'atomsWithoutBasis', label: 'atoms without basis functions' },
+  { key: 'orbitals', label: 'orbitals' },
+  { key: 'occupied', label: 'occupied orbitals' },
+  { key: 'virtual', label: 'virtual orbitals' },
+  { key: 'frozenCore.orbitals', label: 'frozen-core orbitals' },
+  { key: 'frozenCore.electrons', label: 'frozen-core electrons' },
+  { key: 'pointGroup', label: 'point group (counted in)' },
+  { key: 'fullPointGroup', label: 'full point group' },
+  { key: 'problem.embedding', label: 'solver problem: embedding' },
+  { key: 'problem.electrons', label: 'solver problem: electrons' },
+  { key: 'problem.orbitals', label: 'solver problem: orbitals' },
+  { key: 'problem.alpha', label: 'solver problem: alpha electrons' },
+  { key: 'problem.beta', label: 'solver problem: beta electrons' },
+  { key: 'problem.bath.alpha', label: 'DMET bath: alpha' },
+  { key: 'problem.bath.beta', label: 'DMET bath: beta' },
+  { key: 'active.electrons', label: 'active electrons' },
+  { key: 'active.orbitals', label: 'active orbitals' },
+  { key: 'active.alpha', label: 'active alpha electrons' },
+  { key: 'active.beta', label: 'active beta electrons' },
+  { key: 'active.source', label: 'active space from' },
+  { key: 'qubits.jordanWigner', label: 'qubits, Jordan–Wigner' },
+  { key: 'qubits.bravyiKitaev', label: 'qubits, Bravyi–Kitaev' },
+  { key: 'qubits.parity', label: 'qubits, parity (2q reduced)' },
+  { key: 'qubits.tapered', label: 'qubits, tapered' },
+  { key: 'qubitsRequired', label: 'qubits needed (own mapping)' },
+  { key: 'pauliTerms.jordanWigner', label: 'Pauli terms, Jordan–Wigner' },
+  { key: 'pauliTerms.bravyiKitaev', label: 'Pauli terms, Bravyi–Kitaev' },
+  { key: 'pauliTerms.parity', label: 'Pauli terms, parity' },
+  { key: 'pauliTerms.upperBound', label: 'Pauli terms are an upper bound' },
+  { key: 'measurement.groups', label: 'QWC measurement groups' },
+  { key: 'measurement.exact', label: 'measurement groups counted exactly' },
+  { key: 'ansatzCost.kind', label: 'ansatz (costed)' },
+  { key: 'ansatzCost.parameters', label: 'ansatz parameters' },
+  { key: 'ansatzCost.singles', label: 'ansatz singles' },
+  { key: 'ansatzCost.doubles', label: 'ansatz doubles' },
+  { key: 'ansatzCost.unscreened', label: 'ansatz parameters without symmetry' },
+  { key: 'ansatzCost.spinAdapted', label: 'ansatz parameters, spin-adapted' },
+  { key: 'circuit.cnots', label: 'CNOTs per Trotter step' },
+  { key: 'circuit.compactCnots', label: 'CNOTs, compact circuits' },
+  { key: 'circuit.rotations', label: 'rotations per Trotter step' },
+  { key: 'circuit.depth', label: 'circuit depth' },
+  { key: 'classical.determinants.exact', label: 'full-CI determinants' },
+  { key: 'classical.determinants.log10', label: 'full-CI determinants, log10' },
+  { key: 'classical.ciVectorBytes.exact', label: 'CI vector bytes' },
+  { key: 'classical.ciVectorBytes.log10', label: 'CI vector bytes, log10' },
+  { key: 'classical.ccsdAmplitudes.exact', label: 'CCSD amplitudes' },
+  { key: 'classical.ccsdAmplitudes.log10', label: 'CCSD amplitudes, log10' },
+  { key: 'classical.statevectorBytes.exact', label: 'statevector bytes' },
+  { key: 'classical.statevectorBytes.log10', label: 'statevector bytes, log10' },
+];
+
+export type FigureValue = string | number | boolean | null;
+
+export interface ReportPart {
+  readonly part: 'system' | 'fragment';
+  readonly name: string;
+  readonly figures: SpaceFigures | FragmentFigures;
+}
+
+/** The system, then each fragment in the spec's order. */
+export function reportParts(report: EstimateReport): ReportPart[] {
+  return [{ part: 'system', name: 'system', figures: report.system }, ...report.fragments.map((fragment) => ({ part: 'fragment' as const, name: fragment.name, figures: fragment }))];
+}
+
+/** The value under `key` for one part; null where the part has no such figure. */
+export function figureValue(part: ReportPart, key: string): FigureValue {
+  if (key === 'part') return part.part;
+  if (key === 'name') return part.name;
+  let value: unknown = part.figures;
+  for (const step of key.split('.')) {
+    if (value === null || typeof value !== 'object') return null;
+    value = (value as Record<string, unknown>)[step];
+  }
+  if (value === undefined || value === null) return null;
+  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return value;
+  throw new TypeError(`Figure '${key}' is not a single value.`);
+}
+
+/** The text of a value: empty for none, `true`/`false`, numbers as JavaScript prints them (exact round trip). */
+export function figureText(value: FigureValue): string {
+  if (value === null) return '';
+  return String(value);
+}
+
+/** One row per figure, one column per part: the full per-part table of the reports. */
+export function figuresTable(report: EstimateReport): Table {
+  const parts = reportParts(report);
+  const columns = FIGURE_COLUMNS.filter((column) => column.key !== 'part' && column.key !== 'name');
+  return {
+    title: 'All figures by part',
+    headers: ['figure', 'key', ...parts.map((part) => part.name)],
+    numeric: [false, false, ...parts.map(() => true)],
+    rows: columns.map((column) => [column.label, column.key, ...parts.map((part) => figureText(figureValue(part, column.key)) || '–')]),
+  };
+}
+
+/** The scan: its points and what the whole scan costs; null without a scan. */
+export function scanTable(report: EstimateReport): Table | null {
+  const scan = report.scan;
+  if (!scan) return null;
+  const distances = scan.distances.map((distance) => distance.toFixed(3)).join(', ');
+  return {
+    title: 'Scan totals',
+    headers: ['figure', 'key', 'value'],
+    numeric: [false, false, true],
+    rows: [
+      ['points', 'scan.points', String(scan.points)],
+      ['distances (Å)', 'scan.distances', distances || '–'],
+      ['fragment calculations over the scan', 'scan.totals.fragmentCalculations', String(scan.totals.fragmentCalculations)],
+      ['measurement circuits per energy evaluation, over the scan', 'scan.totals.measurementCircuits', String(scan.totals.measurementCircuits)],
+      ['most qubits at any point', 'scan.totals.peakQubits', figureText(scan.totals.peakQubits) || '–'],
+    ],
+  };
+}
