@@ -11,7 +11,7 @@
  *  5. runs the second LSP client, headless Neovim, against `tessera lsp --stdio` (nvim-lsp.mjs).
  *
  * Screenshots go to tests/e2e/screenshots/ (git ignores it); the run folder to
- * .cache/e2e/runs/<id>/ (kept when something fails, for its logs). `--doc-images` also copies the
+ * /tmp/tessera-e2e/<id>/ (TESSERA_E2E_RUNS moves it; kept when something fails, for its logs). `--doc-images` also copies the
  * README pictures to docs/images/. Exits 1 when any check fails or the environment cannot be set
  * up: nothing here skips.
  */
@@ -28,7 +28,10 @@ import { runViewChecks, viewData } from './views-checks.mjs';
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const cache = process.env.TESSERA_E2E_CACHE ?? path.join(root, '.cache', 'e2e');
 const shots = path.join(root, 'tests', 'e2e', 'screenshots');
-const runDir = path.join(cache, 'runs', `${new Date().toISOString().replace(/[:.]/g, '-')}-${process.pid}`);
+// Run folders live under a short path of their own: Chromium and code-server put Unix sockets in
+// them, and a socket path longer than 107 bytes fails (a deep clone would exceed it under .cache).
+const runsBase = process.env.TESSERA_E2E_RUNS ?? path.join('/tmp', 'tessera-e2e');
+const runDir = path.join(runsBase, `r${Date.now().toString(36)}-${process.pid}`);
 const docImages = process.argv.includes('--doc-images');
 
 const began = Date.now();
@@ -79,7 +82,7 @@ async function referenceFigures(workspace) {
 
 /** Run folders are kept after failures, for their logs; only the last few. */
 function pruneOldRuns(keep = 3) {
-  const runs = path.join(cache, 'runs');
+  const runs = runsBase;
   let names = [];
   try {
     names = readdirSync(runs).sort();

@@ -430,7 +430,8 @@ export async function runViewChecks({ root, runDir, shots, toolsDir, webviewDir,
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
   const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
   const cache = process.env.TESSERA_E2E_CACHE ?? path.join(root, '.cache', 'e2e');
-  const runDir = path.join(cache, 'runs', `views-${process.pid}`);
+  // A short path: Chromium puts Unix sockets under it (see run.mjs).
+  const runDir = path.join(process.env.TESSERA_E2E_RUNS ?? path.join('/tmp', 'tessera-e2e'), `views-${process.pid}`);
   mkdirSync(runDir, { recursive: true });
   runViewChecks({ root, runDir, shots: path.join(root, 'tests', 'e2e', 'screenshots'), toolsDir: path.join(cache, 'tools'), webviewDir: path.join(root, '.cache', 'vsix-stage', 'dist', 'webview') })
     .then((results) => {
