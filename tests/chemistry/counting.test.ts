@@ -1,7 +1,8 @@
 /** Electron, orbital and qubit counting (server/src/chemistry/counting.ts, spin.ts, qubits.ts). */
 import { describe, expect, it } from 'vitest';
 import { findBasisSet } from '../../server/src/chemistry/basis/library';
-import { checkActiveSpace, countOrbitalSpace, largestActiveSpaceWithin, type CountedAtom } from '../../server/src/chemistry/counting';
+import { checkActiveSpace, countOrbitalSpace, type CountedAtom } from '../../server/src/chemistry/counting';
+import { fitActiveSpace } from '../../server/src/chemistry/estimate/plan';
 import { elementBySymbol } from '../../server/src/chemistry/elements';
 import { qubitCounts, qubitsUnder } from '../../server/src/chemistry/qubits';
 import { lowestMultiplicity, nearestValidMultiplicity, spinState } from '../../server/src/chemistry/spin';
@@ -88,9 +89,10 @@ describe('active spaces', () => {
     expect(checkActiveSpace(water, { electrons: 4, orbitals: 30 }).map((p) => p.kind)).toEqual(['orbitals-exceed-available']);
     expect(checkActiveSpace(water, { electrons: 3, orbitals: 4 }).map((p) => p.kind)).toEqual(['parity']);
   });
-  it('finds the largest space within an orbital budget', () => {
-    expect(largestActiveSpaceWithin(water, 6)).toEqual({ electrons: 8, orbitals: 6 });
-    expect(largestActiveSpaceWithin(water, 3)).toEqual({ electrons: 4, orbitals: 3 });
+  it('finds the largest space within a qubit budget (Jordan–Wigner: 2 qubits per orbital)', () => {
+    const input = { fragment: water, system: water, embedding: 'none' as const, tier: 'quantum' as const, method: 'vqe', ansatz: undefined, mapping: 'jordan-wigner' as const, taper: false, layers: 1 };
+    expect(fitActiveSpace(input, 12)).toEqual({ electrons: 8, orbitals: 6, qubits: 12 });
+    expect(fitActiveSpace(input, 6)).toEqual({ electrons: 4, orbitals: 3, qubits: 6 });
   });
 });
 

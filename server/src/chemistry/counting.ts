@@ -205,29 +205,3 @@ export function checkActiveSpace(space: OrbitalSpace, request: ActiveSpaceReques
   }
   return problems;
 }
-
-/**
- * The largest active space whose orbitals fit a qubit budget under a mapping. Electrons stay as
- * requested when they still fit; otherwise the space is taken half-filled (n electrons in n
- * orbitals, the usual CAS(n,n) choice around the Fermi level), adjusted to the spin's parity;
- * between two equally near counts the larger one is taken.
- */
-export function largestActiveSpaceWithin(
-  space: OrbitalSpace,
-  maxOrbitals: number,
-): ActiveSpaceRequest | undefined {
-  const available = space.orbitals - space.frozenCore.orbitals;
-  const orbitals = Math.min(maxOrbitals, available);
-  if (orbitals < 1) return undefined;
-  const unpaired = space.multiplicity - 1;
-  const availableElectrons = space.electrons - space.frozenCore.electrons;
-  const fits = (electrons: number) =>
-    electrons >= unpaired && electrons <= availableElectrons && (electrons - unpaired) % 2 === 0 && (electrons + unpaired) / 2 <= orbitals;
-  if (fits(space.active.electrons)) return { electrons: space.active.electrons, orbitals };
-  for (let delta = 0; delta <= orbitals + 1; delta++) {
-    for (const electrons of [orbitals + delta, orbitals - delta]) {
-      if (fits(electrons)) return { electrons, orbitals };
-    }
-  }
-  return undefined;
-}
