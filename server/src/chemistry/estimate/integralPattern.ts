@@ -14,6 +14,8 @@
  * ("generic" integrals). A caller with real integrals can pass its own predicates instead.
  */
 
+import { ABELIAN_GROUPS, irrepByLabel, type AbelianGroupName } from '../symmetry/characterTables';
+
 /**
  * The integral sparsity read by the counters. Integrals are real, so (ij|kl) is invariant under the
  * eight index permutations (ij|kl) = (ji|kl) = (ij|lk) = (kl|ij) = …; `allowed` must give the same
@@ -61,39 +63,15 @@ export function noSymmetryPattern(orbitals: number): IntegralPattern {
   return symmetryPattern(new Uint8Array(Math.max(0, orbitals)));
 }
 
-export interface AbelianGroup {
-  /** Symmetry operations used as generators; bit g of an irrep mask refers to generators[g]. */
-  readonly generators: readonly string[];
-  /** Irrep label → mask. */
-  readonly irreps: Readonly<Record<string, number>>;
-}
-
 /**
- * D2h and its subgroups in the standard orientation (Cotton 1990, character tables; Mulliken labels).
- * Masks: bit g set ⇔ character −1 under generators[g].
+ * Irrep masks for a list of Mulliken labels of one group (D2h or a subgroup), read from the
+ * character tables in symmetry/characterTables.ts; throws on an unknown group or label.
  */
-export const POINT_GROUPS: Readonly<Record<string, AbelianGroup>> = {
-  // D2h: characters of C2(z), C2(y), i. B1 is symmetric under C2(z), B2 under C2(y), B3 under C2(x).
-  D2h: { generators: ['C2(z)', 'C2(y)', 'i'], irreps: { Ag: 0, B1g: 2, B2g: 1, B3g: 3, Au: 4, B1u: 6, B2u: 5, B3u: 7 } },
-  // C2v: characters of C2(z), σv(xz). B1 is symmetric under σv(xz).
-  C2v: { generators: ['C2(z)', 'σv(xz)'], irreps: { A1: 0, A2: 2, B1: 1, B2: 3 } },
-  // C2h: characters of C2(z), i.
-  C2h: { generators: ['C2(z)', 'i'], irreps: { Ag: 0, Bg: 1, Au: 2, Bu: 3 } },
-  // D2: characters of C2(z), C2(y).
-  D2: { generators: ['C2(z)', 'C2(y)'], irreps: { A: 0, B1: 2, B2: 1, B3: 3 } },
-  Cs: { generators: ['σh'], irreps: { "A'": 0, "A''": 1 } },
-  Ci: { generators: ['i'], irreps: { Ag: 0, Au: 1 } },
-  C2: { generators: ['C2'], irreps: { A: 0, B: 1 } },
-  C1: { generators: [], irreps: { A: 0 } },
-};
-
-/** Irrep masks for a list of Mulliken labels of one group; throws on an unknown label. */
 export function irrepMasks(group: string, labels: readonly string[]): Uint8Array {
-  const table = POINT_GROUPS[group];
-  if (table === undefined) throw new RangeError(`unknown point group ${group}`);
+  if (!(ABELIAN_GROUPS as readonly string[]).includes(group)) throw new RangeError(`unknown point group ${group}`);
   return Uint8Array.from(labels, (label) => {
-    const mask = table.irreps[label];
-    if (mask === undefined) throw new RangeError(`${label} is not an irrep of ${group}`);
-    return mask;
+    const irrep = irrepByLabel(group as AbelianGroupName, label.replace(/''$/, '"'));
+    if (irrep === undefined) throw new RangeError(`${label} is not an irrep of ${group}`);
+    return irrep.mask;
   });
 }
