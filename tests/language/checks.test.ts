@@ -329,7 +329,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     // 4 orbitals = 8 qubits = 4096 B, above a 4 KB (4000 B) limit and within 4 KiB (4096 B).
     trigger: water('fragment w { atoms rest; tier quantum { ⟦active 4e 4o⟧ } }\nlimits { memory 4 KB }'),
     nearMiss: water('fragment w { atoms rest; tier quantum { active 4e 4o } }\nlimits { memory 4 KiB }'),
-    message: ['statevector of 8 qubits', 'needs 4.00 KiB', 'the memory limit is 3.9 KiB'],
+    message: ['statevector of 8 qubits', 'needs 4.00 KiB', 'the memory limit is 3.91 KiB'],
   },
   // Scan
   'invalid-scan': {

@@ -30,17 +30,3 @@ export const MEMORY_UNITS: Readonly<Record<string, number>> = {
   TB: 1e12,
   PB: 1e15,
 };
-
-/** Formats a byte count with a binary unit, for example `16.0 GiB`. */
-export function formatBytes(bytes: number): string {
-  if (!Number.isFinite(bytes)) return 'more than 10^300 B';
-  const units = ['B', 'KiB', 'MiB', 'GiB', 'TiB', 'PiB', 'EiB', 'ZiB', 'YiB'];
-  let value = bytes;
-  let unit = 0;
-  while (value >= 1024 && unit < units.length - 1) {
-    value /= 1024;
-    unit++;
-  }
-  if (value >= 1024) return `${(bytes / 1024 ** 8).toExponential(2)} YiB`;
-  return unit === 0 ? `${value} B` : `${value.toFixed(1)} ${units[unit]}`;
-}

@@ -6,7 +6,7 @@
 import { compareWithMemoryLimit } from '../../chemistry/cost/classical';
 import { formatBytes } from '../../chemistry/cost/format';
 import { fitActiveSpace, qubitsFor } from '../../chemistry/estimate/plan';
-import { formatBytes as formatPlainBytes } from '../../chemistry/units';
+import { magnitudeOfNumber } from '../../chemistry/cost/magnitude';
 import { estimatesOf } from '../estimates';
 import type { CheckContext } from './context';
 
@@ -35,7 +35,7 @@ export function checkLimits(context: CheckContext): void {
       sink.report(
         'memory-limit-exceeded',
         where,
-        `Simulating fragment '${fragment.name}' as a statevector of ${needed} qubits (${how}; ${sizeNote}) needs ${formatBytes(statevector)} (2^${needed} amplitudes × 16 bytes), but the memory limit is ${formatPlainBytes(memory)}.`,
+        `Simulating fragment '${fragment.name}' as a statevector of ${needed} qubits (${how}; ${sizeNote}) needs ${formatBytes(statevector)} (2^${needed} amplitudes × 16 bytes), but the memory limit is ${formatBytes(magnitudeOfNumber(Math.round(memory)))}.`,
         { data: { qubits: needed, limit: memory }, ...(limitSpan ? { related: [{ span: limitSpan, message: 'memory limit' }] } : {}) },
       );
     }
