@@ -461,6 +461,12 @@ export class SelectorResolver {
 /** Largest number of scan points accepted (a guard against typing mistakes such as step 0.0001). */
 export const MAX_SCAN_POINTS = 10_000;
 
+/** Points from `from` to `to` in steps of `step`, both ends included (a step that never arrives gives 0). */
+export function scanPointCount(from: number, to: number, step: number): number {
+  if (step === 0 || (to - from) * step < 0) return 0;
+  return Math.floor((to - from) / step + 1e-9) + 1;
+}
+
 function resolveScan(ast: SpecAst, resolver: SelectorResolver, units: LengthUnit): ScanModel | undefined {
   const scan = ast.scan;
   if (!scan?.first || !scan.second || !scan.from || !scan.to || (!scan.step && !scan.points)) return undefined;
@@ -473,8 +479,7 @@ function resolveScan(ast: SpecAst, resolver: SelectorResolver, units: LengthUnit
   let step: number;
   if (scan.step) {
     step = scan.step.value;
-    if (step === 0 || (to - from) * step < 0) return { first, second, distances: [] };
-    count = Math.floor((to - from) / step + 1e-9) + 1;
+    count = scanPointCount(from, to, step);
   } else {
     count = scan.points!.value;
     step = count > 1 ? (to - from) / (count - 1) : 0;

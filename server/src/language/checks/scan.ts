@@ -1,6 +1,6 @@
 /** Scans: two different atoms in different fragments, a range that runs the way the step goes. */
 import { CLASH_DISTANCE } from '../../chemistry/geometry';
-import { claimsOf, MAX_SCAN_POINTS } from '../model';
+import { claimsOf, MAX_SCAN_POINTS, scanPointCount } from '../model';
 import type { CheckContext } from './context';
 
 export function checkScan(context: CheckContext): void {
@@ -23,7 +23,7 @@ export function checkScan(context: CheckContext): void {
       sink.report('invalid-scan', scan.step.span, `The scan goes from ${from} to ${to}, so the step must be ${to > from ? 'positive' : 'negative'}; it is ${step}.`);
       return;
     }
-    const points = Math.floor((to - from) / step + 1e-9) + 1;
+    const points = scanPointCount(from, to, step);
     if (points > MAX_SCAN_POINTS) {
       sink.report('invalid-scan', scan.step.span, `This step gives ${points} points; at most ${MAX_SCAN_POINTS} are accepted. Is the step mistyped?`);
       return;
