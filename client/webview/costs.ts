@@ -1,5 +1,3 @@
-/// <reference lib="dom" />
-/// <reference lib="dom.iterable" />
 /**
  * The cost panel's script: shows the three charts the extension sends (checked SVG, parsed as
  * XML, never as HTML), the fragment selector of the growth chart, and the export buttons. SVG

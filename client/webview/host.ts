@@ -1,5 +1,3 @@
-/// <reference lib="dom" />
-/// <reference lib="dom.iterable" />
 /**
  * The webview side of the message channel: the editor's API object (acquired once), posting, and
  * receiving with a check. Messages that fail their check are dropped and logged to the console.

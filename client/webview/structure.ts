@@ -1,5 +1,3 @@
-/// <reference lib="dom" />
-/// <reference lib="dom.iterable" />
 /**
  * The structure view's script: draws the spec's atoms with 3Dmol.js, coloured by fragment, with
  * bonds cut by fragment boundaries dashed and the scanned distance as an arrow; fills the key;
