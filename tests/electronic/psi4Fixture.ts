@@ -1,129 +1,145 @@
 /**
- * Reads tests/fixtures/ao-integrals.psi4.json (integrals and energies from Debian's psi4 1.3.2,
- * written by scripts/data/generate_ao_integrals_fixture.py) into SCF problems.
+ * Reading the psi4 reference data (tests/fixtures/hamiltonian.psi4.json, made by
+ * scripts/data/generate_hamiltonian_fixture.py with Debian's psi4 1.3.2) and a shell-quartet
+ * source over its packed atomic-orbital integrals, so that the shell-batched transformation is
+ * tested on psi4's own shell layout.
  */
 import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { elementBySymbol } from '../../server/src/chemistry/elements';
-import type { Center, FunctionKind, MolecularBasis, Shell } from '../../server/src/electronic/contracts';
-import type { AtomIntegrals, ScfProblem } from '../../server/src/electronic/scf';
-import { TensorIntegrals } from '../../server/src/electronic/scf';
+import * as path from 'node:path';
+import type { MolecularBasis, Shell, TwoElectronIntegrals } from '../../server/src/electronic/contracts';
+import type { ActiveSpaceIntegrals } from '../../server/src/electronic/hamiltonian/activeSpace';
+import { quartetIndex } from '../../server/src/electronic/hamiltonian/pairs';
 
-interface FixtureShell {
-  center: number;
-  l: number;
-  exponents: number[];
-  coefficients: number[];
+export const FIXTURES = path.join(__dirname, '..', 'fixtures');
+
+export interface Psi4Space {
+  readonly core: number;
+  readonly active: number;
+  readonly constant: number;
+  readonly coreEnergy: number;
+  readonly h: number[];
+  readonly eri: number[];
+  readonly electrons: { alpha: number; beta: number };
+  readonly casciEnergy?: number;
 }
 
-interface FixtureIntegrals {
-  S: string;
-  T?: string;
-  V?: string;
-  eri?: string;
-  nbf?: number;
-  shells?: FixtureShell[];
+export interface Psi4Case {
+  readonly name: string;
+  readonly multiplicity: number;
+  readonly reference: string;
+  readonly nuclearRepulsion: number;
+  readonly scfEnergy: number;
+  readonly alpha: number;
+  readonly beta: number;
+  readonly functions: number;
+  readonly orbitals: number;
+  readonly shells: Array<[number, number, number, number]>;
+  readonly hCore: number[];
+  readonly eri: number[];
+  readonly coefficients: number[];
+  readonly orbitalEnergies: number[];
+  readonly spaces: Psi4Space[];
 }
 
-export interface FixtureReference {
-  energy: number;
-  alpha: number[];
-  beta: number[];
-  mp2?: number;
-  mp2FrozenCore?: number;
-  mulliken: number[];
-  lowdin: number[];
+let cached: Psi4Case[] | undefined;
+
+export function psi4Cases(): Psi4Case[] {
+  cached ??= (JSON.parse(readFileSync(path.join(FIXTURES, 'hamiltonian.psi4.json'), 'utf8')) as { cases: Psi4Case[] }).cases;
+  return cached;
 }
 
-export interface FixtureCase extends FixtureIntegrals {
-  name: string;
-  basis: string;
-  kind: FunctionKind;
-  charge: number;
-  multiplicity: number;
-  geometry: { symbol: string; x: number; y: number; z: number }[];
-  nbf: number;
-  shells: FixtureShell[];
-  nuclearRepulsion: number;
-  elements?: Record<string, FixtureIntegrals & { nbf: number; shells: FixtureShell[] }>;
-  references?: Record<string, FixtureReference>;
-}
-
-export const PSI4_FIXTURE = JSON.parse(readFileSync(join(__dirname, '..', 'fixtures', 'ao-integrals.psi4.json'), 'utf8')) as { origin: unknown; cases: FixtureCase[] };
-
-export function decode(base64: string): Float64Array {
-  const bytes = Buffer.from(base64, 'base64');
-  const copy = new Uint8Array(bytes.length);
-  copy.set(bytes);
-  return new Float64Array(copy.buffer);
-}
-
-export function basisFromFixture(atoms: { symbol: string; x: number; y: number; z: number }[], shells: FixtureShell[], kind: FunctionKind, basisName: string): MolecularBasis {
-  const centers: Center[] = atoms.map((atom) => {
-    const z = elementBySymbol(atom.symbol)!.z;
-    return { symbol: atom.symbol, atomicNumber: z, charge: z, x: atom.x, y: atom.y, z: atom.z };
-  });
-  let offset = 0;
-  const builtShells: Shell[] = shells.map((shell) => {
-    const size = kind === 'spherical' ? 2 * shell.l + 1 : ((shell.l + 1) * (shell.l + 2)) / 2;
-    const center = centers[shell.center]!;
-    const built: Shell = {
-      l: shell.l,
-      center: shell.center,
-      x: center.x,
-      y: center.y,
-      z: center.z,
-      exponents: Float64Array.from(shell.exponents),
-      coefficients: Float64Array.from(shell.coefficients),
-      offset,
-      size,
-      kind,
-    };
-    offset += size;
-    return built;
-  });
-  const functionCenter = new Int32Array(offset);
-  const functionL = new Int32Array(offset);
-  for (const shell of builtShells) {
-    for (let k = 0; k < shell.size; k++) {
-      functionCenter[shell.offset + k] = shell.center;
-      functionL[shell.offset + k] = shell.l;
-    }
-  }
-  return { basisNames: atoms.map(() => basisName), kind, centers, shells: builtShells, functionCount: offset, functionCenter, functionL, ecps: [] };
-}
-
-export interface LoadedCase {
-  readonly raw: FixtureCase;
-  readonly problem: ScfProblem;
-}
-
-function tensorProblem(basis: MolecularBasis, data: FixtureIntegrals): Pick<ScfProblem, 'overlap' | 'coreHamiltonian' | 'eri'> {
-  const overlap = decode(data.S);
-  const kinetic = decode(data.T!);
-  const potential = decode(data.V!);
-  return { overlap, coreHamiltonian: kinetic.map((value, k) => value + potential[k]!), eri: new TensorIntegrals(basis, decode(data.eri!)) };
-}
-
-export function loadCase(raw: FixtureCase): LoadedCase {
-  const basis = basisFromFixture(raw.geometry, raw.shells, raw.kind, raw.basis);
-  const atomCache = new Map<string, AtomIntegrals>();
-  const atomIntegrals = (center: number): AtomIntegrals => {
-    const symbol = raw.geometry[center]!.symbol;
-    let atom = atomCache.get(symbol);
-    if (!atom) {
-      const data = raw.elements![symbol]!;
-      const atomBasis = basisFromFixture([{ symbol, x: 0, y: 0, z: 0 }], data.shells, raw.kind, raw.basis);
-      atom = { basis: atomBasis, ...tensorProblem(atomBasis, data) };
-      atomCache.set(symbol, atom);
-    }
-    return atom;
-  };
-  return { raw, problem: { basis, ...tensorProblem(basis, raw), charge: raw.charge, multiplicity: raw.multiplicity, atomIntegrals } };
-}
-
-export function fixtureCase(name: string, kind?: FunctionKind): FixtureCase {
-  const found = PSI4_FIXTURE.cases.find((entry) => entry.name === name && (!kind || entry.kind === kind));
-  if (!found) throw new Error(`no fixture case ${name}`);
+export function psi4Case(name: string): Psi4Case {
+  const found = psi4Cases().find((c) => c.name === name);
+  if (!found) throw new Error(`no psi4 case ${name}`);
   return found;
+}
+
+export function psi4Space(name: string, core: number, active: number): { case: Psi4Case; space: Psi4Space } {
+  const c = psi4Case(name);
+  const space = c.spaces.find((s) => s.core === core && s.active === active);
+  if (!space) throw new Error(`no space (${core}, ${active}) in ${name}`);
+  return { case: c, space };
+}
+
+/** The numpy active-space integrals of the fixture in Tessera's shape. */
+export function referenceIntegrals(space: Psi4Space, nuclearRepulsion: number): ActiveSpaceIntegrals {
+  return {
+    orbitals: space.active,
+    electrons: space.electrons,
+    constant: space.constant,
+    nuclearRepulsion,
+    coreEnergy: space.coreEnergy,
+    oneBody: Float64Array.from(space.h),
+    twoBody: Float64Array.from(space.eri),
+  };
+}
+
+/**
+ * A TwoElectronIntegrals over the fixture's packed integrals with psi4's shells (shell data other
+ * than the layout is not needed by the transformation and left empty).
+ */
+export function fixtureTwoElectronIntegrals(c: Psi4Case): TwoElectronIntegrals {
+  const values = Float64Array.from(c.eri);
+  const N = c.functions;
+  const shells: Shell[] = c.shells.map(([l, offset, size, center]) => ({
+    l,
+    center,
+    x: 0,
+    y: 0,
+    z: 0,
+    exponents: new Float64Array(0),
+    coefficients: new Float64Array(0),
+    offset,
+    size,
+    kind: 'cartesian',
+  }));
+  const basis: MolecularBasis = {
+    basisNames: [],
+    kind: 'cartesian',
+    centers: [],
+    shells,
+    functionCount: N,
+    functionCenter: new Int32Array(N),
+    functionL: new Int32Array(N),
+    ecps: [],
+  };
+  const value = (i: number, j: number, k: number, l: number) => values[quartetIndex(i, j, k, l)]!;
+  return {
+    basis,
+    buildJK(densities, J, K) {
+      densities.forEach((D, d) => {
+        for (let i = 0; i < N; i++) {
+          for (let j = 0; j < N; j++) {
+            let coulomb = 0;
+            let exchange = 0;
+            for (let k = 0; k < N; k++) {
+              for (let l = 0; l < N; l++) {
+                coulomb += value(i, j, k, l) * D[k * N + l]!;
+                exchange += value(i, k, j, l) * D[k * N + l]!;
+              }
+            }
+            if (J) J[d]![i * N + j] = coulomb;
+            if (K) K[d]![i * N + j] = exchange;
+          }
+        }
+      });
+    },
+    shellQuartet(p, q, r, s, out) {
+      const [P, Q, R, S] = [shells[p]!, shells[q]!, shells[r]!, shells[s]!];
+      let index = 0;
+      for (let i = P.offset; i < P.offset + P.size; i++) {
+        for (let j = Q.offset; j < Q.offset + Q.size; j++) {
+          for (let k = R.offset; k < R.offset + R.size; k++) {
+            for (let l = S.offset; l < S.offset + S.size; l++) out[index++] = value(i, j, k, l);
+          }
+        }
+      }
+    },
+    schwarz(p, q) {
+      const [P, Q] = [shells[p]!, shells[q]!];
+      let max = 0;
+      for (let i = P.offset; i < P.offset + P.size; i++) for (let j = Q.offset; j < Q.offset + Q.size; j++) max = Math.max(max, Math.abs(value(i, j, i, j)));
+      return Math.sqrt(max);
+    },
+  };
 }

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { CancelledError } from '../../server/src/electronic/contracts';
 import { unblockedSpace } from '../../server/src/electronic/scf/space';
 import { adaptBasis, labelOrbitals, runScf, ScfInputError, solveScf, sumPerFragment, type ScfProblem, type ScfReference } from '../../server/src/electronic/scf';
-import { basisFromFixture, decode, fixtureCase, loadCase, PSI4_FIXTURE } from './psi4Fixture';
+import { basisFromFixture, decode, fixtureCase, loadCase, PSI4_FIXTURE } from './aoIntegralsFixture';
 
 const TIGHT = { energyTolerance: 1e-10, gradientTolerance: 1e-8 };
 

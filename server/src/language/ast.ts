@@ -1,6 +1,6 @@
 /**
  * The typed syntax tree: what each statement says, with the span of every part. Built from the
- * concrete tree by `interpret.ts`; names are not resolved yet (that is `model.ts`).
+ * concrete tree by `interpret/`; names are not resolved yet (that is `model/`).
  */
 import { elementByNumber } from '../chemistry/elements';
 import type { Span } from './text';

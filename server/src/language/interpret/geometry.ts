@@ -1,0 +1,84 @@
+/**
+ * `geometry { <Element> [label] x y z ... }` and `geometry from "file.xyz"`. Blocks the fast reader
+ * took whole arrive as an AtomTable; other blocks are read line by line here.
+ */
+import { elementBySymbol } from '../../chemistry/elements';
+import { atomListOf, atomListOfTable, type AtomAst, type GeometryAst, type Located } from '../ast';
+import { didYouMean } from '../suggest';
+import type { Statement } from '../syntax';
+import { joinSpans } from '../text';
+import { KEYWORDS } from '../vocabulary';
+import { describeArgument, type StatementReader } from './reader';
+
+/** Common element symbols offered when an atom line starts with a word that is none. */
+const COMMON_ELEMENTS = ['H', 'He', 'Li', 'Be', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Na', 'Mg', 'Al', 'Si', 'P', 'S', 'Cl', 'Ar', 'K', 'Ca', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Br', 'I'];
+
+export function readGeometry(reader: StatementReader, statement: Statement): GeometryAst {
+  const sink = reader.sink;
+  if (statement.args.length === 0 && statement.block?.atomTable) {
+    return { statement, atoms: atomListOfTable(statement.block.atomTable) };
+  }
+  const atoms: AtomAst[] = [];
+  let include: Located<string> | undefined;
+  if (statement.args.length > 0) {
+    const [from, path, ...rest] = statement.args;
+    if (from!.kind !== 'word' || from!.text !== 'from') {
+      sink.report('invalid-value', from!.span, `Write \`geometry { ... }\` with the atoms inside, or \`geometry from "file.xyz"\`; found ${describeArgument(from!)}.`);
+    } else if (!path) {
+      sink.report('missing-value', from!.span, 'Name the XYZ file to read: `geometry from "file.xyz"`.');
+    } else if (path.kind !== 'string' && path.kind !== 'word') {
+      sink.report('invalid-value', path.span, `The file to read is a path in quotes, not ${describeArgument(path)}.`);
+    } else {
+      include = { value: path.text, span: path.span };
+    }
+    if (rest.length > 0) sink.report('extra-value', joinSpans(rest[0]!.span, rest[rest.length - 1]!.span), '`geometry from` takes one file name.');
+    if (statement.block) {
+      sink.report('unexpected-block', statement.block.open, 'Give the atoms either inline or from a file, not both; the block is ignored.');
+    }
+  } else if (!statement.block) {
+    sink.report('missing-block', statement.keyword.span, 'Give the atoms in a block, `geometry { O 0 0 0 ... }`, or from a file, `geometry from "file.xyz"`.');
+  } else {
+    for (const line of statement.block.statements) {
+      const atom = readAtomLine(reader, line);
+      if (atom) atoms.push(atom);
+    }
+  }
+  return include ? { statement, atoms: atomListOf(atoms), include } : { statement, atoms: atomListOf(atoms) };
+}
+
+/** One atom line: element symbol, optional label, three coordinates. */
+export function readAtomLine(reader: StatementReader, statement: Statement): AtomAst | undefined {
+  const sink = reader.sink;
+  reader.noBlock(statement);
+  const head = statement.keyword;
+  if (head.kind !== 'word') {
+    sink.report('invalid-atom', head.span, `Each atom line starts with an element symbol, then an optional label and x y z; found ${describeArgument(head)}.`);
+    return undefined;
+  }
+  const element = elementBySymbol(head.text);
+  if (!element) {
+    const keyword = KEYWORDS.find((k) => k.name === head.text);
+    const hint = keyword ? ` '${head.text}' is a keyword: is a '}' missing before it?` : didYouMean(head.text, COMMON_ELEMENTS);
+    sink.report('unknown-element', head.span, `'${head.text}' is not an element symbol.${hint}`);
+    return undefined;
+  }
+  let args = statement.args;
+  let label: Located<string> | undefined;
+  if (args[0]?.kind === 'word') {
+    label = { value: args[0].text, span: args[0].span };
+    args = args.slice(1);
+  }
+  const coordinates: Located<number>[] = [];
+  for (const arg of args) {
+    const value = reader.number(arg, 'A coordinate');
+    if (!value) return undefined;
+    coordinates.push(value);
+  }
+  if (coordinates.length !== 3) {
+    const where = args.length > 0 ? joinSpans(head.span, args[args.length - 1]!.span) : statement.span;
+    sink.report('invalid-atom', where, `An atom needs three coordinates (x y z); this ${element.symbol} has ${coordinates.length}.`);
+    return undefined;
+  }
+  const symbol = { value: element.symbol, span: head.span };
+  return label ? { element: symbol, label, coordinates, span: statement.span } : { element: symbol, coordinates, span: statement.span };
+}

@@ -1,0 +1,49 @@
+/** `scan distance <atom> <atom> from <d> to <d> step <d>` (or `points <n>` instead of step) */
+import type { ScanAst } from '../ast';
+import type { Statement } from '../syntax';
+import { SCAN_KINDS } from '../vocabulary';
+import { describeArgument, type StatementReader } from './reader';
+
+const SCAN_SYNTAX = 'scan distance <atom> <atom> from <d> to <d> step <d>';
+const SCAN_KEYS = new Set(['from', 'to', 'step', 'points']);
+
+export function readScan(reader: StatementReader, statement: Statement): ScanAst | undefined {
+  const sink = reader.sink;
+  const args = statement.args;
+  const kindArg = args[0];
+  if (!kindArg) {
+    sink.report('missing-value', statement.keyword.span, `Say what to scan: \`${SCAN_SYNTAX}\`.`);
+    return undefined;
+  }
+  const kind = reader.term<'distance'>(kindArg, SCAN_KINDS, 'scan coordinate');
+  if (!kind) return undefined;
+  const first = reader.atomRef(args[1], kindArg.span);
+  const second = first ? reader.atomRef(args[2], args[1]!.span) : undefined;
+  const scan: { -readonly [K in keyof ScanAst]: ScanAst[K] } = { statement, kind };
+  if (first) scan.first = first;
+  if (second) scan.second = second;
+  for (let i = 3; i < args.length; i++) {
+    const key = args[i]!;
+    if (key.kind !== 'word' || !SCAN_KEYS.has(key.text)) {
+      sink.report('invalid-value', key.span, `A scan does not take ${describeArgument(key)} here; write \`${SCAN_SYNTAX}\`.`);
+      continue;
+    }
+    const value = args[i + 1];
+    if (!value) {
+      sink.report('missing-value', key.span, `'${key.text}' needs a number after it.`);
+      break;
+    }
+    i++;
+    const located = key.text === 'points' ? reader.wholeNumber(value, 'The number of points', 1) : reader.number(value, `The '${key.text}' value`);
+    if (!located) continue;
+    if (key.text === 'from') scan.from = located;
+    else if (key.text === 'to') scan.to = located;
+    else if (key.text === 'step') scan.step = located;
+    else scan.points = located;
+  }
+  if (!scan.from || !scan.to || (!scan.step && !scan.points)) {
+    const missing = [!scan.from && 'from', !scan.to && 'to', !scan.step && !scan.points && 'step'].filter(Boolean).join(', ');
+    sink.report('missing-value', statement.keyword.span, `The scan needs ${missing}: \`${SCAN_SYNTAX}\` (or \`points <n>\` instead of step).`);
+  }
+  return scan;
+}

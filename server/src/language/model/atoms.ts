@@ -1,0 +1,86 @@
+/**
+ * The atoms of a spec in ångström: from the inline geometry block, or from the XYZ file it
+ * includes; and the label index (each label names one atom).
+ */
+import { elementBySymbol } from '../../chemistry/elements';
+import { toAngstrom, type LengthUnit } from '../../chemistry/units';
+import type { SpecAst } from '../ast';
+import type { DiagnosticSink } from '../diagnostics';
+import { resolveInclude } from '../files';
+import { parseXyz } from '../xyz';
+import type { AtomModel, ModelOptions } from './types';
+
+export interface ReadAtoms {
+  readonly list: AtomModel[];
+  /** x, y, z of every atom in ångström. */
+  readonly positions: Float64Array;
+}
+
+/** Reads the atoms; `includes` receives the absolute path of every file read. */
+export function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink, options: ModelOptions, includes: string[]): ReadAtoms {
+  const geometry = ast.geometry;
+  if (!geometry) return { list: [], positions: new Float64Array(0) };
+  if (geometry.include) return readIncludedAtoms(geometry.include, sink, options, includes);
+  const list: AtomModel[] = [];
+  const atoms = geometry.atoms;
+  const positions = new Float64Array(3 * atoms.length);
+  for (let i = 0; i < atoms.length; i++) {
+    const element = elementBySymbol(atoms.symbol(i))!;
+    const label = atoms.label(i);
+    const labelSpan = atoms.labelSpan(i);
+    list.push(label !== undefined && labelSpan ? { index: i, element, label, span: atoms.span(i), labelSpan } : { index: i, element, span: atoms.span(i) });
+    for (let axis = 0; axis < 3; axis++) positions[3 * i + axis] = toAngstrom(atoms.coordinate(i, axis), units);
+  }
+  return { list, positions };
+}
+
+/** `geometry from "file.xyz"`: the first frame, always in ångström. */
+function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>['include']>, sink: DiagnosticSink, options: ModelOptions, includes: string[]): ReadAtoms {
+  const list: AtomModel[] = [];
+  const none = { list, positions: new Float64Array(0) };
+  const resolved = resolveInclude(options.path, include.value, options.files);
+  if (!resolved.ok) {
+    sink.report('include-outside-folder', include.span, `Cannot read "${include.value}": ${resolved.reason}.`);
+    return none;
+  }
+  includes.push(resolved.path);
+  const read = options.files.readFile(resolved.path);
+  if (!read.ok) {
+    sink.report('include-unreadable', include.span, `Cannot read "${include.value}" (${resolved.path}): ${read.reason}.`);
+    return none;
+  }
+  const xyz = parseXyz(read.text);
+  for (const problem of xyz.problems) {
+    sink.report('include-invalid', include.span, `"${include.value}" line ${problem.line + 1}: ${problem.message}`, {
+      related: [{ span: { start: 0, end: 0 }, file: resolved.path, line: problem.line, message: problem.message }],
+    });
+  }
+  if (xyz.frames > 1) {
+    sink.report('include-invalid', include.span, `"${include.value}" holds ${xyz.frames} frames; the first one is the geometry.`, { severity: 'information' });
+  }
+  const positions = new Float64Array(3 * xyz.atoms.length);
+  xyz.atoms.forEach((atom, i) => {
+    const element = elementBySymbol(atom.symbol)!;
+    list.push({ index: i, element, span: include.span, source: { file: resolved.path, line: atom.line } });
+    positions.set([atom.x, atom.y, atom.z], 3 * i);
+  });
+  return { list, positions };
+}
+
+/** Label → atom index; a label used twice is reported and keeps its first atom. */
+export function indexLabels(atoms: readonly AtomModel[], sink: DiagnosticSink): Map<string, number> {
+  const labels = new Map<string, number>();
+  for (const atom of atoms) {
+    if (!atom.label) continue;
+    const previous = labels.get(atom.label);
+    if (previous !== undefined) {
+      const first = atoms[previous]!;
+      sink.report('duplicate-label', atom.labelSpan ?? atom.span, `Label '${atom.label}' is already used by atom #${previous + 1}; labels name one atom each.`, {
+        related: [{ span: first.labelSpan ?? first.span, message: `'${atom.label}' first used here` }],
+      });
+      continue;
+    }
+    labels.set(atom.label, atom.index);
+  }
+  return labels;
+}

@@ -1,0 +1,73 @@
+/** A fragment's charge, multiplicity, tier (defaults applied) and orbital space. */
+import type { FunctionType } from '../../chemistry/basis/shells';
+import { countOrbitalSpace, type CountedAtom } from '../../chemistry/counting';
+import type { Mapping } from '../../chemistry/qubits';
+import { lowestMultiplicity } from '../../chemistry/spin';
+import type { FragmentAst, TierAst } from '../ast';
+import type { TierLevel } from '../vocabulary';
+import { electronCount } from './basis';
+import type { Selection } from './selectors';
+import type { FragmentModel, ModelOptions, TierModel } from './types';
+
+const DEFAULT_METHODS: Record<TierLevel, (multiplicity: number) => string> = {
+  quantum: () => 'vqe',
+  correlated: () => 'ccsd',
+  'mean-field': (multiplicity) => (multiplicity === 1 ? 'rhf' : 'rohf'),
+};
+
+export function buildFragment(
+  ast: FragmentAst,
+  index: number,
+  { atoms, claimsRest }: Selection,
+  counted: readonly CountedAtom[],
+  functions: FunctionType,
+  defaultFrozenCore: boolean,
+  options: ModelOptions,
+): FragmentModel {
+  const members = atoms.map((atom) => counted[atom]!);
+  const charge = ast.charge?.value ?? 0;
+  const multiplicity = ast.multiplicity?.value ?? lowestMultiplicity(electronCount(members, charge));
+  const tier = ast.tier ? tierModel(ast.tier, multiplicity, defaultFrozenCore, options) : undefined;
+  const space = countOrbitalSpace({
+    atoms: members,
+    charge,
+    multiplicity,
+    functions,
+    frozenCore: tier?.frozenCore ?? defaultFrozenCore,
+    ...(tier?.active ? { active: tier.active } : {}),
+  });
+  return {
+    index,
+    name: ast.name?.value ?? `#${index + 1}`,
+    ast,
+    atoms,
+    claimsRest,
+    charge,
+    chargeGiven: ast.charge !== undefined,
+    multiplicity,
+    multiplicityGiven: ast.multiplicity !== undefined,
+    tier,
+    space,
+  };
+}
+
+function tierModel(ast: TierAst, multiplicity: number, defaultFrozenCore: boolean, options: ModelOptions): TierModel | undefined {
+  if (!ast.level) return undefined;
+  const level = ast.level.value;
+  const method = ast.method?.value ?? DEFAULT_METHODS[level](multiplicity);
+  const quantum = level === 'quantum';
+  const active = ast.active?.electrons && ast.active.orbitals ? { electrons: ast.active.electrons.value, orbitals: ast.active.orbitals.value } : undefined;
+  return {
+    level,
+    method,
+    methodGiven: ast.method !== undefined,
+    ansatz: quantum ? (ast.ansatz?.value ?? (method === 'vqe' ? 'uccsd' : undefined)) : undefined,
+    mapping: quantum ? ((ast.mapping?.value as Mapping | undefined) ?? options.defaultMapping ?? 'jordan-wigner') : undefined,
+    active,
+    activeIrreps: ast.active && ast.active.irreps.length > 0 ? ast.active.irreps.map((irrep) => ({ label: irrep.label.value, count: irrep.count.value })) : undefined,
+    frozenCore: ast.frozenCore?.value ?? defaultFrozenCore,
+    taper: ast.taper?.value ?? false,
+    layers: ast.layers?.value ?? 1,
+    ast,
+  };
+}

@@ -1,0 +1,77 @@
+/**
+ * The semantic model: atoms in ångström, labels and selectors resolved, basis sets looked up,
+ * defaults applied, and the orbital space of the system and of every fragment counted. One module
+ * per seam: `atoms.ts` (inline atoms and includes, labels), `basis.ts`, `selectors.ts`,
+ * `ownership.ts` (rest and owners), `fragments.ts` (fragments and tiers), `scan.ts`.
+ */
+import { countOrbitalSpace, type CountedAtom } from '../../chemistry/counting';
+import { analyseContacts } from '../../chemistry/geometry';
+import { lowestMultiplicity } from '../../chemistry/spin';
+import type { SpecAst } from '../ast';
+import type { DiagnosticSink } from '../diagnostics';
+import { indexLabels, readAtoms } from './atoms';
+import { countedAtom, electronCount, resolveBasis } from './basis';
+import { buildFragment } from './fragments';
+import { assignOwners } from './ownership';
+import { resolveScan } from './scan';
+import { SelectorResolver } from './selectors';
+import type { ModelOptions, SpecModel } from './types';
+
+export type { AtomModel, AtomReference, BasisModel, FragmentModel, ModelOptions, ScanModel, SpecModel, TierModel } from './types';
+export { claimsOf } from './ownership';
+export { MAX_SCAN_POINTS, scanPointCount } from './scan';
+export { SelectorResolver, type Selection } from './selectors';
+
+export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOptions): SpecModel {
+  const units = ast.units?.value ?? 'angstrom';
+  const includes: string[] = [];
+  const atoms = readAtoms(ast, units, sink, options, includes);
+  const coordinates = atoms.positions;
+  const labels = indexLabels(atoms.list, sink);
+  const basis = resolveBasis(ast);
+  const countedByElement = new Map<string, CountedAtom>();
+  const counted = atoms.list.map((atom) => {
+    let entry = countedByElement.get(atom.element.symbol);
+    if (!entry) countedByElement.set(atom.element.symbol, (entry = countedAtom(atom.element, basis)));
+    return entry;
+  });
+  const charge = ast.charge?.value ?? 0;
+  const multiplicity = ast.multiplicity?.value ?? lowestMultiplicity(electronCount(counted, charge));
+  const frozenCore = ast.frozenCore?.value ?? true;
+  const system = countOrbitalSpace({ atoms: counted, charge, multiplicity, functions: basis.functions, frozenCore });
+  const radii = new Float64Array(atoms.list.map((atom) => atom.element.covalentRadius ?? 1.5));
+  const contacts = analyseContacts(coordinates, radii);
+
+  const resolver = new SelectorResolver(atoms.list, labels, coordinates, units, sink);
+  const selections = ast.fragments.map((fragmentAst) => resolver.resolve(fragmentAst.atoms?.selectors ?? []));
+  const { owner, sharedAtoms } = assignOwners(selections, atoms.list.length);
+  const fragments = ast.fragments.map((fragmentAst, index) => buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options));
+
+  return {
+    name: ast.name?.value,
+    units,
+    atoms: atoms.list,
+    coordinates,
+    labels,
+    charge,
+    chargeGiven: ast.charge !== undefined,
+    multiplicity,
+    multiplicityGiven: ast.multiplicity !== undefined,
+    frozenCore,
+    basis,
+    fragments,
+    owner,
+    sharedAtoms,
+    embedding: ast.embedding?.value ?? 'none',
+    scan: resolveScan(ast, resolver, units),
+    limits: {
+      ...(ast.limits?.qubits ? { qubits: ast.limits.qubits.value } : options.defaultQubitLimit ? { qubits: options.defaultQubitLimit } : {}),
+      qubitsFromSpec: ast.limits?.qubits !== undefined,
+      ...(ast.limits?.memory ? { memoryBytes: ast.limits.memory.value } : {}),
+    },
+    system,
+    contacts,
+    includes,
+    atomReferences: resolver.references,
+  };
+}

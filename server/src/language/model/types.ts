@@ -1,0 +1,111 @@
+/** The shapes of the semantic model (built by `index.ts`). */
+import type { BasisSet } from '../../chemistry/basis/library';
+import type { FunctionType } from '../../chemistry/basis/shells';
+import type { OrbitalSpace } from '../../chemistry/counting';
+import type { Element } from '../../chemistry/elements';
+import type { ContactAnalysis } from '../../chemistry/geometry';
+import type { Mapping } from '../../chemistry/qubits';
+import type { LengthUnit } from '../../chemistry/units';
+import type { FragmentAst, TierAst } from '../ast';
+import type { FileHost } from '../files';
+import type { Span } from '../text';
+import type { TierLevel } from '../vocabulary';
+
+export interface AtomModel {
+  /** Zero-based position in the geometry; users see index + 1 as `#n`. */
+  readonly index: number;
+  readonly element: Element;
+  readonly label?: string;
+  /** The atom's line in the spec, or the `geometry from` path for atoms read from a file. */
+  readonly span: Span;
+  readonly labelSpan?: Span;
+  /** For atoms read from an XYZ file: that file and the zero-based line. */
+  readonly source?: { readonly file: string; readonly line: number };
+}
+
+export interface TierModel {
+  readonly level: TierLevel;
+  readonly method: string;
+  readonly methodGiven: boolean;
+  readonly ansatz: string | undefined;
+  readonly mapping: Mapping | undefined;
+  readonly active: { readonly electrons: number; readonly orbitals: number } | undefined;
+  /** Active orbitals per irrep label, when the spec gives them. */
+  readonly activeIrreps: readonly { readonly label: string; readonly count: number }[] | undefined;
+  readonly frozenCore: boolean;
+  readonly taper: boolean;
+  readonly layers: number;
+  readonly ast: TierAst;
+}
+
+export interface FragmentModel {
+  readonly index: number;
+  readonly name: string;
+  readonly ast: FragmentAst;
+  /** Sorted, unique atom indices. */
+  readonly atoms: number[];
+  readonly claimsRest: boolean;
+  readonly charge: number;
+  readonly chargeGiven: boolean;
+  readonly multiplicity: number;
+  readonly multiplicityGiven: boolean;
+  readonly tier: TierModel | undefined;
+  readonly space: OrbitalSpace;
+}
+
+export interface BasisModel {
+  readonly main: BasisSet | undefined;
+  readonly overrides: ReadonlyMap<string, BasisSet>;
+  readonly functions: FunctionType;
+  readonly functionsGiven: boolean;
+}
+
+export interface ScanModel {
+  readonly first: number;
+  readonly second: number;
+  /** Distances in ångström, one per point. */
+  readonly distances: number[];
+}
+
+export interface SpecModel {
+  readonly name: string | undefined;
+  readonly units: LengthUnit;
+  readonly atoms: AtomModel[];
+  /** x, y, z of every atom in ångström. */
+  readonly coordinates: Float64Array;
+  readonly labels: ReadonlyMap<string, number>;
+  readonly charge: number;
+  readonly chargeGiven: boolean;
+  readonly multiplicity: number;
+  readonly multiplicityGiven: boolean;
+  readonly frozenCore: boolean;
+  readonly basis: BasisModel;
+  readonly fragments: FragmentModel[];
+  /** Per atom: the first fragment that claims it, or -1 when none does. */
+  readonly owner: Int32Array;
+  /** Atoms claimed by more than one fragment, with every claimant in fragment order. */
+  readonly sharedAtoms: ReadonlyMap<number, number[]>;
+  readonly embedding: string;
+  readonly scan: ScanModel | undefined;
+  /** `qubitsFromSpec` is false when the qubit limit is the caller's default (the spec sets none). */
+  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number };
+  readonly system: OrbitalSpace;
+  readonly contacts: ContactAnalysis;
+  /** Absolute paths of files read for this spec. */
+  readonly includes: string[];
+  /** Every place a selector or scan names an atom by label or #index, resolved. */
+  readonly atomReferences: readonly AtomReference[];
+}
+
+export interface AtomReference {
+  readonly atom: number;
+  readonly span: Span;
+  readonly kind: 'label' | 'index';
+}
+
+export interface ModelOptions {
+  readonly path?: string;
+  readonly files: FileHost;
+  readonly defaultMapping?: Mapping;
+  readonly defaultQubitLimit?: number;
+}
