@@ -1,7 +1,8 @@
 // Bundles the command line, the language server, the VS Code client and the benchmark with esbuild.
 // Run by `npm ci` (the `prepare` script) so that `npx tessera` works right after installing.
 import { build } from 'esbuild';
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { brotliCompressSync, constants as zlibConstants } from 'node:zlib';
 import { fileURLToPath } from 'node:url';
 import * as path from 'node:path';
 
@@ -42,6 +43,34 @@ export async function buildBundles({ outdir = path.join(root, 'dist'), productio
   ].filter((entry) => existsSync(path.join(root, entry.entryPoints[0])) && (!only || only.includes(entry.name)));
   await Promise.all(entries.map(({ name, ...entry }) => build({ ...common, ...entry })));
   if (entries.some((entry) => entry.name === 'webview')) writeNotices(path.join(outdir, 'webview', 'third-party-notices.txt'));
+  if (entries.some((entry) => ['cli', 'server', 'bench'].includes(entry.name))) writeBasisData(path.join(outdir, BASIS_DATA_FOLDER));
+}
+
+/** Where the exponent files live in the sources, and the folder next to the bundles that gets them. */
+const BASIS_DATA_SOURCE = path.join(root, 'server', 'src', 'chemistry', 'data', 'basis-sets');
+const BASIS_DATA_FOLDER = 'basis-sets';
+
+/**
+ * Copies the basis-set exponent files next to the bundles, Brotli-compressed (about a quarter of
+ * the JSON), with the origin note whose licence covers them. The engine reads one file when a job
+ * needs it (server/src/electronic/basis/data.ts); nothing else loads them. Files already up to date
+ * are left alone, so repeated builds stay fast.
+ */
+function writeBasisData(folder) {
+  mkdirSync(folder, { recursive: true });
+  const wanted = new Set();
+  for (const name of readdirSync(BASIS_DATA_SOURCE).filter((file) => file.endsWith('.json'))) {
+    const source = path.join(BASIS_DATA_SOURCE, name);
+    const target = path.join(folder, `${name}.br`);
+    wanted.add(`${name}.br`);
+    if (existsSync(target) && statSync(target).mtimeMs >= statSync(source).mtimeMs) continue;
+    const compressed = brotliCompressSync(readFileSync(source), { params: { [zlibConstants.BROTLI_PARAM_QUALITY]: 11 } });
+    writeFileSync(target, compressed);
+  }
+  const origin = path.join(root, 'server', 'src', 'chemistry', 'data', 'BASIS-ORIGIN.md');
+  writeFileSync(path.join(folder, 'BASIS-ORIGIN.md'), readFileSync(origin));
+  wanted.add('BASIS-ORIGIN.md');
+  for (const stale of readdirSync(folder).filter((file) => !wanted.has(file))) rmSync(path.join(folder, stale));
 }
 
 /** The packages bundled into the webview scripts: 3Dmol.js and what its build carries inside. */

@@ -2,18 +2,20 @@
 """Generate Tessera's basis-set library table from Debian's psi4-data package.
 
 Reads the Gaussian-style .gbs files shipped by psi4-data in /usr/share/psi4/basis
-and writes two files:
+and writes:
 
-  server/src/chemistry/data/basis-library.json   shell structure per element
+  server/src/chemistry/data/basis-library.json   shell structure per element (loaded
+                                                 with the language layer: small)
+  server/src/chemistry/data/basis-sets/<file>.json
+                                                 exponents, contraction coefficients and
+                                                 effective core potentials, one file per
+                                                 basis and per JKFIT auxiliary set (read
+                                                 only when an engine job needs them)
   server/src/chemistry/data/BASIS-ORIGIN.md      provenance, licence, regeneration
-
-Only shell structure (number of contracted shells per angular momentum), the
-family's spherical/cartesian convention and effective-core-potential core
-electron counts are kept. Exponents and contraction coefficients are read only
-to check the file's structure and are never written.
 
 Usage (Debian python, standard library only):
   /usr/bin/python3 scripts/data/generate_basis_library.py [--basis-dir DIR] [--out-dir DIR]
+  /usr/bin/python3 scripts/data/generate_basis_library.py --check   # exit 1 if the committed files are stale
 
 CI does not have psi4-data installed: the generated files are committed and
 this script is kept to regenerate them.
@@ -63,6 +65,38 @@ BASES = [
     ("def2-qzvpp", "def2-QZVPP", "def2-qzvpp", True),
 ]
 
+# The JKFIT auxiliary set psi4 pairs with each orbital basis, as in psi4's
+# driver/qcdb/basislistdunning.py and basislistother.py (psi4 1.3.2); checked
+# against those files when the psi4 package is installed.
+JKFIT_FOR = {
+    "sto-3g": "def2-svp-jkfit",
+    "3-21g": "def2-svp-jkfit",
+    "6-31g": "cc-pvdz-jkfit",
+    "6-31g*": "cc-pvdz-jkfit",
+    "6-31g**": "cc-pvdz-jkfit",
+    "6-31+g*": "heavy-aug-cc-pvdz-jkfit",
+    "6-31+g**": "heavy-aug-cc-pvdz-jkfit",
+    "6-31++g**": "aug-cc-pvdz-jkfit",
+    "6-311g**": "cc-pvtz-jkfit",
+    "6-311+g*": "heavy-aug-cc-pvtz-jkfit",
+    "6-311++g**": "aug-cc-pvtz-jkfit",
+    "cc-pvdz": "cc-pvdz-jkfit",
+    "cc-pvtz": "cc-pvtz-jkfit",
+    "cc-pvqz": "cc-pvqz-jkfit",
+    "aug-cc-pvdz": "aug-cc-pvdz-jkfit",
+    "aug-cc-pvtz": "aug-cc-pvtz-jkfit",
+    "aug-cc-pvqz": "aug-cc-pvqz-jkfit",
+    "def2-svp": "def2-svp-jkfit",
+    "def2-svpd": "def2-svp-jkfit",
+    "def2-tzvp": "def2-tzvp-jkfit",
+    "def2-tzvpd": "def2-tzvp-jkfit",
+    "def2-tzvpp": "def2-tzvpp-jkfit",
+    "def2-qzvp": "def2-qzvp-jkfit",
+    "def2-qzvpp": "def2-qzvpp-jkfit",
+}
+PSI4_BASIS_LISTS = "/usr/lib/x86_64-linux-gnu/psi4/driver/qcdb"
+DATA_SUBDIR = "basis-sets"
+
 # Element symbols by atomic number (IUPAC); used to normalise case and order output.
 ELEMENTS = (
     "H He Li Be B C N O F Ne Na Mg Al Si P S Cl Ar K Ca Sc Ti V Cr Mn Fe Co Ni Cu Zn "
@@ -95,6 +129,11 @@ def normal_symbol(raw, where):
 
 def is_number(tok):
     return RE_NUMBER.match(tok) is not None
+
+
+def to_float(tok):
+    """Fortran-style numbers (1.0D+00) as Python floats; repr() then round-trips them exactly."""
+    return float(tok.replace("D", "E").replace("d", "e"))
 
 
 def shell_letters_to_am(letters, where):
@@ -151,7 +190,8 @@ def parse_gbs(path):
         m = RE_ELEMENT.match(s)
         if m:
             current = normal_symbol(m.group(1), where)
-            rec = elements.setdefault(current, {"shells": None, "ecpCore": None, "_shellBlocks": 0})
+            rec = elements.setdefault(current, {"shells": None, "ecpCore": None, "_shellBlocks": 0,
+                                                "data": [], "ecp": None})
             i += 1
             # An element header opens either a basis block or an ECP block.
             if i < len(lines) and RE_ECP.match(lines[i][1]):
@@ -171,9 +211,11 @@ def parse_gbs(path):
                 raise GbsError("%s: second ECP for %s" % (where, sym))
             lmax = int(m.group(2))
             rec["ecpCore"] = int(m.group(3))
+            channels = []
             i += 1
-            # lmax+1 components: a label line, a term count, then that many rows.
-            for _ in range(lmax + 1):
+            # lmax+1 components: a label line, a term count, then that many rows. The first is
+            # the local channel (label of l = lmax), then the projected channels l = 0 .. lmax-1.
+            for component in range(lmax + 1):
                 if i + 1 >= len(lines):
                     raise GbsError("%s: truncated ECP for %s" % (where, sym))
                 label = lines[i][1]
@@ -184,13 +226,27 @@ def parse_gbs(path):
                 if not count_tok.isdigit():
                     raise GbsError("%s:%d: expected ECP term count, found %r"
                                    % (path, lines[i + 1][0], count_tok))
+                letter = label.split()[0].split("-")[0].lower()
+                want = AM_LETTERS[lmax] if component == 0 else AM_LETTERS[component - 1]
+                if letter != want:
+                    raise GbsError("%s:%d: expected the %s channel, found %r"
+                                   % (path, lines[i][0], want, label))
                 nterms = int(count_tok)
                 i += 2
+                powers, zetas, coefs = [], [], []
                 for _ in range(nterms):
                     toks = lines[i][1].split()
                     if len(toks) != 3 or not all(is_number(t) for t in toks):
                         raise GbsError("%s:%d: bad ECP term %r" % (path, lines[i][0], lines[i][1]))
+                    if not toks[0].isdigit():
+                        raise GbsError("%s:%d: ECP power %r is not a whole number"
+                                       % (path, lines[i][0], toks[0]))
+                    powers.append(int(toks[0]))
+                    zetas.append(to_float(toks[1]))
+                    coefs.append(to_float(toks[2]))
                     i += 1
+                channels.append([-1 if component == 0 else component - 1, powers, zetas, coefs])
+            rec["ecp"] = {"core": rec["ecpCore"], "channels": channels}
             continue
         m = RE_SHELL.match(s)
         if m and current is not None:
@@ -202,6 +258,10 @@ def parse_gbs(path):
             ncols = 1 + len(ams)  # exponent plus one coefficient per angular momentum
             if nprim < 1:
                 raise GbsError("%s: shell with no primitives" % where)
+            if to_float(m.group(3)) != 1.0:
+                raise GbsError("%s: scale factor %s (only 1.00 is supported)" % (where, m.group(3)))
+            exps = []
+            coefs = [[] for _ in ams]
             for k in range(nprim):
                 if i + 1 + k >= len(lines):
                     raise GbsError("%s: truncated shell" % where)
@@ -215,11 +275,16 @@ def parse_gbs(path):
                     # The shell still exists; count it and say so.
                     defects.append("%s:%d: %s %s shell row has an exponent but no coefficient"
                                    % (os.path.basename(path), pn, current, m.group(1)))
+                    toks = toks + ["1.0"]
                 elif len(toks) != ncols:
                     raise GbsError("%s:%d: expected %d numbers in primitive row, found %r"
                                    % (path, pn, ncols, ps))
-            for am in ams:
+                exps.append(to_float(toks[0]))
+                for j in range(len(ams)):
+                    coefs[j].append(to_float(toks[1 + j]))
+            for j, am in enumerate(ams):
                 rec["shells"][am] += 1
+                rec["data"].append([am, exps, coefs[j]])
             i += 1 + nprim
             continue
         if current is None:
@@ -231,6 +296,9 @@ def parse_gbs(path):
 
     for sym, rec in elements.items():
         del rec["_shellBlocks"]
+        for _, exps, _ in rec["data"]:
+            if any(e <= 0 for e in exps):
+                raise GbsError("%s: element %s has a non-positive exponent" % (path, sym))
         if rec["shells"] is None:
             raise GbsError("%s: element %s has an ECP but no basis functions" % (path, sym))
         if sum(rec["shells"]) == 0:
@@ -320,6 +388,12 @@ def compact_json(doc):
             sep = "," if fi < len(fields) - 1 else ""
             out.append("      %s: %s%s" % (json.dumps(f), json.dumps(b[f], separators=(",", ":")), sep))
         out.append("    }" + ("," if bi < len(keys) - 1 else ""))
+    out.append("  },")
+    out.append('  "auxiliary": {')
+    akeys = list(doc["auxiliary"])
+    for ai, key in enumerate(akeys):
+        sep = "," if ai < len(akeys) - 1 else ""
+        out.append("    %s: %s%s" % (json.dumps(key), json.dumps(doc["auxiliary"][key], separators=(",", ":")), sep))
     out.append("  }")
     out.append("}")
     return "\n".join(out) + "\n"
@@ -355,12 +429,13 @@ def self_check(bases):
         raise SystemExit("self-check failed:\n  " + "\n  ".join(failures))
 
 
-def write_origin_md(path, origin, bases, titles, licence_stanza, holders, file_defects):
+def write_origin_md(origin, bases, titles, licence_stanza, holders, file_defects, aux, data_sizes):
     lines = []
-    lines.append("# Basis-set library table: origin")
+    lines.append("# Basis-set library: origin")
     lines.append("")
-    lines.append("`basis-library.json` (this folder) is generated; do not edit it by hand.")
-    lines.append("This file is generated with it by `%s`." % GENERATED_BY)
+    lines.append("`basis-library.json` and the files in `%s/` (this folder) are generated; do not edit"
+                 % DATA_SUBDIR)
+    lines.append("them by hand. This file is generated with them by `%s`." % GENERATED_BY)
     lines.append("")
     lines.append("## Source")
     lines.append("")
@@ -369,6 +444,9 @@ def write_origin_md(path, origin, bases, titles, licence_stanza, holders, file_d
                  % origin["path"])
     lines.append("- The files' own comment headers name the EMSL Basis Set Exchange as their source;")
     lines.append("  the title lines found in each file are listed below.")
+    lines.append("- Which JKFIT set goes with which orbital basis: psi4's own pairing")
+    lines.append("  (`driver/qcdb/basislistdunning.py`, `basislistother.py` of the psi4 package,")
+    lines.append("  same version), checked against those files when psi4 is installed.")
     lines.append("")
     lines.append("## Licence")
     lines.append("")
@@ -379,12 +457,15 @@ def write_origin_md(path, origin, bases, titles, licence_stanza, holders, file_d
     lines.append("- Licence: **%s**" % origin["licence"])
     lines.append("- Copyright: %s" % holders)
     lines.append("")
-    lines.append("Only derived facts are stored here (number of contracted shells per angular")
-    lines.append("momentum, the spherical/cartesian convention named in each file's header, and")
-    lines.append("effective-core-potential core-electron counts). No exponents or contraction")
-    lines.append("coefficients are copied.")
+    lines.append("`basis-library.json` holds derived facts only (shell counts, conventions, ECP core")
+    lines.append("electrons). The files in `%s/` copy the exponents, contraction coefficients and" % DATA_SUBDIR)
+    lines.append("effective-core-potential parameters of the listed files, converted to JSON numbers")
+    lines.append("that round-trip the file's decimal values exactly; they are redistributed under the")
+    lines.append("licence above, which is why this note ships beside them.")
     lines.append("")
     lines.append("## What is stored")
+    lines.append("")
+    lines.append("`basis-library.json` (read with the language layer):")
     lines.append("")
     lines.append("- `functions`: the first non-comment line of the .gbs file (`spherical` or")
     lines.append("  `cartesian`), i.e. the convention the distribution uses for that family.")
@@ -392,6 +473,21 @@ def write_origin_md(path, origin, bases, titles, licence_stanza, holders, file_d
     lines.append("  a combined SP shell counts as one s and one p shell.")
     lines.append("- `ecpCoreElectrons`: present only for bases whose file carries effective core")
     lines.append("  potentials; the number is the core electrons the potential replaces.")
+    lines.append("- `jkfit`: the key of the JKFIT auxiliary set psi4 pairs with the basis;")
+    lines.append("  `auxiliary` lists those sets (`data`: the file in `%s/` that holds it, shared" % DATA_SUBDIR)
+    lines.append("  when two psi4 files are identical).")
+    lines.append("")
+    lines.append("`%s/<file stem>.json` (read at run time, only when a computation needs it):" % DATA_SUBDIR)
+    lines.append("")
+    lines.append("- `elements.<symbol>.shells`: `[l, exponents, coefficients]` per contracted shell in")
+    lines.append("  the order of the .gbs file; an SP shell becomes an s shell followed by a p shell")
+    lines.append("  with the same exponents. Coefficients are as printed (for unnormalised")
+    lines.append("  primitives' normalised counterparts, the usual .gbs convention); the engine")
+    lines.append("  normalises. A one-primitive row without a coefficient gets 1.")
+    lines.append("- `elements.<symbol>.ecp`: `core` electrons replaced and `channels`, each")
+    lines.append("  `[l, powers, exponents, coefficients]` for Σ d r^(n-2) exp(-ζ r²); `l = -1` is the")
+    lines.append("  local channel (the file's first, labelled with l = lmax), then the projected")
+    lines.append("  channels l = 0 … lmax-1.")
     lines.append("")
     lines.append("## Regenerate")
     lines.append("")
@@ -400,7 +496,8 @@ def write_origin_md(path, origin, bases, titles, licence_stanza, holders, file_d
     lines.append("")
     lines.append("```sh")
     lines.append("apt-get install psi4-data")
-    lines.append("/usr/bin/python3 %s" % GENERATED_BY)
+    lines.append("/usr/bin/python3 %s          # write" % GENERATED_BY)
+    lines.append("/usr/bin/python3 %s --check  # exit 1 if the committed files are stale" % GENERATED_BY)
     lines.append("```")
     lines.append("")
     lines.append("An independent cross-check against a second distribution (nwchem-data) is")
@@ -410,38 +507,118 @@ def write_origin_md(path, origin, bases, titles, licence_stanza, holders, file_d
     lines.append("")
     lines.append("## Bases")
     lines.append("")
-    lines.append("| key | display name | file | header convention | elements | ECP elements | title lines in file |")
-    lines.append("| --- | --- | --- | --- | --- | --- | --- |")
+    lines.append("| key | display name | file | header convention | elements | ECP elements | JKFIT | data bytes | title lines in file |")
+    lines.append("| --- | --- | --- | --- | --- | --- | --- | --- | --- |")
     for key, b in bases.items():
         syms = list(b["shells"])
         span = "%d (%s–%s)" % (len(syms), syms[0], syms[-1])
         ecp = b.get("ecpCoreElectrons")
         ecp_text = "%d (%s–%s)" % (len(ecp), list(ecp)[0], list(ecp)[-1]) if ecp else "—"
         t = "; ".join(titles[key]).replace("|", "\\|") or "—"
-        lines.append("| `%s` | %s | `%s` | %s | %s | %s | %s |"
-                     % (key, b["displayName"], b["file"], b["functions"], span, ecp_text, t))
+        lines.append("| `%s` | %s | `%s` | %s | %s | %s | `%s` | %d | %s |"
+                     % (key, b["displayName"], b["file"], b["functions"], span, ecp_text, b["jkfit"],
+                        data_sizes[b["data"]], t))
+    lines.append("")
+    lines.append("## JKFIT auxiliary sets")
+    lines.append("")
+    lines.append("| key | display name | file | header convention | elements | stored in | data bytes | title lines in file |")
+    lines.append("| --- | --- | --- | --- | --- | --- | --- | --- |")
+    for key, a in aux.items():
+        t = "; ".join(titles[key]).replace("|", "\\|") or "—"
+        same = "`%s.json`" % a["data"]
+        lines.append("| `%s` | %s | `%s` | %s | %d (%s–%s) | %s | %d | %s |"
+                     % (key, a["displayName"], a["file"], a["functions"], len(a["elements"]),
+                        a["elements"][0], a["elements"][-1], same, data_sizes[a["data"]], t))
     lines.append("")
     lines.append("## Irregularities tolerated in the source files")
     lines.append("")
-    found = [d for key in bases for d in file_defects.get(key, [])]
+    found = [d for key in list(bases) + list(aux) for d in file_defects.get(key, [])]
     if found:
         lines.append("The generator reads these as described and reports them each time it runs.")
         lines.append("A one-primitive shell row without a coefficient is still counted as a shell")
-        lines.append("(a lone primitive's coefficient is fixed by normalisation).")
+        lines.append("(a lone primitive's coefficient is fixed by normalisation) and stored with 1.")
         lines.append("")
         for d in found:
             lines.append("- " + d)
     else:
         lines.append("None.")
     lines.append("")
-    with open(path, "w", encoding="utf-8") as fh:
-        fh.write("\n".join(lines))
+    return "\n".join(lines)
+
+
+def display_name_of_jkfit(key):
+    """cc-pvdz-jkfit -> cc-pVDZ-JKFIT, def2-tzvp-jkfit -> def2-TZVP-JKFIT (psi4's spelling)."""
+    stem = key[: -len("-jkfit")]
+    m = re.match(r"^(.*cc-)pv(\w)z$", stem)
+    if m:
+        return "%spV%sZ-JKFIT" % (m.group(1), m.group(2).upper())
+    if stem.startswith("def2-"):
+        return "def2-%s-JKFIT" % stem[5:].upper()
+    return key.upper()
+
+
+def check_jkfit_pairing():
+    """Compare JKFIT_FOR with psi4's own basis lists, when the psi4 package is installed."""
+    files = [os.path.join(PSI4_BASIS_LISTS, f) for f in ("basislistdunning.py", "basislistother.py")]
+    if not all(os.path.exists(f) for f in files):
+        print("note: psi4's basis lists not found; the JKFIT pairing was not re-checked", file=sys.stderr)
+        return
+    text = "".join(open(f, encoding="utf-8").read() for f in files)
+    found = {}
+    for var, aux in re.findall(r"basis_(\w+)\.add_jkfit\('([^']+)'\)", text):
+        found[var] = aux.lower()
+    failures = []
+    for key, aux in JKFIT_FOR.items():
+        var = key.replace("-", "").replace("*", "s").replace("+", "p")
+        if found.get(var) != aux:
+            failures.append("%s: psi4 pairs %r, the table says %r" % (key, found.get(var), aux))
+    if failures:
+        raise SystemExit("JKFIT pairing differs from psi4:\n  " + "\n  ".join(failures))
+
+
+def render_data_file(key, display, fname, convention, origin, elements):
+    """One basis as JSON, one line per element so that diffs stay readable."""
+    order = sorted(elements, key=lambda s: ATOMIC_NUMBER[s])
+    out = ["{"]
+    out.append('  "key": %s,' % json.dumps(key))
+    out.append('  "displayName": %s,' % json.dumps(display))
+    out.append('  "file": %s,' % json.dumps(fname))
+    out.append('  "functions": %s,' % json.dumps(convention))
+    out.append('  "origin": %s,' % json.dumps({"package": origin["package"], "version": origin["version"],
+                                              "licence": origin["licence"], "generatedBy": GENERATED_BY}))
+    out.append('  "elements": {')
+    for n, sym in enumerate(order):
+        rec = {"shells": elements[sym]["data"]}
+        if elements[sym]["ecp"] is not None:
+            rec["ecp"] = elements[sym]["ecp"]
+        sep = "," if n < len(order) - 1 else ""
+        out.append("    %s: %s%s" % (json.dumps(sym), json.dumps(rec, separators=(",", ":")), sep))
+    out.append("  }")
+    out.append("}")
+    return "\n".join(out) + "\n"
+
+
+def read_basis_file(basis_dir, fname, key, file_defects):
+    path = os.path.join(basis_dir, fname)
+    try:
+        convention, elements, skipped, defects = parse_gbs(path)
+    except GbsError as exc:
+        raise SystemExit(str(exc))
+    for n, s in skipped:
+        print("note: %s:%d: ignored text between blocks: %s" % (fname, n, s[:70]), file=sys.stderr)
+    for d in defects:
+        print("note: " + d, file=sys.stderr)
+    file_defects[key] = ["%s:%d: free text between blocks ignored: `%s…`" % (fname, n, s[:40])
+                         for n, s in skipped] + defects
+    return convention, elements
 
 
 def main():
     ap = argparse.ArgumentParser(description=__doc__.split("\n")[0])
     ap.add_argument("--basis-dir", default=DEFAULT_BASIS_DIR)
     ap.add_argument("--out-dir", default=DEFAULT_OUT_DIR)
+    ap.add_argument("--check", action="store_true",
+                    help="do not write; exit 1 if the committed files differ from a fresh build")
     args = ap.parse_args()
 
     version = dpkg_version(PACKAGE)
@@ -449,28 +626,29 @@ def main():
         COPYRIGHT_FILE,
         # Where the basis files live in the upstream source tree (1.x and older layouts).
         ["psi4/share/psi4/basis/cc-pvdz.gbs", "share/psi4/basis/cc-pvdz.gbs", "lib/basis/cc-pvdz.gbs"])
+    origin = {
+        "package": PACKAGE,
+        "version": version,
+        "path": args.basis_dir,
+        "licence": licence,
+        "generatedBy": GENERATED_BY,
+        "note": "Shell structure and counts; exponents and coefficients are in basis-sets/, read on demand.",
+    }
+    check_jkfit_pairing()
 
+    outputs = {}  # path relative to out-dir -> text
+    data_sizes = {}
     bases = {}
     titles = {}
     file_defects = {}
     for key, display, stem, required in BASES:
         fname = stem + ".gbs"
-        path = os.path.join(args.basis_dir, fname)
-        if not os.path.exists(path):
+        if not os.path.exists(os.path.join(args.basis_dir, fname)):
             if required:
-                raise SystemExit("missing %s" % path)
-            print("note: %s not present, %s skipped" % (path, key), file=sys.stderr)
+                raise SystemExit("missing %s" % os.path.join(args.basis_dir, fname))
+            print("note: %s not present, %s skipped" % (fname, key), file=sys.stderr)
             continue
-        try:
-            convention, elements, skipped, defects = parse_gbs(path)
-        except GbsError as exc:
-            raise SystemExit(str(exc))
-        for n, s in skipped:
-            print("note: %s:%d: ignored text between blocks: %s" % (fname, n, s[:70]), file=sys.stderr)
-        for d in defects:
-            print("note: " + d, file=sys.stderr)
-        file_defects[key] = ["%s:%d: free text between blocks ignored: `%s…`" % (fname, n, s[:40])
-                             for n, s in skipped] + defects
+        convention, elements = read_basis_file(args.basis_dir, fname, key, file_defects)
         order = sorted(elements, key=lambda s: ATOMIC_NUMBER[s])
         entry = {
             "displayName": display,
@@ -481,32 +659,80 @@ def main():
         ecp = {s: elements[s]["ecpCore"] for s in order if elements[s]["ecpCore"] is not None}
         if ecp:
             entry["ecpCoreElectrons"] = ecp
+        entry["jkfit"] = JKFIT_FOR[key]
+        entry["data"] = stem
         bases[key] = entry
-        titles[key] = read_title_lines(path)
+        titles[key] = read_title_lines(os.path.join(args.basis_dir, fname))
+        text = render_data_file(key, display, fname, convention, origin, elements)
+        outputs[os.path.join(DATA_SUBDIR, stem + ".json")] = text
+        data_sizes[stem] = len(text.encode())
+
+    aux = {}
+    by_content = {}
+    for aux_key in sorted(set(b["jkfit"] for b in bases.values())):
+        fname = aux_key + ".gbs"
+        if not os.path.exists(os.path.join(args.basis_dir, fname)):
+            raise SystemExit("missing %s" % os.path.join(args.basis_dir, fname))
+        convention, elements = read_basis_file(args.basis_dir, fname, aux_key, file_defects)
+        for sym, rec in elements.items():
+            if rec["ecp"] is not None:
+                raise SystemExit("%s: auxiliary set with an ECP on %s" % (fname, sym))
+        order = sorted(elements, key=lambda s: ATOMIC_NUMBER[s])
+        content = json.dumps([convention, [[s, elements[s]["data"]] for s in order]])
+        stem = by_content.get(content)
+        display = display_name_of_jkfit(aux_key)
+        if stem is None:
+            stem = aux_key
+            by_content[content] = stem
+            text = render_data_file(aux_key, display, fname, convention, origin, elements)
+            outputs[os.path.join(DATA_SUBDIR, stem + ".json")] = text
+            data_sizes[stem] = len(text.encode())
+        aux[aux_key] = {"displayName": display, "file": fname, "functions": convention,
+                        "elements": order, "data": stem}
+        titles[aux_key] = read_title_lines(os.path.join(args.basis_dir, fname))
 
     self_check(bases)
 
-    origin = {
-        "package": PACKAGE,
-        "version": version,
-        "path": args.basis_dir,
-        "licence": licence,
-        "generatedBy": GENERATED_BY,
-        "note": "Shell structure and counts only; no exponents.",
-    }
-    doc = {"origin": origin, "bases": bases}
-    os.makedirs(args.out_dir, exist_ok=True)
-    json_path = os.path.join(args.out_dir, "basis-library.json")
+    doc = {"origin": origin, "bases": bases, "auxiliary": aux}
     text = compact_json(doc)
     json.loads(text)  # the hand-laid layout must still be valid JSON
-    with open(json_path, "w", encoding="utf-8") as fh:
-        fh.write(text)
-    write_origin_md(os.path.join(args.out_dir, "BASIS-ORIGIN.md"), origin, bases, titles, stanza, holders,
-                    file_defects)
+    outputs["basis-library.json"] = text
+    outputs["BASIS-ORIGIN.md"] = write_origin_md(origin, bases, titles, stanza, holders, file_defects,
+                                                 aux, data_sizes)
+
+    data_dir = os.path.join(args.out_dir, DATA_SUBDIR)
+    if args.check:
+        stale = []
+        for rel, text in outputs.items():
+            try:
+                with open(os.path.join(args.out_dir, rel), encoding="utf-8") as fh:
+                    if fh.read() != text:
+                        stale.append(rel)
+            except OSError:
+                stale.append(rel + " (missing)")
+        extra = sorted(f for f in (os.listdir(data_dir) if os.path.isdir(data_dir) else [])
+                       if os.path.join(DATA_SUBDIR, f) not in outputs)
+        stale += [os.path.join(DATA_SUBDIR, f) + " (not generated)" for f in extra]
+        if stale:
+            print("stale: " + ", ".join(stale), file=sys.stderr)
+            raise SystemExit(1)
+        print("up to date: %d files" % len(outputs))
+        return
+
+    os.makedirs(data_dir, exist_ok=True)
+    for f in os.listdir(data_dir):
+        if os.path.join(DATA_SUBDIR, f) not in outputs:
+            os.remove(os.path.join(data_dir, f))
+    for rel, text in outputs.items():
+        with open(os.path.join(args.out_dir, rel), "w", encoding="utf-8") as fh:
+            fh.write(text)
 
     npairs = sum(len(b["shells"]) for b in bases.values())
+    total = sum(data_sizes.values())
     print("wrote %s (%d bytes, %d bases, %d basis/element pairs)"
-          % (os.path.relpath(json_path, REPO_ROOT), len(text.encode()), len(bases), npairs))
+          % (os.path.relpath(os.path.join(args.out_dir, "basis-library.json"), REPO_ROOT),
+             len(text.encode()), len(bases), npairs))
+    print("wrote %d data files in %s (%d bytes)" % (len(data_sizes), os.path.relpath(data_dir, REPO_ROOT), total))
     for key, b in bases.items():
         print("  %-11s %-16s %-9s %3d elements%s" % (
             key, b["file"], b["functions"], len(b["shells"]),

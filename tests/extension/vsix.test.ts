@@ -3,7 +3,7 @@
  * bundled client and server and the language files, no node_modules or sources, and a valid manifest.
  */
 import { execFileSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import yauzl from 'yauzl';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -11,6 +11,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 const root = path.resolve(__dirname, '..', '..');
 const manifest = JSON.parse(readFileSync(path.join(root, 'package.json'), 'utf8'));
 const vsix = path.join(root, `tessera-${manifest.version}.vsix`);
+/** The basis-set exponent files, shipped Brotli-compressed next to the server (scripts/build.mjs). */
+const basisData = readdirSync(path.join(root, 'server', 'src', 'chemistry', 'data', 'basis-sets'))
+  .filter((file) => file.endsWith('.json'))
+  .map((file) => `extension/dist/basis-sets/${file}.br`);
 
 function readZip(file: string): Promise<Map<string, Buffer>> {
   return new Promise((resolve, reject) => {
@@ -63,6 +67,8 @@ describe('the .vsix package', () => {
         'extension/package.json',
         'extension/readme.md',
         'extension/snippets/tessera.json',
+        'extension/dist/basis-sets/BASIS-ORIGIN.md',
+        ...basisData,
       ].sort(),
     );
   });
@@ -109,6 +115,10 @@ describe('the .vsix package', () => {
     expect(notices).toContain('3dmol');
     expect(notices).toContain('University of Pittsburgh');
     const total = [...files.values()].reduce((sum, buffer) => sum + buffer.length, 0);
-    expect(total).toBeLessThan(2 * 1024 * 1024);
+    expect(total).toBeLessThan(2.5 * 1024 * 1024);
+    // The exponent data is read on demand and stays compressed: about 0.4 MB for 24 bases and their JKFIT sets.
+    const data = [...files].filter(([name]) => name.startsWith('extension/dist/basis-sets/')).reduce((sum, [, buffer]) => sum + buffer.length, 0);
+    expect(data).toBeGreaterThan(100 * 1024);
+    expect(data).toBeLessThan(600 * 1024);
   });
 });

@@ -1,8 +1,9 @@
 /** Reading a spec and writing a command's output (standard output, or a file with --out). */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { analyzeDocument, type DocumentAnalysis } from '../analysis';
 import { UsageError, type CliIo } from './io';
+import { OutputError, resolveOutputTarget, writeOutputFile, type OutputContent, type ProtectedFile } from './outputFile';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from './output';
 
 export interface LoadedSpec {
@@ -42,23 +43,45 @@ export function specTitle(spec: LoadedSpec): string {
   return spec.analysis.model.name ?? path.basename(spec.file).replace(/\.tess$/i, '');
 }
 
-/** Refuses an --out that would overwrite the spec itself. */
-export function checkOutPath(out: string | undefined, spec: string, io: CliIo): void {
-  if (out === undefined) return;
-  if (out === '') throw new UsageError('--out needs a file name');
-  if (path.resolve(io.cwd, out) === path.resolve(io.cwd, spec)) throw new UsageError(`--out ${out} would overwrite the spec itself`);
+/** The files an --out must never replace: the spec and every file it read. */
+export function protectedFiles(spec: LoadedSpec): ProtectedFile[] {
+  return [
+    { file: spec.absolute, role: 'the spec itself' },
+    ...spec.analysis.model.includes.map((file) => ({ file, role: `a file the spec reads (${path.basename(file)})` })),
+  ];
 }
 
-/** Writes to standard output, or to `out`; false (after saying why) when the file cannot be written. */
-export function writeOutput(text: string, out: string | undefined, io: CliIo): boolean {
+/**
+ * Refuses an --out that would replace the spec or a file it reads (by real path and by inode, so
+ * also through symbolic and hard links), a folder or a device, before any work is done.
+ */
+export function checkOutPath(out: string | undefined, spec: LoadedSpec, io: CliIo): void {
+  if (out === undefined) return;
+  if (out === '') throw new UsageError('--out needs a file name');
+  try {
+    resolveOutputTarget(out, { cwd: io.cwd, protect: protectedFiles(spec), shownAs: out });
+  } catch (error) {
+    if (error instanceof OutputError && error.kind === 'refused') throw new UsageError(`--out: ${error.message}`);
+    // A folder that does not exist: reported when writing, after the spec's own diagnostics.
+  }
+}
+
+/**
+ * Writes to standard output, or to `out` through a temporary file and a rename (cli/outputFile.ts);
+ * false (after saying why) when the file cannot be written, in which case any old file is unchanged.
+ */
+export async function writeOutput(content: OutputContent, out: string | undefined, spec: LoadedSpec, io: CliIo): Promise<boolean> {
   if (out === undefined) {
-    io.stdout(text);
+    if (typeof content === 'string') io.stdout(content);
+    else if (content instanceof Uint8Array) io.stdout(Buffer.from(content).toString('utf8'));
+    else for await (const chunk of content) io.stdout(typeof chunk === 'string' ? chunk : Buffer.from(chunk).toString('utf8'));
     return true;
   }
   try {
-    writeFileSync(path.resolve(io.cwd, out), text, 'utf8');
+    await writeOutputFile(out, content, { cwd: io.cwd, protect: protectedFiles(spec), shownAs: out });
   } catch (error) {
-    io.stderr(`tessera: cannot write ${out}: ${reason(error)}\n`);
+    if (!(error instanceof OutputError)) throw error;
+    io.stderr(`tessera: ${error.message}\n`);
     return false;
   }
   return true;

@@ -21,12 +21,13 @@ export interface ExportOptions {
   out?: string;
 }
 
-export function runExport(options: ExportOptions, io: CliIo): number {
+export async function runExport(options: ExportOptions, io: CliIo): Promise<number> {
   if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema [--out <file>]');
   if (!options.to) throw new UsageError('export needs --to xyz or --to qcschema');
-  checkOutPath(options.out, options.spec, io);
+  if (options.out === '') throw new UsageError('--out needs a file name');
   const spec = loadSpec(options.spec, io);
   if (!spec) return EXIT_USAGE;
+  checkOutPath(options.out, spec, io);
   printDiagnostics(spec, io);
   if (spec.errors > 0) {
     io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
@@ -45,5 +46,5 @@ export function runExport(options: ExportOptions, io: CliIo): number {
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);
     return EXIT_ERRORS;
   }
-  return writeOutput(text, options.out, io) ? EXIT_OK : EXIT_USAGE;
+  return (await writeOutput(text, options.out, spec, io)) ? EXIT_OK : EXIT_USAGE;
 }

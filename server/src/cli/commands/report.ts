@@ -22,11 +22,12 @@ export interface ReportOptions {
   out?: string;
 }
 
-export function runReport(options: ReportOptions, io: CliIo): number {
+export async function runReport(options: ReportOptions, io: CliIo): Promise<number> {
   if (!options.spec) throw new UsageError('report needs a spec file: tessera report <file.tess> [--format markdown|html|csv] [--out <file>]');
-  checkOutPath(options.out, options.spec, io);
+  if (options.out === '') throw new UsageError('--out needs a file name');
   const spec = loadSpec(options.spec, io);
   if (!spec) return EXIT_USAGE;
+  checkOutPath(options.out, spec, io);
   const { analysis } = spec;
   const report = analysis.report();
   const problems: ProblemLine[] = spec.diagnostics
@@ -44,7 +45,7 @@ export function runReport(options: ReportOptions, io: CliIo): number {
     text = renderEstimateMarkdown(report, { level: 1, problems, full: true });
   }
   printDiagnostics(spec, io);
-  if (!writeOutput(text, options.out, io)) return EXIT_USAGE;
+  if (!(await writeOutput(text, options.out, spec, io))) return EXIT_USAGE;
   if (spec.errors > 0) io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'}: the figures in the report may be incomplete.\n`);
   return spec.errors > 0 ? EXIT_ERRORS : EXIT_OK;
 }
