@@ -10,7 +10,7 @@ import * as path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import Ajv from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
-import { analyze } from '../../server/src/language/analyze';
+import { analyzeDocument } from '../../server/src/analysis';
 import { parseXyz } from '../../server/src/language/xyz';
 import { allSamples, cleanSamples, root, run, scratch } from './harness';
 
@@ -77,7 +77,7 @@ interface QcExport {
 
 function specAnalysis(file: string) {
   const absolute = path.join(root, file);
-  return analyze(readFileSync(absolute, 'utf8'), { path: absolute });
+  return analyzeDocument(readFileSync(absolute, 'utf8'), { path: absolute });
 }
 
 /** Splits multi-frame XYZ text into one text per frame. */

@@ -3,11 +3,10 @@
  * values from outside the project named beside each.
  */
 import { describe, expect, it } from 'vitest';
-import { analyze } from '../../server/src/language/analyze';
-import { buildEstimateReport } from '../../server/src/report/estimate';
+import { analyzeDocument } from '../../server/src/analysis';
 
 function report(text: string) {
-  return buildEstimateReport(analyze(text));
+  return analyzeDocument(text).report();
 }
 
 // H2 at its experimental bond length 0.7414 Å (as commonly quoted; from memory).
@@ -121,18 +120,18 @@ describe('active spaces per irrep', () => {
   });
 
   it('reports an irrep the fragment\'s group does not have, and counts beyond what an irrep holds', () => {
-    const wrong = analyze(spec('4e A1=2 Bg=2'));
+    const wrong = analyzeDocument(spec('4e A1=2 Bg=2'));
     expect(wrong.diagnostics.find((d) => d.code === 'active-space-invalid')!.message).toContain("'Bg' is not an irrep of C2v");
-    const tooMany = analyze(spec('4e A1=2 A2=3'));
+    const tooMany = analyzeDocument(spec('4e A1=2 A2=3'));
     expect(tooMany.diagnostics.find((d) => d.code === 'active-space-invalid')!.message).toContain('has 2 A2 orbitals outside the frozen core; 3 cannot be active');
-    const sum = analyze(spec('4e 5o A1=2 B1=2'));
+    const sum = analyzeDocument(spec('4e 5o A1=2 B1=2'));
     expect(sum.diagnostics.find((d) => d.code === 'active-space-invalid')!.message).toContain('add up to 4, not 5');
   });
 });
 
 describe('limits with tapering and other mappings', () => {
   it('suggests tapering and the parity mapping when they would fit', () => {
-    const analysis = analyze(`basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; mapping jordan-wigner; active 4e 4o }\n}\nlimits { qubits 6 }\n`);
+    const analysis = analyzeDocument(`basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; mapping jordan-wigner; active 4e 4o }\n}\nlimits { qubits 6 }\n`);
     const message = analysis.diagnostics.find((d) => d.code === 'qubit-limit-exceeded')!.message;
     expect(message).toContain('needs 8 qubits');
     expect(message).toContain('`taper on` brings it to 4 qubits');
@@ -140,7 +139,7 @@ describe('limits with tapering and other mappings', () => {
   });
 
   it('compares the statevector memory with the limit: 30 qubits need 16 GiB (2^30 × 16 bytes)', () => {
-    const analysis = analyze(`basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; active 8e 15o }\n}\nlimits { memory 8 GiB }\n`);
+    const analysis = analyzeDocument(`basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; active 8e 15o }\n}\nlimits { memory 8 GiB }\n`);
     expect(analysis.diagnostics.find((d) => d.code === 'memory-limit-exceeded')!.message).toContain('needs 16.0 GiB');
   });
 });

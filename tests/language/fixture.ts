@@ -8,7 +8,7 @@
  * stripped text.
  */
 import { expect } from 'vitest';
-import { analyze, type AnalyzeOptions, type Analysis } from '../../server/src/language/analyze';
+import { analyzeDocument, type AnalysisOptions as AnalyzeOptions, type DocumentAnalysis as Analysis } from '../../server/src/analysis';
 import type { Diagnostic, DiagnosticCode } from '../../server/src/language/diagnostics';
 import type { FileHost, FileRead } from '../../server/src/language/files';
 import type { Span } from '../../server/src/language/text';
@@ -55,10 +55,10 @@ export function parseMarkers(marked: string): MarkedText {
   return { text, ranges, cursor };
 }
 
-/** Analyses text that may carry markers (they are stripped first). */
+/** Analyses text that may carry markers (they are stripped first); every diagnostic, the estimate checks' included. */
 export function analyzeMarked(marked: string, options: AnalyzeOptions = {}): Analysis & { marks: MarkedText } {
   const marks = parseMarkers(marked);
-  return { ...analyze(marks.text, options), marks };
+  return Object.assign(analyzeDocument(marks.text, options), { marks });
 }
 
 /** A compact, readable form of a diagnostic for assertion messages and equality checks. */

@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { CONVENTIONS, PLANNING_NOTE } from '../../server/src/report/estimate';
+import { CONVENTIONS, PLANNING_NOTE } from '../../server/src/analysis';
 import { allSamples, atPath, cleanSamples, root, run, scratch } from '../cli/harness';
 
 type Json = Record<string, unknown> & { system: Record<string, unknown>; fragments: (Record<string, unknown> & { name: string })[]; scan: { points: number; totals: Record<string, number | null> } | null; spec: { name: string | null }; note: string };

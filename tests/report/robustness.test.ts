@@ -5,14 +5,13 @@
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyze } from '../../server/src/language/analyze';
-import { buildEstimateReport } from '../../server/src/report/estimate';
+import { analyzeDocument } from '../../server/src/analysis';
 import { buildQcSchemaExport } from '../../server/src/report/export/qcschema';
 import { renderXyz } from '../../server/src/report/export/xyz';
 import { renderEstimateCsv } from '../../server/src/report/format/csv';
 import { renderReportHtml } from '../../server/src/report/format/html';
 import { renderEstimateMarkdown } from '../../server/src/report/format/render';
-import { activeSpaceGrowth, structureData } from '../../server/src/report/structure';
+import { structureData } from '../../server/src/report/structure';
 import { allSamples, root } from '../cli/harness';
 
 function variants(text: string): string[] {
@@ -31,17 +30,17 @@ describe('renderers and exports on broken specs', () => {
     const absolute = path.join(root, file);
     let exported = 0;
     for (const text of variants(readFileSync(absolute, 'utf8'))) {
-      const analysis = analyze(text, { path: absolute });
-      const report = buildEstimateReport(analysis);
-      const growth = analysis.model.fragments.filter((f) => f.tier?.level === 'quantum').map((f) => ({ fragment: f.name, points: activeSpaceGrowth(analysis, f.index, 12) }));
+      const analysis = analyzeDocument(text, { path: absolute });
+      const report = analysis.report();
+      const growth = analysis.model.fragments.filter((f) => f.tier?.level === 'quantum').map((f) => ({ fragment: f.name, points: analysis.growth(f.index, 12) }));
       expect(renderEstimateMarkdown(report, { full: true, problems: [] })).toContain('# Resource report');
       expect(renderReportHtml(report, { growth })).toContain('</html>');
       expect(renderEstimateCsv(report).split('\r\n')[0]).toMatch(/^spec,part,name,/);
       // The CLI exports only specs without errors; those must always export.
       if (analysis.diagnostics.some((d) => d.severity === 'error')) continue;
-      const data = structureData(analysis, report);
+      const data = structureData(analysis);
       expect(renderXyz(data, { title: 't', version: '0' })).toMatch(/^\d+\n/);
-      expect(buildQcSchemaExport(analysis, report, data, { title: 't', version: '0' }).system.symbols).toHaveLength(analysis.model.atoms.length);
+      expect(buildQcSchemaExport(analysis, data, { title: 't', version: '0' }).system.symbols).toHaveLength(analysis.model.atoms.length);
       exported++;
     }
     if (file !== 'samples/mistakes.tess') expect(exported).toBeGreaterThan(0);

@@ -6,8 +6,7 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import * as path from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyze } from '../../server/src/language/analyze';
-import { buildEstimateReport } from '../../server/src/report/estimate';
+import { analyzeDocument } from '../../server/src/analysis';
 
 const samplesFolder = path.resolve(__dirname, '..', '..', 'samples');
 
@@ -22,14 +21,14 @@ const samples = sampleFiles(samplesFolder).map((file) => readFileSync(file, 'utf
 
 /** Analysis must finish, keep its invariants, and every diagnostic must sit inside the text. */
 function analyseSafely(text: string): void {
-  const analysis = analyze(text, { path: path.join(samplesFolder, 'fuzz.tess') });
+  const analysis = analyzeDocument(text, { path: path.join(samplesFolder, 'fuzz.tess') });
   for (const diagnostic of analysis.diagnostics) {
     expect(diagnostic.span.start).toBeGreaterThanOrEqual(0);
     expect(diagnostic.span.end).toBeLessThanOrEqual(text.length);
     expect(diagnostic.span.start).toBeLessThanOrEqual(diagnostic.span.end);
     expect(diagnostic.message.length).toBeGreaterThan(0);
   }
-  const report = buildEstimateReport(analysis);
+  const report = analysis.report();
   expect(() => JSON.stringify(report)).not.toThrow();
 }
 
@@ -82,7 +81,7 @@ describe('analysis never fails', () => {
 
   it('deep nesting', () => {
     const depth = 100_000;
-    const analysis = analyze(`${'{'.repeat(depth)}${'}'.repeat(depth)}\ngeometry { H 0 0 0 }`);
+    const analysis = analyzeDocument(`${'{'.repeat(depth)}${'}'.repeat(depth)}\ngeometry { H 0 0 0 }`);
     expect(analysis.diagnostics.some((d) => d.message.includes('nested deeper'))).toBe(true);
     expect(analysis.model.atoms).toHaveLength(1);
     analyseSafely(`fragment a ${'{ tier quantum '.repeat(5_000)}`);

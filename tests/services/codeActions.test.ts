@@ -6,9 +6,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic } from 'vscode-languageserver-types';
-import { analyze } from '../../server/src/language/analyze';
+import { analyzeDocument } from '../../server/src/analysis';
 import type { DiagnosticCode } from '../../server/src/language/diagnostics';
-import { doValidation, estimateOf, getCodeActions, toLspDiagnostic } from '../../server/src/services';
+import { doValidation, getCodeActions, toLspDiagnostic } from '../../server/src/services';
 import { applyEdits, editsFor, URI } from './service';
 
 /** Water at r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979); from memory). */
@@ -36,7 +36,7 @@ interface Applied {
 
 /** The quick fixes for every diagnostic of `code` in the text, each applied on its own. */
 function fixes(text: string, code: DiagnosticCode): Applied[] {
-  const analysis = analyze(text);
+  const analysis = analyzeDocument(text);
   const diagnostics = doValidation(analysis, URI).filter((d) => d.code === code);
   expect(diagnostics.length, `expected a '${code}' diagnostic`).toBeGreaterThan(0);
   return getCodeActions(analysis, URI, diagnostics).map((action) => {
@@ -45,7 +45,7 @@ function fixes(text: string, code: DiagnosticCode): Applied[] {
       action,
       text: fixed,
       before: analysis.diagnostics.map((d) => d.code),
-      after: analyze(fixed).diagnostics.map((d) => d.code),
+      after: analyzeDocument(fixed).diagnostics.map((d) => d.code),
     };
   });
 }
@@ -110,7 +110,7 @@ describe('unassigned atoms', () => {
     expect(fix!.text.endsWith('} }\n\nfragment environment {\n  atoms rest\n  tier mean-field { method rhf }\n}\n')).toBe(true);
     // Cutting the O–H bond between the fragments is a warning the new fragment brings: allowed.
     expect(fix!.after).not.toContain('atoms-unassigned');
-    expect(analyze(fix!.text).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    expect(analyzeDocument(fix!.text).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
   });
 
   it('under a name not yet taken', () => {
@@ -147,7 +147,7 @@ describe('unassigned atoms', () => {
     expect(intoV.text).toContain('fragment v { atoms h2; tier mean-field { method rohf } }');
     expect(intoV.after).not.toContain('atoms-unassigned');
     expect(intoV.after).not.toContain('fragment-empty');
-    expect(analyze(intoV.text).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    expect(analyzeDocument(intoV.text).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
   });
 });
 
@@ -230,14 +230,14 @@ describe('length unit', () => {
 
 describe('diagnostics without a fix, and from elsewhere', () => {
   it('offers nothing for a diagnostic without fix data', () => {
-    const analysis = analyze(`basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h 0 0 0.1\n}\n${MEAN_FIELD}`);
+    const analysis = analyzeDocument(`basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h 0 0 0.1\n}\n${MEAN_FIELD}`);
     const diagnostics = doValidation(analysis, URI).filter((d) => d.code === 'atoms-too-close');
     expect(diagnostics.length).toBe(1);
     expect(getCodeActions(analysis, URI, diagnostics)).toEqual([]);
   });
 
   it('ignores diagnostics another tool published', () => {
-    const analysis = analyze(`multiplicity 2\nbasis sto-3g\n${WATER}${MEAN_FIELD}`);
+    const analysis = analyzeDocument(`multiplicity 2\nbasis sto-3g\n${WATER}${MEAN_FIELD}`);
     const own = doValidation(analysis, URI).find((d) => d.code === 'multiplicity-parity')!;
     const foreign: LspDiagnostic = { ...own, source: 'spell-checker' };
     expect(getCodeActions(analysis, URI, [foreign])).toEqual([]);
@@ -249,14 +249,14 @@ describe('symmetrize', () => {
   it('makes a nearly symmetric water exactly C2v, and the near-symmetry note goes', () => {
     // One H of water moved 0.02 Å: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å.
     const text = 'basis sto-3g\ngeometry {\n  O o 0.0000 0.0000 0.1173\n  H h1 0.0000 0.7572 -0.4692\n  H h2 0.0000 -0.7572 -0.4492\n}\n';
-    const before = analyze(text);
+    const before = analyzeDocument(text);
     const note = before.diagnostics.find((d) => d.code === 'near-symmetry')!;
     expect(note.message).toContain('C2v within');
     const lsp = toLspDiagnostic(before, URI, note);
     const fix = getCodeActions(before, URI, [lsp]).find((action) => action.title === 'Symmetrize the geometry to C2v')!;
-    const after = analyze(applyEdits(text, fix.edit!.changes![URI]!));
+    const after = analyzeDocument(applyEdits(text, fix.edit!.changes![URI]!));
     expect(after.diagnostics.map((d) => d.code)).not.toContain('near-symmetry');
-    expect(estimateOf(after).system.fullPointGroup).toBe('C2v');
+    expect(after.report().system.fullPointGroup).toBe('C2v');
     // The two O–H distances are equal again.
     const c = after.model.coordinates;
     const d1 = Math.hypot(c[3]! - c[0]!, c[4]! - c[1]!, c[5]! - c[2]!);

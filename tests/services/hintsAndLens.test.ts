@@ -4,11 +4,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { InlayHintKind } from 'vscode-languageserver-types';
-import { analyze } from '../../server/src/language/analyze';
+import { analyzeDocument } from '../../server/src/analysis';
 import { getCodeLenses, getInlayHints, largestQubitCount } from '../../server/src/services';
 import { positionOf, readSample } from './service';
 
-const zinc = analyze(readSample('zn-site-h2s-scan.tess'));
+const zinc = analyzeDocument(readSample('zn-site-h2s-scan.tess'));
 
 describe('inlay hints', () => {
   it('after each fragment name: qubits for a quantum tier, orbitals and electrons otherwise', () => {
@@ -50,11 +50,11 @@ describe('inlay hints', () => {
     // Tapering: 4 active orbitals spread over C2v irreps in proportion to the 10 A1, 2 A2, 4 B1 and
     // 7 B2 orbitals outside the core (2 A1, 1 B1, 1 B2); both generators act on them, so with the
     // two number parities 4 qubits go (Bravyi et al. 2017): 8 − 4 = 4.
-    expect(getInlayHints(analyze(readSample('molecules/water-cc-pvdz.tess'))).map((hint) => hint.label)).toEqual(['6 qubits · 4 tapered']);
+    expect(getInlayHints(analyzeDocument(readSample('molecules/water-cc-pvdz.tess'))).map((hint) => hint.label)).toEqual(['6 qubits · 4 tapered']);
   });
 
   it('none for a fragment without a name', () => {
-    const analysis = analyze('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment { atoms rest; tier mean-field { method rhf } }\n');
+    const analysis = analyzeDocument('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment { atoms rest; tier mean-field { method rhf } }\n');
     expect(getInlayHints(analysis)).toEqual([]);
   });
 });
@@ -77,18 +77,18 @@ describe('code lens', () => {
 
   it('counts cartesian functions when the basis asks for them, and leaves out what is absent', () => {
     // Dinitrogen in cc-pVTZ, cartesian: N [4s3p2d1f] = 4 + 9 + 12 + 10 = 35 (tests/fixtures/basis-counts.nwchem.json), × 2.
-    const [lens] = getCodeLenses(analyze(readSample('molecules/dinitrogen-bases.tess')));
+    const [lens] = getCodeLenses(analyzeDocument(readSample('molecules/dinitrogen-bases.tess')));
     expect(lens!.command!.title).toBe('2 atoms · 14 e⁻ · 70 cartesian functions · 1 fragment · largest quantum fragment 16 qubits (n2)');
   });
 
   it('names no quantum fragment when there is none', () => {
-    const analysis = analyze('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n');
+    const analysis = analyzeDocument('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n');
     // STO-3G: one function per H (Hehre, Stewart, Pople, J. Chem. Phys. 51, 2657 (1969)).
     expect(getCodeLenses(analysis)[0]!.command!.title).toBe('2 atoms · 2 e⁻ · 2 spherical functions · 1 fragment');
     expect(largestQubitCount(analysis)).toBeUndefined();
   });
 
   it('none for an empty spec', () => {
-    expect(getCodeLenses(analyze('# only a comment\n'))).toEqual([]);
+    expect(getCodeLenses(analyzeDocument('# only a comment\n'))).toEqual([]);
   });
 });

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { MarkupContent, Position, Range, TextEdit, WorkspaceEdit } from 'vscode-languageserver-types';
-import type { Analysis, AnalyzeOptions } from '../../server/src/language/analyze';
+import type { AnalysisOptions as AnalyzeOptions, DocumentAnalysis as Analysis } from '../../server/src/analysis';
 import type { Span } from '../../server/src/language/text';
 import { analyzeMarked, type MarkedText } from '../language/fixture';
 

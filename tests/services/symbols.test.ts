@@ -3,7 +3,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { SymbolKind, type DocumentSymbol, type Range } from 'vscode-languageserver-types';
-import { analyze } from '../../server/src/language/analyze';
+import { analyzeDocument } from '../../server/src/analysis';
 import { findDocumentSymbols, findWorkspaceSymbols } from '../../server/src/services';
 import { positionOf, rangeOfText, readSample } from './service';
 
@@ -27,7 +27,7 @@ function outline(symbols: readonly DocumentSymbol[]): Outline[] {
 
 describe('outline', () => {
   it('of the zinc-site sample: names, kinds, details and line spans', () => {
-    const analysis = analyze(readSample('zn-site-h2s-scan.tess'));
+    const analysis = analyzeDocument(readSample('zn-site-h2s-scan.tess'));
     // Line numbers are 1-based, as an editor shows them. Figures: 'site' is zn and #2..#9 (9 atoms)
     // with a 10e 10o active space, 2 × 10 = 20 qubits under Jordan–Wigner; 'guest' is S and two H;
     // 'frame' takes the remaining 20 − 9 − 3 = 8 atoms; the scan from 2.3 to 3.5 Å in steps of
@@ -46,7 +46,7 @@ describe('outline', () => {
   });
 
   it('selects the fragment name, and the keyword of other statements', () => {
-    const analysis = analyze(readSample('zn-site-h2s-scan.tess'));
+    const analysis = analyzeDocument(readSample('zn-site-h2s-scan.tess'));
     const symbols = findDocumentSymbols(analysis);
     const site = symbols.find((symbol) => symbol.name === 'fragment site')!;
     expect(site.selectionRange).toEqual({ start: positionOf(analysis, 'fragment site', 9), end: positionOf(analysis, 'fragment site', 13) });
@@ -61,18 +61,18 @@ describe('outline', () => {
   it('of a quantum fragment under the parity mapping: 2 × 4 − 2 = 6 qubits', () => {
     // water-cc-pvdz.tess: active 4e 4o, parity with the two-qubit reduction (Bravyi, Gambetta,
     // Mezzacapo, Temme, arXiv:1701.08213 (2017)).
-    const symbols = findDocumentSymbols(analyze(readSample('molecules/water-cc-pvdz.tess')));
+    const symbols = findDocumentSymbols(analyzeDocument(readSample('molecules/water-cc-pvdz.tess')));
     expect(symbols.find((symbol) => symbol.kind === SymbolKind.Class)?.detail).toBe('quantum · 3 atoms · 6 qubits · 4 tapered');
   });
 
   it('leaves out statements that are not outline entries and unknown keywords', () => {
-    const analysis = analyze('units bohr\ncharge 0\nbassis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment f { atoms rest }\n');
+    const analysis = analyzeDocument('units bohr\ncharge 0\nbassis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment f { atoms rest }\n');
     expect(findDocumentSymbols(analysis).map((symbol) => symbol.name)).toEqual(['geometry', 'fragment f']);
   });
 
   it('of every sample: one fragment entry per fragment', () => {
     for (const name of ['mistakes.tess', 'molecules/benzene-6-31gs.tess', 'open-shell/copper-aqua-doublet.tess']) {
-      const analysis = analyze(readSample(name));
+      const analysis = analyzeDocument(readSample(name));
       const fragments = findDocumentSymbols(analysis).filter((symbol) => symbol.kind === SymbolKind.Class);
       expect(fragments.map((symbol) => symbol.name), name).toEqual(analysis.model.fragments.map((fragment) => `fragment ${fragment.name}`));
     }
@@ -80,8 +80,8 @@ describe('outline', () => {
 });
 
 describe('workspace symbols', () => {
-  const zinc = { uri: 'file:///work/zn-site-h2s-scan.tess', analysis: analyze(readSample('zn-site-h2s-scan.tess')) };
-  const copper = { uri: 'file:///work/copper-aqua-doublet.tess', analysis: analyze(readSample('open-shell/copper-aqua-doublet.tess')) };
+  const zinc = { uri: 'file:///work/zn-site-h2s-scan.tess', analysis: analyzeDocument(readSample('zn-site-h2s-scan.tess')) };
+  const copper = { uri: 'file:///work/copper-aqua-doublet.tess', analysis: analyzeDocument(readSample('open-shell/copper-aqua-doublet.tess')) };
 
   it('finds fragments and spec names in both documents, case-blind', () => {
     const found = findWorkspaceSymbols([zinc, copper], 'E');
@@ -108,7 +108,7 @@ describe('workspace symbols', () => {
   });
 
   it('omits the container of a spec without a name', () => {
-    const unnamed = { uri: 'file:///work/unnamed.tess', analysis: analyze('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n') };
+    const unnamed = { uri: 'file:///work/unnamed.tess', analysis: analyzeDocument('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n') };
     const found = findWorkspaceSymbols([unnamed], 'h2');
     expect(found).toEqual([{ name: 'h2', kind: SymbolKind.Class, location: { uri: unnamed.uri, range: { start: positionOf(unnamed.analysis, 'h2 {'), end: positionOf(unnamed.analysis, 'h2 {', 2) } } }]);
   });

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { FoldingRangeKind, type Position, type Range, type SelectionRange } from 'vscode-languageserver-types';
-import { analyze } from '../../server/src/language/analyze';
+import { analyzeDocument } from '../../server/src/analysis';
 import { getFoldingRanges, getSelectionRanges, getSemanticTokens, semanticTokensLegend } from '../../server/src/services';
 import { marked, readSample, SAMPLE_NAMES } from './service';
 
@@ -73,28 +73,28 @@ const EXPECTED: Token[] = [
 describe('semantic tokens', () => {
   for (const fastGeometry of [true, false]) {
     it(`decode to the expected types (${fastGeometry ? 'fast' : 'general'} geometry reader)`, () => {
-      const analysis = analyze(SPEC, { fastGeometry });
+      const analysis = analyzeDocument(SPEC, { fastGeometry });
       expect(decode(SPEC, getSemanticTokens(analysis).data)).toEqual(EXPECTED);
     });
   }
 
   it('mark a misspelt keyword as nothing, and a known keyword in the wrong block as nothing', () => {
     const text = 'bassis sto-3g\nfragment f {\n  method vqe\n}\n';
-    const tokens = decode(text, getSemanticTokens(analyze(text)).data);
+    const tokens = decode(text, getSemanticTokens(analyzeDocument(text)).data);
     expect(tokens.filter(([word]) => word === 'bassis' || word === 'method')).toEqual([]);
     expect(tokens).toContainEqual(['fragment', 'keyword']);
   });
 
   it('measure a comment on a CRLF line without its carriage return', () => {
     const text = 'spec "t" # note\r\nunits bohr\r\n';
-    expect(decode(text.replace(/\r/g, ''), getSemanticTokens(analyze(text)).data)).toEqual([
+    expect(decode(text.replace(/\r/g, ''), getSemanticTokens(analyzeDocument(text)).data)).toEqual([
       ['spec', 'keyword'], ['"t"', 'string'], ['# note', 'comment'], ['units', 'keyword'], ['bohr', 'unit'],
     ]);
   });
 
   it('are sorted and never overlap on any sample', () => {
     for (const name of SAMPLE_NAMES) {
-      const data = getSemanticTokens(analyze(readSample(name))).data;
+      const data = getSemanticTokens(analyzeDocument(readSample(name))).data;
       for (let i = 5; i < data.length; i += 5) {
         const sameLine = data[i] === 0;
         if (sameLine) expect(data[i + 1]!, `${name}: token ${i / 5} starts inside the previous one`).toBeGreaterThanOrEqual(data[i - 3]!);
@@ -125,7 +125,7 @@ units bohr  # trailing
 # two comment
 # lines at the end
 `;
-    const ranges = getFoldingRanges(analyze(text));
+    const ranges = getFoldingRanges(analyzeDocument(text));
     expect(ranges).toEqual([
       { startLine: 4, endLine: 5 },
       { startLine: 8, endLine: 12 },
@@ -136,7 +136,7 @@ units bohr  # trailing
   });
 
   it('fold a geometry block without looking inside it', () => {
-    const ranges = getFoldingRanges(analyze(readSample('molecules/water-cc-pvdz.tess')));
+    const ranges = getFoldingRanges(analyzeDocument(readSample('molecules/water-cc-pvdz.tess')));
     // Lines (0-based): comments 0–2, geometry 7–11, fragment 13–21 with its tier 15–20.
     expect(ranges).toEqual([
       { startLine: 7, endLine: 10 },
@@ -147,7 +147,7 @@ units bohr  # trailing
   });
 
   it('fold an unclosed block to its last line of content', () => {
-    expect(getFoldingRanges(analyze('fragment w {\n  atoms rest\n  tier mean-field {\n    method rhf\n\n'))).toEqual([
+    expect(getFoldingRanges(analyzeDocument('fragment w {\n  atoms rest\n  tier mean-field {\n    method rhf\n\n'))).toEqual([
       { startLine: 0, endLine: 3 },
       { startLine: 2, endLine: 3 },
     ]);
@@ -206,7 +206,7 @@ fragment w {
 
 /** The text of each range of a selection chain, innermost first, checking each contains the last. */
 function texts(text: string, selection: SelectionRange, position: Position): string[] {
-  const analysis = analyze(text);
+  const analysis = analyzeDocument(text);
   const out: string[] = [];
   let previous: Range = { start: position, end: position };
   for (let current: SelectionRange | undefined = selection; current; current = current.parent) {

@@ -5,16 +5,16 @@
  */
 import { describe, expect, it } from 'vitest';
 import { checkCosts, checkStructure } from '../../client/src/views/protocol';
-import { analyze } from '../../server/src/language/analyze';
-import { costPlots, estimateOf, growthFragments, structureOf, viewTargetAt } from '../../server/src/services';
+import { analyzeDocument } from '../../server/src/analysis';
+import { costPlots, growthFragments, structureOf, viewTargetAt } from '../../server/src/services';
 import { positionOf, readSample, SAMPLE_NAMES } from './service';
 
-const zinc = analyze(readSample('zn-site-h2s-scan.tess'));
+const zinc = analyzeDocument(readSample('zn-site-h2s-scan.tess'));
 
 describe('structure data for the view', () => {
   it('passes the view checks for every sample, as JSON', () => {
     for (const name of SAMPLE_NAMES) {
-      const data = JSON.parse(JSON.stringify(structureOf(analyze(readSample(name)))));
+      const data = JSON.parse(JSON.stringify(structureOf(analyzeDocument(readSample(name)))));
       const checked = checkStructure(data);
       expect(checked.ok ? 'ok' : `${name}: ${checked.reason}`).toBe('ok');
     }
@@ -39,7 +39,7 @@ describe('structure data for the view', () => {
 describe('cost plots for the panel', () => {
   it('pass the panel checks for every sample', () => {
     for (const name of SAMPLE_NAMES) {
-      const analysis = analyze(readSample(name));
+      const analysis = analyzeDocument(readSample(name));
       for (const fragment of [null, ...growthFragments(analysis).map((f) => f.index)]) {
         const checked = checkCosts(JSON.parse(JSON.stringify(costPlots(analysis, fragment))));
         expect(checked.ok ? 'ok' : `${name} (${fragment}): ${checked.reason}`).toBe('ok');
@@ -70,8 +70,8 @@ describe('cost plots for the panel', () => {
   });
 
   it('select nothing when no fragment has a sized problem', () => {
-    const analysis = analyze('basis sto-3g\ngeometry {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment h { atoms rest; tier mean-field { method rhf } }\n');
-    expect(estimateOf(analysis).fragments).toHaveLength(1);
+    const analysis = analyzeDocument('basis sto-3g\ngeometry {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment h { atoms rest; tier mean-field { method rhf } }\n');
+    expect(analysis.report().fragments).toHaveLength(1);
     const plots = costPlots(analysis);
     expect(plots.fragments).toEqual([]);
     expect(plots.selected).toBeNull();

@@ -59,6 +59,23 @@ export function nobleGasCoreOrbitals(z: number): number {
   return 43;
 }
 
+/**
+ * Shells of the noble-gas core as counts per angular momentum (common practice, no source): He 1s;
+ * Ne 1s2s2p; Ar + 3s3p; Kr + 3d4s4p; Xe + 4d5s5p; Rn + 4f5d6s6p; less the shells an effective
+ * core potential replaces (28 electrons: 1s–3d; 46: 1s–4d; 60: 1s–4f). Consistent with
+ * nobleGasCoreOrbitals: the spherical functions of these shells number that many orbitals.
+ */
+export function frozenCoreShells(z: number, ecpCoreElectrons: number): number[] {
+  const core = [...(CORE_SHELLS[nobleGasCoreOrbitals(z)] ?? [])];
+  const removed = ECP_SHELLS[ecpCoreElectrons] ?? [];
+  return core.map((count, l) => Math.max(0, count - (removed[l] ?? 0)));
+}
+
+/** Noble-gas core shells (s, p, d, f counts) by the number of core orbitals. */
+const CORE_SHELLS: Readonly<Record<number, readonly number[]>> = { 0: [], 1: [1], 5: [2, 1], 9: [3, 2], 18: [4, 3, 1], 27: [5, 4, 2], 43: [6, 5, 3, 1] };
+/** Shells (s, p, d, f counts) an effective core potential replaces, by its core electrons. */
+const ECP_SHELLS: Readonly<Record<number, readonly number[]>> = { 0: [], 10: [2, 1], 18: [3, 2], 28: [3, 2, 1], 36: [4, 3, 1], 46: [4, 3, 2], 54: [5, 4, 2], 60: [4, 3, 2, 1], 68: [5, 4, 2, 1], 78: [5, 4, 3, 1] };
+
 /** Chemical formula in Hill order (C first, then H, then alphabetical; alphabetical if no C). */
 export function hillFormula(symbols: Iterable<string>): string {
   const counts = new Map<string, number>();

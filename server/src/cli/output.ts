@@ -15,7 +15,7 @@ export interface PrintedDiagnostic {
 }
 
 /** Lines and columns are 1-based in printed output, as compilers print them. */
-export function printable(file: string, analysis: Analysis, diagnostic: Diagnostic): PrintedDiagnostic {
+export function printable(file: string, analysis: Pick<Analysis, 'lines'>, diagnostic: Diagnostic): PrintedDiagnostic {
   const range = analysis.lines.rangeOf(diagnostic.span);
   return {
     file,

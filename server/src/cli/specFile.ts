@@ -1,7 +1,7 @@
 /** Reading a spec and writing a command's output (standard output, or a file with --out). */
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import { analyze, type Analysis } from '../language/analyze';
+import { analyzeDocument, type DocumentAnalysis } from '../analysis';
 import { UsageError, type CliIo } from './io';
 import { OutputError, resolveOutputTarget, writeOutputFile, type OutputContent, type ProtectedFile } from './outputFile';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from './output';
@@ -9,7 +9,7 @@ import { formatDiagnosticLine, printable, type PrintedDiagnostic } from './outpu
 export interface LoadedSpec {
   readonly file: string;
   readonly absolute: string;
-  readonly analysis: Analysis;
+  readonly analysis: DocumentAnalysis;
   readonly diagnostics: PrintedDiagnostic[];
   readonly errors: number;
 }
@@ -28,7 +28,7 @@ export function loadSpec(file: string, io: CliIo): LoadedSpec | undefined {
     io.stderr(`tessera: cannot read ${file}: ${reason(error)}\n`);
     return undefined;
   }
-  const analysis = analyze(text, { path: absolute });
+  const analysis = analyzeDocument(text, { path: absolute });
   const diagnostics = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
   return { file, absolute, analysis, diagnostics, errors: diagnostics.filter((d) => d.severity === 'error').length };
 }

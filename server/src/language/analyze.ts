@@ -9,10 +9,8 @@ import { checkBasis } from './checks/basis';
 import type { Check } from './checks/context';
 import { checkFragments } from './checks/fragments';
 import { checkGeometry } from './checks/geometry';
-import { checkLimits } from './checks/limits';
 import { checkScan } from './checks/scan';
 import { checkSpin } from './checks/spin';
-import { checkSymmetry } from './checks/symmetry';
 import { checkTiers } from './checks/tiers';
 import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
@@ -46,7 +44,7 @@ export interface Analysis {
 }
 
 /** The checks, in the order their findings are most useful to read. */
-export const CHECKS: readonly Check[] = [checkGeometry, checkSymmetry, checkBasis, checkSpin, checkFragments, checkTiers, checkActiveSpaces, checkLimits, checkScan];
+export const CHECKS: readonly Check[] = [checkGeometry, checkBasis, checkSpin, checkFragments, checkTiers, checkActiveSpaces, checkScan];
 
 const SYNTAX_CODES: Record<SyntaxProblem['code'], DiagnosticCode> = {
   syntax: 'unexpected-token',

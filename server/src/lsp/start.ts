@@ -18,7 +18,8 @@ import {
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { MAPPINGS, type Mapping } from '../chemistry/qubits';
 import * as service from '../services';
-import { AnalysisCache, Debouncer, pathToUri, uriToPath, type AnalysisSettings } from './documents';
+import { AnalysisHost, type AnalysisSettings } from '../analysis';
+import { Debouncer, pathToUri, uriToPath } from './documents';
 
 /** Quiet time after the last keystroke before diagnostics are recomputed. */
 const DIAGNOSTICS_DELAY_MS = 20;
@@ -48,22 +49,19 @@ function readSettings(raw: unknown): EditorSettings {
 
 export function startLanguageServer(connection: Connection = createConnection(ProposedFeatures.all)): Connection {
   const documents = new TextDocuments(TextDocument);
-  const cache = new AnalysisCache((uri) => documents.get(uri));
+  const cache = new AnalysisHost({ open: (uri) => documents.get(uri), pathOf: uriToPath, uriOf: pathToUri });
   const debouncer = new Debouncer(DIAGNOSTICS_DELAY_MS);
   let settings = DEFAULT_SETTINGS;
   let canPullConfiguration = false;
   let canWatchFiles = false;
 
-  const analysisOf = (uri: string) => {
-    const document = documents.get(uri);
-    return document ? cache.get(document) : undefined;
-  };
+  const analysisOf = (uri: string) => cache.get(uri);
 
   const publish = (uri: string) => {
     const document = documents.get(uri);
     if (!document) return;
     const version = document.version;
-    const analysis = cache.get(document);
+    const analysis = cache.get(uri)!;
     // A newer version may have arrived while this one was analysed; its own run will publish.
     if (documents.get(uri)?.version !== version) return;
     void connection.sendDiagnostics({ uri, version, diagnostics: service.doValidation(analysis, uri, pathToUri) });
@@ -190,7 +188,7 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
   );
   connection.onDocumentSymbol(onDocument((analysis) => service.findDocumentSymbols(analysis), []));
   connection.onWorkspaceSymbol((params) => {
-    const open = documents.all().map((document) => ({ uri: document.uri, analysis: cache.get(document) }));
+    const open = documents.all().map((document) => ({ uri: document.uri, analysis: cache.get(document.uri)! }));
     return service.findWorkspaceSymbols(open, params.query);
   });
   connection.languages.semanticTokens.on(onDocument((analysis) => service.getSemanticTokens(analysis), { data: [] }));
@@ -209,8 +207,8 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
   connection.onRequest('tessera/summary', (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);
     if (!analysis) return null;
-    const largest = service.largestQubitCount(analysis);
-    const errors = analysis.diagnostics.filter((d) => d.severity === 'error').length;
+    const largest = analysis.largestQubitCount();
+    const errors = analysis.counts().errors;
     return { largestQubits: largest?.qubits ?? null, fragment: largest?.fragment ?? null, errors, limit: analysis.model.limits.qubits ?? null };
   });
   // Data for the extension's structure view and cost panel.

@@ -4,8 +4,8 @@
  * Plain SVG with presentation attributes only (no scripts, no style attributes), so that it embeds
  * in HTML reports and in a webview with a strict content-security policy.
  */
-import type { EstimateReport } from './estimate';
-import type { GrowthPoint } from './structure';
+import type { EstimateReport } from '../analysis';
+import type { GrowthPoint } from '../analysis';
 
 const WIDTH = 640;
 const HEIGHT = 340;

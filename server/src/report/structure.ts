@@ -1,17 +1,9 @@
 /**
  * Plain data for pictures and hand-off: atoms with their fragment, bonds (cut ones marked),
- * fragment colours and cost labels, the scan with the atoms it moves, and the growth of a
- * fragment's cost with its active-space size. The structure view, the plots and the exports read it.
+ * fragment colours and cost labels, the scan with the atoms it moves (from the document's
+ * analysis). The structure view and the exports read it.
  */
-import { countPauliTerms } from '../chemistry/estimate/pauliTerms';
-import { symmetryPattern } from '../chemistry/estimate/integralPattern';
-import { apportion, spreadIrreps } from '../chemistry/estimate/plan';
-import { taperQubits } from '../chemistry/estimate/tapering';
-import { bondedGroup } from '../chemistry/scan';
-import type { Analysis } from '../language/analyze';
-import { estimatesOf, planSymmetry } from '../language/estimates';
-import type { SpecModel } from '../language/model';
-import type { EstimateReport } from './estimate';
+import type { DocumentAnalysis, FragmentFigures } from '../analysis';
 
 /** Fragment colours of our own palette, chosen to stay apart for the colour-blind (no source). */
 export const FRAGMENT_COLOURS = ['#e69f00', '#0072b2', '#009e73', '#cc79a7', '#56b4e9', '#d55e00', '#f0e442', '#7f7f7f'];
@@ -38,22 +30,12 @@ export interface StructureData {
   scan: { first: number; second: number; distances: number[]; moving: number[] } | null;
 }
 
-/** The atoms a scan moves: the second atom's fragment, or its bonded group without fragments. */
-export function scanMovingAtoms(model: SpecModel): number[] {
-  const scan = model.scan;
-  if (!scan) return [];
-  const owner = model.owner[scan.second] ?? -1;
-  if (owner >= 0) return [...model.fragments[owner]!.atoms];
-  return bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
-}
-
-function costLabel(report: EstimateReport, index: number): string {
-  const fragment = report.fragments[index]!;
+function costLabel(fragment: FragmentFigures): string {
   if (fragment.qubitsRequired !== null) return `${fragment.qubitsRequired} qubits`;
   return `${fragment.orbitals} orbitals`;
 }
 
-export function structureData(analysis: Analysis, report: EstimateReport): StructureData {
+export function structureData(analysis: DocumentAnalysis): StructureData {
   const { model } = analysis;
   const atoms: StructureAtom[] = model.atoms.map((atom) => ({
     index: atom.index,
@@ -77,46 +59,11 @@ export function structureData(analysis: Analysis, report: EstimateReport): Struc
       name: fragment.name,
       tier: fragment.tier?.level ?? null,
       colour: FRAGMENT_COLOURS[index % FRAGMENT_COLOURS.length]!,
-      cost: costLabel(report, index),
+      cost: costLabel(analysis.fragmentFigures(index)),
       atoms: fragment.atoms.length,
       line: analysis.lines.positionAt(fragment.ast.statement.span.start).line,
     })),
     bonds,
-    scan: model.scan ? { first: model.scan.first, second: model.scan.second, distances: [...model.scan.distances], moving: scanMovingAtoms(model) } : null,
+    scan: model.scan ? { first: model.scan.first, second: model.scan.second, distances: [...model.scan.distances], moving: analysis.scanMovingAtoms() } : null,
   };
-}
-
-export interface GrowthPoint {
-  orbitals: number;
-  qubits: number;
-  tapered: number;
-  pauliTerms: number;
-}
-
-/**
- * How qubits and Pauli terms grow with the active space of a fragment: n = 1 … the solver's
- * problem size (at most 60), half filled, irreps in proportion to the fragment's.
- */
-export function activeSpaceGrowth(analysis: Analysis, fragmentIndex: number, maxOrbitals = 60): GrowthPoint[] {
-  const estimates = estimatesOf(analysis.model);
-  const plan = estimates.fragment(fragmentIndex);
-  if (!plan) return [];
-  const symmetry = planSymmetry(estimates.fragmentSymmetry(fragmentIndex));
-  const unpaired = analysis.model.fragments[fragmentIndex]!.multiplicity - 1;
-  const points: GrowthPoint[] = [];
-  for (let n = 1; n <= Math.min(plan.problem.orbitals, maxOrbitals); n++) {
-    let electrons = n + ((n - unpaired) % 2 === 0 ? 0 : 1);
-    if ((electrons + unpaired) / 2 > n) electrons -= 2;
-    if (electrons < unpaired) continue;
-    const alpha = (electrons + unpaired) / 2;
-    const beta = (electrons - unpaired) / 2;
-    const irreps = Uint8Array.from(spreadIrreps(symmetry ? apportion(symmetry.available, n) : [{ label: 'A', mask: 0, count: n }]));
-    points.push({
-      orbitals: n,
-      qubits: 2 * n,
-      tapered: taperQubits(irreps, symmetry?.generatorCount ?? 0, { alpha, beta }).tapered,
-      pauliTerms: countPauliTerms(symmetryPattern(irreps), { alpha, beta }).jordanWigner,
-    });
-  }
-  return points;
 }

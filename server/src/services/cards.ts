@@ -1,21 +1,9 @@
 /**
  * Markdown cards of the resource figures, shared by hover and the report command. Every figure
- * comes from the estimate report (report/estimate.ts), with the convention behind it.
+ * comes from the document's analysis (analysis/figures), with the convention behind it; a card
+ * asks for its own fragment's figures only.
  */
-import type { Analysis } from '../language/analyze';
-import { buildEstimateReport, PLANNING_NOTE, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../report/estimate';
-
-const reports = new WeakMap<Analysis, EstimateReport>();
-
-/** The estimate report of an analysis, built once. */
-export function estimateOf(analysis: Analysis): EstimateReport {
-  let report = reports.get(analysis);
-  if (!report) {
-    report = buildEstimateReport(analysis);
-    reports.set(analysis, report);
-  }
-  return report;
-}
+import { CONVENTIONS, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
 
 function signed(value: number): string {
   return value > 0 ? `+${value}` : String(value);
@@ -78,20 +66,19 @@ function planRows(fragment: FragmentFigures, limit: number | null): string[] {
   return rows;
 }
 
-export function fragmentCard(analysis: Analysis, index: number): string {
-  const report = estimateOf(analysis);
-  const fragment = report.fragments[index]!;
-  const conventions = [`electrons = ${report.conventions.electrons}`, `fragment charge = ${report.conventions.fragmentCharge}`, `frozen core = ${report.conventions.frozenCore}`];
+export function fragmentCard(analysis: DocumentAnalysis, index: number): string {
+  const fragment = analysis.fragmentFigures(index);
+  const conventions = [`electrons = ${CONVENTIONS.electrons}`, `fragment charge = ${CONVENTIONS.fragmentCharge}`, `frozen core = ${CONVENTIONS.frozenCore}`];
   if (fragment.problem) conventions.push(fragment.problem.convention);
-  if (fragment.pauliTerms) conventions.push(`Pauli terms: ${report.conventions.pauliTerms}`);
-  if (fragment.qubits.tapered !== null) conventions.push(`qubits: ${report.conventions.qubits}`);
+  if (fragment.pauliTerms) conventions.push(`Pauli terms: ${CONVENTIONS.pauliTerms}`);
+  if (fragment.qubits.tapered !== null) conventions.push(`qubits: ${CONVENTIONS.qubits}`);
   return [
     fragmentHeadline(fragment),
     '',
     '| | |',
     '| --- | --- |',
     ...spaceRows(fragment),
-    ...planRows(fragment, report.limits.qubits),
+    ...planRows(fragment, analysis.model.limits.qubits ?? null),
     ...fragment.notes.map((note) => `| note | ${note} |`),
     '',
     `_Conventions: ${conventions.join('; ')}._`,

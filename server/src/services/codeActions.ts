@@ -6,8 +6,7 @@
 import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
 import { symmetrize } from '../chemistry/symmetry';
 import { fromAngstrom } from '../chemistry/units';
-import type { Analysis } from '../language/analyze';
-import { estimatesOf } from '../language/estimates';
+import type { DocumentAnalysis } from '../analysis';
 import { decimalsNeeded } from './format';
 import type { FragmentModel } from '../language/model';
 import { toRange } from './positions';
@@ -20,12 +19,12 @@ function quickFix(title: string, diagnostic: LspDiagnostic, workspaceEdit: Works
   return { title, kind: CodeActionKind.QuickFix, diagnostics: [diagnostic], edit: workspaceEdit, ...(preferred ? { isPreferred: true } : {}) };
 }
 
-function endOfDocument(analysis: Analysis): { line: number; character: number } {
+function endOfDocument(analysis: DocumentAnalysis): { line: number; character: number } {
   return analysis.lines.positionAt(analysis.text.length);
 }
 
 /** `#3..#5 #9` style references to atoms, labels where they exist. */
-function atomList(analysis: Analysis, atoms: readonly number[]): string {
+function atomList(analysis: DocumentAnalysis, atoms: readonly number[]): string {
   const parts: string[] = [];
   let i = 0;
   while (i < atoms.length) {
@@ -42,13 +41,13 @@ function atomList(analysis: Analysis, atoms: readonly number[]): string {
   return parts.join(' ');
 }
 
-function uniqueFragmentName(analysis: Analysis, base: string): string {
+function uniqueFragmentName(analysis: DocumentAnalysis, base: string): string {
   const taken = new Set(analysis.model.fragments.map((f) => f.name));
   if (!taken.has(base)) return base;
   for (let n = 2; ; n++) if (!taken.has(`${base}${n}`)) return `${base}${n}`;
 }
 
-function fragmentAtomsEdit(analysis: Analysis, fragment: FragmentModel, addition: string): TextEdit | undefined {
+function fragmentAtomsEdit(analysis: DocumentAnalysis, fragment: FragmentModel, addition: string): TextEdit | undefined {
   const atoms = fragment.ast.atoms;
   if (atoms) return { range: toRange(analysis, { start: atoms.span.end, end: atoms.span.end }), newText: ` ${addition}` };
   const block = fragment.ast.statement.block;
@@ -71,7 +70,7 @@ function restIsBlank(rest: string): boolean {
   return trimmed === '' || (trimmed.startsWith('#') && !/^#[0-9]/.test(trimmed));
 }
 
-function unassignedFixes(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, atoms: readonly number[]): CodeAction[] {
+function unassignedFixes(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, atoms: readonly number[]): CodeAction[] {
   const actions: CodeAction[] = [];
   const name = uniqueFragmentName(analysis, 'environment');
   const end = endOfDocument(analysis);
@@ -92,7 +91,7 @@ function unassignedFixes(analysis: Analysis, uri: string, diagnostic: LspDiagnos
   return actions;
 }
 
-function basisOverrideFixes(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, element: string, candidates: readonly string[]): CodeAction[] {
+function basisOverrideFixes(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, element: string, candidates: readonly string[]): CodeAction[] {
   const basis = analysis.ast.basis;
   if (!basis) return [];
   const existing = basis.overrides.find((override) => override.element.value === element);
@@ -119,7 +118,7 @@ function basisOverrideFixes(analysis: Analysis, uri: string, diagnostic: LspDiag
   });
 }
 
-function activeSpaceFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, active: { electrons: number; orbitals: number }): CodeAction[] {
+function activeSpaceFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, active: { electrons: number; orbitals: number }): CodeAction[] {
   const range = diagnostic.range;
   const start = analysis.lines.offsetAt(range.start);
   const fragment = analysis.model.fragments.find((f) => f.ast.tier && start >= f.ast.tier.statement.span.start && start <= f.ast.tier.statement.span.end);
@@ -133,7 +132,7 @@ function activeSpaceFix(analysis: Analysis, uri: string, diagnostic: LspDiagnost
   return [quickFix(`Shrink the active space of '${fragment.name}' to ${active.electrons}e ${active.orbitals}o`, diagnostic, edit(uri, [change]), true)];
 }
 
-function unitsFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, units: string): CodeAction[] {
+function unitsFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, units: string): CodeAction[] {
   const given = analysis.ast.units;
   const change: TextEdit = given
     ? { range: toRange(analysis, given.span), newText: units }
@@ -142,9 +141,9 @@ function unitsFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic, un
 }
 
 /** Rewrites every inline coordinate with the geometry made exactly symmetric in its near group. */
-function symmetrizeFix(analysis: Analysis, uri: string, diagnostic: LspDiagnostic): CodeAction[] {
+function symmetrizeFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic): CodeAction[] {
   const geometry = analysis.ast.geometry;
-  const figures = estimatesOf(analysis.model).systemSymmetry();
+  const figures = analysis.estimates.systemSymmetry();
   if (!geometry || geometry.include || !figures?.symmetry.nearGroup) return [];
   const atoms = geometry.atoms;
   if (atoms.length !== analysis.model.atoms.length) return [];
@@ -168,7 +167,7 @@ function symmetrizeFix(analysis: Analysis, uri: string, diagnostic: LspDiagnosti
   return edits.length > 0 ? [quickFix(`Symmetrize the geometry to ${figures.symmetry.nearGroup.group}`, diagnostic, edit(uri, edits), true)] : [];
 }
 
-export function getCodeActions(analysis: Analysis, uri: string, diagnostics: readonly LspDiagnostic[]): CodeAction[] {
+export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnostics: readonly LspDiagnostic[]): CodeAction[] {
   const actions: CodeAction[] = [];
   for (const diagnostic of diagnostics) {
     if (diagnostic.source !== undefined && diagnostic.source !== 'tessera') continue;

@@ -7,7 +7,7 @@ import { CompletionItemKind, type CompletionItem, type CompletionList, type Posi
 import { allBasisSets } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
 import { MEMORY_UNITS } from '../chemistry/units';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
 import {
   ANSATZE,
@@ -42,7 +42,7 @@ function present(statements: readonly Statement[]): Set<string> {
   return new Set(statements.map((statement) => statement.keyword.text));
 }
 
-function keywordItems(context: CursorContext, analysis: Analysis): CompletionItem[] {
+function keywordItems(context: CursorContext, analysis: DocumentAnalysis): CompletionItem[] {
   const siblings = context.parents.length > 0 ? (context.parents[context.parents.length - 1]!.block?.statements ?? []) : analysis.tree.statements;
   const used = present(siblings.filter((s) => s !== context.statement));
   return keywordsFor(context.block)
@@ -50,7 +50,7 @@ function keywordItems(context: CursorContext, analysis: Analysis): CompletionIte
     .map((keyword) => ({ label: keyword.name, kind: CompletionItemKind.Keyword, detail: keyword.syntax, documentation: keyword.summary }));
 }
 
-function elementItems(analysis: Analysis): CompletionItem[] {
+function elementItems(analysis: DocumentAnalysis): CompletionItem[] {
   const inFile = [...new Set(analysis.model.atoms.map((atom) => atom.element.symbol))];
   const order = [...inFile, ...COMMON_ELEMENTS.filter((s) => !inFile.includes(s)), ...ELEMENTS.map((e) => e.symbol).filter((s) => !inFile.includes(s) && !COMMON_ELEMENTS.includes(s))];
   return order.map((symbol, rank) => {
@@ -60,7 +60,7 @@ function elementItems(analysis: Analysis): CompletionItem[] {
 }
 
 /** Basis sets, those defining every element wanted first; the others say which element they lack. */
-export function basisItems(analysis: Analysis, wanted?: readonly string[]): CompletionItem[] {
+export function basisItems(analysis: DocumentAnalysis, wanted?: readonly string[]): CompletionItem[] {
   const elements = wanted ?? [...new Set(analysis.model.atoms.map((atom) => atom.element.symbol))];
   return allBasisSets().map((basis, rank) => {
     const missing = elements.filter((symbol) => !basis.shellsFor(symbol));
@@ -73,7 +73,7 @@ export function basisItems(analysis: Analysis, wanted?: readonly string[]): Comp
   });
 }
 
-function labelItems(analysis: Analysis): CompletionItem[] {
+function labelItems(analysis: DocumentAnalysis): CompletionItem[] {
   return [...analysis.model.labels.entries()].map(([label, atom]) => ({
     label,
     kind: CompletionItemKind.Variable,
@@ -95,7 +95,7 @@ function multiplicityItems(electrons: number): CompletionItem[] {
   return items;
 }
 
-function valueItems(context: CursorContext, analysis: Analysis): CompletionItem[] {
+function valueItems(context: CursorContext, analysis: DocumentAnalysis): CompletionItem[] {
   const statement = context.statement!;
   const keyword = statement.keyword.text;
   const index = context.argumentIndex;
@@ -151,7 +151,7 @@ function valueItems(context: CursorContext, analysis: Analysis): CompletionItem[
   }
 }
 
-export function doComplete(analysis: Analysis, position: Position): CompletionList {
+export function doComplete(analysis: DocumentAnalysis, position: Position): CompletionList {
   const offset = toOffset(analysis, position);
   const context = locate(analysis.text, analysis.tree.statements, offset);
   const atStatementStart = !context.statement || context.token?.index === -1;

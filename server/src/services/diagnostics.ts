@@ -1,6 +1,6 @@
-/** Analysis diagnostics as LSP diagnostics, with related locations in the spec or its XYZ file. */
+/** DocumentAnalysis diagnostics as LSP diagnostics, with related locations in the spec or its XYZ file. */
 import { DiagnosticSeverity, type Diagnostic as LspDiagnostic, type DiagnosticRelatedInformation } from 'vscode-languageserver-types';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import type { Diagnostic } from '../language/diagnostics';
 import { toRange } from './positions';
 
@@ -16,7 +16,7 @@ export type UriOf = (path: string) => string;
 
 export const fileUri: UriOf = (path) => `file://${path.split('/').map(encodeURIComponent).join('/')}`;
 
-export function toLspDiagnostic(analysis: Analysis, uri: string, diagnostic: Diagnostic, uriOf: UriOf = fileUri): LspDiagnostic {
+export function toLspDiagnostic(analysis: DocumentAnalysis, uri: string, diagnostic: Diagnostic, uriOf: UriOf = fileUri): LspDiagnostic {
   const related: DiagnosticRelatedInformation[] = (diagnostic.related ?? []).map((item) => ({
     location: item.file
       ? { uri: uriOf(item.file), range: { start: { line: item.line ?? 0, character: 0 }, end: { line: item.line ?? 0, character: 0 } } }
@@ -34,6 +34,6 @@ export function toLspDiagnostic(analysis: Analysis, uri: string, diagnostic: Dia
   };
 }
 
-export function doValidation(analysis: Analysis, uri: string, uriOf: UriOf = fileUri): LspDiagnostic[] {
+export function doValidation(analysis: DocumentAnalysis, uri: string, uriOf: UriOf = fileUri): LspDiagnostic[] {
   return analysis.diagnostics.map((diagnostic) => toLspDiagnostic(analysis, uri, diagnostic, uriOf));
 }

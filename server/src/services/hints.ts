@@ -1,9 +1,7 @@
 /** Inlay hints after each fragment name, and a code lens with the totals above the spec. */
 import { InlayHintKind, type CodeLens, type InlayHint, type Range } from 'vscode-languageserver-types';
 import { mappingKey, type Mapping } from '../chemistry/qubits';
-import type { Analysis } from '../language/analyze';
-import type { FragmentFigures } from '../report/estimate';
-import { estimateOf } from './cards';
+import type { DocumentAnalysis, FragmentFigures } from '../analysis';
 import { toRange } from './positions';
 
 /** Qubits under the fragment's mapping before tapering, or null outside the quantum tier. */
@@ -22,15 +20,15 @@ export function fragmentCostLabel(figures: FragmentFigures): string {
   return `${figures.orbitals} orbitals · ${figures.electrons} e⁻`;
 }
 
-export function getInlayHints(analysis: Analysis, range?: Range): InlayHint[] {
-  const report = estimateOf(analysis);
+/** Hints for the fragments whose names lie in the range (the visible lines); only those are estimated. */
+export function getInlayHints(analysis: DocumentAnalysis, range?: Range): InlayHint[] {
   const hints: InlayHint[] = [];
   for (const fragment of analysis.model.fragments) {
     const name = fragment.ast.name;
     if (!name) continue;
     const position = toRange(analysis, name.span).end;
     if (range && (position.line < range.start.line || position.line > range.end.line)) continue;
-    const figures = report.fragments[fragment.index]!;
+    const figures = analysis.fragmentFigures(fragment.index);
     hints.push({
       position,
       label: fragmentCostLabel(figures),
@@ -44,28 +42,25 @@ export function getInlayHints(analysis: Analysis, range?: Range): InlayHint[] {
 }
 
 /** The largest qubit count any quantum-tier fragment needs, or undefined when there is none. */
-export function largestQubitCount(analysis: Analysis): { fragment: string; qubits: number } | undefined {
-  let best: { fragment: string; qubits: number } | undefined;
-  for (const figures of estimateOf(analysis).fragments) {
-    if (figures.qubitsRequired !== null && (!best || figures.qubitsRequired > best.qubits)) best = { fragment: figures.name, qubits: figures.qubitsRequired };
-  }
-  return best;
+export function largestQubitCount(analysis: DocumentAnalysis): { fragment: string; qubits: number } | undefined {
+  return analysis.largestQubitCount();
 }
 
-export function getCodeLenses(analysis: Analysis): CodeLens[] {
+export function getCodeLenses(analysis: DocumentAnalysis): CodeLens[] {
   const first = analysis.tree.statements[0];
   if (!first) return [];
-  const report = estimateOf(analysis);
-  const system = report.system;
-  const largest = largestQubitCount(analysis);
+  // The totals need no point group: the lens asks for the model's counts, not the system figures.
+  const model = analysis.model;
+  const system = model.system;
+  const largest = analysis.largestQubitCount();
   const parts = [
-    `${system.atoms} atoms`,
+    `${system.atomCount} atoms`,
     `${system.electrons} e⁻`,
     `${system.basisFunctions[system.functions]} ${system.functions} functions`,
-    `${report.fragments.length} fragment${report.fragments.length === 1 ? '' : 's'}`,
+    `${model.fragments.length} fragment${model.fragments.length === 1 ? '' : 's'}`,
   ];
   if (largest) parts.push(`largest quantum fragment ${largest.qubits} qubits (${largest.fragment})`);
-  if (report.scan) parts.push(`× ${report.scan.points} scan points`);
+  if (model.scan) parts.push(`× ${model.scan.distances.length} scan points`);
   const range = toRange(analysis, first.keyword.span);
   return [{ range, command: { title: parts.join(' · '), command: 'tessera.showReport', arguments: [] } }];
 }

@@ -7,7 +7,7 @@ import { findBasisSet, type BasisSet } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
 import { NeighbourGrid } from '../chemistry/geometry';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import { claimsOf, type AtomModel } from '../language/model';
 import type { Argument } from '../language/syntax';
 import {
@@ -29,15 +29,15 @@ import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
 
-function markdown(value: string, analysis: Analysis, node: Argument): Hover {
+function markdown(value: string, analysis: DocumentAnalysis, node: Argument): Hover {
   return { contents: { kind: MarkupKind.Markdown, value }, range: toRange(analysis, node.span) };
 }
 
-const gridCache = new WeakMap<Analysis, NeighbourGrid>();
+const gridCache = new WeakMap<DocumentAnalysis, NeighbourGrid>();
 /** Neighbour search radius for atom cards, Å. */
 const NEIGHBOUR_RADIUS = 4;
 
-function neighbours(analysis: Analysis, atom: number): { atom: number; distance: number }[] {
+function neighbours(analysis: DocumentAnalysis, atom: number): { atom: number; distance: number }[] {
   let grid = gridCache.get(analysis);
   if (!grid) {
     grid = new NeighbourGrid(analysis.model.coordinates, NEIGHBOUR_RADIUS);
@@ -50,7 +50,7 @@ function atomTitle(atom: AtomModel): string {
   return atom.label ? `${atom.label} (#${atom.index + 1})` : `#${atom.index + 1}`;
 }
 
-export function atomCard(analysis: Analysis, index: number): string {
+export function atomCard(analysis: DocumentAnalysis, index: number): string {
   const { model } = analysis;
   const atom = model.atoms[index]!;
   const c = model.coordinates;
@@ -92,7 +92,7 @@ function elementRanges(symbols: readonly string[]): string {
   return ranges.join(', ');
 }
 
-export function basisCard(analysis: Analysis, basis: BasisSet): string {
+export function basisCard(analysis: DocumentAnalysis, basis: BasisSet): string {
   const present = [...new Set(analysis.model.atoms.map((atom) => atom.element.symbol))];
   const rows = present.map((symbol) => {
     const spherical = basis.functionCount(symbol, 'spherical');
@@ -137,7 +137,7 @@ const VALUE_TERMS: Readonly<Record<string, { terms: readonly TermInfo[]; kind: s
 };
 
 /** Binary search of the inline atom whose line holds the offset. */
-function atomAtLine(analysis: Analysis, offset: number): number | undefined {
+function atomAtLine(analysis: DocumentAnalysis, offset: number): number | undefined {
   const atoms = analysis.model.atoms;
   let low = 0;
   let high = atoms.length - 1;
@@ -153,7 +153,7 @@ function atomAtLine(analysis: Analysis, offset: number): number | undefined {
 }
 
 /** The atom a token refers to: a label or #index in a selector or scan, or an atom line. */
-export function atomAt(analysis: Analysis, context: CursorContext): number | undefined {
+export function atomAt(analysis: DocumentAnalysis, context: CursorContext): number | undefined {
   const token = context.token;
   if (!token) return undefined;
   const reference = analysis.model.atomReferences.find((ref) => ref.span.start === token.node.span.start && ref.span.end === token.node.span.end);
@@ -162,7 +162,7 @@ export function atomAt(analysis: Analysis, context: CursorContext): number | und
   return undefined;
 }
 
-export function doHover(analysis: Analysis, position: Position): Hover | null {
+export function doHover(analysis: DocumentAnalysis, position: Position): Hover | null {
   const offset = toOffset(analysis, position);
   const context = locate(analysis.text, analysis.tree.statements, offset);
   const token = context.token;

@@ -12,6 +12,6 @@ export { findDefinition, findDocumentHighlights, findReferences, prepareRename, 
 export { getSemanticTokens, semanticTokensLegend } from './semanticTokens';
 export { getFoldingRanges, getSelectionRanges } from './structure';
 export { findDocumentSymbols, findWorkspaceSymbols } from './symbols';
-export { estimateOf, fragmentCard } from './cards';
+export { fragmentCard } from './cards';
 export { reportMarkdown } from './report';
 export { costPlots, growthFragments, structureOf, viewTargetAt, type CostPlots, type StructureView } from './views';

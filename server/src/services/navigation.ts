@@ -3,7 +3,7 @@
  * the geometry, referenced by selectors and scans) and fragment names.
  */
 import { DocumentHighlightKind, type DocumentHighlight, type Location, type Position, type Range, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import type { Span } from '../language/text';
 import { atomAt } from './hover';
 import { locate } from './locate';
@@ -20,7 +20,7 @@ export interface SymbolOccurrences {
   readonly indexReferences: readonly Span[];
 }
 
-export function occurrencesAt(analysis: Analysis, position: Position): SymbolOccurrences | undefined {
+export function occurrencesAt(analysis: DocumentAnalysis, position: Position): SymbolOccurrences | undefined {
   const offset = toOffset(analysis, position);
   const context = locate(analysis.text, analysis.tree.statements, offset);
   const token = context.token;
@@ -45,19 +45,19 @@ export function occurrencesAt(analysis: Analysis, position: Position): SymbolOcc
   return undefined;
 }
 
-export function findDefinition(analysis: Analysis, uri: string, position: Position): Location | null {
+export function findDefinition(analysis: DocumentAnalysis, uri: string, position: Position): Location | null {
   const found = occurrencesAt(analysis, position);
   return found ? { uri, range: toRange(analysis, found.definition) } : null;
 }
 
-export function findReferences(analysis: Analysis, uri: string, position: Position, includeDeclaration: boolean): Location[] {
+export function findReferences(analysis: DocumentAnalysis, uri: string, position: Position, includeDeclaration: boolean): Location[] {
   const found = occurrencesAt(analysis, position);
   if (!found) return [];
   const spans = [...(includeDeclaration ? [found.definition] : []), ...found.references, ...found.indexReferences];
   return spans.map((span) => ({ uri, range: toRange(analysis, span) }));
 }
 
-export function findDocumentHighlights(analysis: Analysis, position: Position): DocumentHighlight[] {
+export function findDocumentHighlights(analysis: DocumentAnalysis, position: Position): DocumentHighlight[] {
   const found = occurrencesAt(analysis, position);
   if (!found) return [];
   return [
@@ -72,7 +72,7 @@ const SELECTOR_WORDS = new Set(['rest', 'all', 'within']);
 
 export type RenameCheck = { ok: true; range: Range; placeholder: string } | { ok: false; message: string };
 
-export function prepareRename(analysis: Analysis, position: Position): RenameCheck {
+export function prepareRename(analysis: DocumentAnalysis, position: Position): RenameCheck {
   const found = occurrencesAt(analysis, position);
   if (!found) return { ok: false, message: 'Only atom labels and fragment names can be renamed.' };
   const offset = toOffset(analysis, position);
@@ -87,7 +87,7 @@ export function prepareRename(analysis: Analysis, position: Position): RenameChe
   return { ok: true, range: toRange(analysis, under), placeholder: found.name };
 }
 
-export function rename(analysis: Analysis, uri: string, position: Position, newName: string): WorkspaceEdit | { error: string } {
+export function rename(analysis: DocumentAnalysis, uri: string, position: Position, newName: string): WorkspaceEdit | { error: string } {
   const check = prepareRename(analysis, position);
   if (!check.ok) return { error: check.message };
   if (!NAME.test(newName)) return { error: `'${newName}' is not a valid name: use letters, digits and _, starting with a letter.` };

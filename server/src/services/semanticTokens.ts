@@ -3,7 +3,7 @@
  * names, numbers (with their units), strings, comments and operators.
  */
 import type { SemanticTokens, SemanticTokensLegend } from 'vscode-languageserver-types';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import type { Argument, Statement } from '../language/syntax';
 import { findKeyword, type BlockKind } from '../language/vocabulary';
 import { innerBlockKind } from './locate';
@@ -72,7 +72,7 @@ function statementTokens(out: TokenCollector, statement: Statement, block: Block
   });
 }
 
-function walk(out: TokenCollector, statements: readonly Statement[], block: BlockKind, analysis: Analysis): void {
+function walk(out: TokenCollector, statements: readonly Statement[], block: BlockKind, analysis: DocumentAnalysis): void {
   for (const statement of statements) {
     if (statement.block?.atomTable) {
       statementTokens(out, statement, block);
@@ -92,7 +92,7 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
   }
 }
 
-export function getSemanticTokens(analysis: Analysis): SemanticTokens {
+export function getSemanticTokens(analysis: DocumentAnalysis): SemanticTokens {
   const out = new TokenCollector();
   walk(out, analysis.tree.statements, 'top', analysis);
   for (const comment of analysis.tree.comments) out.add({ span: { start: comment.span.start, end: comment.span.start + comment.text.replace(/\r$/, '').length } }, 'comment');

@@ -1,12 +1,12 @@
 /** Folding ranges (blocks and comment runs) and selection ranges (token, statement, block, ...). */
 import { FoldingRangeKind, type FoldingRange, type Position, type SelectionRange } from 'vscode-languageserver-types';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
 import type { Span } from '../language/text';
 import { locate } from './locate';
 import { toOffset, toRange } from './positions';
 
-export function getFoldingRanges(analysis: Analysis): FoldingRange[] {
+export function getFoldingRanges(analysis: DocumentAnalysis): FoldingRange[] {
   const ranges: FoldingRange[] = [];
   const visit = (statements: readonly Statement[]) => {
     for (const statement of statements) {
@@ -41,7 +41,7 @@ export function getFoldingRanges(analysis: Analysis): FoldingRange[] {
   return ranges;
 }
 
-export function getSelectionRanges(analysis: Analysis, positions: readonly Position[]): SelectionRange[] {
+export function getSelectionRanges(analysis: DocumentAnalysis, positions: readonly Position[]): SelectionRange[] {
   return positions.map((position) => {
     const offset = toOffset(analysis, position);
     const context = locate(analysis.text, analysis.tree.statements, offset);

@@ -1,8 +1,7 @@
 /** The outline of a spec (geometry, basis, fragments, scan, limits) and workspace symbols. */
 import { SymbolKind, type DocumentSymbol, type SymbolInformation } from 'vscode-languageserver-types';
-import type { Analysis } from '../language/analyze';
+import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
-import { estimateOf } from './cards';
 import { fragmentCostLabel } from './hints';
 import { toRange } from './positions';
 
@@ -16,7 +15,7 @@ const KINDS: Readonly<Record<string, SymbolKind>> = {
   limits: SymbolKind.Object,
 };
 
-function detailOf(analysis: Analysis, statement: Statement): string {
+function detailOf(analysis: DocumentAnalysis, statement: Statement): string {
   const model = analysis.model;
   switch (statement.keyword.text) {
     case 'geometry':
@@ -24,7 +23,7 @@ function detailOf(analysis: Analysis, statement: Statement): string {
     case 'fragment': {
       const fragment = model.fragments.find((f) => f.ast.statement === statement);
       if (!fragment) return '';
-      const figures = estimateOf(analysis).fragments[fragment.index]!;
+      const figures = analysis.fragmentFigures(fragment.index);
       return `${fragment.tier?.level ?? 'no tier'} · ${fragment.atoms.length} atoms · ${fragmentCostLabel(figures)}`;
     }
     case 'scan':
@@ -42,7 +41,7 @@ function nameOf(statement: Statement): string {
   return statement.keyword.text;
 }
 
-export function findDocumentSymbols(analysis: Analysis): DocumentSymbol[] {
+export function findDocumentSymbols(analysis: DocumentAnalysis): DocumentSymbol[] {
   const symbols: DocumentSymbol[] = [];
   for (const statement of analysis.tree.statements) {
     const kind = KINDS[statement.keyword.text];
@@ -67,7 +66,7 @@ export function findDocumentSymbols(analysis: Analysis): DocumentSymbol[] {
 }
 
 /** Fragments and specs of the given documents whose names contain the query (case-insensitive). */
-export function findWorkspaceSymbols(documents: readonly { uri: string; analysis: Analysis }[], query: string): SymbolInformation[] {
+export function findWorkspaceSymbols(documents: readonly { uri: string; analysis: DocumentAnalysis }[], query: string): SymbolInformation[] {
   const wanted = query.toLowerCase();
   const found: SymbolInformation[] = [];
   for (const { uri, analysis } of documents) {

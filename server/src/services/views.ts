@@ -4,19 +4,17 @@
  * which fragment and atom a cursor position stands in. The views draw; nothing is computed there.
  */
 import type { Position } from 'vscode-languageserver-types';
-import type { Analysis } from '../language/analyze';
-import { PLANNING_NOTE } from '../report/estimate';
+import { PLANNING_NOTE, type DocumentAnalysis } from '../analysis';
 import { growthChartSvg, qubitsChartSvg, scanChartSvg } from '../report/plots';
-import { activeSpaceGrowth, structureData, UNASSIGNED_COLOUR, type StructureData } from '../report/structure';
-import { estimateOf } from './cards';
+import { structureData, UNASSIGNED_COLOUR, type StructureData } from '../report/structure';
 import { locate } from './locate';
 import { toOffset } from './positions';
 
 /** The structure data with the colour of atoms in no fragment, so that the view need not know it. */
 export type StructureView = StructureData & { unassignedColour: string; note: string };
 
-export function structureOf(analysis: Analysis): StructureView {
-  return { ...structureData(analysis, estimateOf(analysis)), unassignedColour: UNASSIGNED_COLOUR, note: PLANNING_NOTE };
+export function structureOf(analysis: DocumentAnalysis): StructureView {
+  return { ...structureData(analysis), unassignedColour: UNASSIGNED_COLOUR, note: PLANNING_NOTE };
 }
 
 export interface CostPlots {
@@ -31,19 +29,18 @@ export interface CostPlots {
 }
 
 /** The fragments whose active-space growth can be plotted. */
-export function growthFragments(analysis: Analysis): { index: number; name: string }[] {
-  return estimateOf(analysis)
-    .fragments.map((fragment, index) => ({ index, name: fragment.name, sized: fragment.problem !== null }))
-    .filter((fragment) => fragment.sized)
-    .map(({ index, name }) => ({ index, name }));
+export function growthFragments(analysis: DocumentAnalysis): { index: number; name: string }[] {
+  return analysis.model.fragments
+    .filter((fragment) => analysis.fragmentFigures(fragment.index).problem !== null)
+    .map((fragment) => ({ index: fragment.index, name: fragment.name }));
 }
 
 /**
  * The cost plots of a spec. The growth chart shows `fragment` when it can be plotted, otherwise the
  * first fragment that can (the quantum fragment needing the most qubits, when there is one).
  */
-export function costPlots(analysis: Analysis, fragment?: number | null): CostPlots {
-  const report = estimateOf(analysis);
+export function costPlots(analysis: DocumentAnalysis, fragment?: number | null): CostPlots {
+  const report = analysis.report();
   const fragments = growthFragments(analysis);
   const largestQuantum = report.fragments
     .map((figures, index) => ({ index, qubits: figures.qubitsRequired }))
@@ -53,7 +50,7 @@ export function costPlots(analysis: Analysis, fragment?: number | null): CostPlo
   const growth =
     selected === null
       ? growthChartSvg([], report.fragments.length > 0 ? 'no sized fragment' : 'no fragments')
-      : growthChartSvg(activeSpaceGrowth(analysis, selected), report.fragments[selected]!.name);
+      : growthChartSvg(analysis.growth(selected), report.fragments[selected]!.name);
   return {
     spec: report.spec.name,
     svg: { qubits: qubitsChartSvg(report), growth, scan: scanChartSvg(report) },
@@ -67,7 +64,7 @@ export function costPlots(analysis: Analysis, fragment?: number | null): CostPlo
  * The fragment whose block (header line included) holds the position, and the atom whose
  * geometry line it is on; null for each when there is none.
  */
-export function viewTargetAt(analysis: Analysis, position: Position): { fragment: number | null; atom: number | null } {
+export function viewTargetAt(analysis: DocumentAnalysis, position: Position): { fragment: number | null; atom: number | null } {
   const offset = toOffset(analysis, position);
   const context = locate(analysis.text, analysis.tree.statements, offset);
   const candidates = [...context.parents, ...(context.statement ? [context.statement] : [])];

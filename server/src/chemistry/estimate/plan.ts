@@ -24,28 +24,11 @@ import type { OrbitalSpace } from '../counting';
 import { mappingKey, qubitCounts, type Mapping } from '../qubits';
 import { symmetryPattern } from './integralPattern';
 import { measurementGroups, estimateQubitWiseGroups, type MeasurementEstimate } from './measurement';
-import { countPauliTerms } from './pauliTerms';
+import { activeIrreps, symmetryCounts, type ActiveIrreps, type IrrepShare, type PlanSymmetry } from './activeIrreps';
 import { taperQubits } from './tapering';
 
-/** Orbitals of one irrep (mask as in symmetry/characterTables.ts). */
-export interface IrrepShare {
-  readonly label: string;
-  readonly mask: number;
-  readonly count: number;
-}
-
-export interface PlanSymmetry {
-  /** The abelian group used (D2h or a subgroup). */
-  readonly group: string;
-  readonly generatorCount: number;
-  /** Names of the generators (bit g of a mask refers to generator g), for messages. */
-  readonly generatorNames: readonly string[];
-  /** Orbitals per irrep outside the frozen core, of the orbital space the solver sees. */
-  readonly available: readonly IrrepShare[];
-  /** The full group is non-abelian: abelian selection rules then only bound the integral count. */
-  readonly fullGroupNonAbelian: boolean;
-  readonly fullGroup: string;
-}
+export type { IrrepShare, PlanSymmetry } from './activeIrreps';
+export { apportion, spreadIrreps } from './activeIrreps';
 
 export interface PlanInput {
   readonly fragment: OrbitalSpace;
@@ -101,37 +84,6 @@ export type AnsatzFigures =
 
 /** Above this many qubits the measurement groups are estimated instead of coloured explicitly. */
 export const EXPLICIT_GROUPING_LIMIT = 14;
-
-/**
- * Largest-remainder apportionment of `total` orbitals over the irreps in proportion to `shares`
- * (ties go to the earlier irrep). With total at most the shares' sum no irrep gets more than it has.
- */
-export function apportion(shares: readonly IrrepShare[], total: number): IrrepShare[] {
-  const available = shares.reduce((sum, share) => sum + share.count, 0);
-  if (available === 0 || total <= 0) return shares.map((share) => ({ ...share, count: 0 }));
-  const exact = shares.map((share) => (share.count * total) / available);
-  const counts = exact.map(Math.floor);
-  let left = total - counts.reduce((sum, count) => sum + count, 0);
-  const order = exact.map((value, i) => ({ i, remainder: value - Math.floor(value) })).sort((a, b) => b.remainder - a.remainder || a.i - b.i);
-  for (const { i } of order) {
-    if (left === 0) break;
-    counts[i]!++;
-    left--;
-  }
-  return shares.map((share, i) => ({ ...share, count: counts[i]! }));
-}
-
-/**
- * One irrep per active orbital, spread evenly: the orbitals of each irrep take the positions
- * (k + ½)/count_g, merged in order. The reference determinant fills them in this order, a planning
- * assumption when the orbital energies are unknown.
- */
-export function spreadIrreps(shares: readonly IrrepShare[]): number[] {
-  const positions: { at: number; mask: number }[] = [];
-  for (const share of shares) for (let k = 0; k < share.count; k++) positions.push({ at: (k + 0.5) / share.count, mask: share.mask });
-  positions.sort((a, b) => a.at - b.at || a.mask - b.mask);
-  return positions.map((position) => position.mask);
-}
 
 function problemSizes(input: PlanInput): EmbeddedSizes | undefined {
   const { fragment, system } = input;
@@ -195,12 +147,9 @@ function measurementFor(orbitalIrreps: readonly number[], terms: number): Measur
   return found;
 }
 
-/** The active orbitals' irreps: as given, apportioned from the problem's irreps, or none (C1). */
-function activeIrreps(input: PlanInput, orbitals: number): { irreps: IrrepShare[]; source: ActiveFigures['irrepsSource'] } {
-  if (input.active?.perIrrep && input.active.orbitals === orbitals) return { irreps: [...input.active.perIrrep], source: 'given' };
-  // Also for a DMET impurity, whose bath orbitals are taken to split like the fragment's own.
-  if (input.symmetry && input.symmetry.generatorCount > 0) return { irreps: apportion(input.symmetry.available, orbitals), source: 'proportional' };
-  return { irreps: [{ label: 'A', mask: 0, count: orbitals }], source: 'none' };
+/** The active orbitals' irreps for `orbitals` active orbitals, by the one rule of activeIrreps.ts. */
+function irrepsOf(input: PlanInput, orbitals: number): ActiveIrreps {
+  return activeIrreps(input.symmetry, orbitals, input.active);
 }
 
 function requiredQubits(input: PlanInput, counts: ReturnType<typeof qubitCounts>, tapered: number): number | null {
@@ -211,8 +160,8 @@ function requiredQubits(input: PlanInput, counts: ReturnType<typeof qubitCounts>
 
 /** Qubits the fragment's solver needs for an active space of `orbitals` and the given spin split. */
 export function qubitsFor(input: PlanInput, orbitals: number, alpha: number, beta: number): number | null {
-  const { irreps, source } = activeIrreps(input, orbitals);
-  const tapered = taperQubits(Uint8Array.from(spreadIrreps(irreps)), source === 'none' ? 0 : (input.symmetry?.generatorCount ?? 0), { alpha, beta }).tapered;
+  const irreps = irrepsOf(input, orbitals);
+  const tapered = taperQubits(Uint8Array.from(irreps.orbitalIrreps), irreps.generatorCount, { alpha, beta }).tapered;
   return requiredQubits(input, qubitCounts(orbitals), tapered);
 }
 
@@ -265,14 +214,13 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const alpha = (electrons + unpaired) / 2;
   const beta = (electrons - unpaired) / 2;
 
-  const { irreps, source: irrepsSource } = activeIrreps(input, orbitals);
-  const orbitalIrreps = spreadIrreps(irreps);
-  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps, irrepsSource };
+  const irreps = irrepsOf(input, orbitals);
+  const orbitalIrreps = irreps.orbitalIrreps;
+  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps: irreps.irreps, irrepsSource: irreps.source };
 
   const counts = qubitCounts(orbitals);
-  const tapering = taperQubits(Uint8Array.from(orbitalIrreps), irrepsSource === 'none' ? 0 : (input.symmetry?.generatorCount ?? 0), { alpha, beta });
+  const { tapering, pauli } = symmetryCounts(irreps, { alpha, beta });
   const required = requiredQubits(input, counts, tapering.tapered);
-  const pauli = countPauliTerms(symmetryPattern(Uint8Array.from(orbitalIrreps)), { alpha, beta });
   const upperBound = input.symmetry?.fullGroupNonAbelian === true;
   const qubitsForCircuits = required ?? counts.jordanWigner;
 

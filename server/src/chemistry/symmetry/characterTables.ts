@@ -111,6 +111,15 @@ export function irrepByLabel(group: AbelianGroupName, label: string): Irrep | un
   return CHARACTER_TABLES[group].irreps.find((irrep) => irrep.label === label);
 }
 
+/**
+ * The irrep a spec names, as users type it: case-insensitive, and with a doubled prime (A'') read as
+ * the double-prime character (A").
+ */
+export function findIrrep(group: AbelianGroupName, written: string): Irrep | undefined {
+  const wanted = written.replace(/''$/, '"').toLowerCase();
+  return CHARACTER_TABLES[group].irreps.find((irrep) => irrep.label.toLowerCase() === wanted);
+}
+
 export function irrepByMask(group: AbelianGroupName, mask: number): Irrep | undefined {
   return CHARACTER_TABLES[group].irreps.find((irrep) => irrep.mask === mask);
 }

@@ -1,7 +1,7 @@
 /** `tessera check <files…> [--format text|json]`: diagnostics for each spec. */
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
-import { analyze } from '../../language/analyze';
+import { analyzeDocument } from '../../analysis';
 import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { formatDiagnosticLine, printable, summaryLine, type PrintedDiagnostic } from '../output';
 
@@ -28,7 +28,7 @@ export function runCheck(options: CheckOptions, io: CliIo): number {
       if (options.format === 'text') io.stderr(`tessera: cannot read ${file}: ${reason}\n`);
       continue;
     }
-    const analysis = analyze(text, { path: absolute });
+    const analysis = analyzeDocument(text, { path: absolute });
     const printed = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
     errors += printed.filter((d) => d.severity === 'error').length;
     warnings += printed.filter((d) => d.severity === 'warning').length;

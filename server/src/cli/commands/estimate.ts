@@ -5,9 +5,8 @@
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { normalizeBasisName } from '../../chemistry/basis/library';
-import { analyze, type Analysis } from '../../language/analyze';
+import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
 import { parseXyz } from '../../language/xyz';
-import { buildEstimateReport } from '../../report/estimate';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
 import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
@@ -26,7 +25,7 @@ export interface EstimateOptions {
 }
 
 interface Prepared {
-  analysis: Analysis;
+  analysis: DocumentAnalysis;
   file: string;
   diagnostics: PrintedDiagnostic[];
 }
@@ -44,7 +43,7 @@ function readText(file: string, io: CliIo): string | undefined {
 function prepareSpec(file: string, io: CliIo): Prepared | undefined {
   const text = readText(file, io);
   if (text === undefined) return undefined;
-  const analysis = analyze(text, { path: path.resolve(io.cwd, file) });
+  const analysis = analyzeDocument(text, { path: path.resolve(io.cwd, file) });
   return { analysis, file, diagnostics: analysis.diagnostics.map((d) => printable(file, analysis, d)) };
 }
 
@@ -75,7 +74,7 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
     lines.push(`  ${atom.symbol} ${atom.x} ${atom.y} ${atom.z}`);
   }
   lines.push('}');
-  const analysis = analyze(lines.join('\n'));
+  const analysis = analyzeDocument(lines.join('\n'));
   const diagnostics: PrintedDiagnostic[] = xyz.problems.map((problem) => ({
     file,
     line: problem.line + 1,
@@ -111,7 +110,7 @@ export function runEstimate(options: EstimateOptions, io: CliIo): number {
   }
   const prepared = options.spec ? prepareSpec(options.spec, io) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
-  const report = buildEstimateReport(prepared.analysis);
+  const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
   if (options.format === 'json') {
     io.stdout(`${JSON.stringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, null, 2)}\n`);

@@ -5,7 +5,6 @@
  * in bohr (layout in report/export/qcschema.ts). A spec with errors is not exported: the
  * diagnostics go to standard error and the exit code is 1, so that no half-checked geometry leaves.
  */
-import { buildEstimateReport } from '../../report/estimate';
 import { buildQcSchemaExport } from '../../report/export/qcschema';
 import { renderXyz } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
@@ -34,15 +33,14 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
     io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
     return EXIT_ERRORS;
   }
-  const report = buildEstimateReport(spec.analysis);
-  const data = structureData(spec.analysis, report);
+  const data = structureData(spec.analysis);
   const title = specTitle(spec);
   let text: string;
   try {
     text =
       options.to === 'xyz'
         ? renderXyz(data, { title, version: VERSION })
-        : `${JSON.stringify(buildQcSchemaExport(spec.analysis, report, data, { title, version: VERSION }), null, 2)}\n`;
+        : `${JSON.stringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), null, 2)}\n`;
   } catch (error) {
     if (!(error instanceof RangeError)) throw error;
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);

@@ -6,11 +6,9 @@
  * adds the plots inline as SVG; CSV has one row per part (columns in report/format/csv.ts). A spec
  * with errors still gets its report (the problems are in it), and the exit code is 1.
  */
-import { buildEstimateReport } from '../../report/estimate';
 import { renderEstimateCsv } from '../../report/format/csv';
 import { renderReportHtml } from '../../report/format/html';
 import { renderEstimateMarkdown, type ProblemLine } from '../../report/format/render';
-import { activeSpaceGrowth } from '../../report/structure';
 import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { checkOutPath, loadSpec, printDiagnostics, writeOutput } from '../specFile';
 import { VERSION } from '../version';
@@ -31,7 +29,7 @@ export async function runReport(options: ReportOptions, io: CliIo): Promise<numb
   if (!spec) return EXIT_USAGE;
   checkOutPath(options.out, spec, io);
   const { analysis } = spec;
-  const report = buildEstimateReport(analysis);
+  const report = analysis.report();
   const problems: ProblemLine[] = spec.diagnostics
     .filter((d) => d.severity === 'error' || d.severity === 'warning')
     .map((d) => ({ line: d.line, severity: d.severity, code: d.code, message: d.message }));
@@ -41,7 +39,7 @@ export async function runReport(options: ReportOptions, io: CliIo): Promise<numb
   } else if (options.format === 'html') {
     const growth = analysis.model.fragments
       .filter((fragment) => fragment.tier?.level === 'quantum')
-      .map((fragment) => ({ fragment: fragment.name, points: activeSpaceGrowth(analysis, fragment.index) }));
+      .map((fragment) => ({ fragment: fragment.name, points: analysis.growth(fragment.index) }));
     text = renderReportHtml(report, { problems, growth, generator: `Tessera ${VERSION}` });
   } else {
     text = renderEstimateMarkdown(report, { level: 1, problems, full: true });

@@ -22,9 +22,8 @@
 import { scanFrames } from '../../chemistry/scan';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import { elementBySymbol } from '../../chemistry/elements';
-import type { Analysis } from '../../language/analyze';
+import { basisFigures, type DocumentAnalysis } from '../../analysis';
 import type { TierModel } from '../../language/model';
-import type { EstimateReport } from '../estimate';
 import type { StructureData } from '../structure';
 import { coordinatesOf } from './xyz';
 
@@ -148,10 +147,11 @@ function toBohr(value: number): number {
 }
 
 /** Builds the export. The spec should be free of errors: the CLI refuses to export one that is not. */
-export function buildQcSchemaExport(analysis: Analysis, report: EstimateReport, data: StructureData, options: QcSchemaExportOptions): QcSchemaExport {
+export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureData, options: QcSchemaExportOptions): QcSchemaExport {
+  const named = basisFigures(analysis);
   const { model } = analysis;
   const provenance: QcProvenance = { creator: 'Tessera', version: options.version, routine: options.routine ?? 'tessera export --to qcschema' };
-  const basis: BasisExtras = { name: report.basis.name, overrides: { ...report.basis.overrides }, functions: report.basis.functions };
+  const basis: BasisExtras = { name: named.name, overrides: { ...named.overrides }, functions: named.functions };
   const fragmentAtoms = model.fragments.map((fragment) => fragment.atoms);
   const order = qcAtomOrder(data, fragmentAtoms);
   const position = new Int32Array(data.atoms.length).fill(-1);

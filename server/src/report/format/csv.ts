@@ -8,7 +8,7 @@
  * (the planning-estimate note, the same on every row). An empty field means the part has no such
  * figure; `true`/`false` for yes/no figures; numbers as in the JSON estimate.
  */
-import { PLANNING_NOTE, type EstimateReport } from '../estimate';
+import { PLANNING_NOTE, type EstimateReport } from '../../analysis';
 import { FIGURE_COLUMNS, figureText, figureValue, reportParts } from './figures';
 
 export const CSV_COLUMNS: readonly string[] = ['spec', ...FIGURE_COLUMNS.map((column) => column.key), 'note'];

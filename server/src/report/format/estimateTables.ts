@@ -1,5 +1,5 @@
 /** The estimate report as tables, shared by the text and Markdown renderings. */
-import type { EstimateReport, FragmentFigures, SpaceFigures } from '../estimate';
+import { SYMMETRY_ATOM_LIMIT, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../../analysis';
 import type { Table } from './table';
 
 const dash = '–';
@@ -120,6 +120,7 @@ export function conventionLines(report: EstimateReport): string[] {
     `orbitals: ${c.orbitals}`,
     `frozen core: ${c.frozenCore}`,
     `active space: ${c.activeSpace}`,
+    `point group: ${c.pointGroup}`,
     ...(dmet ? [`embedding: ${dmet.replace(/^DMET impurity: [^;]*; /, 'DMET impurity: ')}`] : []),
     `qubits: ${c.qubits}`,
     `Pauli terms: ${c.pauliTerms}`,
@@ -139,6 +140,8 @@ export function headerLines(report: EstimateReport): string[] {
   if (system.pointGroup) {
     const irreps = system.orbitalsPerIrrep ? Object.entries(system.orbitalsPerIrrep).map(([label, count]) => `${count} ${label}`).join(', ') : '';
     lines.push(`point group ${system.fullPointGroup}, counted in ${system.pointGroup}${irreps ? `: orbitals ${irreps}` : ''}`);
+  } else if (system.atoms > SYMMETRY_ATOM_LIMIT) {
+    lines.push(`point group not looked for (more than ${SYMMETRY_ATOM_LIMIT} atoms): system figures counted in C1`);
   }
   if (system.nearSymmetry) lines.push(`near symmetry: ${system.nearSymmetry.group} within ${system.nearSymmetry.within.toFixed(3)} Å`);
   if (report.scan) {

@@ -3,7 +3,7 @@
  * estimate), with a short label: the CSV columns and the full per-part table of the Markdown and
  * HTML reports. Values are read from the estimate report by key, never computed here.
  */
-import type { EstimateReport, FragmentFigures, SpaceFigures } from '../estimate';
+import type { EstimateReport, FragmentFigures, SpaceFigures } from '../../analysis';
 import type { Table } from './table';
 
 export interface FigureColumn {

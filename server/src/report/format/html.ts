@@ -4,9 +4,9 @@
  * resources (a content-security policy in the page says so to the browser); every piece of text is
  * escaped.
  */
-import { PLANNING_NOTE, type EstimateReport } from '../estimate';
+import { PLANNING_NOTE, type EstimateReport } from '../../analysis';
 import { growthChartSvg, qubitsChartSvg, scanChartSvg } from '../plots';
-import type { GrowthPoint } from '../structure';
+import type { GrowthPoint } from '../../analysis';
 import { conventionLines, headerLines } from './estimateTables';
 import { reportTables, reportTitle, type ProblemLine } from './render';
 import type { Table } from './table';

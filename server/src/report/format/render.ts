@@ -1,6 +1,6 @@
 /** The estimate report as plain text or Markdown: the same tables and conventions in both. */
-import type { EstimateReport } from '../estimate';
-import { PLANNING_NOTE } from '../estimate';
+import type { EstimateReport } from '../../analysis';
+import { PLANNING_NOTE } from '../../analysis';
 import { conventionLines, estimateTables, headerLines } from './estimateTables';
 import { figuresTable, scanTable } from './figures';
 import { renderMarkdownTable, renderTextTable, type Table } from './table';

@@ -1,16 +1,15 @@
 /**
  * Near symmetry: a geometry that misses a higher point group by a small distance (typing or
  * rounding, usually) is reported with the group and the distance, so that it can be symmetrized.
- * Only for geometries up to SYMMETRY_CHECK_ATOM_LIMIT atoms, to keep checking fast on clusters.
+ * Only for geometries up to SYMMETRY_ATOM_LIMIT atoms, the limit the figures use as well.
  */
-import { estimatesOf, SYMMETRY_CHECK_ATOM_LIMIT } from '../estimates';
-import type { CheckContext } from './context';
+import type { EstimateCheckContext } from './context';
 
-export function checkSymmetry(context: CheckContext): void {
-  const { ast, model, sink } = context;
-  if (!ast.geometry || model.atoms.length < 2 || model.atoms.length > SYMMETRY_CHECK_ATOM_LIMIT) return;
+export function checkNearSymmetry(context: EstimateCheckContext): void {
+  const { ast, model, sink, estimates } = context;
+  if (!ast.geometry || model.atoms.length < 2) return;
   if (model.atoms.some((atom) => atom.element.weight === null)) return;
-  const figures = estimatesOf(model).systemSymmetry();
+  const figures = estimates.systemSymmetry();
   const near = figures?.symmetry.nearGroup;
   if (!figures || !near) return;
   sink.report(

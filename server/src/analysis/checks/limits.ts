@@ -7,19 +7,17 @@ import { compareWithMemoryLimit } from '../../chemistry/cost/classical';
 import { formatBytes } from '../../chemistry/cost/format';
 import { fitActiveSpace, qubitsFor } from '../../chemistry/estimate/plan';
 import { magnitudeOfNumber } from '../../chemistry/cost/magnitude';
-import { estimatesOf } from '../estimates';
-import type { CheckContext } from './context';
+import type { EstimateCheckContext } from './context';
 
-export function checkLimits(context: CheckContext): void {
-  const { ast, model, sink } = context;
+export function checkLimits(context: EstimateCheckContext): void {
+  const { ast, model, sink, estimates } = context;
   const limit = model.limits.qubits;
   const memory = model.limits.memoryBytes;
   if (limit === undefined && memory === undefined) return;
-  const estimates = estimatesOf(model);
   for (const fragment of model.fragments) {
     const tier = fragment.tier;
     if (tier?.level !== 'quantum' || !tier.mapping || fragment.atoms.length === 0) continue;
-    const plan = estimates.fragment(fragment.index);
+    const plan = estimates.plan(fragment.index);
     const input = estimates.planInput(fragment.index);
     if (!plan || !input || plan.qubits.required === null) continue;
     const needed = plan.qubits.required;

@@ -1,0 +1,156 @@
+/**
+ * One analysed document version and everything derived from it, each computed on first request and
+ * kept (the query-database idea at this project's size): diagnostics, the point groups and plan
+ * estimates of each part, each fragment's figures, the system's figures, the whole estimate report,
+ * the growth series and the scan's moving atoms. Every consumer — hover, hints, lens, symbols,
+ * views, the CLI, reports — asks here, so nothing is computed twice and nothing disagrees. A
+ * request computes only what it shows: a hover on one fragment asks for that fragment's figures.
+ *
+ * Results that arrive later (late.ts) are read through `late`; a change there does not mutate this
+ * object: whoever shows figures is told, and asks again.
+ */
+import { bondedGroup } from '../chemistry/scan';
+import type { SpecAst } from '../language/ast';
+import { analyze, type Analysis, type AnalyzeOptions } from '../language/analyze';
+import type { Diagnostic } from '../language/diagnostics';
+import { DiagnosticSink } from '../language/diagnostics';
+import type { SpecModel } from '../language/model';
+import type { SyntaxTree } from '../language/syntax';
+import type { LineIndex } from '../language/text';
+import { checkActiveIrreps } from './checks/activeIrreps';
+import type { EstimateCheck } from './checks/context';
+import { checkLimits } from './checks/limits';
+import { checkNearSymmetry } from './checks/nearSymmetry';
+import { Estimates } from './estimates';
+import { fragmentFigures } from './figures/fragment';
+import { activeSpaceGrowth, GROWTH_MAX_ORBITALS, type GrowthPoint } from './figures/growth';
+import { assembleReport } from './figures/report';
+import { systemFigures } from './figures/system';
+import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
+import { LateResults } from './late';
+
+/** The checks that read the estimates, after the language checks. */
+export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkLimits];
+
+export type AnalysisOptions = AnalyzeOptions;
+
+export class DocumentAnalysis {
+  readonly text: string;
+  readonly path: string | undefined;
+  readonly lines: LineIndex;
+  readonly tree: SyntaxTree;
+  readonly ast: SpecAst;
+  readonly model: SpecModel;
+  /** The per-part estimates (point groups, plan inputs and plans). */
+  readonly estimates: Estimates;
+  /** Results that arrive later, shared by every version of every document of one host. */
+  readonly late: LateResults;
+
+  private readonly languageDiagnostics: readonly Diagnostic[];
+  private allDiagnostics: Diagnostic[] | undefined;
+  private readonly fragments = new Map<number, FragmentFigures>();
+  private system: SystemFigures | undefined;
+  private whole: EstimateReport | undefined;
+  private readonly growths = new Map<string, GrowthPoint[]>();
+  private moving: number[] | undefined;
+
+  constructor(analysis: Analysis, late: LateResults = new LateResults()) {
+    this.text = analysis.text;
+    this.path = analysis.path;
+    this.lines = analysis.lines;
+    this.tree = analysis.tree;
+    this.ast = analysis.ast;
+    this.model = analysis.model;
+    this.languageDiagnostics = analysis.diagnostics;
+    this.estimates = new Estimates(analysis.model);
+    this.late = late;
+  }
+
+  /** Every diagnostic, the language's and those that read the estimates, sorted by position. */
+  get diagnostics(): Diagnostic[] {
+    if (!this.allDiagnostics) {
+      const sink = new DiagnosticSink();
+      const context = { ast: this.ast, model: this.model, sink, estimates: this.estimates };
+      for (const check of ESTIMATE_CHECKS) check(context);
+      this.allDiagnostics = [...this.languageDiagnostics, ...sink.items].sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+    }
+    return this.allDiagnostics;
+  }
+
+  counts(): { errors: number; warnings: number } {
+    let errors = 0;
+    let warnings = 0;
+    for (const d of this.diagnostics) {
+      if (d.severity === 'error') errors++;
+      else if (d.severity === 'warning') warnings++;
+    }
+    return { errors, warnings };
+  }
+
+  /** One fragment's figures (its point group and plan estimate only). */
+  fragmentFigures(index: number): FragmentFigures {
+    let figures = this.fragments.get(index);
+    if (!figures) {
+      figures = fragmentFigures(this.estimates, index);
+      this.fragments.set(index, figures);
+    }
+    return figures;
+  }
+
+  /** The system's figures, with its point group (within the size policy of estimates.ts). */
+  systemFigures(): SystemFigures {
+    return (this.system ??= systemFigures(this.estimates));
+  }
+
+  /** Every figure under stable keys: the system, each fragment, the scan totals, the limits. */
+  report(): EstimateReport {
+    this.whole ??= assembleReport({
+      analysis: this,
+      system: this.systemFigures(),
+      fragments: this.model.fragments.map((fragment) => this.fragmentFigures(fragment.index)),
+      diagnostics: this.counts(),
+    });
+    return this.whole;
+  }
+
+  /** The largest qubit count any quantum-tier fragment needs (only those fragments are estimated). */
+  largestQubitCount(): { fragment: string; qubits: number } | undefined {
+    let best: { fragment: string; qubits: number } | undefined;
+    for (const fragment of this.model.fragments) {
+      if (fragment.tier?.level !== 'quantum') continue;
+      const figures = this.fragmentFigures(fragment.index);
+      if (figures.qubitsRequired !== null && (!best || figures.qubitsRequired > best.qubits)) best = { fragment: figures.name, qubits: figures.qubitsRequired };
+    }
+    return best;
+  }
+
+  /** How qubits and Pauli terms grow with the fragment's active space (figures/growth.ts). */
+  growth(fragmentIndex: number, maxOrbitals = GROWTH_MAX_ORBITALS): GrowthPoint[] {
+    const key = `${fragmentIndex}:${maxOrbitals}`;
+    let points = this.growths.get(key);
+    if (!points) {
+      points = activeSpaceGrowth(this.estimates, fragmentIndex, maxOrbitals);
+      this.growths.set(key, points);
+    }
+    return points;
+  }
+
+  /** The atoms a scan moves: the second atom's fragment, or its bonded group without fragments. */
+  scanMovingAtoms(): number[] {
+    if (!this.moving) {
+      const model = this.model;
+      const scan = model.scan;
+      if (!scan) this.moving = [];
+      else {
+        const owner = model.owner[scan.second] ?? -1;
+        this.moving = owner >= 0 ? [...model.fragments[owner]!.atoms] : bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
+      }
+    }
+    return this.moving;
+  }
+}
+
+/** Analyses a document: the language analysis now, everything else when first asked for. */
+export function analyzeDocument(text: string, options: AnalysisOptions = {}, late?: LateResults): DocumentAnalysis {
+  return new DocumentAnalysis(analyze(text, options), late);
+}

@@ -1,0 +1,132 @@
+/**
+ * The per-part estimates of one model, each computed on first request and kept: the point group
+ * of the system and of each fragment (orbitals per irrep inside and outside the frozen core), what
+ * each fragment's plan estimate is computed from, the plan estimate itself, and the system's
+ * symmetry-reduced counts. Symmetry detection is the costliest step, so it follows one size
+ * policy everywhere (checks and figures alike): SYMMETRY_ATOM_LIMIT.
+ */
+import { frozenCoreShells } from '../chemistry/elements';
+import { activeIrreps, planSymmetryOf, resolveGivenIrreps, symmetryCounts, type PlanSymmetry } from '../chemistry/estimate/activeIrreps';
+import type { PauliTermCounts } from '../chemistry/estimate/pauliTerms';
+import { estimatePlan, type PlanEstimate, type PlanInput } from '../chemistry/estimate/plan';
+import { orbitalSymmetry, type OrbitalSymmetry } from '../chemistry/symmetry';
+import type { Mapping } from '../chemistry/qubits';
+import type { SpecModel } from '../language/model';
+
+/**
+ * Point groups are looked for in atom sets up to this many atoms (the whole system with the
+ * near-symmetry search, fragments without it); larger ones are counted without symmetry (C1), so
+ * that checking and hovering stay fast on clusters. The near-symmetry check uses the same limit.
+ */
+export const SYMMETRY_ATOM_LIMIT = 500;
+
+export interface SystemCounts {
+  readonly pauliTerms: PauliTermCounts | undefined;
+  readonly taperedQubits: number | undefined;
+  /** True when the full group is non-abelian: the Pauli count is then an upper bound. */
+  readonly upperBound: boolean;
+}
+
+const PLAN_EMBEDDINGS = new Set(['dmet', 'projection', 'subtractive']);
+
+export class Estimates {
+  private systemSymmetryCache: OrbitalSymmetry | undefined | null = null;
+  private readonly fragmentSymmetries = new Map<number, OrbitalSymmetry | undefined>();
+  private readonly plans = new Map<number, PlanEstimate | undefined>();
+  private systemCountsCache: SystemCounts | undefined;
+
+  constructor(readonly model: SpecModel) {}
+
+  /** Whether an atom set of this size gets a point group (see SYMMETRY_ATOM_LIMIT). */
+  static symmetryApplies(atoms: number): boolean {
+    return atoms > 0 && atoms <= SYMMETRY_ATOM_LIMIT;
+  }
+
+  /** The whole system's symmetry, with the near-symmetry search; undefined above the size limit. */
+  systemSymmetry(): OrbitalSymmetry | undefined {
+    if (this.systemSymmetryCache === null) {
+      const atoms = this.model.atoms.map((atom) => atom.index);
+      this.systemSymmetryCache = this.symmetryOf(atoms, this.model.frozenCore, true);
+    }
+    return this.systemSymmetryCache;
+  }
+
+  fragmentSymmetry(index: number): OrbitalSymmetry | undefined {
+    if (!this.fragmentSymmetries.has(index)) {
+      const fragment = this.model.fragments[index]!;
+      this.fragmentSymmetries.set(index, this.symmetryOf(fragment.atoms, fragment.tier?.frozenCore ?? this.model.frozenCore, false));
+    }
+    return this.fragmentSymmetries.get(index);
+  }
+
+  /** What the plan estimate of a fragment is computed from; undefined for fragments that cannot be sized. */
+  planInput(index: number): PlanInput | undefined {
+    const fragment = this.model.fragments[index]!;
+    const tier = fragment.tier;
+    // A mean-field tier has no active space to size: its cost is the orbital count alone.
+    if (!tier || tier.level === 'mean-field' || fragment.atoms.length === 0 || fragment.space.atomsWithoutBasis > 0) return undefined;
+    const symmetry = planSymmetryOf(this.fragmentSymmetry(fragment.index));
+    const perIrrep = tier.activeIrreps && symmetry ? resolveGivenIrreps(symmetry.group, tier.activeIrreps) : undefined;
+    const active = tier.active ? { ...tier.active, ...(perIrrep ? { perIrrep } : {}) } : undefined;
+    return {
+      fragment: fragment.space,
+      system: this.model.system,
+      embedding: (PLAN_EMBEDDINGS.has(this.model.embedding) ? this.model.embedding : 'none') as PlanInput['embedding'],
+      tier: tier.level,
+      method: tier.method,
+      ansatz: tier.ansatz,
+      mapping: tier.mapping as Mapping | undefined,
+      taper: tier.taper,
+      layers: tier.layers,
+      ...(active ? { active } : {}),
+      ...(symmetry ? { symmetry } : {}),
+    };
+  }
+
+  /** The plan estimate of a fragment with a tier; undefined when it cannot be sized. */
+  plan(index: number): PlanEstimate | undefined {
+    if (!this.plans.has(index)) this.plans.set(index, this.computePlan(index));
+    return this.plans.get(index);
+  }
+
+  /** The system's point group as the counts use it. */
+  systemPlanSymmetry(): PlanSymmetry | undefined {
+    return planSymmetryOf(this.systemSymmetry());
+  }
+
+  /** Pauli terms and tapered qubits of the system's active space (outside the frozen core). */
+  systemCounts(): SystemCounts {
+    if (this.systemCountsCache) return this.systemCountsCache;
+    const space = this.model.system;
+    const symmetry = this.systemPlanSymmetry();
+    const orbitals = space.active.orbitals;
+    const valid = space.active.alpha !== undefined && space.active.beta !== undefined && orbitals > 0 && space.atomsWithoutBasis === 0;
+    if (!valid) return (this.systemCountsCache = { pauliTerms: undefined, taperedQubits: undefined, upperBound: false });
+    const counts = symmetryCounts(activeIrreps(symmetry, orbitals), { alpha: space.active.alpha!, beta: space.active.beta! });
+    this.systemCountsCache = { pauliTerms: counts.pauli, taperedQubits: counts.tapering.tapered, upperBound: symmetry?.fullGroupNonAbelian ?? false };
+    return this.systemCountsCache;
+  }
+
+  private computePlan(index: number): PlanEstimate | undefined {
+    const input = this.planInput(index);
+    if (!input) return undefined;
+    try {
+      return estimatePlan(input);
+    } catch {
+      // Sizes outside what the counting rules accept (reported by the checks); no estimate.
+      return undefined;
+    }
+  }
+
+  private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean): OrbitalSymmetry | undefined {
+    if (!Estimates.symmetryApplies(atoms.length)) return undefined;
+    const model = this.model;
+    const numbers = atoms.map((atom) => model.atoms[atom]!.element.z);
+    const positions = new Float64Array(3 * atoms.length);
+    atoms.forEach((atom, k) => positions.set(model.coordinates.subarray(3 * atom, 3 * atom + 3), 3 * k));
+    const basisOf = (atom: number) => model.basis.overrides.get(model.atoms[atom]!.element.symbol) ?? model.basis.main;
+    const shells = atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol));
+    const coreShells = frozenCore ? atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)) : undefined;
+    return orbitalSymmetry({ numbers, positions, shells, coreShells, functions: model.basis.functions }, withNear ? {} : { nearTolerance: 0 });
+  }
+}

@@ -1,0 +1,126 @@
+/**
+ * A fragment's figures: what every part has (space.ts), then the sections its tier shows, each
+ * read from the fragment's plan estimate. TIER_SECTIONS says which tier shows which section: a new
+ * tier is a new row there; a new figure is a new section (and its key in types.ts, its convention
+ * and its rows in the renderers).
+ */
+import type { PlanEstimate } from '../../chemistry/estimate/plan';
+import type { TierLevel } from '../../language/vocabulary';
+import type { Estimates } from '../estimates';
+import { bigFigure, spaceFigures } from './space';
+import type { FragmentFigures } from './types';
+
+/** Fills one group of keys from the plan. */
+type Section = (figures: FragmentFigures, plan: PlanEstimate) => Partial<FragmentFigures>;
+
+const SECTIONS = {
+  problem: (_figures, plan) => ({
+    problem: {
+      embedding: plan.problem.embedding,
+      orbitals: plan.problem.orbitals,
+      electrons: plan.problem.electrons,
+      alpha: plan.problem.alpha,
+      beta: plan.problem.beta,
+      bath: { ...plan.problem.bath },
+      convention: plan.problem.convention,
+    },
+    notes: [...plan.notes],
+  }),
+  active: (figures, plan) => ({
+    active: {
+      electrons: plan.active.electrons,
+      orbitals: plan.active.orbitals,
+      alpha: plan.active.alpha,
+      beta: plan.active.beta,
+      source: plan.active.source === 'given' ? 'given' : plan.problem.embedding === 'dmet' ? 'dmet-impurity' : figures.active.source,
+    },
+    activeIrreps:
+      plan.active.irrepsSource === 'none'
+        ? null
+        : { perIrrep: Object.fromEntries(plan.active.irreps.filter((share) => share.count > 0).map((share) => [share.label, share.count])), source: plan.active.irrepsSource },
+  }),
+  qubits: (_figures, plan) => ({
+    qubits: { jordanWigner: plan.qubits.jordanWigner, bravyiKitaev: plan.qubits.bravyiKitaev, parity: plan.qubits.parity, tapered: plan.qubits.tapered },
+    qubitsRequired: plan.qubits.required,
+    taperingSymmetries: [...plan.qubits.taperingSymmetries],
+  }),
+  pauliTerms: (_figures, plan) => ({
+    pauliTerms: { jordanWigner: plan.pauliTerms.jordanWigner, bravyiKitaev: plan.pauliTerms.bravyiKitaev, parity: plan.pauliTerms.parity, identityIncluded: true, upperBound: plan.pauliTerms.upperBound },
+  }),
+  measurement: (_figures, plan) => ({ measurement: { groups: plan.measurement.groups, exact: plan.measurement.exact, method: plan.measurement.method } }),
+  ansatz: (_figures, plan) => ({ ansatzCost: ansatzFigures(plan) }),
+  circuit: (_figures, plan) => ({ circuit: circuitFigures(plan) }),
+  classical: (_figures, plan) => ({
+    classical: {
+      determinants: bigFigure(plan.classical.determinants.determinants),
+      ciVectorBytes: bigFigure(plan.classical.ciVectorBytes, true),
+      ccsdAmplitudes: bigFigure(plan.classical.ccsd.amplitudes),
+      statevectorBytes: plan.classical.statevectorBytes ? bigFigure(plan.classical.statevectorBytes, true) : null,
+    },
+  }),
+} satisfies Record<string, Section>;
+
+export type FigureSection = keyof typeof SECTIONS;
+
+/**
+ * The sections each tier shows. A mean-field tier has no plan (its cost is its orbital count), so
+ * it shows none. The correlated tier shows the qubit figures of its active space as a comparison.
+ */
+export const TIER_SECTIONS: Readonly<Record<TierLevel, readonly FigureSection[]>> = {
+  quantum: ['problem', 'active', 'qubits', 'pauliTerms', 'measurement', 'ansatz', 'circuit', 'classical'],
+  correlated: ['problem', 'active', 'qubits', 'pauliTerms', 'measurement', 'ansatz', 'circuit', 'classical'],
+  'mean-field': [],
+};
+
+export function fragmentFigures(estimates: Estimates, index: number): FragmentFigures {
+  const model = estimates.model;
+  const fragment = model.fragments[index]!;
+  const symbols = fragment.atoms.map((atom) => model.atoms[atom]!.element.symbol);
+  const tier = fragment.tier;
+  const base = spaceFigures(fragment.space, symbols, tier ? estimates.fragmentSymmetry(index) : undefined);
+  let figures: FragmentFigures = {
+    name: fragment.name,
+    tier: tier?.level ?? null,
+    method: tier?.method ?? null,
+    ansatz: tier?.ansatz ?? null,
+    mapping: tier?.mapping ?? null,
+    qubitsRequired: null,
+    atomIndices: fragment.atoms.map((atom) => atom + 1),
+    ...base,
+    problem: null,
+    activeIrreps: null,
+    taperingSymmetries: [],
+    measurement: null,
+    ansatzCost: null,
+    circuit: null,
+    classical: null,
+    notes: [],
+  };
+  const plan = tier ? estimates.plan(index) : undefined;
+  if (!tier || !plan) return figures;
+  for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan) };
+  return figures;
+}
+
+function circuitFigures(plan: PlanEstimate): FragmentFigures['circuit'] {
+  const circuit = plan.circuit;
+  if (!circuit) return null;
+  const standard = circuit.standard;
+  return { construction: standard.construction, cnots: standard.cnots, rotations: standard.rotations ?? null, depth: standard.depth ?? null, compactCnots: circuit.compact?.cnots ?? null };
+}
+
+function ansatzFigures(plan: PlanEstimate): FragmentFigures['ansatzCost'] {
+  const ansatz = plan.ansatz;
+  if (!ansatz) return null;
+  if (ansatz.kind === 'uccsd') {
+    return {
+      kind: 'uccsd',
+      parameters: ansatz.parameters,
+      singles: ansatz.spinOrbitalScreened.singles,
+      doubles: ansatz.spinOrbitalScreened.doubles,
+      unscreened: ansatz.spinOrbital.total,
+      spinAdapted: ansatz.spinAdaptedScreened?.total ?? null,
+    };
+  }
+  return { kind: ansatz.kind, parameters: ansatz.parameters, singles: null, doubles: null, unscreened: null, spinAdapted: null };
+}

@@ -1,0 +1,112 @@
+/**
+ * The figures of an analysed spec under stable keys, with the convention behind each: the shapes
+ * the CLI's JSON, hover cards, hints, reports and plots all read, so they cannot disagree. All
+ * figures are planning estimates.
+ */
+export const PLANNING_NOTE =
+  'Planning estimates from counting rules, not results of a calculation: use them to size a study, not as guarantees.';
+
+export const CONVENTIONS = {
+  electrons: 'sum of nuclear charges − charge − core electrons replaced by effective core potentials',
+  spin: 'multiplicity 2S+1 valid when 2S ≤ N and N − 2S even; alpha = (N + 2S)/2, beta = (N − 2S)/2',
+  orbitals: 'spatial orbitals = basis functions of the chosen type (linear dependencies not removed)',
+  frozenCore: 'noble-gas core of each element, less orbitals replaced by an effective core potential (common practice)',
+  activeSpace:
+    'as given; otherwise every orbital of the problem the solver sees outside the frozen core (the DMET impurity under `embedding dmet`, else the fragment\'s own orbitals); irreps of the active orbitals as given per irrep, else in proportion to the orbitals of each irrep (an assumption)',
+  qubits: 'Jordan–Wigner and Bravyi–Kitaev: 2n for n active spatial orbitals; parity with the two-qubit reduction: 2n − 2; tapered: 2n − rank over GF(2) of the Z2 symmetries (N_α and N_β parity, point-group generators acting on the active orbitals; Bravyi et al. 2017, Setia et al. 2020)',
+  pauliTerms: 'distinct Pauli strings of the qubit Hamiltonian, identity included, for generic real integrals allowed by the abelian point group; the same under Jordan–Wigner, Bravyi–Kitaev and unreduced parity (Clifford-related); an upper bound when the full point group is non-abelian',
+  measurement: 'qubit-wise commuting groups from a largest-degree-first greedy colouring of the explicit strings up to 14 qubits, else 0.21 × (terms − 1), an estimate',
+  ansatz: 'UCCSD: spin-conserving spin-orbital excitations screened by the point group (Romero et al. 2019); k-UpCCGSD: k × 3n(n−1)/2 (Lee et al. 2019); hardware-efficient: q(3d+2) Euler angles (Kandala et al. 2017)',
+  circuit: 'one Trotter step of UCCSD under Jordan–Wigner in interleaved spin order: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020',
+  classical: 'full-CI determinants C(n, nα)·C(n, nβ); CI vector and CCSD amplitudes at 8 bytes each; statevector 2^q × 16 bytes',
+  fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
+  pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
+} as const;
+
+/** A count or size that may exceed 2^53: its text, its exact digits when known, and log10. */
+export interface BigFigure {
+  text: string;
+  exact: string | null;
+  log10: number;
+}
+
+export interface PauliFigures {
+  jordanWigner: number;
+  bravyiKitaev: number;
+  parity: number;
+  identityIncluded: true;
+  upperBound: boolean;
+}
+
+export interface SpaceFigures {
+  atoms: number;
+  formula: string;
+  charge: number;
+  multiplicity: number;
+  electrons: number;
+  alpha: number | null;
+  beta: number | null;
+  ecpCoreElectrons: number;
+  functions: 'spherical' | 'cartesian';
+  basisFunctions: { spherical: number; cartesian: number };
+  /** Atoms whose element the basis does not define; their functions are missing above. */
+  atomsWithoutBasis: number;
+  orbitals: number;
+  occupied: number | null;
+  virtual: number | null;
+  frozenCore: { orbitals: number; electrons: number };
+  active: { electrons: number; orbitals: number; alpha: number | null; beta: number | null; source: string };
+  qubits: { jordanWigner: number; bravyiKitaev: number; parity: number; tapered: number | null };
+  /** The abelian group used for counting (D2h or a subgroup), and the full Schoenflies group. */
+  pointGroup: string | null;
+  fullPointGroup: string | null;
+  orbitalsPerIrrep: Record<string, number> | null;
+  pauliTerms: PauliFigures | null;
+}
+
+export interface FragmentFigures extends SpaceFigures {
+  name: string;
+  tier: string | null;
+  method: string | null;
+  ansatz: string | null;
+  mapping: string | null;
+  /** Qubits under the fragment's mapping, tapered with `taper on` (quantum tier only). */
+  qubitsRequired: number | null;
+  atomIndices: number[];
+  /** The orbital space the solver sees: a DMET impurity or the fragment's own orbitals. */
+  problem: { embedding: string; orbitals: number; electrons: number; alpha: number; beta: number; bath: { alpha: number; beta: number }; convention: string } | null;
+  activeIrreps: { perIrrep: Record<string, number>; source: string } | null;
+  taperingSymmetries: string[];
+  measurement: { groups: number; exact: boolean; method: string } | null;
+  ansatzCost: { kind: string; parameters: number; singles: number | null; doubles: number | null; unscreened: number | null; spinAdapted: number | null } | null;
+  circuit: { construction: string; cnots: number; rotations: number | null; depth: number | null; compactCnots: number | null } | null;
+  classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
+  notes: string[];
+}
+
+export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null };
+
+export interface EstimateReport {
+  tool: 'tessera';
+  note: string;
+  spec: { name: string | null; path: string | null };
+  basis: { name: string | null; overrides: Record<string, string>; functions: 'spherical' | 'cartesian' };
+  embedding: string;
+  conventions: typeof CONVENTIONS;
+  system: SystemFigures;
+  fragments: FragmentFigures[];
+  scan: { points: number; distances: number[]; totals: ScanTotals } | null;
+  limits: { qubits: number | null; memoryBytes: number | null };
+  diagnostics: { errors: number; warnings: number };
+}
+
+/** Costs along a scan: each point repeats every fragment's calculation. */
+export interface ScanTotals {
+  /** Fragment calculations over the whole scan: points × fragments with a tier. */
+  fragmentCalculations: number;
+  /** Measurement groups summed over quantum fragments, times the points: circuits per energy evaluation over the scan. */
+  measurementCircuits: number;
+  /** The largest qubit count any point needs (the same at every point). */
+  peakQubits: number | null;
+}
+

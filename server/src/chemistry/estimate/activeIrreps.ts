@@ -1,0 +1,125 @@
+/**
+ * The one rule for the irreps of an active space, used by every figure that needs them (a
+ * fragment's plan, the qubit-limit suggestions, the system's counts, the growth series):
+ *
+ *  1. as given (`active 6e A1=3 B2=1`) when the spec gives them for this many orbitals;
+ *  2. otherwise apportioned in proportion to the orbitals of each irrep outside the frozen core
+ *     (largest remainder) — an assumption when the orbital energies are unknown;
+ *  3. without a point group, all orbitals in the totally symmetric irrep of C1.
+ *
+ * The orbitals of each irrep are then spread evenly over the register, which fixes the irreps the
+ * reference determinant fills; tapering and the Pauli-term count read that order.
+ */
+import { ABELIAN_GROUPS, CHARACTER_TABLES, findIrrep, type AbelianGroupName } from '../symmetry/characterTables';
+import type { OrbitalSymmetry } from '../symmetry/orbitalSymmetry';
+import { symmetryPattern } from './integralPattern';
+import { countPauliTerms, type ElectronCount, type PauliTermCounts } from './pauliTerms';
+import { taperQubits, type TaperingResult } from './tapering';
+
+/** Orbitals of one irrep (mask as in symmetry/characterTables.ts). */
+export interface IrrepShare {
+  readonly label: string;
+  readonly mask: number;
+  readonly count: number;
+}
+
+/** What the estimates need of a point group. */
+export interface PlanSymmetry {
+  /** The abelian group used (D2h or a subgroup). */
+  readonly group: string;
+  readonly generatorCount: number;
+  /** Names of the generators (bit g of a mask refers to generator g), for messages. */
+  readonly generatorNames: readonly string[];
+  /** Orbitals per irrep outside the frozen core, of the orbital space the solver sees. */
+  readonly available: readonly IrrepShare[];
+  /** The full group is non-abelian: abelian selection rules then only bound the integral count. */
+  readonly fullGroupNonAbelian: boolean;
+  readonly fullGroup: string;
+}
+
+export function planSymmetryOf(symmetry: OrbitalSymmetry | undefined): PlanSymmetry | undefined {
+  if (!symmetry) return undefined;
+  const table = CHARACTER_TABLES[symmetry.group];
+  const full = symmetry.symmetry.fullGroup;
+  return {
+    group: symmetry.group,
+    generatorCount: table.generators.length,
+    generatorNames: table.generators,
+    available: symmetry.available,
+    fullGroupNonAbelian: !(ABELIAN_GROUPS as readonly string[]).includes(full),
+    fullGroup: full,
+  };
+}
+
+/** Per-irrep active orbitals as written (`A1=3 B2=1`), resolved against the group; undefined when a label is not one of its irreps. */
+export function resolveGivenIrreps(group: string, given: readonly { label: string; count: number }[]): IrrepShare[] | undefined {
+  if (!(ABELIAN_GROUPS as readonly string[]).includes(group)) return undefined;
+  const shares: IrrepShare[] = [];
+  for (const entry of given) {
+    const irrep = findIrrep(group as AbelianGroupName, entry.label);
+    if (!irrep) return undefined;
+    shares.push({ label: irrep.label, mask: irrep.mask, count: entry.count });
+  }
+  return shares;
+}
+
+/**
+ * Largest-remainder apportionment of `total` orbitals over the irreps in proportion to `shares`
+ * (ties go to the earlier irrep). With total at most the shares' sum no irrep gets more than it has.
+ */
+export function apportion(shares: readonly IrrepShare[], total: number): IrrepShare[] {
+  const available = shares.reduce((sum, share) => sum + share.count, 0);
+  if (available === 0 || total <= 0) return shares.map((share) => ({ ...share, count: 0 }));
+  const exact = shares.map((share) => (share.count * total) / available);
+  const counts = exact.map(Math.floor);
+  let left = total - counts.reduce((sum, count) => sum + count, 0);
+  const order = exact.map((value, i) => ({ i, remainder: value - Math.floor(value) })).sort((a, b) => b.remainder - a.remainder || a.i - b.i);
+  for (const { i } of order) {
+    if (left === 0) break;
+    counts[i]!++;
+    left--;
+  }
+  return shares.map((share, i) => ({ ...share, count: counts[i]! }));
+}
+
+/**
+ * One irrep per active orbital, spread evenly: the orbitals of each irrep take the positions
+ * (k + ½)/count_g, merged in order. The reference determinant fills them in this order, a planning
+ * assumption when the orbital energies are unknown.
+ */
+export function spreadIrreps(shares: readonly IrrepShare[]): number[] {
+  const positions: { at: number; mask: number }[] = [];
+  for (const share of shares) for (let k = 0; k < share.count; k++) positions.push({ at: (k + 0.5) / share.count, mask: share.mask });
+  positions.sort((a, b) => a.at - b.at || a.mask - b.mask);
+  return positions.map((position) => position.mask);
+}
+
+export interface ActiveIrreps {
+  /** Orbitals per irrep of the active space. */
+  readonly irreps: readonly IrrepShare[];
+  readonly source: 'given' | 'proportional' | 'none';
+  /** The irrep mask of each active orbital in register order. */
+  readonly orbitalIrreps: readonly number[];
+  /** Generators of the group the masks refer to (0 without symmetry). */
+  readonly generatorCount: number;
+}
+
+/** The active orbitals per irrep, by the rule in the module comment. */
+export function activeIrreps(symmetry: PlanSymmetry | undefined, orbitals: number, given?: { readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[] }): ActiveIrreps {
+  if (given?.perIrrep && given.orbitals === orbitals) {
+    return { irreps: [...given.perIrrep], source: 'given', orbitalIrreps: spreadIrreps(given.perIrrep), generatorCount: symmetry?.generatorCount ?? 0 };
+  }
+  // Also for a DMET impurity, whose bath orbitals are taken to split like the fragment's own.
+  if (symmetry && symmetry.generatorCount > 0) {
+    const irreps = apportion(symmetry.available, orbitals);
+    return { irreps, source: 'proportional', orbitalIrreps: spreadIrreps(irreps), generatorCount: symmetry.generatorCount };
+  }
+  const irreps = [{ label: 'A', mask: 0, count: orbitals }];
+  return { irreps, source: 'none', orbitalIrreps: spreadIrreps(irreps), generatorCount: 0 };
+}
+
+/** Tapering and Pauli terms of an active space with these irreps and electrons. */
+export function symmetryCounts(active: ActiveIrreps, electrons: ElectronCount): { tapering: TaperingResult; pauli: PauliTermCounts } {
+  const masks = Uint8Array.from(active.orbitalIrreps);
+  return { tapering: taperQubits(masks, active.generatorCount, electrons), pauli: countPauliTerms(symmetryPattern(masks), electrons) };
+}
