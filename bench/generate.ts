@@ -48,7 +48,7 @@ export function waterBoxSpec(atomTarget: number, seed = 7): GeneratedSpec {
     '# Generated benchmark spec (invented data): a box of water molecules.',
     'spec "water-box"',
     'basis sto-3g',
-    'geometry {',
+    'structure {',
     ...lines,
     '}',
     'fragment probe {',

@@ -55,7 +55,7 @@ export async function benchLanguageServer(atoms = 5_000, edits = 60): Promise<st
 
   // Toggle the last digit of the first atom line (its z coordinate): a one-character edit that
   // keeps the spec valid.
-  const firstAtomLine = spec.text.indexOf('\n', spec.text.indexOf('geometry {')) + 1;
+  const firstAtomLine = spec.text.indexOf('\n', spec.text.indexOf('structure {')) + 1;
   const lastDigit = spec.text.indexOf('\n', firstAtomLine) - 1;
   const digit = positionOf(spec.text, spec.text.slice(firstAtomLine, lastDigit + 1), lastDigit - firstAtomLine);
   const latencies: number[] = [];

@@ -46,9 +46,9 @@ function expectSameReading(text: string): void {
 
 describe('fast geometry reader', () => {
   it('is used for plain geometry blocks and declines anything else', () => {
-    expect(extractGeometryBodies('geometry {\n  O o 0 0 0 # oxygen\n  H 0 0 1\n}\n').blocks).toHaveLength(1);
+    expect(extractGeometryBodies('structure {\n  O o 0 0 0 # oxygen\n  H 0 0 1\n}\n').blocks).toHaveLength(1);
     for (const body of ['H 0 0', 'H "x" 0 0 0', 'H 0 0 0; H 1 1 1', 'H #1 0 0', 'Xx 0 0 0', 'fragment a', 'H 0 0 1e999', 'H 6-31g 0 0 0', '{ }']) {
-      expect(extractGeometryBodies(`geometry {\n ${body}\n}\n`).blocks, body).toHaveLength(0);
+      expect(extractGeometryBodies(`structure {\n ${body}\n}\n`).blocks, body).toHaveLength(0);
     }
   });
 
@@ -74,7 +74,7 @@ describe('fast geometry reader', () => {
     );
     fc.assert(
       fc.property(fc.array(line, { maxLength: 12 }), fc.constantFrom('}', '', '}\nfragment f { atoms rest }'), (lines, end) => {
-        expectSameReading(`basis sto-3g\ngeometry {\n${lines.join('\n')}\n${end}\n`);
+        expectSameReading(`basis sto-3g\nstructure {\n${lines.join('\n')}\n${end}\n`);
       }),
       { numRuns: 400 },
     );

@@ -15,13 +15,14 @@ import { checkTiers } from './checks/tiers';
 import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
 import { interpret } from './interpret';
+import { retiredSpellings } from './migrate';
 import { buildModel, type ModelOptions, type SpecModel } from './model';
 import { parseSpec } from './parser';
 import type { SyntaxProblem, SyntaxTree } from './syntax';
 import { LineIndex } from './text';
 
 export interface AnalyzeOptions {
-  /** Absolute path of the spec; needed to resolve `geometry from`. */
+  /** Absolute path of the spec; needed to resolve `structure from`. */
   readonly path?: string;
   readonly files?: FileHost;
   /** Mapping for quantum tiers that name none (default jordan-wigner). */
@@ -95,13 +96,16 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
     const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
     for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
     return { tree, ast: interpret(tree, sink) };
-  }) ?? { tree: emptyTree(text), ast: { fragments: [], statements: [] } };
+  }) ?? { tree: emptyTree(text), ast: { fragments: [], basisOverrides: [], statements: [] } };
   const { tree, ast } = read;
   const model =
     contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??
-    buildModel({ fragments: [], statements: [] }, new DiagnosticSink(), modelOptions);
+    buildModel({ fragments: [], basisOverrides: [], statements: [] }, new DiagnosticSink(), modelOptions);
   const context = { ast, model, sink };
   for (const check of CHECKS) contained(sink, checkName(check), () => check(context));
+  contained(sink, 'finding retired spellings', () => {
+    for (const retired of retiredSpellings(text, tree, model)) sink.report('retired-spelling', retired.span, retired.message, { data: { retired: retired.kind } });
+  });
   const diagnostics = sink.items.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

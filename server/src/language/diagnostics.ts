@@ -69,6 +69,8 @@ export const DIAGNOSTIC_CODES = {
   // Basis
   'missing-basis': { severity: 'error', title: 'No basis set chosen' },
   'basis-missing-element': { severity: 'error', title: 'An element the chosen basis does not define' },
+  'basis-override-conflict': { severity: 'warning', title: 'Two basis lines of the same kind giving an atom different bases (the later one wins)' },
+  'basis-override-unused': { severity: 'warning', title: 'A basis override line that changes no atom\'s basis' },
   // Charge and spin
   'charge-not-integer': { severity: 'error', title: 'A charge that is not a whole number' },
   'multiplicity-invalid': { severity: 'error', title: 'A multiplicity that is not a positive whole number' },
@@ -90,6 +92,8 @@ export const DIAGNOSTIC_CODES = {
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  // Spellings the language no longer uses
+  'retired-spelling': { severity: 'error', title: 'An old spelling (`geometry`, `units`, the braced basis block, `within … of`); the quick fix rewrites it' },
   // Tessera itself
   'internal-error': { severity: 'error', title: 'A part of the analysis failed inside Tessera (a bug, not a mistake in the spec)' },
 } as const satisfies Record<string, CodeInfo>;

@@ -1,5 +1,5 @@
 /**
- * A fast reader for the body of `geometry { ... }` blocks, which hold nearly all of a large spec.
+ * A fast reader for the body of `structure { ... }` blocks, which hold nearly all of a large spec.
  *
  * It accepts only well-formed atom lines (`Element [label] x y z` with a known element, a plain
  * label and three finite numbers), comments and blank lines, and stores them column-wise in an
@@ -255,12 +255,13 @@ export function atomTableStatements(table: AtomTable): Statement[] {
 }
 
 /**
- * Finds `geometry {` at the start of a line and reads its body. Returns the blocks it could read,
- * and the text with each such body blanked out (same length, so every offset stays valid).
+ * Finds `structure {` or `structure in <unit> {` (or the retired keyword it replaced) at the start of a
+ * line and reads its body. Returns the blocks it could read, and the text with each such body
+ * blanked out (same length, so every offset stays valid).
  */
 export function extractGeometryBodies(text: string): { masked: string; blocks: FastGeometryBlock[] } {
   const blocks: FastGeometryBlock[] = [];
-  const pattern = /^[ \t]*geometry[ \t]*\{/gm;
+  const pattern = /^[ \t]*(?:structure(?:[ \t]+in[ \t]+[A-Za-z]+)?|geometry)[ \t]*\{/gm;
   let match: RegExpExecArray | null;
   while ((match = pattern.exec(text)) !== null) {
     const open = match.index + match[0].length - 1;

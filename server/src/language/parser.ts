@@ -36,8 +36,11 @@ import { atomTableStatements, extractGeometryBodies, type FastGeometryBlock } fr
 import type { Argument, ArgumentKind, AtomTable, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
 import { span, type Span } from './text';
 
-/** Keywords that only start top-level statements; seeing one at a line start closes an unclosed block. */
-const TOP_LEVEL_STARTERS = new Set(['spec', 'units', 'basis', 'geometry', 'fragment', 'embedding', 'scan', 'limits']);
+/**
+ * Keywords that only start top-level statements; seeing one at a line start closes an unclosed
+ * block. The retired `units` and `geometry` are among them, so that old specs recover the same way.
+ */
+const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'units', 'geometry']);
 
 const ARGUMENT_KINDS = new Map<TokenType, ArgumentKind>([
   [Word, 'word'],
@@ -204,7 +207,7 @@ class SpecParser extends EmbeddedActionsParser {
     this.ACTION(() => {
       this.problems.push({
         code: 'unexpected-token',
-        message: 'A block must follow a statement such as `fragment name` or `geometry`; its contents are ignored.',
+        message: 'A block must follow a statement such as `fragment name` or `structure`; its contents are ignored.',
         span: block.open,
       });
     });
