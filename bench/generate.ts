@@ -32,9 +32,10 @@ export function waterBoxSpec(atomTarget: number, seed = 7): GeneratedSpec {
     const cy = (Math.floor(m / side) % side) * spacing + (next() - 0.5) * 0.3;
     const cz = Math.floor(m / (side * side)) * spacing + (next() - 0.5) * 0.3;
     const atoms: [string, number, number, number][] = [
-      ['O', cx, cy, cz + 0.1173],
-      ['H', cx, cy + 0.7572, cz - 0.4692],
-      ['H', cx, cy - 0.7572, cz - 0.4692],
+      // The water of the samples (Hoy & Bunker 1979 in tests/fixtures/water.ts), O at the centre.
+      ['O', cx, cy, cz],
+      ['H', cx, cy + 0.75695, cz + 0.585882],
+      ['H', cx, cy - 0.75695, cz + 0.585882],
     ];
     for (const [symbol, x, y, z] of atoms) {
       const label = m === 0 ? ` ${symbol.toLowerCase()}${count + 1}` : '';

@@ -53,8 +53,11 @@ export async function benchLanguageServer(atoms = 5_000, edits = 60): Promise<st
   await connection.sendNotification('textDocument/didOpen', { textDocument: { uri, languageId: 'tessera', version: 1, text: spec.text } });
   await opened;
 
-  // Toggle the last digit of the first coordinate: a one-character edit that keeps the spec valid.
-  const digit = positionOf(spec.text, '0.1173', 5);
+  // Toggle the last digit of the first atom line (its z coordinate): a one-character edit that
+  // keeps the spec valid.
+  const firstAtomLine = spec.text.indexOf('\n', spec.text.indexOf('geometry {')) + 1;
+  const lastDigit = spec.text.indexOf('\n', firstAtomLine) - 1;
+  const digit = positionOf(spec.text, spec.text.slice(firstAtomLine, lastDigit + 1), lastDigit - firstAtomLine);
   const latencies: number[] = [];
   for (let version = 2; version < edits + 2; version++) {
     const done = published(version);
