@@ -12,6 +12,22 @@ export interface AtomPair {
 export const BOND_TOLERANCE_FACTOR = 1.2;
 /** Atoms closer than this are almost certainly a typing mistake (common practice, no source). */
 export const CLASH_DISTANCE = 0.5;
+/**
+ * Largest coordinate magnitude accepted, Å: 100,000 Å is 10 µm, far beyond any molecule or
+ * cluster, and small enough that squared distances stay exact to well below a bond length.
+ * Atoms beyond it (or with a non-finite coordinate) are left out of the neighbour search and the
+ * symmetry search; the checks report them.
+ */
+export const COORDINATE_LIMIT = 1e5;
+
+/** Whether atom i's coordinates are finite and within ±COORDINATE_LIMIT Å. */
+export function coordinatesInRange(coords: ArrayLike<number>, i: number): boolean {
+  for (let axis = 0; axis < 3; axis++) {
+    const value = coords[3 * i + axis]!;
+    if (!(Math.abs(value) <= COORDINATE_LIMIT)) return false;
+  }
+  return true;
+}
 
 export function distance(coords: ArrayLike<number>, i: number, j: number): number {
   const dx = coords[3 * i]! - coords[3 * j]!;
@@ -23,7 +39,8 @@ export function distance(coords: ArrayLike<number>, i: number, j: number): numbe
 /**
  * Buckets atoms into cubic cells of a given edge, so that pairs closer than the edge sit in
  * neighbouring cells. Cells are stored densely (counting sort into flat arrays) when the box is
- * not much larger than the number of atoms, and in a hash map otherwise.
+ * not much larger than the number of atoms, and in a hash map otherwise. Atoms outside
+ * ±COORDINATE_LIMIT are left out: they have no neighbours and would stretch the box.
  */
 export class NeighbourGrid {
   private readonly cellSize: number;
@@ -43,14 +60,17 @@ export class NeighbourGrid {
     const count = coords.length / 3;
     const min: [number, number, number] = [Infinity, Infinity, Infinity];
     const max: [number, number, number] = [-Infinity, -Infinity, -Infinity];
+    let included = 0;
     for (let i = 0; i < count; i++) {
+      if (!coordinatesInRange(coords, i)) continue;
+      included++;
       for (let k = 0; k < 3; k++) {
         const value = coords[3 * i + k]!;
         if (value < min[k]!) min[k] = value;
         if (value > max[k]!) max[k] = value;
       }
     }
-    if (count === 0) {
+    if (included === 0) {
       min.fill(0);
       max.fill(0);
     }
@@ -60,21 +80,22 @@ export class NeighbourGrid {
     this.origin = min;
     this.dims = [0, 1, 2].map((k) => Math.floor((max[k]! - min[k]!) / this.cellSize) + 1) as [number, number, number];
     this.cellOf = new Float64Array(count);
-    for (let i = 0; i < count; i++) this.cellOf[i] = this.keyOf(this.cellIndex(i, 0), this.cellIndex(i, 1), this.cellIndex(i, 2));
+    for (let i = 0; i < count; i++) this.cellOf[i] = coordinatesInRange(coords, i) ? this.keyOf(this.cellIndex(i, 0), this.cellIndex(i, 1), this.cellIndex(i, 2)) : -1;
     const totalCells = this.dims[0] * this.dims[1] * this.dims[2];
     if (totalCells <= Math.max(1 << 16, 8 * count)) {
       const start = new Int32Array(totalCells + 1);
-      for (let i = 0; i < count; i++) start[this.cellOf[i]! + 1]!++;
+      for (let i = 0; i < count; i++) if (this.cellOf[i]! >= 0) start[this.cellOf[i]! + 1]!++;
       for (let c = 0; c < totalCells; c++) start[c + 1]! += start[c]!;
       const fill = start.slice(0, totalCells);
-      const sorted = new Int32Array(count);
-      for (let i = 0; i < count; i++) sorted[fill[this.cellOf[i]!]!++] = i;
+      const sorted = new Int32Array(included);
+      for (let i = 0; i < count; i++) if (this.cellOf[i]! >= 0) sorted[fill[this.cellOf[i]!]!++] = i;
       this.cellStart = start;
       this.sortedAtoms = sorted;
     } else {
       const map = new Map<number, number[]>();
       for (let i = 0; i < count; i++) {
         const key = this.cellOf[i]!;
+        if (key < 0) continue;
         const bucket = map.get(key);
         if (bucket) bucket.push(i);
         else map.set(key, [i]);
@@ -105,6 +126,7 @@ export class NeighbourGrid {
     const sorted = this.sortedAtoms;
     for (let i = 0; i < count; i++) {
       const key = this.cellOf[i]!;
+      if (key < 0) continue;
       const x = key % nx;
       const y = Math.floor(key / nx) % ny;
       const z = Math.floor(key / (nx * ny));
@@ -139,6 +161,7 @@ export class NeighbourGrid {
   neighboursOf(i: number, radius: number): AtomPair[] {
     const found: AtomPair[] = [];
     const key = this.cellOf[i]!;
+    if (key < 0) return found;
     const [nx, ny] = this.dims;
     const cx = key % nx;
     const cy = Math.floor(key / nx) % ny;

@@ -38,6 +38,11 @@ export function printDiagnostics(spec: LoadedSpec, io: CliIo): void {
   for (const diagnostic of spec.diagnostics) io.stderr(`${formatDiagnosticLine(diagnostic)}\n`);
 }
 
+/** Whether Tessera itself failed on part of the spec (exit code 3). */
+export function hasInternalError(spec: LoadedSpec): boolean {
+  return spec.diagnostics.some((d) => d.code === 'internal-error');
+}
+
 /** The name a spec goes by in exports and reports: its `spec "name"`, else its file name. */
 export function specTitle(spec: LoadedSpec): string {
   return spec.analysis.model.name ?? path.basename(spec.file).replace(/\.tess$/i, '');

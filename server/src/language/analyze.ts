@@ -15,7 +15,7 @@ import { checkTiers } from './checks/tiers';
 import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
 import { interpret } from './interpret';
-import { buildModel, type SpecModel } from './model';
+import { buildModel, type ModelOptions, type SpecModel } from './model';
 import { parseSpec } from './parser';
 import type { SyntaxProblem, SyntaxTree } from './syntax';
 import { LineIndex } from './text';
@@ -54,19 +54,54 @@ const SYNTAX_CODES: Record<SyntaxProblem['code'], DiagnosticCode> = {
   'bad-character': 'unexpected-character',
 };
 
+/**
+ * Runs one stage of the analysis; when it throws (a bug in Tessera, whatever the input), reports an
+ * `internal-error` at the start of the document and returns undefined, so the other stages still run.
+ */
+export function contained<T>(sink: DiagnosticSink, stage: string, run: () => T): T | undefined {
+  try {
+    return run();
+  } catch (error) {
+    sink.report('internal-error', { start: 0, end: 0 }, internalErrorMessage(stage, error));
+    return undefined;
+  }
+}
+
+/** The message of an `internal-error`: what failed and how, and that the spec is not to blame. */
+export function internalErrorMessage(stage: string, error: unknown): string {
+  const what = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+  return `Tessera failed while ${stage} (${what}). This is a bug in Tessera, not necessarily a mistake in the spec; everything else was still checked. Please report it with the spec.`;
+}
+
+function emptyTree(text: string): SyntaxTree {
+  return { statements: [], comments: [], problems: [], textLength: text.length };
+}
+
+/** How a check is named in an `internal-error`: `checkNearSymmetry` → `running the near symmetry check`. */
+export function checkName(check: { readonly name: string }): string {
+  const name = check.name.replace(/^check/, '').replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return name ? `running the ${name} check` : 'running a check';
+}
+
 export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
   const sink = new DiagnosticSink();
-  const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
-  for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
-  const ast = interpret(tree, sink);
-  const model = buildModel(ast, sink, {
+  const modelOptions: ModelOptions = {
     files: options.files ?? diskFileHost,
     ...(options.path ? { path: options.path } : {}),
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
-  });
+  };
+  const read = contained(sink, 'reading the spec', () => {
+    const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
+    for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
+    return { tree, ast: interpret(tree, sink) };
+  }) ?? { tree: emptyTree(text), ast: { fragments: [], statements: [] } };
+  const { tree, ast } = read;
+  const model =
+    contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??
+    buildModel({ fragments: [], statements: [] }, new DiagnosticSink(), modelOptions);
   const context = { ast, model, sink };
-  for (const check of CHECKS) check(context);
+  for (const check of CHECKS) contained(sink, checkName(check), () => check(context));
   const diagnostics = sink.items.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

@@ -61,6 +61,7 @@ export const DIAGNOSTIC_CODES = {
   'include-outside-folder': { severity: 'error', title: 'An included file outside the spec\'s folder tree' },
   'include-unreadable': { severity: 'error', title: 'An included file that cannot be read' },
   'include-invalid': { severity: 'error', title: 'An included XYZ file with a malformed line' },
+  'coordinate-out-of-range': { severity: 'error', title: 'A coordinate beyond ±100,000 Å, which no molecule has' },
   'atoms-too-close': { severity: 'error', title: 'Two atoms closer than 0.5 Å' },
   'units-suspect': { severity: 'warning', title: 'Distances that look typed in the other length unit' },
   'bond-cut': { severity: 'warning', title: 'Covalent bonds cut by a fragment boundary' },
@@ -89,6 +90,8 @@ export const DIAGNOSTIC_CODES = {
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  // Tessera itself
+  'internal-error': { severity: 'error', title: 'A part of the analysis failed inside Tessera (a bug, not a mistake in the spec)' },
 } as const satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;

@@ -8,7 +8,7 @@ import { normalizeBasisName } from '../../chemistry/basis/library';
 import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
-import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { exitCode, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
 
 export type EstimateFormat = 'text' | 'json' | 'markdown';
@@ -122,5 +122,5 @@ export function runEstimate(options: EstimateOptions, io: CliIo): number {
     }
   }
   if (errors > 0 && options.format !== 'json') io.stderr(`tessera: ${errors} error${errors === 1 ? '' : 's'}: the figures above may be incomplete.\n`);
-  return errors > 0 ? EXIT_ERRORS : EXIT_OK;
+  return exitCode({ internal: prepared.diagnostics.some((d) => d.code === 'internal-error'), errors: errors > 0 });
 }
