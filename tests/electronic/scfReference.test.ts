@@ -1,12 +1,15 @@
 /**
  * Tessera's integrals and SCF end to end against Debian's psi4 1.3.2
  * (tests/fixtures/scf-reference.psi4.json, made by scripts/data/generate_scf_reference_fixture.py:
- * scf_type pk, mp2_type conv, convergence 1e-10, invented geometries in our standard orientation).
+ * scf_type pk, mp2_type conv, convergence 1e-10, invented geometries in our standard orientation):
+ * total energies and MP2 correlation energies (all electrons and frozen core) to 1e-6 hartree,
+ * orbital energies to 1e-5, occupied orbitals per irrep exactly.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { FunctionKind } from '../../server/src/electronic/contracts';
+import { mp2 } from '../../server/src/electronic/correlation';
 import { computeMeanField, type ScfReference } from '../../server/src/electronic/scf';
 
 export interface ReferenceCase {
@@ -49,7 +52,7 @@ function piPartner(labels: string[], h: number): number {
 describe('SCF with Tessera integrals against psi4 1.3.2', () => {
   for (const entry of REFERENCE_CASES) {
     it(`${entry.name}, ${entry.basis} (${entry.kind}), ${entry.reference.toUpperCase()}`, () => {
-      const { result } = computeMeanField(
+      const { result, wavefunction, problem } = computeMeanField(
         { atoms: entry.geometry, basis: entry.basis, kind: entry.kind, charge: entry.charge, multiplicity: entry.multiplicity },
         { reference: entry.reference, energyTolerance: 1e-10, gradientTolerance: 1e-7 },
       );
@@ -74,6 +77,10 @@ describe('SCF with Tessera integrals against psi4 1.3.2', () => {
       else expect(beta).toEqual(entry.docc);
       if (linear && !equal(socc, entry.socc)) expect(swap(socc)).toEqual(entry.socc);
       else expect(socc).toEqual(entry.socc);
+      if (entry.reference === 'rhf' && entry.mp2 !== undefined) {
+        expect(Math.abs(mp2(wavefunction, problem.eri).result.correlationEnergy - entry.mp2)).toBeLessThan(1e-6);
+        expect(Math.abs(mp2(wavefunction, problem.eri, { frozenCore: true }).result.correlationEnergy - entry.mp2FrozenCore!)).toBeLessThan(1e-6);
+      }
     });
   }
 });
