@@ -344,6 +344,13 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMissAllows: ['bond-cut'],
     message: ['The scan goes from 1.5 to 0.9, so the step must be negative; it is 0.1.'],
   },
+  'too-many-problems': {
+    // 1,001 stray characters and the missing geometry: 1,002 problems, the first 1,000 listed.
+    trigger: `${'@\n'.repeat(998)}@⟦⟧\n${'@\n'.repeat(2)}`,
+    nearMiss: '@\n'.repeat(999),
+    nearMissAllows: ['unexpected-character', 'missing-geometry'],
+    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point'],
+  },
   'internal-error': {
     // A file host that throws stands for any bug below analyze(): the spec itself is fine.
     trigger: `⟦⟧${fromFile('"data/water.xyz"')}`,

@@ -12,7 +12,7 @@ import { checkGeometry } from './checks/geometry';
 import { checkScan } from './checks/scan';
 import { checkSpin } from './checks/spin';
 import { checkTiers } from './checks/tiers';
-import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
+import { DiagnosticSink, finishDiagnostics, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
 import { interpret } from './interpret';
 import { buildModel, type ModelOptions, type SpecModel } from './model';
@@ -102,6 +102,6 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
     buildModel({ fragments: [], statements: [] }, new DiagnosticSink(), modelOptions);
   const context = { ast, model, sink };
   for (const check of CHECKS) contained(sink, checkName(check), () => check(context));
-  const diagnostics = sink.items.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+  const diagnostics = finishDiagnostics(sink.items, sink.dropped);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

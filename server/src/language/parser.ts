@@ -115,8 +115,14 @@ class SpecParser extends EmbeddedActionsParser {
   private topLevelKeywordStartsLine(): boolean {
     const next = this.LA(1);
     if (next.tokenType !== Word || !TOP_LEVEL_STARTERS.has(next.image)) return false;
-    const lineStart = this.text.lastIndexOf('\n', next.startOffset - 1) + 1;
-    return this.text.slice(lineStart, next.startOffset).trim() === '';
+    // Only blanks between the line start and the word: scanning back stops at the first other
+    // character, so that many statements on one line cost no more than the line.
+    for (let i = next.startOffset - 1; i >= 0; i--) {
+      const code = this.text.charCodeAt(i);
+      if (code === 10 || code === 13) return true;
+      if (code !== 32 && code !== 9 && code !== 12 && code !== 11 && code !== 0xa0 && code !== 0xfeff) return false;
+    }
+    return true;
   }
 
   public document = this.RULE('document', (): Statement[] => {
