@@ -4,11 +4,12 @@ import { benchHamiltonian } from './hamiltonian';
 import { benchIrreps } from './irreps';
 import { benchLanguageServer } from './lsp';
 import { benchPauli } from './pauli';
+import { benchScf } from './scf';
 import { benchSymmetry } from './symmetry';
 
 type Section = () => string[] | Promise<string[]>;
 
-const sections: Section[] = [benchAnalysis, benchSymmetry, benchIrreps, benchPauli, benchHamiltonian, () => benchLanguageServer()];
+const sections: Section[] = [benchAnalysis, benchSymmetry, benchIrreps, benchPauli, benchHamiltonian, benchScf, () => benchLanguageServer()];
 
 async function main(): Promise<void> {
   console.log(`# Tessera benchmarks (Node ${process.version}, ${new Date().toISOString()})\n`);

@@ -11,7 +11,8 @@ d_convergence 1e-10; psi4's own abelian point group in the given axes):
 * for RHF the MP2 correlation energy with all electrons and with frozen core, for UHF with all
   electrons (psi4's occ module).
 
-Geometries are idealised and invented (round bond lengths and angles, labelled per case), written
+Geometries are idealised and invented (round bond lengths and angles), except water (Hoy & Bunker
+1979, r = 0.9572 A, angle 104.52 degrees, the structure the rest of the repository uses), written
 in angstrom here, converted to bohr with 0.529177210903 A (CODATA 2018, as in
 server/src/chemistry/units.ts) and given to psi4 in bohr with no_com and no_reorient. They are
 already in the orientation Tessera's symmetry module prescribes (server/src/chemistry/symmetry/
@@ -97,9 +98,10 @@ def trigonal_planar_yz(center, ligand, bond):
 
 
 def molecules():
-    """name -> (atoms in angstrom, charge, multiplicity, note). Geometries invented, idealised."""
+    """name -> (atoms in angstrom, charge, multiplicity). Geometries invented and idealised, except water."""
     return {
-        "water": (bent_yz("O", "H", 0.958, 104.5), 0, 1),
+        # Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979): r = 0.9572 A, HOH 104.52 degrees (as in tests/fixtures/water.ts).
+        "water": (bent_yz("O", "H", 0.9572, 104.52), 0, 1),
         "ammonia": (pyramid_x("N", "H", 1.012, 112.0), 0, 1),
         "methane": (tetrahedron("C", "H", 1.089), 0, 1),
         "dinitrogen": (linear(("N", 0.549), ("N", -0.549)), 0, 1),

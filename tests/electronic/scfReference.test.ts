@@ -2,14 +2,15 @@
  * Tessera's integrals and SCF end to end against Debian's psi4 1.3.2
  * (tests/fixtures/scf-reference.psi4.json, made by scripts/data/generate_scf_reference_fixture.py:
  * scf_type pk, mp2_type conv, convergence 1e-10, invented geometries in our standard orientation):
- * total energies and MP2 correlation energies (all electrons and frozen core) to 1e-6 hartree,
+ * total energies and MP2 correlation energies (RHF: all electrons and frozen core; UHF: all
+ * electrons, psi4's occ module) to 1e-6 hartree,
  * orbital energies to 1e-5, occupied orbitals per irrep exactly.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { FunctionKind } from '../../server/src/electronic/contracts';
-import { mp2 } from '../../server/src/electronic/correlation';
+import { mp2, unrestrictedMp2 } from '../../server/src/electronic/correlation';
 import { computeMeanField, type ScfReference } from '../../server/src/electronic/scf';
 
 export interface ReferenceCase {
@@ -80,6 +81,9 @@ describe('SCF with Tessera integrals against psi4 1.3.2', () => {
       if (entry.reference === 'rhf' && entry.mp2 !== undefined) {
         expect(Math.abs(mp2(wavefunction, problem.eri).result.correlationEnergy - entry.mp2)).toBeLessThan(1e-6);
         expect(Math.abs(mp2(wavefunction, problem.eri, { frozenCore: true }).result.correlationEnergy - entry.mp2FrozenCore!)).toBeLessThan(1e-6);
+      }
+      if (entry.reference === 'uhf' && entry.mp2 !== undefined) {
+        expect(Math.abs(unrestrictedMp2(wavefunction, problem.eri).correlationEnergy - entry.mp2)).toBeLessThan(1e-6);
       }
     });
   }

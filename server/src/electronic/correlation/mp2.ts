@@ -1,5 +1,5 @@
 /**
- * Second-order Møller–Plesset correlation energy on an RHF reference (C. Møller, M. S. Plesset,
+ * Second-order Møller–Plesset correlation energy on an RHF reference (and on UHF, energy only, below) (C. Møller, M. S. Plesset,
  * Phys. Rev. 46, 618 (1934); closed-shell form as in A. Szabo, N. S. Ostlund, Modern Quantum
  * Chemistry, Macmillan 1982, eq. 6.74):
  *   E(2) = Σ_ijab (ia|jb) [2(ia|jb) − (ib|ja)] / (ε_i + ε_j − ε_a − ε_b),
@@ -83,111 +83,151 @@ export function frozenCoreOrbitals(basis: MolecularBasis): number {
 
 const pairIndex = (i: number, j: number) => (i >= j ? (i * (i + 1)) / 2 + j : (j * (j + 1)) / 2 + i);
 
+/** Occupied and virtual orbitals of one spin, as the transformation reads them. */
+interface OrbitalSet {
+  /** n×o and n×v coefficients. */
+  readonly occ: Float64Array;
+  readonly vir: Float64Array;
+  readonly o: number;
+  readonly v: number;
+  readonly eOcc: Float64Array;
+  readonly eVir: Float64Array;
+}
+
+function orbitalSet(c: Float64Array, energies: Float64Array, n: number, frozen: number, occupied: number): OrbitalSet {
+  const m = energies.length;
+  const o = occupied - frozen;
+  const v = m - occupied;
+  const occ = new Float64Array(n * o);
+  const vir = new Float64Array(n * v);
+  for (let mu = 0; mu < n; mu++) {
+    for (let i = 0; i < o; i++) occ[mu * o + i] = c[mu * m + frozen + i]!;
+    for (let a = 0; a < v; a++) vir[mu * v + a] = c[mu * m + occupied + a]!;
+  }
+  return { occ, vir, o, v, eOcc: energies.slice(frozen, occupied), eVir: energies.slice(occupied) };
+}
+
+function resolveFrozen(options: Mp2Options, basis: MolecularBasis, occupied: number): number {
+  const frozen = options.frozenCore === true ? frozenCoreOrbitals(basis) : typeof options.frozenCore === 'number' ? options.frozenCore : 0;
+  if (!Number.isInteger(frozen) || frozen < 0 || frozen > occupied) throw new Mp2InputError(`Cannot freeze ${frozen} of ${occupied} occupied orbitals.`);
+  return frozen;
+}
+
+/**
+ * Calls `visit(i, blocks)` for every active occupied orbital i of `left`, with blocks[r][j][a][b] =
+ * (ia|jb) for a virtual of `left` and j, b occupied and virtual of rights[r]. Batches the occupied
+ * orbitals so that the intermediates (plus `extraPerOccupied` bytes the caller holds per orbital)
+ * stay within the memory budget.
+ */
+function transformPairs(
+  eri: TwoElectronIntegrals,
+  left: OrbitalSet,
+  rights: readonly OrbitalSet[],
+  options: Mp2Options,
+  extraPerOccupied: number,
+  visit: (i: number, blocks: readonly Float64Array[]) => void,
+): { batchSize: number; batches: number } {
+  const n = eri.basis.functionCount;
+  const { o, v } = left;
+  const npair = (n * (n + 1)) / 2;
+  const perOccupied = 8 * (n * npair + v * npair) + rights.reduce((sum, right) => sum + 8 * right.o * v * right.v, 0) + extraPerOccupied;
+  const budget = options.memoryBytes ?? DEFAULT_MP2_MEMORY;
+  if (o > 0 && perOccupied > budget) {
+    throw new Mp2InputError(`MP2 needs at least ${(perOccupied / 2 ** 20).toFixed(1)} MiB for one occupied orbital at a time; the limit is ${(budget / 2 ** 20).toFixed(1)} MiB.`);
+  }
+  const batchSize = Math.max(1, Math.min(o, Math.floor(budget / perOccupied)));
+  const batches = o === 0 ? 0 : Math.ceil(o / batchSize);
+  const firstQuarter = new Float64Array(batchSize * n * npair);
+  const half = new Float64Array(v * npair); // (ia|λσ) for one i
+  const square = new Float64Array(n * n);
+  const rightOcc = rights.map((right) => new Float64Array(right.o * n));
+  const blocks = rights.map((right) => new Float64Array(right.o * v * right.v));
+  const row = new Float64Array(Math.max(1, ...rights.map((right) => right.v)));
+  for (let batch = 0; batch < batches; batch++) {
+    const first = batch * batchSize;
+    const size = Math.min(batchSize, o - first);
+    firstQuarterTransform(eri, left.occ, o, first, size, firstQuarter, options.cancel);
+    for (let local = 0; local < size; local++) {
+      throwIfCancelled(options.cancel);
+      // ν → a: half[a][λσ] = Σ_ν C_νa (iν|λσ).
+      multiplyTransposeA(left.vir, firstQuarter.subarray(local * n * npair, (local + 1) * n * npair), n, v, npair, half);
+      for (let a = 0; a < v; a++) {
+        const packed = half.subarray(a * npair, (a + 1) * npair);
+        for (let l = 0; l < n; l++) for (let s = 0; s <= l; s++) square[l * n + s] = square[s * n + l] = packed[(l * (l + 1)) / 2 + s]!;
+        rights.forEach((right, r) => {
+          // (ia|jb) = Σ_λσ C_λj (ia|λσ) C_σb.
+          const partial = multiplyTransposeA(right.occ, square, n, right.o, n, rightOcc[r]!); // o×n
+          const block = blocks[r]!;
+          for (let j = 0; j < right.o; j++) {
+            row.fill(0, 0, right.v);
+            for (let s = 0; s < n; s++) {
+              const factor = partial[j * n + s]!;
+              if (factor === 0) continue;
+              for (let b = 0; b < right.v; b++) row[b]! += factor * right.vir[s * right.v + b]!;
+            }
+            block.set(row.subarray(0, right.v), (j * v + a) * right.v);
+          }
+        });
+      }
+      visit(first + local, blocks);
+    }
+    options.onProgress?.({ done: first + size, total: o });
+  }
+  return { batchSize, batches };
+}
+
 export function mp2(wavefunction: ScfWavefunction, eri: TwoElectronIntegrals, options: Mp2Options = {}): Mp2Outcome {
-  if (wavefunction.reference !== 'rhf') throw new Mp2InputError(`MP2 here needs an RHF reference, not ${wavefunction.reference.toUpperCase()}.`);
+  if (wavefunction.reference !== 'rhf') {
+    throw new Mp2InputError(`This MP2 needs an RHF reference, not ${wavefunction.reference.toUpperCase()}${wavefunction.reference === 'uhf' ? ' (use unrestrictedMp2 for the energy)' : ''}.`);
+  }
   const basis = eri.basis;
   const n = basis.functionCount;
   const mAll = wavefunction.orbitalEnergies.alpha.length;
   const occupied = wavefunction.electrons.alpha;
-  const frozen = options.frozenCore === true ? frozenCoreOrbitals(basis) : typeof options.frozenCore === 'number' ? options.frozenCore : 0;
-  if (!Number.isInteger(frozen) || frozen < 0 || frozen > occupied) throw new Mp2InputError(`Cannot freeze ${frozen} of ${occupied} occupied orbitals.`);
-  const o = occupied - frozen;
-  const v = mAll - occupied;
-  const c = wavefunction.coefficients.alpha;
-  const eps = wavefunction.orbitalEnergies.alpha;
-  // Coefficients of the active occupied and the virtual orbitals (n×o, n×v).
-  const cOcc = new Float64Array(n * o);
-  const cVir = new Float64Array(n * v);
-  for (let mu = 0; mu < n; mu++) {
-    for (let i = 0; i < o; i++) cOcc[mu * o + i] = c[mu * mAll + frozen + i]!;
-    for (let a = 0; a < v; a++) cVir[mu * v + a] = c[mu * mAll + occupied + a]!;
-  }
-  const npair = (n * (n + 1)) / 2;
-  const perOccupied = 8 * (n * npair + v * npair) + 8 * o * v * v * 3;
-  const budget = options.memoryBytes ?? DEFAULT_MP2_MEMORY;
-  const batchSize = Math.max(1, Math.min(o, Math.floor(budget / perOccupied)));
-  if (o > 0 && perOccupied > budget) {
-    throw new Mp2InputError(`MP2 needs at least ${(perOccupied / 2 ** 20).toFixed(0)} MiB for one occupied orbital at a time; the limit is ${(budget / 2 ** 20).toFixed(0)} MiB.`);
-  }
-  const batches = o === 0 ? 0 : Math.ceil(o / batchSize);
-
+  const frozen = resolveFrozen(options, basis, occupied);
+  const set = orbitalSet(wavefunction.coefficients.alpha, wavefunction.orbitalEnergies.alpha, n, frozen, occupied);
+  const { o, v, eOcc, eVir } = set;
   let oppositeSpin = 0;
   let sameSpin = 0;
   const occupiedDensity = new Float64Array(o * o); // correction to 2δ_ij
   const virtualDensity = new Float64Array(v * v);
-  const firstQuarter = new Float64Array(batchSize * n * npair);
-  const half = new Float64Array(v * npair); // (ia|λσ) for one i
-  const square = new Float64Array(n * n);
-  const mOcc = new Float64Array(n * o);
-  const iajb = new Float64Array(o * v * v); // for one i: [j][a][b]
   const t = new Float64Array(o * v * v); // amplitudes t_ij^ab for one i: [j][a][b]
   const tTilde = new Float64Array(o * v * v);
-  const row = new Float64Array(v);
-
-  for (let batch = 0; batch < batches; batch++) {
-    const first = batch * batchSize;
-    const size = Math.min(batchSize, o - first);
-    firstQuarterTransform(eri, cOcc, o, first, size, firstQuarter, options.cancel);
-    for (let local = 0; local < size; local++) {
-      throwIfCancelled(options.cancel);
-      const i = first + local;
-      // ν → a: half[a][λσ] = Σ_ν C_νa (iν|λσ).
-      multiplyTransposeA(cVir, firstQuarter.subarray(local * n * npair, (local + 1) * n * npair), n, v, npair, half);
+  const width = v * v;
+  const { batchSize, batches } = transformPairs(eri, set, [set], options, 16 * o * v * v, (i, [iajb]) => {
+    const ei = eOcc[i]!;
+    for (let j = 0; j < o; j++) {
+      const ej = eOcc[j]!;
       for (let a = 0; a < v; a++) {
-        // (ia|jb) = Σ_λσ C_λj (ia|λσ) C_σb.
-        const packed = half.subarray(a * npair, (a + 1) * npair);
-        for (let l = 0; l < n; l++) for (let s = 0; s <= l; s++) square[l * n + s] = square[s * n + l] = packed[(l * (l + 1)) / 2 + s]!;
-        const left = multiplyTransposeA(cOcc, square, n, o, n, mOcc); // o×n: Σ_λ C_λj M_λσ
-        for (let j = 0; j < o; j++) {
-          for (let b = 0; b < v; b++) row[b] = 0;
-          for (let s = 0; s < n; s++) {
-            const factor = left[j * n + s]!;
-            if (factor === 0) continue;
-            for (let b = 0; b < v; b++) row[b]! += factor * cVir[s * v + b]!;
-          }
-          iajb.set(row, (j * v + a) * v);
+        const ea = eVir[a]!;
+        for (let b = 0; b < v; b++) {
+          const index = (j * v + a) * v + b;
+          t[index] = iajb![index]! / (ei + ej - ea - eVir[b]!);
         }
-      }
-      const ei = eps[frozen + i]!;
-      for (let j = 0; j < o; j++) {
-        const ej = eps[frozen + j]!;
-        for (let a = 0; a < v; a++) {
-          const ea = eps[occupied + a]!;
-          for (let b = 0; b < v; b++) {
-            const index = (j * v + a) * v + b;
-            t[index] = iajb[index]! / (ei + ej - ea - eps[occupied + b]!);
-          }
-        }
-      }
-      for (let j = 0; j < o; j++) {
-        for (let a = 0; a < v; a++) {
-          for (let b = 0; b < v; b++) {
-            const ab = (j * v + a) * v + b;
-            const ba = (j * v + b) * v + a;
-            oppositeSpin += t[ab]! * iajb[ab]!;
-            sameSpin += (t[ab]! - t[ba]!) * iajb[ab]!;
-            tTilde[ab] = 2 * t[ab]! - t[ba]!;
-          }
-        }
-      }
-      // Occupied block: D_jl −= 2 Σ_ab t_ij^ab t̃_il^ab (i plays k of the header).
-      const width = v * v;
-      for (let j = 0; j < o; j++) {
-        for (let l = 0; l < o; l++) {
-          let sum = 0;
-          for (let x = 0; x < width; x++) sum += t[j * width + x]! * tTilde[l * width + x]!;
-          occupiedDensity[j * o + l]! -= 2 * sum;
-        }
-      }
-      // Virtual block: D_ab += 2 Σ_jc t_ij^ac t̃_ij^bc.
-      for (let j = 0; j < o; j++) {
-        const tj = t.subarray(j * width, (j + 1) * width);
-        const ttj = tTilde.subarray(j * width, (j + 1) * width);
-        multiplyTransposeBAccumulate(tj, ttj, v, virtualDensity, 2);
       }
     }
-    options.onProgress?.({ done: first + size, total: o });
-  }
+    for (let j = 0; j < o; j++) {
+      for (let a = 0; a < v; a++) {
+        for (let b = 0; b < v; b++) {
+          const ab = (j * v + a) * v + b;
+          const ba = (j * v + b) * v + a;
+          oppositeSpin += t[ab]! * iajb![ab]!;
+          sameSpin += (t[ab]! - t[ba]!) * iajb![ab]!;
+          tTilde[ab] = 2 * t[ab]! - t[ba]!;
+        }
+      }
+    }
+    // Occupied block: D_jl −= 2 Σ_ab t_ij^ab t̃_il^ab (i plays k of the header).
+    for (let j = 0; j < o; j++) {
+      for (let l = 0; l < o; l++) {
+        let sum = 0;
+        for (let x = 0; x < width; x++) sum += t[j * width + x]! * tTilde[l * width + x]!;
+        occupiedDensity[j * o + l]! -= 2 * sum;
+      }
+    }
+    // Virtual block: D_ab += 2 Σ_jc t_ij^ac t̃_ij^bc.
+    for (let j = 0; j < o; j++) multiplyTransposeBAccumulate(t.subarray(j * width, (j + 1) * width), tTilde.subarray(j * width, (j + 1) * width), v, virtualDensity, 2);
+  });
   const correlationEnergy = oppositeSpin + sameSpin;
 
   // Full spin-summed density in the canonical orbitals.
@@ -198,21 +238,69 @@ export function mp2(wavefunction: ScfWavefunction, eri: TwoElectronIntegrals, op
   const negated = density.map((value) => -value);
   const { values, vectors } = symmetricEigen(negated, mAll);
   const naturalOccupations = Array.from(values, (value) => -value);
-  const naturalOrbitals = multiply(c, vectors, n, mAll, mAll, new Float64Array(n * mAll));
+  const naturalOrbitals = multiply(wavefunction.coefficients.alpha, vectors, n, mAll, mAll, new Float64Array(n * mAll));
   return {
-    result: {
-      correlationEnergy,
-      totalEnergy: wavefunction.energy + correlationEnergy,
-      oppositeSpin,
-      sameSpin,
-      frozenCore: frozen,
-      batchSize,
-      batches,
-      naturalOccupations,
-    },
+    result: { correlationEnergy, totalEnergy: wavefunction.energy + correlationEnergy, oppositeSpin, sameSpin, frozenCore: frozen, batchSize, batches, naturalOccupations },
     density,
     naturalOrbitals,
   };
+}
+
+export interface UnrestrictedMp2Result {
+  readonly correlationEnergy: number;
+  readonly totalEnergy: number;
+  /** αβ part. */
+  readonly oppositeSpin: number;
+  /** αα + ββ parts. */
+  readonly sameSpin: number;
+  /** Orbitals of each spin left uncorrelated. */
+  readonly frozenCore: number;
+}
+
+/**
+ * MP2 energy on a UHF reference (J. A. Pople, J. S. Binkley, R. Seeger, Int. J. Quantum Chem.
+ * Symp. 10, 1 (1976)): E = ¼ Σ_σ Σ_ijab |⟨ij||ab⟩|²/D over same-spin pairs + Σ (ia|jb)²/D over
+ * α–β pairs, D = ε_i + ε_j − ε_a − ε_b. Two passes over the integrals (α and β on the left);
+ * frozen core removes the same number of the lowest orbitals of each spin.
+ */
+export function unrestrictedMp2(wavefunction: ScfWavefunction, eri: TwoElectronIntegrals, options: Mp2Options = {}): UnrestrictedMp2Result {
+  if (wavefunction.reference !== 'uhf') throw new Mp2InputError(`unrestrictedMp2 needs a UHF reference, not ${wavefunction.reference.toUpperCase()}.`);
+  const basis = eri.basis;
+  const n = basis.functionCount;
+  const frozen = resolveFrozen(options, basis, wavefunction.electrons.beta);
+  const alpha = orbitalSet(wavefunction.coefficients.alpha, wavefunction.orbitalEnergies.alpha, n, frozen, wavefunction.electrons.alpha);
+  const beta = orbitalSet(wavefunction.coefficients.beta, wavefunction.orbitalEnergies.beta, n, frozen, wavefunction.electrons.beta);
+  let sameSpin = 0;
+  let oppositeSpin = 0;
+  const sameSpinPart = (set: OrbitalSet, i: number, iajb: Float64Array) => {
+    const { o, v, eOcc, eVir } = set;
+    let sum = 0;
+    for (let j = 0; j < o; j++) {
+      for (let a = 0; a < v; a++) {
+        for (let b = 0; b < v; b++) {
+          const anti = iajb[(j * v + a) * v + b]! - iajb[(j * v + b) * v + a]!;
+          sum += (anti * anti) / (eOcc[i]! + eOcc[j]! - eVir[a]! - eVir[b]!);
+        }
+      }
+    }
+    return 0.25 * sum;
+  };
+  transformPairs(eri, alpha, [alpha, beta], options, 0, (i, [aa, ab]) => {
+    sameSpin += sameSpinPart(alpha, i, aa!);
+    for (let j = 0; j < beta.o; j++) {
+      for (let a = 0; a < alpha.v; a++) {
+        for (let b = 0; b < beta.v; b++) {
+          const value = ab![(j * alpha.v + a) * beta.v + b]!;
+          oppositeSpin += (value * value) / (alpha.eOcc[i]! + beta.eOcc[j]! - alpha.eVir[a]! - beta.eVir[b]!);
+        }
+      }
+    }
+  });
+  transformPairs(eri, beta, [beta], options, 0, (i, [bb]) => {
+    sameSpin += sameSpinPart(beta, i, bb!);
+  });
+  const correlationEnergy = sameSpin + oppositeSpin;
+  return { correlationEnergy, totalEnergy: wavefunction.energy + correlationEnergy, oppositeSpin, sameSpin, frozenCore: frozen };
 }
 
 /** out (v×v) += factor · A·Bᵀ for v×v matrices A and B. */
