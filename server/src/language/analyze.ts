@@ -18,7 +18,8 @@ import { interpret } from './interpret';
 import { buildModel, type ModelOptions, type SpecModel } from './model';
 import { parseSpec } from './parser';
 import type { SyntaxProblem, SyntaxTree } from './syntax';
-import { LineIndex } from './text';
+import { MAX_ATOMS, MAX_SPEC_CHARACTERS, MAX_WORDS, SUPPORTED_SIZE } from './limits';
+import { LineIndex, normalizeLineEnds } from './text';
 
 export interface AnalyzeOptions {
   /** Absolute path of the spec; needed to resolve `geometry from`. */
@@ -83,7 +84,22 @@ export function checkName(check: { readonly name: string }): string {
   return name ? `running the ${name} check` : 'running a check';
 }
 
-export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
+/** The analysis of a spec refused for its size: one `spec-too-large` and nothing else is read. */
+function refusedAnalysis(text: string, options: AnalyzeOptions, modelOptions: ModelOptions, message: string): Analysis {
+  const sink = new DiagnosticSink();
+  sink.report('spec-too-large', { start: 0, end: 0 }, message);
+  const ast: SpecAst = { fragments: [], statements: [] };
+  const model = buildModel(ast, new DiagnosticSink(), modelOptions);
+  return { text, path: options.path, lines: new LineIndex(text), tree: emptyTree(text), ast, model, diagnostics: sink.items };
+}
+
+function tooLarge(what: string): string {
+  return `${what}; Tessera analyses specs of up to ${SUPPORTED_SIZE}, and refuses larger ones so that the editor stays responsive. Split the spec into several.`;
+}
+
+export function analyze(original: string, options: AnalyzeOptions = {}): Analysis {
+  // Carriage returns alone end lines too (as the editor counts them); same length, same offsets.
+  const text = normalizeLineEnds(original);
   const sink = new DiagnosticSink();
   const modelOptions: ModelOptions = {
     files: options.files ?? diskFileHost,
@@ -91,11 +107,19 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
   };
+  if (text.length > MAX_SPEC_CHARACTERS) {
+    return refusedAnalysis(text, options, modelOptions, tooLarge(`This spec has ${text.length.toLocaleString('en-US')} characters`));
+  }
   const read = contained(sink, 'reading the spec', () => {
-    const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
+    const tree = parseSpec(text, { ...(options.fastGeometry === false ? { fastGeometry: false } : {}), maxWords: MAX_WORDS });
+    if (tree.words !== undefined) return { refused: tooLarge(`This spec has about ${tree.words.toLocaleString('en-US')} words outside plain geometry blocks`) };
     for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
-    return { tree, ast: interpret(tree, sink) };
+    const ast = interpret(tree, sink);
+    const atoms = ast.geometry?.atoms.length ?? 0;
+    if (atoms > MAX_ATOMS) return { refused: tooLarge(`This spec has ${atoms.toLocaleString('en-US')} atoms`) };
+    return { tree, ast };
   }) ?? { tree: emptyTree(text), ast: { fragments: [], statements: [] } };
+  if ('refused' in read && read.refused !== undefined) return refusedAnalysis(text, options, modelOptions, read.refused);
   const { tree, ast } = read;
   const model =
     contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??

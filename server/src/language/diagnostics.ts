@@ -92,6 +92,7 @@ export const DIAGNOSTIC_CODES = {
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
   // Tessera itself
+  'spec-too-large': { severity: 'error', title: 'A spec or included file beyond the supported size (8 MiB, 100,000 atoms, 1,000,000 words outside plain geometry)' },
   'too-many-problems': { severity: 'warning', title: 'More problems than Tessera lists for one file (1,000); says how many more there are' },
   'internal-error': { severity: 'error', title: 'A part of the analysis failed inside Tessera (a bug, not a mistake in the spec)' },
 } as const satisfies Record<string, CodeInfo>;

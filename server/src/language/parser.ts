@@ -34,6 +34,7 @@ import {
 } from './lexer';
 import { atomTableStatements, extractGeometryBodies, type FastGeometryBlock } from './geometryFastPath';
 import type { Argument, ArgumentKind, AtomTable, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
+import { countWords } from './limits';
 import { span, type Span } from './text';
 
 /** Keywords that only start top-level statements; seeing one at a line start closes an unclosed block. */
@@ -261,6 +262,8 @@ function limitNesting(tokens: IToken[], problems: SyntaxProblem[]): IToken[] {
 export interface ParseOptions {
   /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
+  /** Refuse (return an empty tree with `words` set) when the text outside plain geometry blocks has more words. */
+  readonly maxWords?: number;
 }
 
 /** A geometry block read by the fast reader: its statements are built from the table on first use. */
@@ -293,6 +296,10 @@ function injectGeometry(statements: Statement[], blocks: readonly FastGeometryBl
 /** Parses spec text into a syntax tree; never throws on bad input. */
 export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree {
   const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text);
+  if (options.maxWords !== undefined) {
+    const words = countWords(masked);
+    if (words > options.maxWords) return { statements: [], comments: [], problems: [], textLength: text.length, words };
+  }
   const lexed = tokenize(masked);
   const parser = (sharedParser ??= new SpecParser());
   const nestingProblems: SyntaxProblem[] = [];

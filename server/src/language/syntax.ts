@@ -82,6 +82,8 @@ export interface SyntaxTree {
   readonly comments: CommentNode[];
   readonly problems: SyntaxProblem[];
   readonly textLength: number;
+  /** Set when the parse was refused: the words counted outside plain geometry blocks, beyond `maxWords`. */
+  readonly words?: number;
 }
 
 /** Visits every statement depth-first, passing the chain of enclosing statements. */

@@ -8,7 +8,7 @@ import type { IToken } from 'chevrotain';
 import type { Range, TextEdit } from 'vscode-languageserver-types';
 import { elementBySymbol } from '../chemistry/elements';
 import { ElectronCount, LBrace, NumberLiteral, OrbitalCount, RangeDots, RBrace, Semicolon, tokenize, Word } from '../language/lexer';
-import { LineIndex } from '../language/text';
+import { LineIndex, normalizeLineEnds } from '../language/text';
 
 export interface FormatOptions {
   /** Spaces per block level (default 2). */
@@ -161,7 +161,8 @@ function alignRows(rows: readonly AtomRow[], indent: string, minimumDecimals: nu
 }
 
 /** The formatted text of every line (same number of lines as the input). */
-export function formatLines(text: string, options: FormatOptions = {}): string[] {
+export function formatLines(original: string, options: FormatOptions = {}): string[] {
+  const text = normalizeLineEnds(original);
   const unit = ' '.repeat(options.indent ?? 2);
   const minimumDecimals = options.minimumDecimals ?? 4;
   const { lines } = splitLines(text);
@@ -217,7 +218,7 @@ export function formatText(text: string, options: FormatOptions = {}): string {
 /** Edits that format the document, or only the lines a range touches. */
 export function format(text: string, range?: Range, options: FormatOptions = {}): TextEdit[] {
   const formatted = formatLines(text, options);
-  const original = text.split('\n').map((line) => line.replace(/\r$/, ''));
+  const original = normalizeLineEnds(text).split('\n').map((line) => line.replace(/\r$/, ''));
   const edits: TextEdit[] = [];
   original.forEach((line, index) => {
     if (range && (index < range.start.line || index > range.end.line)) return;
