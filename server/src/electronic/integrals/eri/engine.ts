@@ -53,6 +53,30 @@ interface QuartetClass {
   readonly nd: number;
 }
 
+interface SharedClass {
+  readonly vrr: VrrProgram;
+  readonly kernel: VrrKernel | null;
+  readonly braHrr: HrrProgram;
+  readonly ketHrr: HrrProgram;
+}
+
+/**
+ * Programs and compiled kernels depend on the momenta only, so they are made once per process and
+ * shared by every engine (an SCF guess builds one engine per atom); buffers stay per engine.
+ */
+const sharedClasses = new Map<number, SharedClass>();
+
+function sharedClass(la: number, lb: number, lc: number, ld: number): SharedClass {
+  const key = ((la * 16 + lb) * 16 + lc) * 16 + ld;
+  let shared = sharedClasses.get(key);
+  if (!shared) {
+    const vrr = buildVrrProgram(la, lb, lc, ld);
+    shared = { vrr, kernel: compileVrr(vrr), braHrr: buildHrrProgram(la, lb), ketHrr: buildHrrProgram(lc, ld) };
+    sharedClasses.set(key, shared);
+  }
+  return shared;
+}
+
 export class EriEngine {
   /** The last quartet in layout [c][d][a][b] over functions of shells `c`, `d`, `a`, `b` (below). */
   readonly result: Float64Array;
@@ -92,9 +116,7 @@ export class EriEngine {
     const key = ((la * 16 + lb) * 16 + lc) * 16 + ld;
     let cls = this.classes.get(key);
     if (!cls) {
-      const vrr = buildVrrProgram(la, lb, lc, ld);
-      const braHrr = buildHrrProgram(la, lb);
-      const ketHrr = buildHrrProgram(lc, ld);
+      const { vrr, kernel, braHrr, ketHrr } = sharedClass(la, lb, lc, ld);
       const kind = this.basis.kind;
       const ta = functionTransform(la, kind);
       const tb = functionTransform(lb, kind);
@@ -104,7 +126,7 @@ export class EriEngine {
       const nb = cartesianCount(lb);
       cls = {
         vrr,
-        kernel: compileVrr(vrr),
+        kernel,
         braHrr,
         ketHrr,
         ta,
