@@ -363,6 +363,19 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMissAllows: ['bond-cut'],
     message: ['The scan goes from 1.5 to 0.9, so the step must be negative; it is 0.1.'],
   },
+  'spec-too-large': {
+    // One character beyond the supported 8 MiB, and a spec of exactly 8 MiB (water padded with a comment).
+    trigger: `⟦⟧${padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024 + 1)}`,
+    nearMiss: padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024),
+    message: ['This spec has 8,388,609 characters', 'up to 8,388,608 characters (8 MiB), 100,000 atoms and 1,000,000 words outside plain structure blocks'],
+  },
+  'too-many-problems': {
+    // 1,001 stray characters and the missing geometry: 1,002 problems, the first 1,000 listed.
+    trigger: `${'@\n'.repeat(998)}@⟦⟧\n${'@\n'.repeat(2)}`,
+    nearMiss: '@\n'.repeat(999),
+    nearMissAllows: ['unexpected-character', 'missing-geometry'],
+    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point'],
+  },
   'internal-error': {
     // A file host that throws stands for any bug below analyze(): the spec itself is fine.
     trigger: `⟦⟧${fromFile('"data/water.xyz"')}`,
@@ -372,6 +385,11 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     message: ['Tessera failed while building the model', 'Error: the disk driver failed', 'This is a bug in Tessera'],
   },
 };
+
+/** The spec followed by a comment line that brings it to `length` characters. */
+function padTo(spec: string, length: number): string {
+  return `${spec}# ${'x'.repeat(length - spec.length - 3)}\n`;
+}
 
 /** A file host with a bug: reading throws instead of answering. */
 function throwingFiles(message: string): FileHost {

@@ -13,7 +13,7 @@ import { bondedGroup } from '../chemistry/scan';
 import type { SpecAst } from '../language/ast';
 import { analyze, checkName, contained, type Analysis, type AnalyzeOptions } from '../language/analyze';
 import type { Diagnostic } from '../language/diagnostics';
-import { DiagnosticSink } from '../language/diagnostics';
+import { DiagnosticSink, finishDiagnostics } from '../language/diagnostics';
 import type { SpecModel } from '../language/model';
 import type { SyntaxTree } from '../language/syntax';
 import type { LineIndex } from '../language/text';
@@ -72,7 +72,7 @@ export class DocumentAnalysis {
       const sink = new DiagnosticSink();
       const context = { ast: this.ast, model: this.model, sink, estimates: this.estimates };
       for (const check of ESTIMATE_CHECKS) contained(sink, checkName(check), () => check(context));
-      this.allDiagnostics = [...this.languageDiagnostics, ...sink.items].sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+      this.allDiagnostics = finishDiagnostics([...this.languageDiagnostics, ...sink.items], sink.dropped);
     }
     return this.allDiagnostics;
   }

@@ -12,14 +12,15 @@ import { checkGeometry } from './checks/geometry';
 import { checkScan } from './checks/scan';
 import { checkSpin } from './checks/spin';
 import { checkTiers } from './checks/tiers';
-import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
+import { DiagnosticSink, finishDiagnostics, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
 import { interpret } from './interpret';
 import { retiredSpellings } from './migrate';
 import { buildModel, type ModelOptions, type SpecModel } from './model';
 import { parseSpec } from './parser';
 import type { SyntaxProblem, SyntaxTree } from './syntax';
-import { LineIndex } from './text';
+import { MAX_ATOMS, MAX_SPEC_CHARACTERS, MAX_WORDS, SUPPORTED_SIZE } from './limits';
+import { LineIndex, normalizeLineEnds } from './text';
 
 export interface AnalyzeOptions {
   /** Absolute path of the spec; needed to resolve `structure from`. */
@@ -27,7 +28,7 @@ export interface AnalyzeOptions {
   readonly files?: FileHost;
   /** Mapping for quantum tiers that name none (default jordan-wigner). */
   readonly defaultMapping?: Mapping;
-  /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
+  /** Read plain structure blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
   /** Qubit limit for specs that set none in `limits` (an editor setting or a CLI option). */
   readonly defaultQubitLimit?: number;
@@ -84,7 +85,22 @@ export function checkName(check: { readonly name: string }): string {
   return name ? `running the ${name} check` : 'running a check';
 }
 
-export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
+/** The analysis of a spec refused for its size: one `spec-too-large` and nothing else is read. */
+function refusedAnalysis(text: string, options: AnalyzeOptions, modelOptions: ModelOptions, message: string): Analysis {
+  const sink = new DiagnosticSink();
+  sink.report('spec-too-large', { start: 0, end: 0 }, message);
+  const ast: SpecAst = { fragments: [], basisOverrides: [], statements: [] };
+  const model = buildModel(ast, new DiagnosticSink(), modelOptions);
+  return { text, path: options.path, lines: new LineIndex(text), tree: emptyTree(text), ast, model, diagnostics: sink.items };
+}
+
+function tooLarge(what: string): string {
+  return `${what}; Tessera analyses specs of up to ${SUPPORTED_SIZE}, and refuses larger ones so that the editor stays responsive. Split the spec into several.`;
+}
+
+export function analyze(original: string, options: AnalyzeOptions = {}): Analysis {
+  // Carriage returns alone end lines too (as the editor counts them); same length, same offsets.
+  const text = normalizeLineEnds(original);
   const sink = new DiagnosticSink();
   const modelOptions: ModelOptions = {
     files: options.files ?? diskFileHost,
@@ -92,11 +108,19 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
   };
+  if (text.length > MAX_SPEC_CHARACTERS) {
+    return refusedAnalysis(text, options, modelOptions, tooLarge(`This spec has ${text.length.toLocaleString('en-US')} characters`));
+  }
   const read = contained(sink, 'reading the spec', () => {
-    const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
+    const tree = parseSpec(text, { ...(options.fastGeometry === false ? { fastGeometry: false } : {}), maxWords: MAX_WORDS });
+    if (tree.words !== undefined) return { refused: tooLarge(`This spec has about ${tree.words.toLocaleString('en-US')} words outside plain structure blocks`) };
     for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
-    return { tree, ast: interpret(tree, sink) };
+    const ast = interpret(tree, sink);
+    const atoms = ast.geometry?.atoms.length ?? 0;
+    if (atoms > MAX_ATOMS) return { refused: tooLarge(`This spec has ${atoms.toLocaleString('en-US')} atoms`) };
+    return { tree, ast };
   }) ?? { tree: emptyTree(text), ast: { fragments: [], basisOverrides: [], statements: [] } };
+  if ('refused' in read && read.refused !== undefined) return refusedAnalysis(text, options, modelOptions, read.refused);
   const { tree, ast } = read;
   const model =
     contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??
@@ -106,6 +130,6 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
   contained(sink, 'finding retired spellings', () => {
     for (const retired of retiredSpellings(text, tree, model)) sink.report('retired-spelling', retired.span, retired.message, { data: { retired: retired.kind } });
   });
-  const diagnostics = sink.items.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+  const diagnostics = finishDiagnostics(sink.items, sink.dropped);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

@@ -34,6 +34,7 @@ import {
 } from './lexer';
 import { atomTableStatements, extractGeometryBodies, type FastGeometryBlock } from './geometryFastPath';
 import type { Argument, ArgumentKind, AtomTable, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
+import { countWords } from './limits';
 import { span, type Span } from './text';
 
 /**
@@ -118,8 +119,14 @@ class SpecParser extends EmbeddedActionsParser {
   private topLevelKeywordStartsLine(): boolean {
     const next = this.LA(1);
     if (next.tokenType !== Word || !TOP_LEVEL_STARTERS.has(next.image)) return false;
-    const lineStart = this.text.lastIndexOf('\n', next.startOffset - 1) + 1;
-    return this.text.slice(lineStart, next.startOffset).trim() === '';
+    // Only blanks between the line start and the word: scanning back stops at the first other
+    // character, so that many statements on one line cost no more than the line.
+    for (let i = next.startOffset - 1; i >= 0; i--) {
+      const code = this.text.charCodeAt(i);
+      if (code === 10 || code === 13) return true;
+      if (code !== 32 && code !== 9 && code !== 12 && code !== 11 && code !== 0xa0 && code !== 0xfeff) return false;
+    }
+    return true;
   }
 
   public document = this.RULE('document', (): Statement[] => {
@@ -256,8 +263,10 @@ function limitNesting(tokens: IToken[], problems: SyntaxProblem[]): IToken[] {
 }
 
 export interface ParseOptions {
-  /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
+  /** Read plain structure blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
+  /** Refuse (return an empty tree with `words` set) when the text outside plain structure blocks has more words. */
+  readonly maxWords?: number;
 }
 
 /** A geometry block read by the fast reader: its statements are built from the table on first use. */
@@ -290,6 +299,10 @@ function injectGeometry(statements: Statement[], blocks: readonly FastGeometryBl
 /** Parses spec text into a syntax tree; never throws on bad input. */
 export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree {
   const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text);
+  if (options.maxWords !== undefined) {
+    const words = countWords(masked);
+    if (words > options.maxWords) return { statements: [], comments: [], problems: [], textLength: text.length, words };
+  }
   const lexed = tokenize(masked);
   const parser = (sharedParser ??= new SpecParser());
   const nestingProblems: SyntaxProblem[] = [];

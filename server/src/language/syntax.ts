@@ -28,7 +28,7 @@ export interface Block {
   readonly statements: Statement[];
   readonly span: Span;
   /**
-   * For a plain geometry block read by the fast reader: its atom lines column by column. Then
+   * For a plain structure block read by the fast reader: its atom lines column by column. Then
    * `statements` is built from it on first use; analysis reads the table directly.
    */
   readonly atomTable?: AtomTable;
@@ -82,6 +82,8 @@ export interface SyntaxTree {
   readonly comments: CommentNode[];
   readonly problems: SyntaxProblem[];
   readonly textLength: number;
+  /** Set when the parse was refused: the words counted outside plain structure blocks, beyond `maxWords`. */
+  readonly words?: number;
 }
 
 /** Visits every statement depth-first, passing the chain of enclosing statements. */

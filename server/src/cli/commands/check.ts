@@ -1,7 +1,7 @@
 /** `tessera check <files…> [--format text|json]`: diagnostics for each spec. */
-import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { analyzeDocument } from '../../analysis';
+import { readTextFile } from '../../language/files';
 import { exitCode, UsageError, type CliIo } from '../io';
 import { describeFailure, formatDiagnosticLine, printable, summaryLine, type PrintedDiagnostic } from '../output';
 
@@ -30,16 +30,14 @@ export function runCheck(options: CheckOptions, io: CliIo): number {
   const results: FileResult[] = [];
   for (const file of options.files) {
     const absolute = path.resolve(io.cwd, file);
-    let text: string;
-    try {
-      text = readFileSync(absolute, 'utf8');
-    } catch (error) {
+    const read = readTextFile(absolute);
+    if (!read.ok) {
       unreadable++;
-      const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-      results.push({ file, diagnostics: [], error: `cannot read ${file}: ${reason}` });
-      if (options.format === 'text') io.stderr(`tessera: cannot read ${file}: ${reason}\n`);
+      results.push({ file, diagnostics: [], error: `cannot read ${file}: ${read.reason}` });
+      if (options.format === 'text') io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
       continue;
     }
+    const text = read.text;
     try {
       const analysis = analyzeDocument(text, { path: absolute });
       const printed = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));

@@ -2,10 +2,10 @@
  * `tessera estimate <spec>` and `tessera estimate --xyz <file> --basis <name> ...`: the counts for
  * the system and each fragment, as a table, Markdown or JSON.
  */
-import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { normalizeBasisName } from '../../chemistry/basis/library';
 import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
+import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
 import { exitCode, EXIT_USAGE, UsageError, type CliIo } from '../io';
@@ -31,13 +31,10 @@ interface Prepared {
 }
 
 function readText(file: string, io: CliIo): string | undefined {
-  try {
-    return readFileSync(path.resolve(io.cwd, file), 'utf8');
-  } catch (error) {
-    const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-    io.stderr(`tessera: cannot read ${file}: ${reason}\n`);
-    return undefined;
-  }
+  const read = readTextFile(path.resolve(io.cwd, file));
+  if (read.ok) return read.text;
+  io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
+  return undefined;
 }
 
 function prepareSpec(file: string, io: CliIo): Prepared | undefined {

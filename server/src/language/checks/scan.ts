@@ -45,7 +45,7 @@ export function checkScan(context: CheckContext): void {
     const name = model.fragments[shared]!.name;
     sink.report('invalid-scan', scan.statement.keyword.span, `Both scanned atoms are in fragment '${name}'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments.`);
   }
-  const shortest = Math.min(...resolved.distances);
+  const shortest = resolved.distances.reduce((least, d) => Math.min(least, d), Infinity);
   if (resolved.distances.length > 0 && shortest < CLASH_DISTANCE) {
     // Written in the structure's unit; said in ångström, the unit of the clash distance, and in bohr too when the spec uses it.
     const asWritten = model.units === 'bohr' ? ` (${Number((shortest / BOHR_IN_ANGSTROM).toPrecision(6))} bohr, the structure's unit)` : '';
