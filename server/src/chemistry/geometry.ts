@@ -116,9 +116,14 @@ export class NeighbourGrid {
     return x >= 0 && y >= 0 && z >= 0 && x < this.dims[0] && y < this.dims[1] && z < this.dims[2];
   }
 
-  /** Calls `visit` once for every unordered pair closer than `cutoff` (cutoff <= cell size). */
-  forEachPairWithin(cutoff: number, visit: (i: number, j: number, distance: number) => void): void {
+  /**
+   * Calls `visit` once for every unordered pair closer than `cutoff` (cutoff <= cell size). Stops
+   * after examining `maxExamined` pairs (distances computed) and returns false then; true when
+   * every pair was seen.
+   */
+  forEachPairWithin(cutoff: number, visit: (i: number, j: number, distance: number) => void, maxExamined = Infinity): boolean {
     const cutoffSquared = cutoff * cutoff;
+    let examined = 0;
     const coords = this.coords;
     const count = coords.length / 3;
     const [nx, ny] = this.dims;
@@ -145,6 +150,7 @@ export class NeighbourGrid {
             for (let k = from; k < to; k++) {
               const j = sorted ? sorted[k]! : bucket![k]!;
               if (j <= i) continue;
+              if (++examined > maxExamined) return false;
               const ddx = xi - coords[3 * j]!;
               const ddy = yi - coords[3 * j + 1]!;
               const ddz = zi - coords[3 * j + 2]!;
@@ -155,6 +161,7 @@ export class NeighbourGrid {
         }
       }
     }
+    return true;
   }
 
   /** Atoms within `radius` of atom `i`, excluding `i` itself, nearest first. */
@@ -186,9 +193,30 @@ export class NeighbourGrid {
   }
 }
 
+/** Clash pairs kept; the rest are counted (the check reports 50 of them and how many more there are). */
+export const MAX_STORED_CLASHES = 1_000;
+/**
+ * Bonds kept: a real structure has about two per atom, so this is far beyond the supported
+ * 100,000 atoms; only atoms piled on top of each other reach it, and the rest are counted.
+ */
+export const MAX_STORED_BONDS = 400_000;
+/**
+ * Atom pairs examined at most. Within the cutoff a cell holds a handful of atoms unless they
+ * clash, so only a pile of clashing atoms (thousands within half an ångström) gets here; the
+ * counts are then lower bounds and the contacts are marked incomplete.
+ */
+export const MAX_EXAMINED_PAIRS = 50_000_000;
+
 export interface ContactAnalysis {
+  /** Sorted by atoms; at most MAX_STORED_BONDS. */
   readonly bonds: AtomPair[];
+  /** Sorted by atoms; at most MAX_STORED_CLASHES. */
   readonly clashes: AtomPair[];
+  /** Every bond and clash found, stored or not (lower bounds when not complete). */
+  readonly bondCount: number;
+  readonly clashCount: number;
+  /** False when the search stopped after MAX_EXAMINED_PAIRS pairs. */
+  readonly complete: boolean;
   /** Per atom: distance to its nearest neighbour within the search cutoff, or Infinity. */
   readonly nearestDistance: Float64Array;
   /** Per atom: index of that nearest neighbour, or -1. */
@@ -207,11 +235,13 @@ export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<numb
   const grid = new NeighbourGrid(coords, cutoff);
   const bonds: AtomPair[] = [];
   const clashes: AtomPair[] = [];
+  let bondCount = 0;
+  let clashCount = 0;
   const nearestDistance = new Float64Array(count).fill(Infinity);
   const nearestAtom = new Int32Array(count).fill(-1);
-  grid.forEachPairWithin(cutoff, (i, j, d) => {
-    if (d < CLASH_DISTANCE) clashes.push({ i, j, distance: d });
-    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bonds.push({ i, j, distance: d });
+  const complete = grid.forEachPairWithin(cutoff, (i, j, d) => {
+    if (d < CLASH_DISTANCE && clashCount++ < MAX_STORED_CLASHES) clashes.push({ i, j, distance: d });
+    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!) && bondCount++ < MAX_STORED_BONDS) bonds.push({ i, j, distance: d });
     if (d < nearestDistance[i]!) {
       nearestDistance[i] = d;
       nearestAtom[i] = j;
@@ -220,9 +250,9 @@ export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<numb
       nearestDistance[j] = d;
       nearestAtom[j] = i;
     }
-  });
+  }, MAX_EXAMINED_PAIRS);
   const byAtoms = (a: AtomPair, b: AtomPair) => a.i - b.i || a.j - b.j;
-  return { bonds: bonds.sort(byAtoms), clashes: clashes.sort(byAtoms), nearestDistance, nearestAtom };
+  return { bonds: bonds.sort(byAtoms), clashes: clashes.sort(byAtoms), bondCount, clashCount, complete, nearestDistance, nearestAtom };
 }
 
 export interface UnitsSuspicion {
@@ -247,7 +277,8 @@ export function suspectUnits(
   contacts: ContactAnalysis,
 ): UnitsSuspicion | undefined {
   const count = radii.length;
-  if (count < 2) return undefined;
+  // Without every near pair (a pile of clashing atoms) the distances say nothing about the unit.
+  if (count < 2 || !contacts.complete) return undefined;
   let nearest = contacts.nearestDistance;
   let partner = contacts.nearestAtom;
   if (declared === 'angstrom') {
@@ -257,16 +288,21 @@ export function suspectUnits(
     const cutoff = 2 * maxRadius * 2.5;
     nearest = new Float64Array(count).fill(Infinity);
     partner = new Int32Array(count).fill(-1);
-    new NeighbourGrid(coords, cutoff).forEachPairWithin(cutoff, (i, j, d) => {
-      if (d < nearest[i]!) {
-        nearest[i] = d;
-        partner[i] = j;
-      }
-      if (d < nearest[j]!) {
-        nearest[j] = d;
-        partner[j] = i;
-      }
-    });
+    const seen = new NeighbourGrid(coords, cutoff).forEachPairWithin(
+      cutoff,
+      (i, j, d) => {
+        if (d < nearest[i]!) {
+          nearest[i] = d;
+          partner[i] = j;
+        }
+        if (d < nearest[j]!) {
+          nearest[j] = d;
+          partner[j] = i;
+        }
+      },
+      MAX_EXAMINED_PAIRS,
+    );
+    if (!seen) return undefined;
   }
   const ratios: number[] = [];
   for (let i = 0; i < count; i++) {

@@ -1,5 +1,5 @@
 /** Geometry: atoms present, no clashes, plausible units, and bonds cut by fragment boundaries. */
-import { BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, COORDINATE_LIMIT, coordinatesInRange, suspectUnits } from '../../chemistry/geometry';
+import { BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, COORDINATE_LIMIT, coordinatesInRange, MAX_EXAMINED_PAIRS, suspectUnits } from '../../chemistry/geometry';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import type { RelatedInformation } from '../diagnostics';
 import type { AtomModel } from '../model';
@@ -40,8 +40,13 @@ export function checkGeometry(context: CheckContext): void {
       { related: [relatedAtom(a, `${shortAtomName(a)} is here`)] },
     );
   }
-  if (clashes.length > MAX_CLASH_REPORTS) {
-    sink.report('atoms-too-close', ast.geometry.statement.keyword.span, `${clashes.length - MAX_CLASH_REPORTS} more pairs of atoms are closer than ${CLASH_DISTANCE} Å.`);
+  const clashCount = model.contacts.clashCount;
+  if (clashCount > MAX_CLASH_REPORTS || !model.contacts.complete) {
+    const more = (clashCount - Math.min(clashCount, MAX_CLASH_REPORTS)).toLocaleString('en-US');
+    const stopped = model.contacts.complete
+      ? ''
+      : ` (at least: the search stopped after examining ${MAX_EXAMINED_PAIRS.toLocaleString('en-US')} pairs of atoms, which only a pile of atoms at one spot makes it do; bonds and cut bonds are not all known either)`;
+    sink.report('atoms-too-close', ast.geometry.statement.keyword.span, `${more} more pairs of atoms are closer than ${CLASH_DISTANCE} Å${stopped}.`, { data: { more: clashCount - Math.min(clashCount, MAX_CLASH_REPORTS), complete: model.contacts.complete } });
   }
 
   const radii = model.atoms.map((atom) => atom.element.covalentRadius ?? 1.5);
