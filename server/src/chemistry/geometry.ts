@@ -22,25 +22,30 @@ export function distance(coords: ArrayLike<number>, i: number, j: number): numbe
 
 /**
  * Buckets atoms into cubic cells of a given edge, so that pairs closer than the edge sit in
- * neighbouring cells. Cells are stored densely (counting sort into flat arrays) when the box is
- * not much larger than the number of atoms, and in a hash map otherwise.
+ * neighbouring cells. Atoms are sorted by cell into one flat array; a cell's atoms are found by a
+ * dense table of cell starts when the box has not many more cells than atoms, and by binary search
+ * over the occupied cells otherwise (a sparse or far-flung geometry). No allocation per atom or
+ * per pair.
  */
 export class NeighbourGrid {
   private readonly cellSize: number;
   private readonly origin: [number, number, number];
   private readonly dims: [number, number, number];
+  /** Cell key of each atom: x + nx (y + ny z). */
   private readonly cellOf: Float64Array;
-  /** Dense storage: atoms of cell c are sortedAtoms[cellStart[c] .. cellStart[c + 1]). */
+  /** Atoms sorted by cell. */
+  private readonly sortedAtoms: Int32Array;
+  /** Dense: atoms of cell c are sortedAtoms[cellStart[c] .. cellStart[c + 1]). */
   private readonly cellStart: Int32Array | undefined;
-  private readonly sortedAtoms: Int32Array | undefined;
-  /** Sparse storage for boxes with far more cells than atoms. */
-  private readonly sparse: Map<number, number[]> | undefined;
+  /** Sparse: the occupied cells' keys, ascending, and where each one's atoms start (one more entry at the end). */
+  private readonly occupiedKeys: Float64Array | undefined;
+  private readonly occupiedStart: Int32Array | undefined;
 
   constructor(
     private readonly coords: ArrayLike<number>,
     cellSize: number,
   ) {
-    const count = coords.length / 3;
+    const count = Math.floor(coords.length / 3);
     const min: [number, number, number] = [Infinity, Infinity, Infinity];
     const max: [number, number, number] = [-Infinity, -Infinity, -Infinity];
     for (let i = 0; i < count; i++) {
@@ -62,24 +67,29 @@ export class NeighbourGrid {
     this.cellOf = new Float64Array(count);
     for (let i = 0; i < count; i++) this.cellOf[i] = this.keyOf(this.cellIndex(i, 0), this.cellIndex(i, 1), this.cellIndex(i, 2));
     const totalCells = this.dims[0] * this.dims[1] * this.dims[2];
-    if (totalCells <= Math.max(1 << 16, 8 * count)) {
+    this.sortedAtoms = new Int32Array(count);
+    if (totalCells <= Math.min(1 << 24, Math.max(1 << 16, 64 * count))) {
       const start = new Int32Array(totalCells + 1);
       for (let i = 0; i < count; i++) start[this.cellOf[i]! + 1]!++;
       for (let c = 0; c < totalCells; c++) start[c + 1]! += start[c]!;
       const fill = start.slice(0, totalCells);
-      const sorted = new Int32Array(count);
-      for (let i = 0; i < count; i++) sorted[fill[this.cellOf[i]!]!++] = i;
+      for (let i = 0; i < count; i++) this.sortedAtoms[fill[this.cellOf[i]!]!++] = i;
       this.cellStart = start;
-      this.sortedAtoms = sorted;
     } else {
-      const map = new Map<number, number[]>();
-      for (let i = 0; i < count; i++) {
-        const key = this.cellOf[i]!;
-        const bucket = map.get(key);
-        if (bucket) bucket.push(i);
-        else map.set(key, [i]);
-      }
-      this.sparse = map;
+      const order = Array.from({ length: count }, (_, i) => i).sort((a, b) => this.cellOf[a]! - this.cellOf[b]! || a - b);
+      const keys: number[] = [];
+      const starts: number[] = [];
+      order.forEach((atom, k) => {
+        this.sortedAtoms[k] = atom;
+        const key = this.cellOf[atom]!;
+        if (keys.length === 0 || keys[keys.length - 1] !== key) {
+          keys.push(key);
+          starts.push(k);
+        }
+      });
+      starts.push(count);
+      this.occupiedKeys = Float64Array.from(keys);
+      this.occupiedStart = Int32Array.from(starts);
     }
   }
 
@@ -91,47 +101,84 @@ export class NeighbourGrid {
     return x + this.dims[0] * (y + this.dims[1] * z);
   }
 
-  private inside(x: number, y: number, z: number): boolean {
-    return x >= 0 && y >= 0 && z >= 0 && x < this.dims[0] && y < this.dims[1] && z < this.dims[2];
+  /** Where the atoms of cell `key` start in sortedAtoms; `end` receives where they stop. */
+  private cellRange(key: number): number {
+    if (this.cellStart) {
+      this.rangeEnd = this.cellStart[key + 1]!;
+      return this.cellStart[key]!;
+    }
+    const keys = this.occupiedKeys!;
+    let low = 0;
+    let high = keys.length - 1;
+    while (low <= high) {
+      const mid = (low + high) >> 1;
+      const value = keys[mid]!;
+      if (value < key) low = mid + 1;
+      else if (value > key) high = mid - 1;
+      else {
+        this.rangeEnd = this.occupiedStart![mid + 1]!;
+        return this.occupiedStart![mid]!;
+      }
+    }
+    this.rangeEnd = 0;
+    return 0;
   }
+
+  private rangeEnd = 0;
 
   /** Calls `visit` once for every unordered pair closer than `cutoff` (cutoff <= cell size). */
   forEachPairWithin(cutoff: number, visit: (i: number, j: number, distance: number) => void): void {
     const cutoffSquared = cutoff * cutoff;
     const coords = this.coords;
-    const count = coords.length / 3;
-    const [nx, ny] = this.dims;
-    const start = this.cellStart;
     const sorted = this.sortedAtoms;
-    for (let i = 0; i < count; i++) {
-      const key = this.cellOf[i]!;
+    const [nx, ny, nz] = this.dims;
+    const count = sorted.length;
+    // Each cell meets itself and the 13 neighbours of one half-shell, so each pair of cells once.
+    for (let first = 0; first < count; ) {
+      const key = this.cellOf[sorted[first]!]!;
+      let last = first + 1;
+      while (last < count && this.cellOf[sorted[last]!] === key) last++;
       const x = key % nx;
       const y = Math.floor(key / nx) % ny;
       const z = Math.floor(key / (nx * ny));
-      const xi = coords[3 * i]!;
-      const yi = coords[3 * i + 1]!;
-      const zi = coords[3 * i + 2]!;
-      for (let dz = -1; dz <= 1; dz++) {
-        for (let dy = -1; dy <= 1; dy++) {
-          for (let dx = -1; dx <= 1; dx++) {
-            if (!this.inside(x + dx, y + dy, z + dz)) continue;
-            const cell = this.keyOf(x + dx, y + dy, z + dz);
-            // Dense storage reads a range of `sorted`; sparse storage reads the cell's bucket.
-            const bucket = sorted ? undefined : this.sparse?.get(cell);
-            const from = sorted ? start![cell]! : 0;
-            const to = sorted ? start![cell + 1]! : (bucket?.length ?? 0);
-            for (let k = from; k < to; k++) {
-              const j = sorted ? sorted[k]! : bucket![k]!;
-              if (j <= i) continue;
-              const ddx = xi - coords[3 * j]!;
-              const ddy = yi - coords[3 * j + 1]!;
-              const ddz = zi - coords[3 * j + 2]!;
-              const squared = ddx * ddx + ddy * ddy + ddz * ddz;
-              if (squared < cutoffSquared) visit(i, j, Math.sqrt(squared));
-            }
+      for (let a = first; a < last; a++) {
+        const i = sorted[a]!;
+        const xi = coords[3 * i]!;
+        const yi = coords[3 * i + 1]!;
+        const zi = coords[3 * i + 2]!;
+        for (let b = a + 1; b < last; b++) {
+          const j = sorted[b]!;
+          const dx = xi - coords[3 * j]!;
+          const dy = yi - coords[3 * j + 1]!;
+          const dz = zi - coords[3 * j + 2]!;
+          const squared = dx * dx + dy * dy + dz * dz;
+          if (squared < cutoffSquared) (i < j ? visit(i, j, Math.sqrt(squared)) : visit(j, i, Math.sqrt(squared)));
+        }
+      }
+      for (let h = 0; h < HALF_SHELL.length; h += 3) {
+        const cx = x + HALF_SHELL[h]!;
+        const cy = y + HALF_SHELL[h + 1]!;
+        const cz = z + HALF_SHELL[h + 2]!;
+        if (cx < 0 || cy < 0 || cz < 0 || cx >= nx || cy >= ny || cz >= nz) continue;
+        const from = this.cellRange(this.keyOf(cx, cy, cz));
+        const to = this.rangeEnd;
+        if (from === to) continue;
+        for (let a = first; a < last; a++) {
+          const i = sorted[a]!;
+          const xi = coords[3 * i]!;
+          const yi = coords[3 * i + 1]!;
+          const zi = coords[3 * i + 2]!;
+          for (let b = from; b < to; b++) {
+            const j = sorted[b]!;
+            const dx = xi - coords[3 * j]!;
+            const dy = yi - coords[3 * j + 1]!;
+            const dz = zi - coords[3 * j + 2]!;
+            const squared = dx * dx + dy * dy + dz * dz;
+            if (squared < cutoffSquared) (i < j ? visit(i, j, Math.sqrt(squared)) : visit(j, i, Math.sqrt(squared)));
           }
         }
       }
+      first = last;
     }
   }
 
@@ -139,7 +186,7 @@ export class NeighbourGrid {
   neighboursOf(i: number, radius: number): AtomPair[] {
     const found: AtomPair[] = [];
     const key = this.cellOf[i]!;
-    const [nx, ny] = this.dims;
+    const [nx, ny, nz] = this.dims;
     const cx = key % nx;
     const cy = Math.floor(key / nx) % ny;
     const cz = Math.floor(key / (nx * ny));
@@ -147,11 +194,14 @@ export class NeighbourGrid {
     for (let dz = -reach; dz <= reach; dz++) {
       for (let dy = -reach; dy <= reach; dy++) {
         for (let dx = -reach; dx <= reach; dx++) {
-          if (!this.inside(cx + dx, cy + dy, cz + dz)) continue;
-          const cell = this.keyOf(cx + dx, cy + dy, cz + dz);
-          const atoms = this.sortedAtoms ? this.sortedAtoms.subarray(this.cellStart![cell]!, this.cellStart![cell + 1]!) : (this.sparse?.get(cell) ?? []);
-          for (let k = 0; k < atoms.length; k++) {
-            const j = atoms[k]!;
+          const x = cx + dx;
+          const y = cy + dy;
+          const z = cz + dz;
+          if (x < 0 || y < 0 || z < 0 || x >= nx || y >= ny || z >= nz) continue;
+          const from = this.cellRange(this.keyOf(x, y, z));
+          const to = this.rangeEnd;
+          for (let k = from; k < to; k++) {
+            const j = this.sortedAtoms[k]!;
             if (j === i) continue;
             const d = distance(this.coords, i, j);
             if (d <= radius) found.push({ i, j, distance: d });
@@ -159,8 +209,30 @@ export class NeighbourGrid {
         }
       }
     }
-    return found.sort((a, b) => a.distance - b.distance);
+    return found.sort((a, b) => a.distance - b.distance || a.j - b.j);
   }
+}
+
+/** The 13 cell offsets of a half-shell: with the cell itself, every neighbouring pair of cells once. */
+const HALF_SHELL = new Int8Array([1, 0, 0, -1, 1, 0, 0, 1, 0, 1, 1, 0, -1, -1, 1, 0, -1, 1, 1, -1, 1, -1, 0, 1, 0, 0, 1, 1, 0, 1, -1, 1, 1, 0, 1, 1, 1, 1, 1]);
+
+/** Atoms within `radius` of atom `i` by a scan of every atom (no grid to build): nearest first, at most `limit`. */
+export function nearestAtoms(coords: ArrayLike<number>, i: number, radius: number, limit: number): AtomPair[] {
+  const count = Math.floor(coords.length / 3);
+  const found: AtomPair[] = [];
+  const squaredRadius = radius * radius;
+  const x = coords[3 * i]!;
+  const y = coords[3 * i + 1]!;
+  const z = coords[3 * i + 2]!;
+  for (let j = 0; j < count; j++) {
+    if (j === i) continue;
+    const dx = x - coords[3 * j]!;
+    const dy = y - coords[3 * j + 1]!;
+    const dz = z - coords[3 * j + 2]!;
+    const squared = dx * dx + dy * dy + dz * dz;
+    if (squared <= squaredRadius) found.push({ i, j, distance: Math.sqrt(squared) });
+  }
+  return found.sort((a, b) => a.distance - b.distance || a.j - b.j).slice(0, limit);
 }
 
 export interface ContactAnalysis {
