@@ -70,7 +70,8 @@ export function waterBoxSpec(atomTarget: number, seed = 7): GeneratedSpec {
     const cx = (m % side) * spacing + (next() - 0.5) * 0.3;
     const cy = (Math.floor(m / side) % side) * spacing + (next() - 0.5) * 0.3;
     const cz = Math.floor(m / (side * side)) * spacing + (next() - 0.5) * 0.3;
-    atoms.push(['O', cx, cy, cz + 0.1173], ['H', cx, cy + 0.7572, cz - 0.4692], ['H', cx, cy - 0.7572, cz - 0.4692]);
+    // The water of the samples (Hoy & Bunker 1979 in tests/fixtures/water.ts), O at the centre.
+    atoms.push(['O', cx, cy, cz], ['H', cx, cy + 0.75695, cz + 0.585882], ['H', cx, cy - 0.75695, cz + 0.585882]);
   }
   return { kind: 'water', text: specText('water-box', 'a box of water molecules', atoms, 3, '4e 4o'), json: rounded(atoms), atoms: atoms.length };
 }

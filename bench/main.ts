@@ -1,5 +1,6 @@
 /** `npm run bench`: every benchmark, printed as Markdown tables. */
 import { benchAnalysis } from './analysis';
+import { benchHamiltonian } from './hamiltonian';
 import { benchIrreps } from './irreps';
 import { benchLanguageServer } from './lsp';
 import { benchPauli } from './pauli';
@@ -7,7 +8,7 @@ import { benchSymmetry } from './symmetry';
 
 type Section = () => string[] | Promise<string[]>;
 
-const sections: Section[] = [benchAnalysis, benchSymmetry, benchIrreps, benchPauli, () => benchLanguageServer()];
+const sections: Section[] = [benchAnalysis, benchSymmetry, benchIrreps, benchPauli, benchHamiltonian, () => benchLanguageServer()];
 
 async function main(): Promise<void> {
   console.log(`# Tessera benchmarks (Node ${process.version}, ${new Date().toISOString()})\n`);

@@ -10,7 +10,8 @@ point group (server/src/chemistry/symmetry/abelian.ts: z the two-fold or
 principal axis; a planar C2v molecule in the yz plane; planar D2h with x
 perpendicular to the plane and z through the most atoms; Cs with the mirror
 as the xy plane). The geometries are idealised and invented (round bond
-lengths and angles), built below from their construction, with every
+lengths and angles), except water (the experimental structure of Hoy & Bunker
+1979, as in tests/fixtures/water.ts), built below from their construction, with every
 symmetry element through the origin. psi4 is told not to move the molecule
 (no_com, no_reorient), so its irrep labels refer to these same axes. psi4
 then reports, per molecule and basis:
@@ -55,7 +56,9 @@ def ring(symbol, radius, angles, fixed, plane):
 
 
 def molecules():
-    """(name, atoms, bases); atoms as (symbol, x, y, z) in angstrom, invented idealised geometries."""
+    """(name, atoms, bases); atoms as (symbol, x, y, z) in angstrom, invented idealised geometries
+    except water (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979))."""
+    wy, wz = 0.756950, 0.585882  # 0.9572 * sin(52.26 deg), 0.9572 * cos(52.26 deg), as written in the tests
     d = 0.93 / math.sqrt(2)
     a = 1.09 / math.sqrt(3)
     ho = (-0.7375 - 0.95 * math.cos(100 * DEG), 0.95 * math.sin(100 * DEG))
@@ -63,8 +66,9 @@ def molecules():
     small = ["sto-3g", "cc-pvdz", "6-31g*", "cc-pvtz"]
     medium = ["sto-3g", "cc-pvdz", "6-31g*"]
     return [
-        # C2v: the molecular plane is yz, C2 along z.
-        ("water", [("O", 0, 0, 0.1173), ("H", 0, 0.7572, -0.4692), ("H", 0, -0.7572, -0.4692)], small),
+        # C2v: the molecular plane is yz, C2 along z. Not invented: Hoy & Bunker's experimental
+        # structure (r 0.9572 A, HOH 104.52 deg), placed as in tests/fixtures/water.ts.
+        ("water", [("O", 0, 0, 0), ("H", 0, wy, wz), ("H", 0, -wy, wz)], small),
         # Cs: C3 axis along x, one H in the mirror plane xy, the other two mirrored through it.
         ("ammonia", [("N", 0, 0, 0)] + [("H", -0.38, 0.94 * math.cos(t * DEG), 0.94 * math.sin(t * DEG)) for t in (0, 120, 240)], small),
         # D2: H on alternate cube corners, the C2 (S4) axes along x, y, z.
@@ -174,7 +178,7 @@ def main():
             "basisPackageVersion": package_version("psi4-data"),
             "generatedBy": GENERATED_BY,
             "note": ("Basis functions per irrep (psi4's symmetry-adapted orbitals, nsopi) of idealised, invented "
-                     "geometries given to psi4 in Tessera's standard orientation with no_com and no_reorient. "
+                     "geometries (water: Hoy & Bunker 1979, as in tests/fixtures/water.ts) given to psi4 in Tessera's standard orientation with no_com and no_reorient. "
                      "Labels and order as psi4 prints them (irrepLabels). No SCF was run."),
         },
         "molecules": entries,

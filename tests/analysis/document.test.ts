@@ -6,12 +6,14 @@ import { describe, expect, it, vi } from 'vitest';
 import { analyzeDocument, SYMMETRY_ATOM_LIMIT } from '../../server/src/analysis';
 import { countBySymmetry } from '../../server/src/chemistry/estimate/pauliTerms';
 import { doHover, getCodeLenses, getInlayHints } from '../../server/src/services';
+import { WATER_LINES } from '../fixtures/water';
 import { positionOf, readSample } from '../services/service';
 
+/** Water at Hoy & Bunker's structure (1979), placed as in tests/fixtures/water.ts. */
 const WATER = `geometry {
-  O  o    0.0000   0.0000   0.1173
-  H  h1   0.0000   0.7572  -0.4692
-  H  h2   0.0000  -0.7572  -0.4692
+  O  o    0.000000   0.000000   0.000000
+  H  h1   0.000000   0.756950   0.585882
+  H  h2   0.000000  -0.756950   0.585882
 }`;
 
 describe('one active-irreps rule for every figure', () => {

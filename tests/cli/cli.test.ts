@@ -21,8 +21,8 @@ function scratch(files: Record<string, string>): string {
   return folder;
 }
 
-// Water, experimental geometry (r(OH) 0.9572 Å, HOH 104.52°; as commonly quoted, from memory).
-const WATER_XYZ = `3\nwater\nO 0.0000 0.0000 0.1173\nH 0.0000 0.7572 -0.4692\nH 0.0000 -0.7572 -0.4692\n`;
+// Water, experimental geometry (Hoy & Bunker 1979: r(OH) 0.9572 Å, HOH 104.52°), placed as in tests/fixtures/water.ts.
+const WATER_XYZ = `3\nwater\nO 0.000000 0.000000 0.000000\nH 0.000000 0.756950 0.585882\nH 0.000000 -0.756950 0.585882\n`;
 
 describe('tessera check', () => {
   it('exits 0 for a clean spec and prints a summary', async () => {

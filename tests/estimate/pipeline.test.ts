@@ -22,11 +22,11 @@ fragment h2 {
 }
 `;
 
-// Water, experimental geometry (r 0.9572 Å, angle 104.52°; as commonly quoted, from memory).
+// Water, experimental geometry (Hoy & Bunker 1979: r 0.9572 Å, angle 104.52°), placed as in tests/fixtures/water.ts.
 const WATER = `geometry {
-  O o 0.0000 0.0000 0.1173
-  H h1 0.0000 0.7572 -0.4692
-  H h2 0.0000 -0.7572 -0.4692
+  O o 0.000000 0.000000 0.000000
+  H h1 0.000000 0.756950 0.585882
+  H h2 0.000000 -0.756950 0.585882
 }`;
 
 describe('H2 in STO-3G', () => {
@@ -93,7 +93,7 @@ describe('DMET impurity sizes', () => {
   // and N = 4 + 4 = 8 occupied per spin outside the core. A one-water fragment of L = 6 orbitals gets
   // bath = min(L, M − L, N, M − N) = min(6, 6, 8, 4) = 4 (Knizia & Chan 2012; Wouters et al. 2016),
   // an impurity of 10 orbitals with 2 × (4 + max(0, 6 + 8 − 12)) = 12 electrons.
-  const two = report(`basis sto-3g\ngeometry {\n  O o 0 0 0.1173\n  H h1 0 0.7572 -0.4692\n  H h2 0 -0.7572 -0.4692\n  O p 6 0 0.1173\n  H g1 6 0.7572 -0.4692\n  H g2 6 -0.7572 -0.4692\n}\nembedding dmet\nfragment a {\n  atoms o h1 h2\n  tier quantum { method vqe }\n}\nfragment b {\n  atoms p g1 g2\n  tier mean-field { method rhf }\n}\n`);
+  const two = report(`basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n  O p 6 0 0\n  H g1 6 0.756950 0.585882\n  H g2 6 -0.756950 0.585882\n}\nembedding dmet\nfragment a {\n  atoms o h1 h2\n  tier quantum { method vqe }\n}\nfragment b {\n  atoms p g1 g2\n  tier mean-field { method rhf }\n}\n`);
   it('gives a fragment up to L bath orbitals, fewer when the environment has fewer virtuals', () => {
     expect(two.fragments[0]!.problem).toMatchObject({ embedding: 'dmet', orbitals: 10, electrons: 12, bath: { alpha: 4, beta: 4 } });
     expect(two.fragments[0]!.qubits.jordanWigner).toBe(20);

@@ -25,8 +25,8 @@ function structure(): ViewStructure {
   return {
     spec: 'test',
     atoms: [
-      { index: 0, element: 'O', label: 'o', x: 0, y: 0, z: 0.1173, fragment: 0, line: 3 },
-      { index: 1, element: 'H', label: null, x: 0, y: 0.7572, z: -0.4692, fragment: 0, line: 4 },
+      { index: 0, element: 'O', label: 'o', x: 0, y: 0, z: 0, fragment: 0, line: 3 },
+      { index: 1, element: 'H', label: null, x: 0, y: 0.75695, z: 0.585882, fragment: 0, line: 4 },
       { index: 2, element: 'Zn', label: null, x: 3, y: 0, z: 0, fragment: -1, line: -1 },
     ],
     fragments: [{ name: 'w', tier: 'quantum', colour: '#e69f00', cost: '12 qubits', atoms: 2, line: 7 }],

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { DIAGNOSTIC_CODES, type DiagnosticCode } from '../../server/src/language/diagnostics';
 import { analyze, type AnalyzeOptions } from '../../server/src/language/analyze';
+import { WATER_ROWS } from '../fixtures/water';
 import { analyzeMarked, expectDiagnostic, expectDiagnostics, expectNoDiagnostic, memoryFiles, parseMarkers, show } from './fixture';
 
 /** Bohr radius in ångström, CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)). */
@@ -14,16 +15,12 @@ const BOHR = 0.529177210903;
 
 /**
  * Water at the experimental equilibrium structure, r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker,
- * J. Mol. Spectrosc. 74, 1 (1979), as commonly quoted; from memory): O on the z axis, H in the yz plane.
+ * J. Mol. Spectrosc. 74, 1 (1979)), placed as in tests/fixtures/water.ts: O at the origin, H in the yz plane.
  */
-const WATER_ANGSTROM: readonly [string, string, number, number, number][] = [
-  ['O', 'o', 0, 0, 0.1173],
-  ['H', 'h1', 0, 0.7572, -0.4692],
-  ['H', 'h2', 0, -0.7572, -0.4692],
-];
+const WATER_ANGSTROM = WATER_ROWS;
 
 function atomLines(atoms: readonly (readonly [string, string, number, number, number])[], scale = 1): string {
-  return atoms.map(([element, label, x, y, z]) => `  ${element} ${label} ${(x * scale).toFixed(4)} ${(y * scale).toFixed(4)} ${(z * scale).toFixed(4)}`).join('\n');
+  return atoms.map(([element, label, x, y, z]) => `  ${element} ${label} ${(x * scale).toFixed(6)} ${(y * scale).toFixed(6)} ${(z * scale).toFixed(6)}`).join('\n');
 }
 
 const WATER = atomLines(WATER_ANGSTROM);
@@ -64,10 +61,10 @@ interface Case {
 }
 
 const SPEC_PATH = '/work/specs/site.tess';
-const XYZ_WATER = '3\nwater, angstrom\nO 0 0 0.1173\nH 0 0.7572 -0.4692\nH 0 -0.7572 -0.4692\n';
+const XYZ_WATER = '3\nwater, angstrom\nO 0 0 0\nH 0 0.756950 0.585882\nH 0 -0.756950 0.585882\n';
 const FILES = memoryFiles({
   '/work/specs/data/water.xyz': XYZ_WATER,
-  '/work/specs/data/broken.xyz': '3\nbroken\nO 0 0 0.1173\nH 0 0.7572\nH 0 -0.7572 -0.4692\n',
+  '/work/specs/data/broken.xyz': '3\nbroken\nO 0 0 0\nH 0 0.756950\nH 0 -0.756950 0.585882\n',
   '/work/water.xyz': XYZ_WATER,
 });
 const withFiles: AnalyzeOptions = { path: SPEC_PATH, files: FILES };
@@ -206,7 +203,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     trigger: fromFile('⟦"data/broken.xyz"⟧'),
     nearMiss: fromFile('"data/water.xyz"'),
     options: withFiles,
-    message: ['"data/broken.xyz" line 4: Expected \'element x y z\'; found \'H 0 0.7572\'.'],
+    message: ['"data/broken.xyz" line 4: Expected \'element x y z\'; found \'H 0 0.756950\'.'],
   },
   'atoms-too-close': {
     // 0.49 Å is inside the 0.5 Å clash distance, 0.51 Å outside (the threshold is common practice, no source).
@@ -309,7 +306,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
   'near-symmetry': {
     // One H of water moved 0.02 Å along z: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å
     // (the best C2v fit shares the shift between the two H atoms).
-    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', 'O o 0 0 0.1173\nH h1 0 0.7572 -0.4692\nH h2 0 -0.7572 -0.4492').replace('⟦', '').replace('geometry {', '⟦geometry⟧ {'),
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', 'O o 0 0 0\nH h1 0 0.756950 0.585882\nH h2 0 -0.756950 0.605882').replace('⟦', '').replace('geometry {', '⟦geometry⟧ {'),
     nearMiss: water(ONE_FRAGMENT),
     message: [/^The geometry is C2v within 0\.0\d\d Å, but Cs at the 0\.01 Å tolerance/],
   },
@@ -530,11 +527,11 @@ describe('basis coverage', () => {
 describe('geometry checks', () => {
   it('reports a clash on the later atom and points at the earlier one', () => {
     const { diagnostic, analysis } = expectDiagnostic(
-      water(`fragment w { atoms rest; multiplicity 2; tier mean-field { } }`, '', 'basis sto-3g', `${WATER}\n  ⟦H h3 0 -0.7572 -0.0692⟧`),
+      water(`fragment w { atoms rest; multiplicity 2; tier mean-field { } }`, '', 'basis sto-3g', `${WATER}\n  ⟦H h3 0 -0.756950 0.985882⟧`),
       'atoms-too-close',
     );
     expect(diagnostic.message).toBe('Atoms h2 (H) and h3 (H) are 0.400 Å apart, closer than 0.5 Å: a duplicated or mistyped line?');
-    expect(analysis.text.slice(diagnostic.related![0]!.span.start, diagnostic.related![0]!.span.end)).toBe('H h2 0.0000 -0.7572 -0.4692');
+    expect(analysis.text.slice(diagnostic.related![0]!.span.start, diagnostic.related![0]!.span.end)).toBe('H h2 0.000000 -0.756950 0.585882');
   });
 
   it('gives the XYZ line of clashing atoms read from a file', () => {
@@ -578,8 +575,8 @@ describe('geometry checks', () => {
     expect(diagnostic.data).toEqual({ bonds: [[0, 1], [0, 2]] });
     expect(diagnostic.related?.map((r) => [analysis.text.slice(r.span.start, r.span.end), r.message])).toEqual([
       ['atoms o', "fragment 'a'"],
-      ['H h1 0.0000 0.7572 -0.4692', 'bond o–h1, 0.96 Å'],
-      ['H h2 0.0000 -0.7572 -0.4692', 'bond o–h2, 0.96 Å'],
+      ['H h1 0.000000 0.756950 0.585882', 'bond o–h1, 0.96 Å'],
+      ['H h2 0.000000 -0.756950 0.585882', 'bond o–h2, 0.96 Å'],
     ]);
   });
 
@@ -747,11 +744,11 @@ describe('included geometry files', () => {
   });
 
   it('reports every malformed line and still reads the good ones', () => {
-    const files = memoryFiles({ '/work/specs/mixed.xyz': '4\nmixed\nO 0 0 0.1173\nH 0 0.7572\nQq 0 0 0\nH 0 -0.7572 -0.4692\n' });
+    const files = memoryFiles({ '/work/specs/mixed.xyz': '4\nmixed\nO 0 0 0\nH 0 0.756950\nQq 0 0 0\nH 0 -0.756950 0.585882\n' });
     const analysis = analyzeMarked(fromFile('"mixed.xyz"'), { path: SPEC_PATH, files });
     const invalid = analysis.diagnostics.filter((d) => d.code === 'include-invalid');
     expect(invalid.map((d) => [d.message, d.related?.[0]?.file, d.related?.[0]?.line])).toEqual([
-      ['"mixed.xyz" line 4: Expected \'element x y z\'; found \'H 0 0.7572\'.', '/work/specs/mixed.xyz', 3],
+      ['"mixed.xyz" line 4: Expected \'element x y z\'; found \'H 0 0.756950\'.', '/work/specs/mixed.xyz', 3],
       ['"mixed.xyz" line 5: \'Qq\' is not an element symbol or atomic number.', '/work/specs/mixed.xyz', 4],
     ]);
     expect(analysis.model.atoms.map((a) => [a.element.symbol, a.source?.line])).toEqual([

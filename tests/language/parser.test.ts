@@ -16,11 +16,11 @@ const BOHR = 0.529177210903;
 
 /**
  * Water at the experimental equilibrium structure, r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker,
- * J. Mol. Spectrosc. 74, 1 (1979), as commonly quoted; from memory), in ångström.
+ * J. Mol. Spectrosc. 74, 1 (1979)), placed as in tests/fixtures/water.ts, in ångström.
  */
-const WATER = `  O  o   0.0000  0.0000  0.1173
-  H  h1  0.0000  0.7572 -0.4692
-  H  h2  0.0000 -0.7572 -0.4692`;
+const WATER = `  O  o   0.000000  0.000000  0.000000
+  H  h1  0.000000  0.756950  0.585882
+  H  h2  0.000000 -0.756950  0.585882`;
 
 function errorsOf(text: string, options = {}): string[] {
   const analysis = analyze(text, options);
@@ -263,7 +263,7 @@ describe('single constructs', () => {
   });
 
   it('reads `geometry from "file.xyz"` relative to the spec folder', () => {
-    const files = memoryFiles({ '/work/specs/data/water.xyz': '3\nwater\nO 0 0 0.1173\nH 0 0.7572 -0.4692\nH 0 -0.7572 -0.4692\n' });
+    const files = memoryFiles({ '/work/specs/data/water.xyz': '3\nwater\nO 0 0 0\nH 0 0.756950 0.585882\nH 0 -0.756950 0.585882\n' });
     const analysis = analyze('basis sto-3g\ngeometry from "data/water.xyz"\nfragment w { atoms rest; tier mean-field { method rhf } }\n', {
       path: '/work/specs/water.tess',
       files,
@@ -499,16 +499,16 @@ scan distance a #2 from ⟦1.0⟧ to ⟦2.0⟧ step ⟦0.5⟧
 });
 
 describe('recovery', () => {
-  // Two invented waters 5 Å apart, each with its own fragment; mistakes are scattered around them.
+  // Two waters 5 Å apart (the water of tests/fixtures/water.ts), each with its own fragment; mistakes are scattered around them.
   const BROKEN = `spec ⟦"recovery⟧
 basis sto-3g
 geometry {
-  O  o   0.0000  0.0000  0.1173
-  H  h1  0.0000  0.7572 -0.4692
-  H  h2  0.0000 -0.7572 -0.4692
-  O  o2  5.0000  0.0000  0.1173
-  H  h3  5.0000  0.7572 -0.4692
-  H  h4  5.0000 -0.7572 -0.4692
+  O  o   0.000000  0.000000  0.000000
+  H  h1  0.000000  0.756950  0.585882
+  H  h2  0.000000 -0.756950  0.585882
+  O  o2  5.000000  0.000000  0.000000
+  H  h3  5.000000  0.756950  0.585882
+  H  h4  5.000000 -0.756950  0.585882
 }
 ⟦}⟧
 fragment first ⟦{⟧

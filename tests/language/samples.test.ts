@@ -49,6 +49,25 @@ describe('samples', () => {
   }
 });
 
+describe('sample data provenance', () => {
+  // Every sample (and every spec the editor tests open) says where its data comes from in its
+  // header comment: "Data: invented…", or "Data:" followed by a source with its year or the sample
+  // whose data it shares.
+  const EDITOR_SPECS = path.resolve(__dirname, '../e2e/workspace');
+  const files = [...specs, ...specsUnder(EDITOR_SPECS).sort()];
+  for (const file of files) {
+    it(`${path.relative(path.resolve(__dirname, '../..'), file)} labels its data`, () => {
+      const header = readFileSync(file, 'utf8')
+        .split('\n')
+        .filter((line, index, all) => all.slice(0, index + 1).every((l) => l.startsWith('#')))
+        .join(' ');
+      const label = /Data: (.*)$/.exec(header)?.[1] ?? '';
+      expect(label, 'a "Data:" line in the header comment').not.toBe('');
+      expect(/^invented|\b(19|20)\d\d\b|\.tess\b/.test(label), label).toBe(true);
+    });
+  }
+});
+
 describe('samples/mistakes.tess', () => {
   /**
    * The code each "mistake:" comment announces, keyed by the comment's text. A comment in the file

@@ -92,14 +92,14 @@ describe('language server over stdio', () => {
 
   it('formats a messy geometry into aligned columns, and formatting twice changes nothing', async () => {
     const uri = 'untitled:messy.tess';
-    const text = 'basis sto-3g\ngeometry {\nO 0 0 0.1173\n   H h1 0 .7572 -0.4692\nH h2 0 -0.7572 -0.4692\n}\n';
+    const text = 'basis sto-3g\ngeometry {\nO 0 0 0\n   H h1 0 .756950 0.585882\nH h2 0 -0.756950 0.585882\n}\n';
     const pending = client.diagnostics(uri);
     client.open(uri, text);
     await pending;
     const edits = await client.request<TextEdit[]>('textDocument/formatting', { textDocument: { uri }, options: { tabSize: 2, insertSpaces: true } });
     const lines = text.split('\n');
     for (const e of edits) lines[e.range.start.line] = e.newText;
-    expect(lines.slice(2, 5)).toEqual(['  O       0.0000   0.0000   0.1173', '  H  h1   0.0000   0.7572  -0.4692', '  H  h2   0.0000  -0.7572  -0.4692']);
+    expect(lines.slice(2, 5)).toEqual(['  O       0.000000   0.000000   0.000000', '  H  h1   0.000000   0.756950   0.585882', '  H  h2   0.000000  -0.756950   0.585882']);
     const pendingSecond = client.diagnostics(uri, 2);
     client.change(uri, 2, [{ text: lines.join('\n') }]);
     await pendingSecond;
@@ -109,7 +109,7 @@ describe('language server over stdio', () => {
 
   it('offers a quick fix that sets a valid multiplicity, and applying it clears the diagnostic', async () => {
     const uri = 'untitled:spin.tess';
-    const text = 'multiplicity 2\nbasis sto-3g\ngeometry {\n  O 0 0 0.1173\n  H 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\n';
+    const text = 'multiplicity 2\nbasis sto-3g\ngeometry {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\n';
     const pending = client.diagnostics(uri);
     client.open(uri, text);
     const diagnostics = await pending;
@@ -189,7 +189,7 @@ describe('settings', () => {
     const configured = await startServer({ settings: { qubitLimit: 10, defaultMapping: 'parity' } });
     try {
       const uri = 'untitled:settings.tess';
-      const text = 'basis sto-3g\ngeometry {\n  O 0 0 0.1173\n  H 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\nfrozen-core off\nfragment w {\n  atoms rest\n  tier quantum { method vqe }\n}\n';
+      const text = 'basis sto-3g\ngeometry {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfrozen-core off\nfragment w {\n  atoms rest\n  tier quantum { method vqe }\n}\n';
       // The first publication may come before the settings arrive; wait for one with the limit applied.
       configured.open(uri, text);
       let diagnostics = await configured.diagnostics(uri);

@@ -217,7 +217,7 @@ describe('tessera report --format html', () => {
     expect(water.match(/<svg /g)).toHaveLength(2);
     expect(water).toContain('No scan plot: the spec has no scan.');
     const folder = scratch({
-      'mf.tess': 'spec "water-mean-field"\nbasis sto-3g\ngeometry {\n  O 0 0 0.1173\n  H 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n',
+      'mf.tess': 'spec "water-mean-field"\nbasis sto-3g\ngeometry {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n',
     });
     const meanField = await report('mf.tess', 'html', folder);
     expect(meanField).toContain('No active-space growth plot: the spec has no quantum-tier fragment.');

@@ -11,18 +11,18 @@ import type { DiagnosticCode } from '../../server/src/language/diagnostics';
 import { doValidation, getCodeActions, toLspDiagnostic } from '../../server/src/services';
 import { applyEdits, editsFor, URI } from './service';
 
-/** Water at r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979); from memory). */
+/** Water at r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979)), placed as in tests/fixtures/water.ts. */
 const WATER = `geometry {
-  O o 0 0 0.1173
-  H h1 0 0.7572 -0.4692
-  H h2 0 -0.7572 -0.4692
+  O o 0 0 0
+  H h1 0 0.756950 0.585882
+  H h2 0 -0.756950 0.585882
 }
 `;
 /** The same water in bohr: each coordinate divided by 0.529177210903 Å (CODATA 2018). */
 const WATER_IN_BOHR = `geometry {
-  O o 0 0 0.2217
-  H h1 0 1.4309 -0.8867
-  H h2 0 -1.4309 -0.8867
+  O o 0 0 0
+  H h1 0 1.430429 1.107157
+  H h2 0 -1.430429 1.107157
 }
 `;
 const MEAN_FIELD = 'fragment w { atoms rest; tier mean-field { method rhf } }\n';
@@ -127,7 +127,7 @@ describe('unassigned atoms', () => {
   });
 
   it('names unlabelled atoms by #index ranges', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0.1173\n  H 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\nfragment w {\n  atoms o\n  tier mean-field { method rohf }\n}\n`;
+    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w {\n  atoms o\n  tier mean-field { method rohf }\n}\n`;
     const intoW = fixes(text, 'atoms-unassigned').find((fix) => fix.action.title.includes("fragment 'w'"))!;
     expect(intoW.text).toContain('  atoms o #2..#3\n');
     expectFixed(intoW, 'atoms-unassigned');
@@ -248,7 +248,7 @@ describe('diagnostics without a fix, and from elsewhere', () => {
 describe('symmetrize', () => {
   it('makes a nearly symmetric water exactly C2v, and the near-symmetry note goes', () => {
     // One H of water moved 0.02 Å: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å.
-    const text = 'basis sto-3g\ngeometry {\n  O o 0.0000 0.0000 0.1173\n  H h1 0.0000 0.7572 -0.4692\n  H h2 0.0000 -0.7572 -0.4492\n}\n';
+    const text = 'basis sto-3g\ngeometry {\n  O o 0.000000 0.000000 0.000000\n  H h1 0.000000 0.756950 0.585882\n  H h2 0.000000 -0.756950 0.605882\n}\n';
     const before = analyzeDocument(text);
     const note = before.diagnostics.find((d) => d.code === 'near-symmetry')!;
     expect(note.message).toContain('C2v within');

@@ -117,9 +117,9 @@ describe('geometry columns', () => {
   const geometry = (...rows: string[]) => lines('geometry {', ...rows, '}');
 
   it('aligns element, label and coordinates, at least four decimals', () => {
-    expect(formatText(geometry('O o 0 0 0.1173', 'H h1 0 0.7572 -0.4692', 'Cl 0 0 2'))).toBe(
-      // One width for every coordinate column: that of the widest number, -0.4692.
-      geometry('  O   o    0.0000   0.0000   0.1173', '  H   h1   0.0000   0.7572  -0.4692', '  Cl       0.0000   0.0000   2.0000'),
+    expect(formatText(geometry('O o 0 0 0', 'H h2 0 -0.756950 0.585882', 'Cl 0 0 2'))).toBe(
+      // One width for every coordinate column: that of the widest number, -0.756950.
+      geometry('  O   o    0.000000   0.000000   0.000000', '  H   h2   0.000000  -0.756950   0.585882', '  Cl       0.000000   0.000000   2.000000'),
     );
   });
 

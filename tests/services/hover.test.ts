@@ -13,11 +13,11 @@ import { markdownOf, marked } from './service';
 
 /**
  * Water at the experimental equilibrium structure, r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker,
- * J. Mol. Spectrosc. 74, 1 (1979), as commonly quoted; from memory), as in samples/molecules.
+ * J. Mol. Spectrosc. 74, 1 (1979)), placed as in tests/fixtures/water.ts and samples/molecules.
  */
-const WATER_ATOMS = `  O  o    0.0000   0.0000   0.1173
-  H  h1   0.0000   0.7572  -0.4692
-  H  h2   0.0000  -0.7572  -0.4692`;
+const WATER_ATOMS = `  O  o    0.000000   0.000000   0.000000
+  H  h1   0.000000   0.756950   0.585882
+  H  h2   0.000000  -0.756950   0.585882`;
 
 function waterSpec(fragment: string, header = 'basis cc-pVDZ'): string {
   return `${header}\ngeometry {\n${WATER_ATOMS}\n}\n${fragment}\n`;
@@ -87,28 +87,28 @@ describe('fragment card', () => {
 describe('atom card', () => {
   for (const fastGeometry of [true, false]) {
     it(`shows element, Z, position in Å and bohr, fragment and neighbours (${fastGeometry ? 'fast' : 'general'} geometry reader)`, () => {
-      const text = `basis sto-3g\ngeometry {\n  O  o    0.0000   0.0000   0.1173\n  H  ⟦h$01⟧   0.0000   0.7572  -0.4692\n  H  h2   0.0000  -0.7572  -0.4692\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
+      const text = `basis sto-3g\ngeometry {\n  O  o    0.000000   0.000000   0.000000\n  H  ⟦h$01⟧   0.000000   0.756950   0.585882\n  H  h2   0.000000  -0.756950   0.585882\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
       const { markdown, range, expectedRange } = hoverAt(text, { fastGeometry });
       expect(range).toEqual(expectedRange);
       const card = markdown!;
       expect(card.split('\n')[0]).toBe('**Hydrogen** h1 (#2) · H, Z = 1');
-      expect(row(card, 'position')).toBe('| position | 0.0000  0.7572  -0.4692 Å |');
+      expect(row(card, 'position')).toBe('| position | 0.0000  0.7570  0.5859 Å |');
       // 1 bohr = 0.529177210903 Å (CODATA 2018, Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)):
-      // 0.7572 / 0.529177210903 = 1.43091; −0.4692 / 0.529177210903 = −0.88666.
-      expect(card).toContain('| | 0.0000  1.4309  -0.8867 bohr |');
+      // 0.756950 / 0.529177210903 = 1.43043; 0.585882 / 0.529177210903 = 1.10716.
+      expect(card).toContain('| | 0.0000  1.4304  1.1072 bohr |');
       expect(row(card, 'fragment')).toBe('| fragment | `water` |');
-      // |h1 − o| = √(0.7572² + 0.5865²) = 0.9578 Å; |h1 − h2| = 2 × 0.7572 = 1.5144 Å.
-      expect(row(card, 'nearest')).toBe('| nearest | o (#1) O 0.958 Å, h2 (#3) H 1.514 Å |');
+      // |h1 − o| = √(0.756950² + 0.585882²) = 0.95720 Å (Hoy & Bunker's r); |h1 − h2| = 2 × 0.756950 = 1.51390 Å.
+      expect(row(card, 'nearest')).toBe('| nearest | o (#1) O 0.957 Å, h2 (#3) H 1.514 Å |');
     });
   }
 
   it('converts coordinates written in bohr, and shows them back in bohr', () => {
-    const text = `units bohr\nbasis sto-3g\ngeometry {\n  O o 0 0 0.2217\n  H h$01 0 1.4309 -0.8867\n  H h2 0 -1.4309 -0.8867\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
+    const text = `units bohr\nbasis sto-3g\ngeometry {\n  O o 0 0 0\n  H h$01 0 1.430429 1.107157\n  H h2 0 -1.430429 1.107157\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
     const card = hoverAt(text).markdown!;
     // 1 bohr = 0.529177210903 Å (CODATA 2018, Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)):
-    // 1.4309 × 0.529177210903 = 0.75720 Å; −0.8867 × 0.529177210903 = −0.46922 Å.
-    expect(row(card, 'position')).toBe('| position | 0.0000  0.7572  -0.4692 Å |');
-    expect(card).toContain('| | 0.0000  1.4309  -0.8867 bohr |');
+    // 1.430429 × 0.529177210903 = 0.75695 Å; 1.107157 × 0.529177210903 = 0.58588 Å.
+    expect(row(card, 'position')).toBe('| position | 0.0000  0.7570  0.5859 Å |');
+    expect(card).toContain('| | 0.0000  1.4304  1.1072 bohr |');
   });
 
   it('answers on a label used in `atoms`, with the range of that use', () => {
@@ -119,22 +119,22 @@ describe('atom card', () => {
   });
 
   it('answers on #3, an unlabelled atom, naming it by index', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0.1173\n  H 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\nfragment w { atoms o #2 ⟦#$03⟧; tier mean-field { method rhf } }\n`;
+    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms o #2 ⟦#$03⟧; tier mean-field { method rhf } }\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**Hydrogen** #3 · H, Z = 1');
-    expect(row(markdown!, 'nearest')).toBe('| nearest | o (#1) O 0.958 Å, #2 H 1.514 Å |');
+    expect(row(markdown!, 'nearest')).toBe('| nearest | o (#1) O 0.957 Å, #2 H 1.514 Å |');
   });
 
   it('answers on the first character of #3 where it touches `..`', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0.1173\n  H h1 0 0.7572 -0.4692\n  H 0 -0.7572 -0.4692\n}\nfragment w { atoms o..⟦$0#3⟧; tier mean-field { method rhf } }\n`;
+    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms o..⟦$0#3⟧; tier mean-field { method rhf } }\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**Hydrogen** #3 · H, Z = 1');
   });
 
   it('answers on the atoms of a scan', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0.1173\n  H h1 0 0.7572 -0.4692\n  H h2 0 -0.7572 -0.4692\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\nscan distance o ⟦h$02⟧ from 1 to 2 step 0.5\n`;
+    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\nscan distance o ⟦h$02⟧ from 1 to 2 step 0.5\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**Hydrogen** h2 (#3) · H, Z = 1');
@@ -156,12 +156,12 @@ describe('atom card', () => {
   });
 
   it('names the file and line of an atom read from an XYZ file', () => {
-    const files = memoryFiles({ '/work/specs/data/water.xyz': '3\nwater, angstrom\nO 0 0 0.1173\nH 0 0.7572 -0.4692\nH 0 -0.7572 -0.4692\n' });
+    const files = memoryFiles({ '/work/specs/data/water.xyz': '3\nwater, angstrom\nO 0 0 0\nH 0 0.756950 0.585882\nH 0 -0.756950 0.585882\n' });
     const text = 'basis sto-3g\ngeometry from "data/water.xyz"\nfragment w { atoms #1 ⟦#$03⟧; tier mean-field { method rhf } }\n';
     const { markdown } = hoverAt(text, { path: '/work/specs/site.tess', files });
     // The third atom is on the fifth line of the file: count, comment, O, H, H.
     expect(row(markdown!, 'read from')).toBe('| read from | line 5 of `water.xyz` |');
-    expect(row(markdown!, 'position')).toBe('| position | 0.0000  -0.7572  -0.4692 Å |');
+    expect(row(markdown!, 'position')).toBe('| position | 0.0000  -0.7570  0.5859 Å |');
   });
 });
 
@@ -247,9 +247,9 @@ $C
 units bohr
 basis sto-3g
 geometry {
-  O o 0 0 0.1173
-  H h1 0 0.7572 -0.4692
-  H h2 0 -0.7572 -0.4692
+  O o 0 0 0
+  H h1 0 0.756950 0.585882
+  H h2 0 -0.756950 0.585882
 }
 fragment w $E{
 $F  atoms  $G rest

@@ -15,9 +15,9 @@ import { applyEdits, editsFor, marked, URI } from './service';
 function site(parts: { o?: string; h1?: string; uses?: string; scan?: string; index?: string } = {}): string {
   return `basis sto-3g
 geometry {
-  O ${parts.o ?? 'o'} 0 0 0.1173
-  H ${parts.h1 ?? 'h1'} 0 0.7572 -0.4692
-  H 0 -0.7572 -0.4692
+  O ${parts.o ?? 'o'} 0 0 0
+  H ${parts.h1 ?? 'h1'} 0 0.756950 0.585882
+  H 0 -0.756950 0.585882
 }
 fragment water {
   atoms ${parts.uses ?? 'o h1'} ${parts.index ?? '#3'}
@@ -32,7 +32,7 @@ describe('go to definition', () => {
     { name: 'from a label in `atoms`', text: site({ h1: '⟦h1⟧', uses: 'o h$01' }) },
     { name: 'from a label in a scan', text: site({ o: '⟦o⟧', scan: '$0o h1' }) },
     { name: 'from the label\'s own definition', text: site({ h1: '⟦h$01⟧' }) },
-    { name: 'from #n to the atom line of an unlabelled atom', text: site({ index: '#$03' }).replace('  H 0 -0.7572 -0.4692', '  ⟦H 0 -0.7572 -0.4692⟧') },
+    { name: 'from #n to the atom line of an unlabelled atom', text: site({ index: '#$03' }).replace('  H 0 -0.756950 0.585882', '  ⟦H 0 -0.756950 0.585882⟧') },
     { name: 'from #n to the label of a labelled atom', text: site({ o: '⟦o⟧', uses: 'h1', index: '$0#1' }) },
     { name: 'from the first character of #n right after `..`', text: site({ h1: '⟦h1⟧', uses: 'o..$0#2', index: '' }) },
   ];
@@ -69,7 +69,7 @@ describe('references', () => {
   });
 
   it('of an unlabelled atom from its #index: the atom line and every #index', () => {
-    const text = site({ index: '⟦#3⟧ ⟦#$03⟧' }).replace('  H 0 -0.7572 -0.4692', '  ⟦H 0 -0.7572 -0.4692⟧');
+    const text = site({ index: '⟦#3⟧ ⟦#$03⟧' }).replace('  H 0 -0.756950 0.585882', '  ⟦H 0 -0.756950 0.585882⟧');
     const m = marked(text);
     expect(sortRanges(findReferences(m.analysis, URI, m.cursor, true).map((location) => location.range))).toEqual(m.ranges);
   });
@@ -112,7 +112,7 @@ describe('rename', () => {
     expect(sortRanges(edits.map((edit) => edit.range))).toEqual(m.ranges);
     expect(edits.every((edit) => edit.newText === 'oxygen')).toBe(true);
     const renamed = applyEdits(m.analysis.text, edits);
-    expect(renamed).toContain('  O oxygen 0 0 0.1173');
+    expect(renamed).toContain('  O oxygen 0 0 0');
     expect(renamed).toContain('atoms oxygen h1 #1');
     expect(renamed).toContain('scan distance oxygen h1 from');
     // The renamed spec reports what the original did and resolves every reference to the same atoms.

@@ -137,12 +137,12 @@ units bohr  # trailing
 
   it('fold a geometry block without looking inside it', () => {
     const ranges = getFoldingRanges(analyzeDocument(readSample('molecules/water-cc-pvdz.tess')));
-    // Lines (0-based): comments 0–2, geometry 7–11, fragment 13–21 with its tier 15–20.
+    // Lines (0-based): comments 0–4, geometry 9–13, fragment 15–23 with its tier 17–22.
     expect(ranges).toEqual([
-      { startLine: 7, endLine: 10 },
-      { startLine: 13, endLine: 20 },
-      { startLine: 15, endLine: 19 },
-      { startLine: 0, endLine: 2, kind: FoldingRangeKind.Comment },
+      { startLine: 9, endLine: 12 },
+      { startLine: 15, endLine: 22 },
+      { startLine: 17, endLine: 21 },
+      { startLine: 0, endLine: 4, kind: FoldingRangeKind.Comment },
     ]);
   });
 

@@ -10,6 +10,7 @@ import type { GrowthPoint } from '../analysis';
 const WIDTH = 640;
 const HEIGHT = 340;
 const MARGIN = { left: 64, right: 20, top: 36, bottom: 56 };
+/** Series colours from the palette of Okabe & Ito (2008), as for the fragments in structure.ts. */
 const SERIES_COLOURS = ['#0072b2', '#e69f00', '#009e73', '#cc79a7'];
 const FONT = 'font-family="Helvetica, Arial, sans-serif"';
 

@@ -5,7 +5,13 @@
  */
 import type { DocumentAnalysis, FragmentFigures } from '../analysis';
 
-/** Fragment colours of our own palette, chosen to stay apart for the colour-blind (no source). */
+/**
+ * Fragment colours: the first seven are the colour-universal-design palette of Okabe & Ito,
+ * "Color Universal Design (CUD): how to make figures and presentations that are friendly to
+ * colorblind people" (2008, https://jfly.uni-koeln.de/color/), which stays distinguishable under the
+ * common colour-vision deficiencies; the order is ours. The eighth, a mid grey, replaces the
+ * palette's black, which would hide dark atoms.
+ */
 export const FRAGMENT_COLOURS = ['#e69f00', '#0072b2', '#009e73', '#cc79a7', '#56b4e9', '#d55e00', '#f0e442', '#7f7f7f'];
 export const UNASSIGNED_COLOUR = '#bbbbbb';
 

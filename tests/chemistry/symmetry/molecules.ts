@@ -1,8 +1,11 @@
 /**
- * Idealised geometries built for the symmetry tests (invented data: round bond lengths and
- * angles, not optimised structures, not taken from any publication or program). Every builder
- * states its construction so a reader can check the symmetry by hand.
+ * Geometries for the symmetry tests. All but one are invented: idealised shapes built from round
+ * bond lengths and angles, not optimised structures, not taken from any publication or program.
+ * The exception is water, which is the experimental structure of Hoy & Bunker (1979) in our own
+ * placement, shared with the samples (tests/fixtures/water.ts). Every builder states its
+ * construction so a reader can check the symmetry by hand.
  */
+import { WATER_ROWS } from '../../fixtures/water';
 
 export interface TestMolecule {
   readonly name: string;
@@ -28,12 +31,14 @@ export function molecule(name: string, atoms: readonly Atom[]): TestMolecule {
 const deg = Math.PI / 180;
 const PHI = (1 + Math.sqrt(5)) / 2;
 
-/** Water in the yz plane, C2 along z (the coordinates of samples/molecules/water-*.tess). */
-export const water = molecule('water', [
-  ['O', 0, 0, 0.1173],
-  ['H', 0, 0.7572, -0.4692],
-  ['H', 0, -0.7572, -0.4692],
-]);
+/**
+ * Water in the yz plane, C2 along z: not invented, the experimental structure of Hoy & Bunker,
+ * J. Mol. Spectrosc. 74, 1 (1979), placed as in tests/fixtures/water.ts (the samples' water).
+ */
+export const water = molecule(
+  'water',
+  WATER_ROWS.map((row): Atom => [row[0], row[2], row[3], row[4]]),
+);
 
 /** Ammonia: N on the z axis, three H at 120° steps around it, 0.38 Å below. */
 export const ammonia = molecule('ammonia', [

@@ -31,7 +31,7 @@ function random(seed: number): () => number {
 const inPlaneCopy = () => shifted(M.water, 1, [0, 0.02, 0]);
 /** Water with the first O–H bond stretched by 0.02 Å (H moved along the bond). */
 function stretchedCopy(): number[] {
-  const bond = [0, 0.7572 - 0, -0.4692 - 0.1173];
+  const bond = [0, M.water.coordinates[4]! - M.water.coordinates[1]!, M.water.coordinates[5]! - M.water.coordinates[2]!];
   const length = Math.hypot(...bond);
   return shifted(M.water, 1, [0, (0.02 * bond[1]!) / length, (0.02 * bond[2]!) / length]);
 }

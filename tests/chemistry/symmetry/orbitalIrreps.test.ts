@@ -246,9 +246,9 @@ describe('fragments', () => {
 
   it('a fragment can be more symmetric than its molecule: one water of a water pair is C2v', () => {
     const pair = M.molecule('water pair', [
-      ['O', 0, 0, 0.1173],
-      ['H', 0, 0.7572, -0.4692],
-      ['H', 0, -0.7572, -0.4692],
+      ['O', 0, 0, 0],
+      ['H', 0, 0.75695, 0.585882],
+      ['H', 0, -0.75695, 0.585882],
       ['O', 2.1, 1.3, 0.4],
       ['H', 2.9, 1.1, 0.9],
       ['H', 1.6, 1.9, 0.9],

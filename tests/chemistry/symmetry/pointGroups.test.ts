@@ -198,9 +198,9 @@ describe('standard orientation', () => {
 
   it('water given in the xz plane is turned so that its plane becomes yz', () => {
     const turned = M.molecule('water xz', [
-      ['O', 0, 0, 0.1173],
-      ['H', 0.7572, 0, -0.4692],
-      ['H', -0.7572, 0, -0.4692],
+      ['O', 0, 0, 0],
+      ['H', 0.75695, 0, 0.585882],
+      ['H', -0.75695, 0, 0.585882],
     ]);
     const axes = detect(turned).frame.axes;
     expect(near(axes[0], [0, 1, 0])).toBeCloseTo(1, 12);

@@ -154,6 +154,11 @@ export function jkfitBasisFor(name: string): string | undefined {
   return ORBITAL[normalizeBasisName(name)]?.jkfit;
 }
 
+/** Keys of the basis sets read so far (parsing and checking a spec read none). */
+export function loadedBasisSets(): string[] {
+  return [...cache.keys()];
+}
+
 /** Every key the loader accepts: the orbital bases, then the auxiliary sets. */
 export function basisDataKeys(): string[] {
   return [...Object.keys(ORBITAL), ...Object.keys(AUXILIARY)];

@@ -1,0 +1,123 @@
+/**
+ * Building and counting a CAS(16e,16o) qubit Hamiltonian (32 qubits; server/src/electronic/
+ * hamiltonian/): Jordan–Wigner strings from the integrals, Bravyi–Kitaev and reduced parity by
+ * re-encoding, and for each mapping the figures (strings, λ, identity, largest coefficients,
+ * qubit-wise commuting groups). Input: methanol in 6-31G, psi4's canonical RHF orbitals 2–17
+ * (tests/fixtures/hamiltonian-cas16.psi4.json), and the same space after a fixed orthogonal
+ * rotation of the active orbitals, which makes every integral nonzero (the worst case: no
+ * symmetry zeros, as with localised orbitals).
+ *
+ * Target: under 2 s for the whole build and count. Anchor timed in the same run: sorting
+ * 10⁶ doubles (Float64Array.prototype.sort), so that the ratio can be compared across machines.
+ */
+import cas16 from '../tests/fixtures/hamiltonian-cas16.psi4.json';
+import type { ActiveSpaceIntegrals } from '../server/src/electronic/hamiltonian/activeSpace';
+import { pairIndex, pairPairIndex, packedLength } from '../server/src/electronic/hamiltonian/pairs';
+import { qubitHamiltonians } from '../server/src/electronic/hamiltonian/qubitHamiltonian';
+import { summarizeQubitHamiltonian } from '../server/src/electronic/hamiltonian/summary';
+import { ms, time } from './timing';
+
+function canonical(): ActiveSpaceIntegrals {
+  return {
+    orbitals: cas16.active,
+    electrons: cas16.electrons,
+    constant: cas16.constant,
+    nuclearRepulsion: cas16.nuclearRepulsion,
+    coreEnergy: cas16.coreEnergy,
+    oneBody: Float64Array.from(cas16.h),
+    twoBody: Float64Array.from(cas16.eri),
+  };
+}
+
+/** The integrals after rotating the active orbitals by a product of Givens rotations (fixed angles). */
+function rotated(base: ActiveSpaceIntegrals): ActiveSpaceIntegrals {
+  const n = base.orbitals;
+  const U = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) U[i * n + i] = 1;
+  let angle = 0.3;
+  for (let p = 0; p < n; p++) {
+    for (let q = p + 1; q < n; q++) {
+      angle = (angle * 7.31 + 0.17) % 1;
+      const c = Math.cos(0.6 * angle);
+      const s = Math.sin(0.6 * angle);
+      for (let k = 0; k < n; k++) {
+        const a = U[k * n + p]!;
+        const b = U[k * n + q]!;
+        U[k * n + p] = c * a - s * b;
+        U[k * n + q] = s * a + c * b;
+      }
+    }
+  }
+  const h = new Float64Array(n * n);
+  for (let p = 0; p < n; p++) for (let q = 0; q < n; q++) {
+    let sum = 0;
+    for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) sum += U[a * n + p]! * base.oneBody[a * n + b]! * U[b * n + q]!;
+    h[p * n + q] = sum;
+  }
+  // Four quarter transformations on the dense n⁴ tensor.
+  let g = new Float64Array(n ** 4);
+  for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) for (let c = 0; c < n; c++) for (let d = 0; d < n; d++) {
+    g[((a * n + b) * n + c) * n + d] = base.twoBody[pairPairIndex(pairIndex(a, b), pairIndex(c, d))]!;
+  }
+  for (let step = 0; step < 4; step++) {
+    // Contract the first index and move it last: out[b][c][d][p] = Σ_a U[a][p] g[a][b][c][d].
+    const out = new Float64Array(n ** 4);
+    for (let a = 0; a < n; a++) for (let rest = 0; rest < n ** 3; rest++) {
+      const v = g[a * n ** 3 + rest]!;
+      if (v === 0) continue;
+      for (let p = 0; p < n; p++) out[rest * n + p]! += U[a * n + p]! * v;
+    }
+    g = out;
+  }
+  const twoBody = new Float64Array(packedLength(n));
+  for (let p = 0; p < n; p++) for (let q = 0; q <= p; q++) for (let r = 0; r < n; r++) for (let s = 0; s <= r; s++) {
+    if (pairIndex(r, s) > pairIndex(p, q)) continue;
+    twoBody[pairPairIndex(pairIndex(p, q), pairIndex(r, s))] = g[((p * n + q) * n + r) * n + s]!;
+  }
+  return { ...base, oneBody: h, twoBody };
+}
+
+/** Median user CPU time in ms (the machine is shared: wall time includes waiting for a core). */
+function cpuMedian(work: () => unknown, runs: number): number {
+  const samples: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const start = process.cpuUsage();
+    work();
+    samples.push(process.cpuUsage(start).user / 1000);
+  }
+  return samples.sort((a, b) => a - b)[Math.floor(runs / 2)]!;
+}
+
+function buildAndCount(integrals: ActiveSpaceIntegrals) {
+  const h = qubitHamiltonians(integrals);
+  return [h.jordanWigner, h.bravyiKitaev, h.parity].map((sum) => summarizeQubitHamiltonian(sum));
+}
+
+export function benchHamiltonian(): string[] {
+  const lines = [
+    '## Active-space qubit Hamiltonian, CAS(16e,16o), 32 qubits',
+    '',
+    '| orbitals | mapping | qubits | strings | λ (Ha) | QWC groups |',
+    '| :--- | :--- | ---: | ---: | ---: | ---: |',
+  ];
+  const inputs = [['canonical', canonical()], ['rotated', rotated(canonical())]] as const;
+  const timings: string[] = [];
+  const random = new Float64Array(1_000_000);
+  let seed = 12345;
+  for (let i = 0; i < random.length; i++) {
+    seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
+    random[i] = seed;
+  }
+  const anchor = time(() => Float64Array.from(random).sort(), 5, 1);
+  for (const [label, integrals] of inputs) {
+    for (const summary of buildAndCount(integrals)) {
+      lines.push(`| ${label} | ${summary.mapping} | ${summary.qubits} | ${summary.terms.toLocaleString('en-US')} | ${summary.oneNorm.toFixed(3)} | ${summary.groups.toLocaleString('en-US')} |`);
+    }
+    const timing = time(() => buildAndCount(integrals), 5, 1);
+    const cpu = cpuMedian(() => buildAndCount(integrals), 5);
+    timings.push(`| ${label} | ${ms(timing.median)} | ${ms(timing.p95)} | ${ms(cpu)} | ${ms(anchor.median)} | ${(timing.median / anchor.median).toFixed(1)}× |`);
+  }
+  lines.push('', '| orbitals | build + count (3 mappings) median | p95 | CPU time median | anchor: sort 10⁶ doubles | ratio |', '| :--- | ---: | ---: | ---: | ---: | ---: |', ...timings);
+  lines.push('', 'Build + count = Jordan–Wigner strings from the integrals, Bravyi–Kitaev and reduced parity by re-encoding, and per mapping the count, λ, identity, largest coefficients and sorted-insertion QWC groups. Target: under 2 s. CPU time is shown beside wall time because other processes share the two cores.');
+  return lines;
+}

@@ -1,0 +1,4 @@
+/** Dense linear algebra for the electronic-structure layer (row-major Float64Array matrices). */
+export * from './dense';
+export * from './eigen';
+export * from './orthogonalize';
