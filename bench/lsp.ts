@@ -20,7 +20,9 @@
  * completion under 20 ms, peak memory under 200 MB; on 50,000 atoms: p95 under 1 s and memory
  * under 400 MB; the first ten edits of a fresh server as fast as the rest.
  * TESSERA_BENCH_SERVER runs another build of the server (for before/after figures);
- * TESSERA_BENCH_NODE_ARGS passes options to its Node (for example --cpu-prof).
+ * TESSERA_BENCH_NODE_ARGS passes options to its Node (for example --cpu-prof); TESSERA_BENCH_ONLY
+ * (`water-5000`, `organic-50000`, ...) runs one scenario, TESSERA_BENCH_EDITS caps the edits, and
+ * TESSERA_BENCH_VERBOSE prints every latency.
  */
 import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
@@ -227,6 +229,7 @@ async function runScenario(kind: GeometryKind, atoms: number, editCount: number)
     new Promise<undefined>((resolve) => setTimeout(() => resolve(undefined), 60_000)),
   ]);
   const values = settled ?? [];
+  if (process.env['TESSERA_BENCH_VERBOSE']) console.error(`${kind}-${atoms}: ${values.map((entry) => entry.value.toFixed(0)).join(' ')}`);
   const hover = summarize(await Promise.all(hovers));
   const completion = summarize(await Promise.all(completions));
   const memory = memoryOf(pid);
@@ -268,8 +271,9 @@ export async function benchLanguageServer(): Promise<string[]> {
   ] as const;
   // TESSERA_BENCH_ONLY=water-5000 runs one scenario.
   const only = process.env['TESSERA_BENCH_ONLY'];
+  const editLimit = Number(process.env['TESSERA_BENCH_EDITS'] ?? Infinity);
   for (const [kind, atoms, edits] of scenarios.filter(([kind, atoms]) => !only || only === `${kind}-${atoms}`)) {
-    const run = await runScenario(kind, atoms, edits);
+    const run = await runScenario(kind, atoms, Math.min(edits, editLimit));
     const d = run.diagnostics;
     lines.push(
       `| ${kind === 'water' ? 'water box' : 'organic-like'} | ${run.spec.atoms} | ${ms(run.anchor.median)} | ${ms(run.openMs)} | ${ms(d.median)} / ${ms(d.p95)} | ${ratio(d.p95, run.anchor)} | ${ms(run.digits.p95)} | ${ms(run.typing.p95)} | ${ms(run.firstTen.p95)} | ${ms(run.hover.median)} / ${ms(run.hover.max)} | ${ms(run.completion.median)} / ${ms(run.completion.max)} | ${run.memory.peak.toFixed(0)} MB |${run.missed > 0 ? ` (${run.missed} edits never published)` : ''}`,

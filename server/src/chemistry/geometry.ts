@@ -65,7 +65,15 @@ export class NeighbourGrid {
     this.origin = min;
     this.dims = [0, 1, 2].map((k) => Math.floor((max[k]! - min[k]!) / this.cellSize) + 1) as [number, number, number];
     this.cellOf = new Float64Array(count);
-    for (let i = 0; i < count; i++) this.cellOf[i] = this.keyOf(this.cellIndex(i, 0), this.cellIndex(i, 1), this.cellIndex(i, 2));
+    const [ox, oy, oz] = min;
+    const [nx, ny] = this.dims;
+    const size = this.cellSize;
+    for (let i = 0; i < count; i++) {
+      const x = Math.floor((coords[3 * i]! - ox) / size);
+      const y = Math.floor((coords[3 * i + 1]! - oy) / size);
+      const z = Math.floor((coords[3 * i + 2]! - oz) / size);
+      this.cellOf[i] = x + nx * (y + ny * z);
+    }
     const totalCells = this.dims[0] * this.dims[1] * this.dims[2];
     this.sortedAtoms = new Int32Array(count);
     if (totalCells <= Math.min(1 << 24, Math.max(1 << 16, 64 * count))) {
@@ -91,10 +99,6 @@ export class NeighbourGrid {
       this.occupiedKeys = Float64Array.from(keys);
       this.occupiedStart = Int32Array.from(starts);
     }
-  }
-
-  private cellIndex(atom: number, axis: number): number {
-    return Math.floor((this.coords[3 * atom + axis]! - this.origin[axis]!) / this.cellSize);
   }
 
   private keyOf(x: number, y: number, z: number): number {
@@ -254,13 +258,13 @@ export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<numb
   for (let i = 0; i < count; i++) maxRadius = Math.max(maxRadius, radii[i]!);
   const cutoff = Math.max(2 * maxRadius * BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, 1e-6);
   const grid = new NeighbourGrid(coords, cutoff);
-  const bonds: AtomPair[] = [];
-  const clashes: AtomPair[] = [];
+  const bonds = new PairList();
+  const clashes = new PairList();
   const nearestDistance = new Float64Array(count).fill(Infinity);
   const nearestAtom = new Int32Array(count).fill(-1);
   grid.forEachPairWithin(cutoff, (i, j, d) => {
-    if (d < CLASH_DISTANCE) clashes.push({ i, j, distance: d });
-    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bonds.push({ i, j, distance: d });
+    if (d < CLASH_DISTANCE) clashes.add(i, j, d, count);
+    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bonds.add(i, j, d, count);
     if (d < nearestDistance[i]!) {
       nearestDistance[i] = d;
       nearestAtom[i] = j;
@@ -270,8 +274,52 @@ export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<numb
       nearestAtom[j] = i;
     }
   });
-  const byAtoms = (a: AtomPair, b: AtomPair) => a.i - b.i || a.j - b.j;
-  return { bonds: bonds.sort(byAtoms), clashes: clashes.sort(byAtoms), nearestDistance, nearestAtom };
+  return { bonds: bonds.sorted(count), clashes: clashes.sorted(count), nearestDistance, nearestAtom };
+}
+
+/** Pairs collected as numbers and sorted by (i, j) with a native numeric sort before they become objects. */
+class PairList {
+  private keys = new Float64Array(64);
+  private distances = new Float64Array(64);
+  private length = 0;
+
+  add(i: number, j: number, distance: number, count: number): void {
+    if (this.length === this.keys.length) {
+      const keys = new Float64Array(this.length * 2);
+      keys.set(this.keys);
+      this.keys = keys;
+      const distances = new Float64Array(this.length * 2);
+      distances.set(this.distances);
+      this.distances = distances;
+    }
+    // i < j < count, so i · count + j orders the pairs by i, then j.
+    this.keys[this.length] = i * count + j;
+    this.distances[this.length] = distance;
+    this.length++;
+  }
+
+  sorted(count: number): AtomPair[] {
+    const n = this.length;
+    const order = new Int32Array(n);
+    if (count * count * n < Number.MAX_SAFE_INTEGER) {
+      // Key and position packed into one double, so that one native sort of doubles orders the pairs.
+      const packed = new Float64Array(n);
+      for (let k = 0; k < n; k++) packed[k] = this.keys[k]! * n + k;
+      packed.sort();
+      for (let k = 0; k < n; k++) order[k] = packed[k]! % n;
+    } else {
+      for (let k = 0; k < n; k++) order[k] = k;
+      order.sort((a, b) => this.keys[a]! - this.keys[b]!);
+    }
+    const pairs: AtomPair[] = new Array(n);
+    for (let k = 0; k < n; k++) {
+      const at = order[k]!;
+      const key = this.keys[at]!;
+      const i = Math.floor(key / count);
+      pairs[k] = { i, j: key - i * count, distance: this.distances[at]! };
+    }
+    return pairs;
+  }
 }
 
 export interface UnitsSuspicion {

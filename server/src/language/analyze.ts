@@ -30,6 +30,8 @@ export interface AnalyzeOptions {
   readonly fastGeometry?: boolean;
   /** Qubit limit for specs that set none in `limits` (an editor setting or a CLI option). */
   readonly defaultQubitLimit?: number;
+  /** The previous version of the same document, whose reading the parser may reuse in part. */
+  readonly previous?: Pick<Analysis, 'text' | 'tree'>;
 }
 
 export interface Analysis {
@@ -56,7 +58,7 @@ const SYNTAX_CODES: Record<SyntaxProblem['code'], DiagnosticCode> = {
 
 export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
   const sink = new DiagnosticSink();
-  const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : {});
+  const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : options.previous ? { previous: options.previous } : {});
   for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
   const ast = interpret(tree, sink);
   const model = buildModel(ast, sink, {

@@ -96,11 +96,16 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
       const type = TYPE_INDEX.get('type')!;
       const variable = TYPE_INDEX.get('variable')!;
       const number = TYPE_INDEX.get('number')!;
+      const others = statement.block.otherStatements ?? [];
+      let other = 0;
       for (let i = 0; i < table.count; i++) {
+        // Lines the general parser read go in their place, so the tokens stay in document order.
+        while (other < others.length && others[other]!.span.start < table.lineStart[i]!) statementTokens(out, others[other++]!, 'geometry');
         out.push(table.lineStart[i]!, table.elementEnd[i]! - table.lineStart[i]!, type, 0);
         if (table.labelStart[i]! >= 0) out.push(table.labelStart[i]!, table.labelEnd[i]! - table.labelStart[i]!, variable, DECLARATION);
         for (let k = 0; k < 3; k++) out.push(table.coordinateStart[3 * i + k]!, table.coordinateEnd[3 * i + k]! - table.coordinateStart[3 * i + k]!, number, 0);
       }
+      while (other < others.length) statementTokens(out, others[other++]!, 'geometry');
       continue;
     }
     statementTokens(out, statement, block);
@@ -114,13 +119,18 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
  * lines are found by walking the line index forward once.
  */
 export function getSemanticTokens(analysis: DocumentAnalysis): SemanticTokens {
+  return { data: Array.from(encodeSemanticTokens(analysis)) };
+}
+
+/** The encoded tokens as a typed array (what getSemanticTokens sends, and what deltas compare). */
+export function encodeSemanticTokens(analysis: DocumentAnalysis): Int32Array {
   const out = new TokenCollector();
   walk(out, analysis.tree.statements, 'top', analysis);
   const comments = new TokenCollector();
   for (const comment of analysis.tree.comments) comments.add({ span: { start: comment.span.start, end: comment.span.start + comment.text.replace(/\r$/, '').length } }, 'comment');
   const items = out.items;
   const notes = comments.items;
-  const data = new Array<number>(((out.length + comments.length) / 4) * 5);
+  const data = new Int32Array(((out.length + comments.length) / 4) * 5);
   const lines = analysis.lines;
   let line = 0;
   let nextLineStart = lines.lineStart(1);
@@ -136,7 +146,7 @@ export function getSemanticTokens(analysis: DocumentAnalysis): SemanticTokens {
     else a += 4;
     const start = source[at]!;
     // A token never starts where the previous one did; the walk guarantees order otherwise.
-    if (start < previousStart) return getSemanticTokensSorted(analysis, out, comments);
+    if (start < previousStart) return Int32Array.from(getSemanticTokensSorted(analysis, out, comments).data);
     previousStart = start;
     while (start >= nextLineStart && line + 1 < lines.lineCount) {
       line++;
@@ -152,7 +162,7 @@ export function getSemanticTokens(analysis: DocumentAnalysis): SemanticTokens {
     previousLine = line;
     previousCharacter = character;
   }
-  return { data };
+  return data;
 }
 
 /** The general path for tokens that do not come in document order (never expected; kept for safety). */
@@ -178,7 +188,7 @@ function getSemanticTokensSorted(analysis: DocumentAnalysis, out: TokenCollector
  * common suffix, in whole tokens (five numbers). An edit inside one line changes a few tokens, so
  * the editor receives a few numbers instead of the whole document's tokens.
  */
-export function semanticTokensEdits(previous: readonly number[], next: readonly number[]): { start: number; deleteCount: number; data: number[] }[] {
+export function semanticTokensEdits(previous: ArrayLike<number>, next: ArrayLike<number>): { start: number; deleteCount: number; data: number[] }[] {
   const shortest = Math.min(previous.length, next.length);
   let prefix = 0;
   while (prefix < shortest && previous[prefix] === next[prefix]) prefix++;
@@ -187,5 +197,5 @@ export function semanticTokensEdits(previous: readonly number[], next: readonly 
   while (suffix < shortest - prefix && previous[previous.length - 1 - suffix] === next[next.length - 1 - suffix]) suffix++;
   suffix -= suffix % 5;
   if (prefix === previous.length && prefix === next.length) return [];
-  return [{ start: prefix, deleteCount: previous.length - prefix - suffix, data: next.slice(prefix, next.length - suffix) as number[] }];
+  return [{ start: prefix, deleteCount: previous.length - prefix - suffix, data: Array.from(Array.prototype.slice.call(next, prefix, next.length - suffix) as number[]) }];
 }
