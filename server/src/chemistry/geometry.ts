@@ -246,38 +246,134 @@ export interface ContactAnalysis {
   readonly nearestDistance: Float64Array;
   /** Per atom: index of that nearest neighbour, or -1. */
   readonly nearestAtom: Int32Array;
+  /** Every pair closer than the cutoff, sorted by (i, j), with what they were found from: the start of an update after a small edit. */
+  readonly pairs: ContactPairs;
 }
+
+export interface ContactPairs {
+  readonly cutoff: number;
+  readonly i: Int32Array;
+  readonly j: Int32Array;
+  readonly distance: Float64Array;
+  readonly coordinates: Float64Array;
+  readonly radii: Float64Array;
+}
+
+/** Above this many moved, added or removed atoms an update searches the whole geometry again. */
+const MAX_UPDATED_ATOMS = 64;
 
 /**
  * One pass over near pairs finds bonds (d < factor × (r_i + r_j)), clashes (d < CLASH_DISTANCE)
- * and each atom's nearest neighbour within the largest bond cutoff.
+ * and each atom's nearest neighbour within the largest bond cutoff. Given the analysis of a
+ * previous version of the geometry, only the atoms an edit moved, added or removed are searched
+ * again (each against every atom, no grid to build); the other pairs are carried over.
  */
-export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<number>): ContactAnalysis {
+export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<number>, previous?: ContactAnalysis): ContactAnalysis {
   const count = radii.length;
   let maxRadius = 0;
   for (let i = 0; i < count; i++) maxRadius = Math.max(maxRadius, radii[i]!);
   const cutoff = Math.max(2 * maxRadius * BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, 1e-6);
-  const grid = new NeighbourGrid(coords, cutoff);
-  const bonds = new PairList();
-  const clashes = new PairList();
+  const coordinates = coords instanceof Float64Array ? coords.slice() : Float64Array.from(coords);
+  const radiusCopy = radii instanceof Float64Array ? radii.slice() : Float64Array.from(radii);
+  const pairs = (previous && previous.pairs.cutoff === cutoff ? updatedPairs(previous.pairs, coordinates, radiusCopy, cutoff) : undefined) ?? allPairs(coordinates, radiusCopy, cutoff);
+  return contactsFromPairs(pairs, radiusCopy);
+}
+
+function allPairs(coordinates: Float64Array, radii: Float64Array, cutoff: number): ContactPairs {
+  const found = new PairList();
+  const count = radii.length;
+  new NeighbourGrid(coordinates, cutoff).forEachPairWithin(cutoff, (i, j, d) => found.add(i, j, d, count));
+  return found.sorted(count, cutoff, coordinates, radii);
+}
+
+/** The pairs after an edit that moved, added or removed a few atoms in one run; undefined when the edit is larger. */
+function updatedPairs(old: ContactPairs, coordinates: Float64Array, radii: Float64Array, cutoff: number): ContactPairs | undefined {
+  const oldCount = old.radii.length;
+  const count = radii.length;
+  const same = (a: number, b: number) =>
+    old.radii[a] === radii[b] && old.coordinates[3 * a] === coordinates[3 * b] && old.coordinates[3 * a + 1] === coordinates[3 * b + 1] && old.coordinates[3 * a + 2] === coordinates[3 * b + 2];
+  let prefix = 0;
+  while (prefix < oldCount && prefix < count && same(prefix, prefix)) prefix++;
+  let suffix = 0;
+  while (suffix < oldCount - prefix && suffix < count - prefix && same(oldCount - 1 - suffix, count - 1 - suffix)) suffix++;
+  // Old atoms [prefix, oldEnd) became new atoms [prefix, newEnd).
+  const oldEnd = oldCount - suffix;
+  const newEnd = count - suffix;
+  if (oldEnd - prefix > MAX_UPDATED_ATOMS || newEnd - prefix > MAX_UPDATED_ATOMS) return undefined;
+  const shift = count - oldCount;
+  // The pairs of the new atoms, found against every atom and sorted.
+  const fresh = new PairList();
+  const squared = cutoff * cutoff;
+  for (let c = prefix; c < newEnd; c++) {
+    const x = coordinates[3 * c]!;
+    const y = coordinates[3 * c + 1]!;
+    const z = coordinates[3 * c + 2]!;
+    for (let k = 0; k < count; k++) {
+      // Pairs of two new atoms once, from the earlier one.
+      if (k === c || (k >= prefix && k < newEnd && k < c)) continue;
+      const dx = x - coordinates[3 * k]!;
+      const dy = y - coordinates[3 * k + 1]!;
+      const dz = z - coordinates[3 * k + 2]!;
+      const d2 = dx * dx + dy * dy + dz * dz;
+      if (d2 < squared) fresh.add(Math.min(c, k), Math.max(c, k), Math.sqrt(d2), count);
+    }
+  }
+  const added = fresh.sorted(count, cutoff, coordinates, radii);
+  // The old pairs of unchanged atoms, renumbered (an order-keeping map), merged with the new ones.
+  const capacity = old.i.length + added.i.length;
+  const is = new Int32Array(capacity);
+  const js = new Int32Array(capacity);
+  const distance = new Float64Array(capacity);
+  let n = 0;
+  let a = 0;
+  const takeAdded = (i: number, j: number) => {
+    while (a < added.i.length && (added.i[a]! < i || (added.i[a] === i && added.j[a]! < j))) {
+      is[n] = added.i[a]!;
+      js[n] = added.j[a]!;
+      distance[n++] = added.distance[a++]!;
+    }
+  };
+  for (let k = 0; k < old.i.length; k++) {
+    let i = old.i[k]!;
+    let j = old.j[k]!;
+    if ((i >= prefix && i < oldEnd) || (j >= prefix && j < oldEnd)) continue;
+    if (i >= oldEnd) i += shift;
+    if (j >= oldEnd) j += shift;
+    takeAdded(i, j);
+    is[n] = i;
+    js[n] = j;
+    distance[n++] = old.distance[k]!;
+  }
+  takeAdded(count, 0);
+  return { cutoff, i: is.slice(0, n), j: js.slice(0, n), distance: distance.slice(0, n), coordinates, radii };
+}
+
+function contactsFromPairs(pairs: ContactPairs, radii: Float64Array): ContactAnalysis {
+  const count = radii.length;
+  const bonds: AtomPair[] = [];
+  const clashes: AtomPair[] = [];
   const nearestDistance = new Float64Array(count).fill(Infinity);
   const nearestAtom = new Int32Array(count).fill(-1);
-  grid.forEachPairWithin(cutoff, (i, j, d) => {
-    if (d < CLASH_DISTANCE) clashes.add(i, j, d, count);
-    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bonds.add(i, j, d, count);
-    if (d < nearestDistance[i]!) {
+  for (let k = 0; k < pairs.i.length; k++) {
+    const i = pairs.i[k]!;
+    const j = pairs.j[k]!;
+    const d = pairs.distance[k]!;
+    if (d < CLASH_DISTANCE) clashes.push({ i, j, distance: d });
+    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bonds.push({ i, j, distance: d });
+    // Ties go to the lower index, whatever order the pairs were found in.
+    if (d < nearestDistance[i]! || (d === nearestDistance[i]! && j < nearestAtom[i]!)) {
       nearestDistance[i] = d;
       nearestAtom[i] = j;
     }
-    if (d < nearestDistance[j]!) {
+    if (d < nearestDistance[j]! || (d === nearestDistance[j]! && i < nearestAtom[j]!)) {
       nearestDistance[j] = d;
       nearestAtom[j] = i;
     }
-  });
-  return { bonds: bonds.sorted(count), clashes: clashes.sorted(count), nearestDistance, nearestAtom };
+  }
+  return { bonds, clashes, nearestDistance, nearestAtom, pairs };
 }
 
-/** Pairs collected as numbers and sorted by (i, j) with a native numeric sort before they become objects. */
+/** Pairs collected as numbers and sorted by (i, j) with a native numeric sort. */
 class PairList {
   private keys = new Float64Array(64);
   private distances = new Float64Array(64);
@@ -298,7 +394,7 @@ class PairList {
     this.length++;
   }
 
-  sorted(count: number): AtomPair[] {
+  sorted(count: number, cutoff: number, coordinates: Float64Array, radii: Float64Array): ContactPairs {
     const n = this.length;
     const order = new Int32Array(n);
     if (count * count * n < Number.MAX_SAFE_INTEGER) {
@@ -311,14 +407,18 @@ class PairList {
       for (let k = 0; k < n; k++) order[k] = k;
       order.sort((a, b) => this.keys[a]! - this.keys[b]!);
     }
-    const pairs: AtomPair[] = new Array(n);
+    const is = new Int32Array(n);
+    const js = new Int32Array(n);
+    const distance = new Float64Array(n);
     for (let k = 0; k < n; k++) {
       const at = order[k]!;
       const key = this.keys[at]!;
       const i = Math.floor(key / count);
-      pairs[k] = { i, j: key - i * count, distance: this.distances[at]! };
+      is[k] = i;
+      js[k] = key - i * count;
+      distance[k] = this.distances[at]!;
     }
-    return pairs;
+    return { cutoff, i: is, j: js, distance, coordinates, radii };
   }
 }
 

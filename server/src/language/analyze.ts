@@ -31,7 +31,7 @@ export interface AnalyzeOptions {
   /** Qubit limit for specs that set none in `limits` (an editor setting or a CLI option). */
   readonly defaultQubitLimit?: number;
   /** The previous version of the same document, whose reading the parser may reuse in part. */
-  readonly previous?: Pick<Analysis, 'text' | 'tree'>;
+  readonly previous?: Pick<Analysis, 'text' | 'tree' | 'model'>;
 }
 
 export interface Analysis {
@@ -66,6 +66,7 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
     ...(options.path ? { path: options.path } : {}),
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
+    ...(options.previous ? { previousContacts: options.previous.model.contacts } : {}),
   });
   const context = { ast, model, sink };
   for (const check of CHECKS) check(context);

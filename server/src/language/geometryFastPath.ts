@@ -51,6 +51,32 @@ class Growable<T extends Int32Array | Float64Array> {
     this.data[this.length++] = value;
   }
 
+  /** Puts back −1 where an appended value was −1 before `shift` was added (a missing label), here and in `other`. */
+  unshiftMissing(from: number, shift: number, other: Growable<T>): void {
+    for (let k = from; k < this.length; k++) {
+      if (this.data[k] === shift - 1) {
+        this.data[k] = -1;
+        other.data[k] = -1;
+      }
+    }
+  }
+
+  /** Appends source[from, to), each value plus `shift`. */
+  appendShifted(source: ArrayLike<number>, from: number, to: number, shift: number): void {
+    const needed = this.length + (to - from);
+    if (needed > this.data.length) {
+      const bigger = this.make(Math.max(needed, this.data.length * 2));
+      bigger.set(this.data);
+      this.data = bigger;
+    }
+    const data = this.data;
+    let at = this.length;
+    // A plain copy when nothing moves: adding 0 would turn −0 into 0.
+    if (shift === 0) for (let k = from; k < to; k++) data[at++] = source[k]!;
+    else for (let k = from; k < to; k++) data[at++] = source[k]! + shift;
+    this.length = at;
+  }
+
   toArray(): T {
     return this.data.slice(0, this.length) as T;
   }
@@ -74,22 +100,21 @@ class Columns {
 
   /** Appends rows [from, to) of a table, their offsets moved by `shift`. */
   appendRows(table: AtomTable, from: number, to: number, shift: number): void {
-    for (let i = from; i < to; i++) {
-      this.atomicNumbers.push(table.atomicNumbers[i]!);
-      const label = table.labels.get(i);
-      if (label !== undefined) this.labels.set(this.count, label);
-      this.lineStart.push(table.lineStart[i]! + shift);
-      this.lineEnd.push(table.lineEnd[i]! + shift);
-      this.elementEnd.push(table.elementEnd[i]! + shift);
-      this.labelStart.push(table.labelStart[i]! >= 0 ? table.labelStart[i]! + shift : -1);
-      this.labelEnd.push(table.labelEnd[i]! >= 0 ? table.labelEnd[i]! + shift : -1);
-      for (let k = 0; k < 3; k++) {
-        this.coordinateStart.push(table.coordinateStart[3 * i + k]! + shift);
-        this.coordinateEnd.push(table.coordinateEnd[3 * i + k]! + shift);
-        this.coordinates.push(table.coordinates[3 * i + k]!);
-      }
-      this.count++;
-    }
+    if (to <= from) return;
+    for (const [index, label] of table.labels) if (index >= from && index < to) this.labels.set(this.count + index - from, label);
+    this.atomicNumbers.appendShifted(table.atomicNumbers, from, to, 0);
+    this.lineStart.appendShifted(table.lineStart, from, to, shift);
+    this.lineEnd.appendShifted(table.lineEnd, from, to, shift);
+    this.elementEnd.appendShifted(table.elementEnd, from, to, shift);
+    // A label start of −1 (no label) stays −1.
+    const labelFrom = this.labelStart.length;
+    this.labelStart.appendShifted(table.labelStart, from, to, shift);
+    this.labelEnd.appendShifted(table.labelEnd, from, to, shift);
+    if (shift !== 0) this.labelStart.unshiftMissing(labelFrom, shift, this.labelEnd);
+    this.coordinateStart.appendShifted(table.coordinateStart, 3 * from, 3 * to, shift);
+    this.coordinateEnd.appendShifted(table.coordinateEnd, 3 * from, 3 * to, shift);
+    this.coordinates.appendShifted(table.coordinates, 3 * from, 3 * to, 0);
+    this.count += to - from;
   }
 
   table(text: string): AtomTable {

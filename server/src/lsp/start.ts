@@ -240,7 +240,7 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
   connection.languages.semanticTokens.on(
     onDocument((analysis, params) => {
       const { resultId, data } = tokensOf(params.textDocument.uri, analysis);
-      return { resultId, data: Array.from(data) };
+      return { resultId, data: service.plainNumbers(data, 0, data.length) };
     }, { resultId: '0', data: [] as number[] }),
   );
   connection.languages.semanticTokens.onDelta(
@@ -248,7 +248,7 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
       (analysis, params) => {
         const previous = sentTokens.get(params.textDocument.uri)?.find((result) => result.resultId === params.previousResultId);
         const next = tokensOf(params.textDocument.uri, analysis);
-        if (!previous) return { resultId: next.resultId, data: Array.from(next.data) };
+        if (!previous) return { resultId: next.resultId, data: service.plainNumbers(next.data, 0, next.data.length) };
         return { resultId: next.resultId, edits: service.semanticTokensEdits(previous.data, next.data) };
       },
       { resultId: '0', edits: [] as { start: number; deleteCount: number; data: number[] }[] },

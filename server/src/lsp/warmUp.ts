@@ -13,7 +13,7 @@ import * as service from '../services';
 function warmUpSpec(molecules: number, variant: number): string {
   const lines: string[] = [];
   for (let m = 0; m < molecules; m++) {
-    const x = (m % 6) * 3.1;
+    const x = (m % 6) * 3.1 + 0.01 * (m % 7);
     const y = (Math.floor(m / 6) % 6) * 3.1;
     const z = Math.floor(m / 36) * 3.1 + (m === 0 ? variant * 1e-4 : 0);
     const label = m === 0 ? ' o1' : '';
@@ -29,7 +29,8 @@ export function warmUp(rounds = 10): number {
   const start = performance.now();
   const files = { readFile: () => ({ ok: false as const, reason: 'no files while warming up' }), realPath: (file: string) => file };
   for (let round = 0; round < rounds; round++) {
-    const analysis = analyzeDocument(warmUpSpec(120, round), { files });
+    // Over the symmetry size limit, like the large documents the warm-up is for.
+    const analysis = analyzeDocument(warmUpSpec(180, round), { files });
     service.doValidation(analysis, 'file:///warm-up.tess');
     service.semanticTokensEdits(service.encodeSemanticTokens(analysis), service.encodeSemanticTokens(analysis));
     service.getInlayHints(analysis, { start: { line: 0, character: 0 }, end: { line: 400, character: 0 } });

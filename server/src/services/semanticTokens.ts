@@ -23,8 +23,13 @@ const SCAN_KEYWORDS = new Set(['from', 'to', 'step', 'points']);
 
 /** Tokens as flat (start offset, length, type, modifiers) quadruples, in document order. */
 class TokenCollector {
-  items = new Int32Array(4096);
+  items: Int32Array;
   length = 0;
+
+  /** `expected` tokens fit without growing. */
+  constructor(expected = 1024) {
+    this.items = new Int32Array(4 * Math.max(16, expected));
+  }
 
   push(start: number, length: number, type: number, modifiers: number): void {
     if (this.length + 4 > this.items.length) {
@@ -119,12 +124,23 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
  * lines are found by walking the line index forward once.
  */
 export function getSemanticTokens(analysis: DocumentAnalysis): SemanticTokens {
-  return { data: Array.from(encodeSemanticTokens(analysis)) };
+  return { data: plainNumbers(encodeSemanticTokens(analysis), 0, Infinity) };
+}
+
+/** values[from, to) as a plain array (what JSON can carry), filled in one loop. */
+export function plainNumbers(values: ArrayLike<number>, from: number, to: number): number[] {
+  const end = Math.min(to, values.length);
+  const out: number[] = [];
+  for (let k = from; k < end; k++) out.push(values[k]!);
+  return out;
 }
 
 /** The encoded tokens as a typed array (what getSemanticTokens sends, and what deltas compare). */
 export function encodeSemanticTokens(analysis: DocumentAnalysis): Int32Array {
-  const out = new TokenCollector();
+  // At most five tokens per atom line, and a few hundred for the rest of a spec.
+  let rows = 0;
+  for (const block of analysis.tree.geometryBlocks ?? []) rows += block.table.count;
+  const out = new TokenCollector(5 * rows + 1024);
   walk(out, analysis.tree.statements, 'top', analysis);
   const comments = new TokenCollector();
   for (const comment of analysis.tree.comments) comments.add({ span: { start: comment.span.start, end: comment.span.start + comment.text.replace(/\r$/, '').length } }, 'comment');
@@ -197,5 +213,5 @@ export function semanticTokensEdits(previous: ArrayLike<number>, next: ArrayLike
   while (suffix < shortest - prefix && previous[previous.length - 1 - suffix] === next[next.length - 1 - suffix]) suffix++;
   suffix -= suffix % 5;
   if (prefix === previous.length && prefix === next.length) return [];
-  return [{ start: prefix, deleteCount: previous.length - prefix - suffix, data: Array.from(Array.prototype.slice.call(next, prefix, next.length - suffix) as number[]) }];
+  return [{ start: prefix, deleteCount: previous.length - prefix - suffix, data: plainNumbers(next, prefix, next.length - suffix) }];
 }
