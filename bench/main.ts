@@ -1,18 +1,34 @@
 /** `npm run bench`: every benchmark, printed as Markdown tables. */
 import { benchAnalysis } from './analysis';
 import { benchHamiltonian } from './hamiltonian';
+import { benchIntegrals } from './integrals';
 import { benchIrreps } from './irreps';
 import { benchLanguageServer } from './lsp';
 import { benchPauli } from './pauli';
+import { benchScf } from './scf';
 import { benchSymmetry } from './symmetry';
 
 type Section = () => string[] | Promise<string[]>;
 
-const sections: Section[] = [benchAnalysis, benchSymmetry, benchIrreps, benchPauli, benchHamiltonian, () => benchLanguageServer()];
+const sections: Record<string, Section> = {
+  analysis: benchAnalysis,
+  symmetry: benchSymmetry,
+  irreps: benchIrreps,
+  pauli: benchPauli,
+  hamiltonian: benchHamiltonian,
+  integrals: benchIntegrals,
+  scf: benchScf,
+  lsp: () => benchLanguageServer(),
+};
+
+/** `TESSERA_BENCH=integrals,scf` runs only those sections (for profiling one of them). */
+const only = process.env.TESSERA_BENCH?.split(',').map((name) => name.trim());
 
 async function main(): Promise<void> {
   console.log(`# Tessera benchmarks (Node ${process.version}, ${new Date().toISOString()})\n`);
-  for (const section of sections) console.log(`${(await section()).join('\n')}\n`);
+  for (const [name, section] of Object.entries(sections)) {
+    if (!only || only.includes(name)) console.log(`${(await section()).join('\n')}\n`);
+  }
 }
 
 void main();

@@ -28,7 +28,8 @@ integrals); energies in hartree. Orbital coefficients are psi4's Ca, a
 (functions x orbitals) matrix stored row-major; the atomic-orbital order is
 psi4's. The geometries are idealised and invented (round bond lengths and
 angles), except H2 at 0.7414 angstrom, the distance of Seeley, Richard & Love,
-J. Chem. Phys. 137, 224109 (2012).
+J. Chem. Phys. 137, 224109 (2012), and water at the structure of Hoy & Bunker,
+J. Mol. Spectrosc. 74, 1 (1979), placed as in tests/fixtures/water.ts.
 
 Usage (needs Debian's psi4 package; CI does not have it, the generated files
 are committed):
@@ -53,7 +54,11 @@ DEG = math.pi / 180
 
 
 def water():
-    return [("O", 0, 0, 0.1173), ("H", 0, 0.7572, -0.4692), ("H", 0, -0.7572, -0.4692)]
+    # Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979): r(OH) = 0.9572 angstrom, HOH = 104.52 degrees,
+    # placed as in tests/fixtures/water.ts (O at the origin, yz plane, bisector along +z, six decimals).
+    half = 104.52 / 2 * DEG
+    y, z = round(0.9572 * math.sin(half), 6), round(0.9572 * math.cos(half), 6)
+    return [("O", 0, 0, 0), ("H", 0, y, z), ("H", 0, -y, z)]
 
 
 def methylene():
@@ -271,7 +276,7 @@ def main():
                 "(energy('fci') with restricted_docc and active) and the active-space integrals computed by this script "
                 "with numpy from psi4's matrices: constant = nuclear repulsion + frozen-core energy, h = effective "
                 "one-body term (active x active, row-major), eri = active (pq|rs) packed as above. Symmetry c1, "
-                "scf_type pk, geometries invented except H2 at 0.7414 angstrom.")),
+                "scf_type pk, geometries invented except H2 at 0.7414 angstrom and water at Hoy & Bunker's structure.")),
             "cases": cases,
         })
 

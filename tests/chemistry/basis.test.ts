@@ -87,6 +87,8 @@ describe('worked examples', () => {
 });
 
 describe('names and conventions', () => {
+  // (d) for * and (d,p) for ** are the usual equivalent spellings of the Pople polarisation
+  // functions (common practice, after Hariharan & Pople 1973).
   it('accepts the usual spellings', () => {
     expect(normalizeBasisName('6-31G(d)')).toBe('6-31g*');
     expect(normalizeBasisName('6-31G(d,p)')).toBe('6-31g**');
@@ -113,7 +115,7 @@ describe('names and conventions', () => {
     expect(basisSetsCovering(['I']).map((basis) => basis.key)).toContain('def2-tzvp');
   });
 
-  it('counts functions per shell: 2l+1 spherical, (l+1)(l+2)/2 cartesian', () => {
+  it('counts functions per shell: 2l+1 spherical, (l+1)(l+2)/2 cartesian (by definition: real solid harmonics and cartesian monomials of degree l)', () => {
     const shells = parseShellNotation('4s3p2d1f1g');
     expect(functionCount(shells, 'spherical')).toBe(4 + 9 + 10 + 7 + 9);
     expect(functionCount(shells, 'cartesian')).toBe(4 + 9 + 12 + 10 + 15);

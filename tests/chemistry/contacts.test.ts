@@ -40,7 +40,7 @@ describe('the neighbour grid', () => {
     );
   });
 
-  it('lists an atom\'s neighbours nearest first, as a scan of every atom does', () => {
+  it('lists an atom\'s neighbours nearest first, as a scan of every atom does (distances by construction of the coordinates)', () => {
     const coords = [0, 0, 0, 1, 0, 0, 0, 2, 0, 0, 0, 3.5, 5, 5, 5];
     const grid = new NeighbourGrid(coords, 4).neighboursOf(0, 4).map((pair) => [pair.j, pair.distance]);
     expect(grid).toEqual([[1, 1], [2, 2], [3, 3.5]]);

@@ -22,7 +22,7 @@ interface TableRow {
 const rows = table.elements as unknown as TableRow[];
 
 describe('element table', () => {
-  it('covers H to Cm in order', () => {
+  it('covers H to Cm in order, Z = position (atomic numbers of the IUPAC periodic table, 2011 table via bodr: Rn 86, Zn 30)', () => {
     expect(ELEMENTS.length).toBeGreaterThanOrEqual(86);
     ELEMENTS.forEach((element, i) => expect(element.z).toBe(i + 1));
     expect(elementBySymbol('Rn')?.z).toBe(86);

@@ -83,6 +83,7 @@ describe('tessera estimate', () => {
   it('gives JSON under stable keys for a spec', async () => {
     const result = await run(['estimate', '--format', 'json', 'samples/molecules/water-cc-pvdz.tess']);
     const json = JSON.parse(result.stdout);
+    // cc-pVDZ: O [3s2p1d] = 14 spherical / 15 cartesian, H [2s1p] = 5 (Dunning, J. Chem. Phys. 90, 1007 (1989)).
     expect(json.system).toMatchObject({ electrons: 10, multiplicity: 1, functions: 'spherical', basisFunctions: { spherical: 24, cartesian: 25 } });
     expect(json.fragments[0]).toMatchObject({ name: 'water', tier: 'quantum', mapping: 'parity', active: { electrons: 4, orbitals: 4 }, qubitsRequired: 6 });
   });
@@ -95,22 +96,27 @@ describe('tessera estimate', () => {
     expect(json.system.electrons).toBe(10);
     expect(json.system.multiplicity).toBe(1);
     expect(json.system.functions).toBe('spherical');
+    // O [3s2p1d] = 14 / 15, H [2s1p] = 5 (Dunning 1989); 2 × 24 qubits (Jordan–Wigner, Seeley, Richard & Love 2012).
     expect(json.system.basisFunctions.spherical).toBe(24);
     expect(json.system.basisFunctions.cartesian).toBe(25);
     expect(json.system.qubits.jordanWigner).toBe(48);
   });
 
-  it('--xyz with --frozen-core and --functions cartesian', async () => {
+  it('--xyz with --frozen-core and --functions spherical', async () => {
     const folder = scratch({ 'water.xyz': WATER_XYZ });
     const result = await run(['estimate', '--xyz', 'water.xyz', '--basis', '6-31G(d)', '--functions', 'spherical', '--frozen-core', '--format', 'json'], folder);
     const json = JSON.parse(result.stdout);
-    // 6-31G*: O [3s2p1d] = 14 spherical, H [2s] = 2: 18 orbitals, 1 frozen → 17 active → 34 qubits.
+    // 6-31G*: O [3s2p1d] = 14 spherical (one d set, Hariharan & Pople, Theor. Chim. Acta 28, 213 (1973)),
+    // H [2s] = 2 (Ditchfield, Hehre & Pople 1971): 18 orbitals, the O 1s frozen (common practice)
+    // → 17 active → 34 qubits.
     expect(json.system.functions).toBe('spherical');
     expect(json.system.orbitals).toBe(18);
     expect(json.system.qubits.jordanWigner).toBe(34);
   });
 
   it('--xyz: a basis that lacks an element gives exit 1 and the diagnostic', async () => {
+    // r(HI) = 1.609 Å (Huber & Herzberg 1979, from memory). The library's 6-31G (psi4 1.3.2's
+    // 6-31g.gbs, scripts/data/generate_basis_library.py) covers H–Kr only.
     const folder = scratch({ 'hi.xyz': '2\nhydrogen iodide\nH 0 0 0\nI 0 0 1.609\n' });
     const result = await run(['estimate', '--xyz', 'hi.xyz', '--basis', '6-31G'], folder);
     expect(result.code).toBe(1);

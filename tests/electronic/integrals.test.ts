@@ -290,3 +290,52 @@ describe('effective core potentials', () => {
     expect(() => createTwoElectronIntegrals(basis)).not.toThrow();
   });
 });
+
+describe('stored integrals', () => {
+  const basis = buildMolecularBasis(water, 'cc-pVDZ', 'spherical');
+  const n = basis.functionCount;
+
+  it('are kept by the first build when they fit, and later builds read them with the same J and K', () => {
+    const direct = createTwoElectronIntegrals(basis, { storageLimitBytes: 0 });
+    const stored = createTwoElectronIntegrals(basis);
+    expect(direct.stored).toBe(false);
+    expect(stored.storageBytes).toBeGreaterThan(8 * (n ** 4 / 8));
+    const next = random(11);
+    for (let build = 0; build < 3; build++) {
+      const d = [symmetricMatrix(n, next), symmetricMatrix(n, next)];
+      const [j1, k1, j2, k2] = [0, 1, 2, 3].map(() => [new Float64Array(n * n), new Float64Array(n * n)]);
+      direct.buildJK(d, j1!, k1!);
+      stored.buildJK(d, j2!, k2!);
+      expect(stored.stored).toBe(true);
+      if (build > 0) {
+        expect(stored.lastStatistics.quartetsComputed).toBe(0);
+        expect(stored.lastStatistics.quartetsRead).toBeGreaterThan(0);
+      }
+      for (let x = 0; x < 2; x++) {
+        for (let k = 0; k < n * n; k++) {
+          expect(Math.abs(j1![x]![k]! - j2![x]![k]!)).toBeLessThan(1e-11);
+          expect(Math.abs(k1![x]![k]! - k2![x]![k]!)).toBeLessThan(1e-11);
+        }
+      }
+    }
+    expect(direct.lastStatistics.quartetsComputed).toBeGreaterThan(0);
+    expect(direct.stored).toBe(false);
+  });
+
+  it('are not used by a build whose threshold asks for more than they hold, nor kept half-way when cancelled', () => {
+    const eri = createTwoElectronIntegrals(basis);
+    const d = [symmetricMatrix(n, random(5))];
+    let looks = 0;
+    const token = {
+      get cancelled() {
+        return ++looks > 2;
+      },
+    };
+    expect(() => eri.buildJK(d, [new Float64Array(n * n)], null, { cancel: token })).toThrow(CancelledError);
+    expect(eri.stored).toBe(false);
+    eri.buildJK(d, [new Float64Array(n * n)], null);
+    expect(eri.stored).toBe(true);
+    eri.buildJK(d, [new Float64Array(n * n)], null, { threshold: 0 });
+    expect(eri.lastStatistics.quartetsComputed).toBeGreaterThan(0);
+  });
+});

@@ -31,13 +31,13 @@ const WATER = `geometry {
 
 describe('H2 in STO-3G', () => {
   const h2 = report(H2());
-  it('uses D2h for counting (full group D∞h) with one Ag and one B1u orbital', () => {
+  it('uses D2h for counting (full group D∞h) with one Ag and one B1u orbital (σg and σu of the minimal basis, Szabo & Ostlund 1989; D∞h → D2h from Cotton 1990, from memory)', () => {
     expect(h2.system.pointGroup).toBe('D2h');
     expect(h2.system.fullPointGroup).toBe('D∞h');
     expect(h2.system.orbitalsPerIrrep).toMatchObject({ Ag: 1, B1u: 1 });
   });
 
-  it('needs 4 qubits under Jordan–Wigner and 1 after tapering (Bravyi, Gambetta, Mezzacapo, Temme, arXiv:1701.08213)', () => {
+  it('needs 4 qubits under Jordan–Wigner and 1 after tapering (Bravyi, Gambetta, Mezzacapo, Temme, arXiv:1701.08213 (2017))', () => {
     expect(h2.system.qubits).toEqual({ jordanWigner: 4, bravyiKitaev: 4, parity: 2, tapered: 1 });
     expect(h2.fragments[0]!.qubitsRequired).toBe(1);
   });
@@ -51,11 +51,11 @@ describe('H2 in STO-3G', () => {
     expect(h2.system.pauliTerms!.upperBound).toBe(true);
   });
 
-  it('has 2 singles and 1 double in the spin-orbital UCCSD, 1 parameter after point-group screening (issue check value; O\'Malley et al. 2016)', () => {
+  it('has 2 singles and 1 double in the spin-orbital UCCSD, 1 parameter after point-group screening (O\'Malley et al. 2016)', () => {
     expect(h2.fragments[0]!.ansatzCost).toMatchObject({ kind: 'uccsd', unscreened: 3, parameters: 1, singles: 0, doubles: 1 });
   });
 
-  it('gives every mapping its count: parity 2n − 2, Bravyi–Kitaev 2n', () => {
+  it('gives every mapping its count: parity 2n − 2, Bravyi–Kitaev 2n (Seeley, Richard & Love 2012; Bravyi et al. 2017)', () => {
     expect(report(H2('tier quantum { method vqe; mapping parity }')).fragments[0]!.qubitsRequired).toBe(2);
     expect(report(H2('tier quantum { method vqe; mapping bravyi-kitaev }')).fragments[0]!.qubitsRequired).toBe(4);
   });
@@ -63,7 +63,7 @@ describe('H2 in STO-3G', () => {
 
 describe('water in STO-3G', () => {
   const water = report(`basis sto-3g\nfrozen-core off\n${WATER}\nfragment w {\n  atoms rest\n  tier correlated { method fci }\n}\n`);
-  it('has 441 full-CI determinants (issue check value: C(7,5)² = 21²)', () => {
+  it('has 441 full-CI determinants (C(7,5)² = 21², Sherrill & Schaefer 1999)', () => {
     expect(water.fragments[0]!.classical!.determinants).toMatchObject({ exact: '441', text: '441' });
   });
 
@@ -78,6 +78,8 @@ describe('water in STO-3G', () => {
 });
 
 describe('open shells', () => {
+  // O2 at r_e = 1.2075 Å (Huber & Herzberg 1979, from memory); α = (N + 2S)/2 (Szabo & Ostlund 1989);
+  // the spin-orbital UCCSD count of Romero et al. 2019, by hand below.
   it('triplet O2 in cc-pVDZ: 9 α and 7 β electrons, UCCSD counted in spin orbitals (no spin-adapted form)', () => {
     const o2 = report(`basis cc-pVDZ\nmultiplicity 3\ngeometry {\n  O a 0 0 0.60375\n  O b 0 0 -0.60375\n}\nfragment o2 {\n  atoms rest\n  multiplicity 3\n  tier quantum { method vqe; ansatz uccsd; active 8e 6o }\n}\n`);
     const fragment = o2.fragments[0]!;
@@ -88,7 +90,7 @@ describe('open shells', () => {
   });
 });
 
-describe('DMET impurity sizes', () => {
+describe('DMET impurity sizes (Knizia & Chan 2012; Wouters et al. 2016)', () => {
   // Two waters 6 Å apart in STO-3G: per water 7 orbitals, 1 frozen; the system has M = 12 orbitals
   // and N = 4 + 4 = 8 occupied per spin outside the core. A one-water fragment of L = 6 orbitals gets
   // bath = min(L, M − L, N, M − N) = min(6, 6, 8, 4) = 4 (Knizia & Chan 2012; Wouters et al. 2016),
@@ -99,12 +101,14 @@ describe('DMET impurity sizes', () => {
     expect(two.fragments[0]!.qubits.jordanWigner).toBe(20);
   });
 
-  it('uses the fragment\'s own orbitals without DMET', () => {
+  it('uses the fragment\'s own orbitals without DMET: 7 STO-3G orbitals less the frozen O 1s (common practice), 8 electrons', () => {
     const own = report(`basis sto-3g\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe }\n}\n`);
     expect(own.fragments[0]!.problem).toMatchObject({ embedding: 'none', orbitals: 6, electrons: 8 });
   });
 });
 
+// Water in cc-pVDZ has 11 A1, 2 A2, 4 B1, 7 B2 orbitals (psi4 1.3.2, tests/fixtures/irreps.psi4.json);
+// irreps given in the spec are used as given, by definition; tapering as in Bravyi et al. 2017.
 describe('active spaces per irrep', () => {
   const spec = (active: string) => `basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; mapping jordan-wigner; taper on; active ${active} }\n}\n`;
   it('uses the irreps as given', () => {
@@ -129,6 +133,8 @@ describe('active spaces per irrep', () => {
   });
 });
 
+// 4 active orbitals: 8 qubits under Jordan–Wigner, 6 under the reduced parity mapping (Seeley, Richard
+// & Love 2012; Bravyi et al. 2017), 4 after tapering the number parities and two C2v generators.
 describe('limits with tapering and other mappings', () => {
   it('suggests tapering and the parity mapping when they would fit', () => {
     const analysis = analyzeDocument(`basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; mapping jordan-wigner; active 4e 4o }\n}\nlimits { qubits 6 }\n`);
@@ -138,14 +144,14 @@ describe('limits with tapering and other mappings', () => {
     expect(message).toContain('`mapping parity` needs 6');
   });
 
-  it('compares the statevector memory with the limit: 30 qubits need 16 GiB (2^30 × 16 bytes)', () => {
+  it('compares the statevector memory with the limit: 30 qubits need 16 GiB (2^30 × 16 bytes, common practice)', () => {
     const analysis = analyzeDocument(`basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; active 8e 15o }\n}\nlimits { memory 8 GiB }\n`);
     expect(analysis.diagnostics.find((d) => d.code === 'memory-limit-exceeded')!.message).toContain('needs 16.0 GiB');
   });
 });
 
 describe('scans', () => {
-  it('multiplies per-point costs by the number of points', () => {
+  it('multiplies per-point costs by the number of points (by definition: 2.5 to 3.5 step 0.25 is 5 points, 2 fragments each)', () => {
     const scanned = report(`basis sto-3g\n${WATER.replace('}', '  He he 0 0 3.0\n}')}\nfragment w { atoms o h1 h2; tier quantum { method vqe; active 4e 4o } }\nfragment x { atoms he; tier mean-field { method rhf } }\nscan distance o he from 2.5 to 3.5 step 0.25\n`);
     expect(scanned.scan!.points).toBe(5);
     const groups = scanned.fragments[0]!.measurement!.groups;

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { DIAGNOSTIC_CODES, type DiagnosticCode } from '../../server/src/language/diagnostics';
 import { analyze, type AnalyzeOptions } from '../../server/src/language/analyze';
+import type { FileHost } from '../../server/src/language/files';
 import { WATER_ROWS } from '../fixtures/water';
 import { analyzeMarked, expectDiagnostic, expectDiagnostics, expectNoDiagnostic, memoryFiles, parseMarkers, show } from './fixture';
 
@@ -56,6 +57,8 @@ interface Case {
   /** Texts or patterns the trigger's message must contain. */
   readonly message?: readonly (string | RegExp)[];
   readonly options?: AnalyzeOptions;
+  /** Options of the near miss when they differ from the trigger's. */
+  readonly nearMissOptions?: AnalyzeOptions;
   /** The reported severity, when it differs from the registry's. */
   readonly severity?: string;
 }
@@ -211,6 +214,12 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMiss: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.51\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
     message: ['Atoms a (H) and b (H) are 0.490 Å apart, closer than 0.5 Å'],
   },
+  'coordinate-out-of-range': {
+    // 1e155 Å: squared, it overflows a double; 1e4 Å is far, but inside the ±1e5 Å range.
+    trigger: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 ⟦1e155⟧\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
+    nearMiss: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1e4\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
+    message: ['Atom b (H) has z = 1.00e+155 Å', 'within ±100,000 Å (10 µm)', 'the point group is taken as C1'],
+  },
   'units-suspect': {
     trigger: water(ONE_FRAGMENT, 'units ⟦angstrom⟧', 'basis sto-3g', WATER_IN_BOHR),
     nearMiss: water(ONE_FRAGMENT, 'units bohr', 'basis sto-3g', WATER_IN_BOHR),
@@ -335,7 +344,43 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMissAllows: ['bond-cut'],
     message: ['The scan goes from 1.5 to 0.9, so the step must be negative; it is 0.1.'],
   },
+  'spec-too-large': {
+    // One character beyond the supported 8 MiB, and a spec of exactly 8 MiB (water padded with a comment).
+    trigger: `⟦⟧${padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024 + 1)}`,
+    nearMiss: padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024),
+    message: ['This spec has 8,388,609 characters', 'up to 8,388,608 characters (8 MiB), 100,000 atoms and 1,000,000 words outside plain geometry blocks'],
+  },
+  'too-many-problems': {
+    // 1,001 stray characters and the missing geometry: 1,002 problems, the first 1,000 listed.
+    trigger: `${'@\n'.repeat(998)}@⟦⟧\n${'@\n'.repeat(2)}`,
+    nearMiss: '@\n'.repeat(999),
+    nearMissAllows: ['unexpected-character', 'missing-geometry'],
+    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point'],
+  },
+  'internal-error': {
+    // A file host that throws stands for any bug below analyze(): the spec itself is fine.
+    trigger: `⟦⟧${fromFile('"data/water.xyz"')}`,
+    nearMiss: fromFile('"data/water.xyz"'),
+    options: { path: SPEC_PATH, files: throwingFiles('the disk driver failed') },
+    nearMissOptions: withFiles,
+    message: ['Tessera failed while building the model', 'Error: the disk driver failed', 'This is a bug in Tessera'],
+  },
 };
+
+/** The spec followed by a comment line that brings it to `length` characters. */
+function padTo(spec: string, length: number): string {
+  return `${spec}# ${'x'.repeat(length - spec.length - 3)}\n`;
+}
+
+/** A file host with a bug: reading throws instead of answering. */
+function throwingFiles(message: string): FileHost {
+  return {
+    readFile() {
+      throw new Error(message);
+    },
+    realPath: (absolutePath) => absolutePath,
+  };
+}
 
 describe('every diagnostic code', () => {
   it('has a case here, and every case names a registered code', () => {
@@ -355,7 +400,7 @@ describe('every diagnostic code', () => {
       });
 
       it('is not reported by the closely related case', () => {
-        const analysis = expectNoDiagnostic(test.nearMiss, code, test.options);
+        const analysis = expectNoDiagnostic(test.nearMiss, code, test.nearMissOptions ?? test.options);
         const others = analysis.diagnostics.filter((d) => !(test.nearMissAllows ?? []).includes(d.code));
         expect(others.map((d) => show(analysis, d))).toEqual([]);
       });

@@ -564,7 +564,7 @@ limits { qubits 8 }
     expect(first!.atoms).toEqual([0, 1, 2]);
     expect(first!.tier).toMatchObject({ level: 'mean-field', method: 'rhf' });
     // The fragment after the broken part gets its atoms and counts: water in STO-3G has 10
-    // electrons and 7 basis functions (O 1s 2s 2p = 5, H 1s = 1 each; minimal basis, common practice, no source).
+    // electrons and 7 basis functions (O 1s 2s 2p = 5, H 1s = 1 each; the minimal STO-3G basis of Hehre, Stewart & Pople 1969).
     expect(second!.atoms).toEqual([3, 4, 5]);
     expect(second!.space.electrons).toBe(10);
     expect(second!.space.orbitals).toBe(7);

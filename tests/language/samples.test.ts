@@ -142,7 +142,7 @@ describe('figures the samples state in their comments', () => {
   const byName = (name: string) => analyseFile(path.join(SAMPLES, name));
 
   it('water in STO-3G: 7 basis functions and 10 electrons', () => {
-    // Minimal basis: O 1s 2s 2p = 5 functions, H 1s = 1 (common practice, no source).
+    // Minimal basis: O 1s 2s 2p = 5 functions, H 1s = 1 (STO-3G, Hehre, Stewart & Pople, J. Chem. Phys. 51, 2657 (1969)).
     const { model } = byName('molecules/water-sto-3g.tess');
     expect(model.system.orbitals).toBe(7);
     expect(model.system.electrons).toBe(10);

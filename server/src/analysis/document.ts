@@ -11,9 +11,9 @@
  */
 import { bondedGroup } from '../chemistry/scan';
 import type { SpecAst } from '../language/ast';
-import { analyze, type Analysis, type AnalyzeOptions } from '../language/analyze';
+import { analyze, checkName, contained, type Analysis, type AnalyzeOptions } from '../language/analyze';
 import type { Diagnostic } from '../language/diagnostics';
-import { DiagnosticSink } from '../language/diagnostics';
+import { DiagnosticSink, finishDiagnostics } from '../language/diagnostics';
 import type { SpecModel } from '../language/model';
 import type { SyntaxTree } from '../language/syntax';
 import type { LineIndex } from '../language/text';
@@ -71,8 +71,8 @@ export class DocumentAnalysis {
     if (!this.allDiagnostics) {
       const sink = new DiagnosticSink();
       const context = { ast: this.ast, model: this.model, sink, estimates: this.estimates };
-      for (const check of ESTIMATE_CHECKS) check(context);
-      this.allDiagnostics = [...this.languageDiagnostics, ...sink.items].sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+      for (const check of ESTIMATE_CHECKS) contained(sink, checkName(check), () => check(context));
+      this.allDiagnostics = finishDiagnostics([...this.languageDiagnostics, ...sink.items], sink.dropped);
     }
     return this.allDiagnostics;
   }

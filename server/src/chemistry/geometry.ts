@@ -12,6 +12,22 @@ export interface AtomPair {
 export const BOND_TOLERANCE_FACTOR = 1.2;
 /** Atoms closer than this are almost certainly a typing mistake (common practice, no source). */
 export const CLASH_DISTANCE = 0.5;
+/**
+ * Largest coordinate magnitude accepted, Å: 100,000 Å is 10 µm, far beyond any molecule or
+ * cluster, and small enough that squared distances stay exact to well below a bond length.
+ * Atoms beyond it (or with a non-finite coordinate) are left out of the neighbour search and the
+ * symmetry search; the checks report them.
+ */
+export const COORDINATE_LIMIT = 1e5;
+
+/** Whether atom i's coordinates are finite and within ±COORDINATE_LIMIT Å. */
+export function coordinatesInRange(coords: ArrayLike<number>, i: number): boolean {
+  for (let axis = 0; axis < 3; axis++) {
+    const value = coords[3 * i + axis]!;
+    if (!(Math.abs(value) <= COORDINATE_LIMIT)) return false;
+  }
+  return true;
+}
 
 export function distance(coords: ArrayLike<number>, i: number, j: number): number {
   const dx = coords[3 * i]! - coords[3 * j]!;
@@ -25,7 +41,8 @@ export function distance(coords: ArrayLike<number>, i: number, j: number): numbe
  * neighbouring cells. Atoms are sorted by cell into one flat array; a cell's atoms are found by a
  * dense table of cell starts when the box has not many more cells than atoms, and by binary search
  * over the occupied cells otherwise (a sparse or far-flung geometry). No allocation per atom or
- * per pair.
+ * per pair. Atoms outside ±COORDINATE_LIMIT are left out: they have no neighbours and would
+ * stretch the box.
  */
 export class NeighbourGrid {
   private readonly cellSize: number;
@@ -48,14 +65,17 @@ export class NeighbourGrid {
     const count = Math.floor(coords.length / 3);
     const min: [number, number, number] = [Infinity, Infinity, Infinity];
     const max: [number, number, number] = [-Infinity, -Infinity, -Infinity];
+    let included = 0;
     for (let i = 0; i < count; i++) {
+      if (!coordinatesInRange(coords, i)) continue;
+      included++;
       for (let k = 0; k < 3; k++) {
         const value = coords[3 * i + k]!;
         if (value < min[k]!) min[k] = value;
         if (value > max[k]!) max[k] = value;
       }
     }
-    if (count === 0) {
+    if (included === 0) {
       min.fill(0);
       max.fill(0);
     }
@@ -69,22 +89,28 @@ export class NeighbourGrid {
     const [nx, ny] = this.dims;
     const size = this.cellSize;
     for (let i = 0; i < count; i++) {
+      if (!coordinatesInRange(coords, i)) {
+        this.cellOf[i] = -1;
+        continue;
+      }
       const x = Math.floor((coords[3 * i]! - ox) / size);
       const y = Math.floor((coords[3 * i + 1]! - oy) / size);
       const z = Math.floor((coords[3 * i + 2]! - oz) / size);
       this.cellOf[i] = x + nx * (y + ny * z);
     }
     const totalCells = this.dims[0] * this.dims[1] * this.dims[2];
-    this.sortedAtoms = new Int32Array(count);
+    this.sortedAtoms = new Int32Array(included);
     if (totalCells <= Math.min(1 << 24, Math.max(1 << 16, 64 * count))) {
       const start = new Int32Array(totalCells + 1);
-      for (let i = 0; i < count; i++) start[this.cellOf[i]! + 1]!++;
+      for (let i = 0; i < count; i++) if (this.cellOf[i]! >= 0) start[this.cellOf[i]! + 1]!++;
       for (let c = 0; c < totalCells; c++) start[c + 1]! += start[c]!;
       const fill = start.slice(0, totalCells);
-      for (let i = 0; i < count; i++) this.sortedAtoms[fill[this.cellOf[i]!]!++] = i;
+      for (let i = 0; i < count; i++) if (this.cellOf[i]! >= 0) this.sortedAtoms[fill[this.cellOf[i]!]!++] = i;
       this.cellStart = start;
     } else {
-      const order = Array.from({ length: count }, (_, i) => i).sort((a, b) => this.cellOf[a]! - this.cellOf[b]! || a - b);
+      const order = Array.from({ length: count }, (_, i) => i)
+        .filter((i) => this.cellOf[i]! >= 0)
+        .sort((a, b) => this.cellOf[a]! - this.cellOf[b]! || a - b);
       const keys: number[] = [];
       const starts: number[] = [];
       order.forEach((atom, k) => {
@@ -95,7 +121,7 @@ export class NeighbourGrid {
           starts.push(k);
         }
       });
-      starts.push(count);
+      starts.push(included);
       this.occupiedKeys = Float64Array.from(keys);
       this.occupiedStart = Int32Array.from(starts);
     }
@@ -130,9 +156,13 @@ export class NeighbourGrid {
 
   private rangeEnd = 0;
 
-  /** Calls `visit` once for every unordered pair closer than `cutoff` (cutoff <= cell size). */
-  forEachPairWithin(cutoff: number, visit: (i: number, j: number, distance: number) => void): void {
+  /**
+   * Calls `visit` once for every unordered pair closer than `cutoff` (cutoff <= cell size); false
+   * when it stopped after examining `maxExamined` pairs.
+   */
+  forEachPairWithin(cutoff: number, visit: (i: number, j: number, distance: number) => void, maxExamined = Infinity): boolean {
     const cutoffSquared = cutoff * cutoff;
+    let examined = 0;
     const coords = this.coords;
     const sorted = this.sortedAtoms;
     const [nx, ny, nz] = this.dims;
@@ -152,6 +182,7 @@ export class NeighbourGrid {
         const zi = coords[3 * i + 2]!;
         for (let b = a + 1; b < last; b++) {
           const j = sorted[b]!;
+          if (++examined > maxExamined) return false;
           const dx = xi - coords[3 * j]!;
           const dy = yi - coords[3 * j + 1]!;
           const dz = zi - coords[3 * j + 2]!;
@@ -174,6 +205,7 @@ export class NeighbourGrid {
           const zi = coords[3 * i + 2]!;
           for (let b = from; b < to; b++) {
             const j = sorted[b]!;
+            if (++examined > maxExamined) return false;
             const dx = xi - coords[3 * j]!;
             const dy = yi - coords[3 * j + 1]!;
             const dz = zi - coords[3 * j + 2]!;
@@ -184,12 +216,14 @@ export class NeighbourGrid {
       }
       first = last;
     }
+    return true;
   }
 
   /** Atoms within `radius` of atom `i`, excluding `i` itself, nearest first. */
   neighboursOf(i: number, radius: number): AtomPair[] {
     const found: AtomPair[] = [];
     const key = this.cellOf[i]!;
+    if (key < 0) return found;
     const [nx, ny, nz] = this.dims;
     const cx = key % nx;
     const cy = Math.floor(key / nx) % ny;
@@ -224,12 +258,13 @@ const HALF_SHELL = new Int8Array([1, 0, 0, -1, 1, 0, 0, 1, 0, 1, 1, 0, -1, -1, 1
 export function nearestAtoms(coords: ArrayLike<number>, i: number, radius: number, limit: number): AtomPair[] {
   const count = Math.floor(coords.length / 3);
   const found: AtomPair[] = [];
+  if (!coordinatesInRange(coords, i)) return found;
   const squaredRadius = radius * radius;
   const x = coords[3 * i]!;
   const y = coords[3 * i + 1]!;
   const z = coords[3 * i + 2]!;
   for (let j = 0; j < count; j++) {
-    if (j === i) continue;
+    if (j === i || !coordinatesInRange(coords, j)) continue;
     const dx = x - coords[3 * j]!;
     const dy = y - coords[3 * j + 1]!;
     const dz = z - coords[3 * j + 2]!;
@@ -239,9 +274,36 @@ export function nearestAtoms(coords: ArrayLike<number>, i: number, radius: numbe
   return found.sort((a, b) => a.distance - b.distance || a.j - b.j).slice(0, limit);
 }
 
+/** Clash pairs kept; the rest are counted (the check reports 50 of them and how many more there are). */
+export const MAX_STORED_CLASHES = 1_000;
+/**
+ * Bonds kept: a real structure has about two per atom, so this is far beyond the supported
+ * 100,000 atoms; only atoms piled on top of each other reach it, and the rest are counted.
+ */
+export const MAX_STORED_BONDS = 400_000;
+/**
+ * Atom pairs examined at most. Within the cutoff a cell holds a handful of atoms unless they
+ * clash, so only a pile of clashing atoms (thousands within half an ångström) gets here; the
+ * counts are then lower bounds and the contacts are marked incomplete.
+ */
+export const MAX_EXAMINED_PAIRS = 50_000_000;
+
+/**
+ * Near pairs kept for updates after an edit (about three per atom in a real structure); a pile of
+ * clashing atoms that passes it is searched again in full after every edit.
+ */
+export const MAX_STORED_PAIRS = 2_000_000;
+
 export interface ContactAnalysis {
+  /** Sorted by atoms; at most MAX_STORED_BONDS. */
   readonly bonds: AtomPair[];
+  /** Sorted by atoms; at most MAX_STORED_CLASHES. */
   readonly clashes: AtomPair[];
+  /** Every bond and clash found, stored or not (lower bounds when not complete). */
+  readonly bondCount: number;
+  readonly clashCount: number;
+  /** False when the search stopped after MAX_EXAMINED_PAIRS pairs (or kept MAX_STORED_PAIRS). */
+  readonly complete: boolean;
   /** Per atom: distance to its nearest neighbour within the search cutoff, or Infinity. */
   readonly nearestDistance: Float64Array;
   /** Per atom: index of that nearest neighbour, or -1. */
@@ -252,6 +314,8 @@ export interface ContactAnalysis {
 
 export interface ContactPairs {
   readonly cutoff: number;
+  /** False when the search stopped before every pair was found. */
+  readonly complete: boolean;
   readonly i: Int32Array;
   readonly j: Int32Array;
   readonly distance: Float64Array;
@@ -275,15 +339,52 @@ export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<numb
   const cutoff = Math.max(2 * maxRadius * BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, 1e-6);
   const coordinates = coords instanceof Float64Array ? coords.slice() : Float64Array.from(coords);
   const radiusCopy = radii instanceof Float64Array ? radii.slice() : Float64Array.from(radii);
-  const pairs = (previous && previous.pairs.cutoff === cutoff ? updatedPairs(previous.pairs, coordinates, radiusCopy, cutoff) : undefined) ?? allPairs(coordinates, radiusCopy, cutoff);
-  return contactsFromPairs(pairs, radiusCopy);
+  const reusable = previous && previous.pairs.complete && previous.pairs.cutoff === cutoff;
+  const updated = reusable ? updatedPairs(previous.pairs, coordinates, radiusCopy, cutoff) : undefined;
+  return updated ? contactsFromPairs(updated, radiusCopy, true) : searchContacts(coordinates, radiusCopy, cutoff);
 }
 
-function allPairs(coordinates: Float64Array, radii: Float64Array, cutoff: number): ContactPairs {
+/**
+ * The whole search: the pairs kept for later updates while they fit MAX_STORED_PAIRS; a pile of
+ * clashing atoms beyond that is searched a second time to count its bonds and clashes.
+ */
+function searchContacts(coordinates: Float64Array, radii: Float64Array, cutoff: number): ContactAnalysis {
   const found = new PairList();
   const count = radii.length;
-  new NeighbourGrid(coordinates, cutoff).forEachPairWithin(cutoff, (i, j, d) => found.add(i, j, d, count));
-  return found.sorted(count, cutoff, coordinates, radii);
+  let stored = true;
+  const searched = new NeighbourGrid(coordinates, cutoff).forEachPairWithin(
+    cutoff,
+    (i, j, d) => {
+      if (found.size < MAX_STORED_PAIRS) found.add(i, j, d, count);
+      else stored = false;
+    },
+    MAX_EXAMINED_PAIRS,
+  );
+  const pairs = found.sorted(count, cutoff, coordinates, radii, searched && stored);
+  const contacts = contactsFromPairs(pairs, radii, searched);
+  if (stored) return contacts;
+  // The counts and nearest neighbours from every pair, stored or not.
+  let bondCount = 0;
+  let clashCount = 0;
+  const nearestDistance = new Float64Array(count).fill(Infinity);
+  const nearestAtom = new Int32Array(count).fill(-1);
+  new NeighbourGrid(coordinates, cutoff).forEachPairWithin(
+    cutoff,
+    (i, j, d) => {
+      if (d < CLASH_DISTANCE) clashCount++;
+      if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bondCount++;
+      if (d < nearestDistance[i]! || (d === nearestDistance[i]! && j < nearestAtom[i]!)) {
+        nearestDistance[i] = d;
+        nearestAtom[i] = j;
+      }
+      if (d < nearestDistance[j]! || (d === nearestDistance[j]! && i < nearestAtom[j]!)) {
+        nearestDistance[j] = d;
+        nearestAtom[j] = i;
+      }
+    },
+    MAX_EXAMINED_PAIRS,
+  );
+  return { ...contacts, bondCount, clashCount, nearestDistance, nearestAtom };
 }
 
 /** The pairs after an edit that moved, added or removed a few atoms in one run; undefined when the edit is larger. */
@@ -292,6 +393,7 @@ function updatedPairs(old: ContactPairs, coordinates: Float64Array, radii: Float
   const count = radii.length;
   const same = (a: number, b: number) =>
     old.radii[a] === radii[b] && old.coordinates[3 * a] === coordinates[3 * b] && old.coordinates[3 * a + 1] === coordinates[3 * b + 1] && old.coordinates[3 * a + 2] === coordinates[3 * b + 2];
+  // Atoms out of range take no part in the search; an edit that touches them searches again.
   let prefix = 0;
   while (prefix < oldCount && prefix < count && same(prefix, prefix)) prefix++;
   let suffix = 0;
@@ -310,7 +412,7 @@ function updatedPairs(old: ContactPairs, coordinates: Float64Array, radii: Float
     const z = coordinates[3 * c + 2]!;
     for (let k = 0; k < count; k++) {
       // Pairs of two new atoms once, from the earlier one.
-      if (k === c || (k >= prefix && k < newEnd && k < c)) continue;
+      if (k === c || (k >= prefix && k < newEnd && k < c) || !coordinatesInRange(coordinates, k)) continue;
       const dx = x - coordinates[3 * k]!;
       const dy = y - coordinates[3 * k + 1]!;
       const dz = z - coordinates[3 * k + 2]!;
@@ -318,7 +420,8 @@ function updatedPairs(old: ContactPairs, coordinates: Float64Array, radii: Float
       if (d2 < squared) fresh.add(Math.min(c, k), Math.max(c, k), Math.sqrt(d2), count);
     }
   }
-  const added = fresh.sorted(count, cutoff, coordinates, radii);
+  for (let c = prefix; c < newEnd; c++) if (!coordinatesInRange(coordinates, c)) return undefined;
+  const added = fresh.sorted(count, cutoff, coordinates, radii, true);
   // The old pairs of unchanged atoms, renumbered (an order-keeping map), merged with the new ones.
   const capacity = old.i.length + added.i.length;
   const is = new Int32Array(capacity);
@@ -345,21 +448,24 @@ function updatedPairs(old: ContactPairs, coordinates: Float64Array, radii: Float
     distance[n++] = old.distance[k]!;
   }
   takeAdded(count, 0);
-  return { cutoff, i: is.slice(0, n), j: js.slice(0, n), distance: distance.slice(0, n), coordinates, radii };
+  if (n > MAX_STORED_PAIRS) return undefined;
+  return { cutoff, complete: true, i: is.slice(0, n), j: js.slice(0, n), distance: distance.slice(0, n), coordinates, radii };
 }
 
-function contactsFromPairs(pairs: ContactPairs, radii: Float64Array): ContactAnalysis {
+function contactsFromPairs(pairs: ContactPairs, radii: Float64Array, complete: boolean): ContactAnalysis {
   const count = radii.length;
   const bonds: AtomPair[] = [];
   const clashes: AtomPair[] = [];
+  let bondCount = 0;
+  let clashCount = 0;
   const nearestDistance = new Float64Array(count).fill(Infinity);
   const nearestAtom = new Int32Array(count).fill(-1);
   for (let k = 0; k < pairs.i.length; k++) {
     const i = pairs.i[k]!;
     const j = pairs.j[k]!;
     const d = pairs.distance[k]!;
-    if (d < CLASH_DISTANCE) clashes.push({ i, j, distance: d });
-    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!)) bonds.push({ i, j, distance: d });
+    if (d < CLASH_DISTANCE && clashCount++ < MAX_STORED_CLASHES) clashes.push({ i, j, distance: d });
+    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!) && bondCount++ < MAX_STORED_BONDS) bonds.push({ i, j, distance: d });
     // Ties go to the lower index, whatever order the pairs were found in.
     if (d < nearestDistance[i]! || (d === nearestDistance[i]! && j < nearestAtom[i]!)) {
       nearestDistance[i] = d;
@@ -370,7 +476,7 @@ function contactsFromPairs(pairs: ContactPairs, radii: Float64Array): ContactAna
       nearestAtom[j] = i;
     }
   }
-  return { bonds, clashes, nearestDistance, nearestAtom, pairs };
+  return { bonds, clashes, bondCount, clashCount, complete, nearestDistance, nearestAtom, pairs };
 }
 
 /** Pairs collected as numbers and sorted by (i, j) with a native numeric sort. */
@@ -378,6 +484,10 @@ class PairList {
   private keys = new Float64Array(64);
   private distances = new Float64Array(64);
   private length = 0;
+
+  get size(): number {
+    return this.length;
+  }
 
   add(i: number, j: number, distance: number, count: number): void {
     if (this.length === this.keys.length) {
@@ -394,7 +504,7 @@ class PairList {
     this.length++;
   }
 
-  sorted(count: number, cutoff: number, coordinates: Float64Array, radii: Float64Array): ContactPairs {
+  sorted(count: number, cutoff: number, coordinates: Float64Array, radii: Float64Array, complete: boolean): ContactPairs {
     const n = this.length;
     const order = new Int32Array(n);
     if (count * count * n < Number.MAX_SAFE_INTEGER) {
@@ -418,7 +528,7 @@ class PairList {
       js[k] = key - i * count;
       distance[k] = this.distances[at]!;
     }
-    return { cutoff, i: is, j: js, distance, coordinates, radii };
+    return { cutoff, complete, i: is, j: js, distance, coordinates, radii };
   }
 }
 
@@ -444,7 +554,8 @@ export function suspectUnits(
   contacts: ContactAnalysis,
 ): UnitsSuspicion | undefined {
   const count = radii.length;
-  if (count < 2) return undefined;
+  // Without every near pair (a pile of clashing atoms) the distances say nothing about the unit.
+  if (count < 2 || !contacts.complete) return undefined;
   let nearest = contacts.nearestDistance;
   let partner = contacts.nearestAtom;
   if (declared === 'angstrom') {
@@ -454,16 +565,21 @@ export function suspectUnits(
     const cutoff = 2 * maxRadius * 2.5;
     nearest = new Float64Array(count).fill(Infinity);
     partner = new Int32Array(count).fill(-1);
-    new NeighbourGrid(coords, cutoff).forEachPairWithin(cutoff, (i, j, d) => {
-      if (d < nearest[i]!) {
-        nearest[i] = d;
-        partner[i] = j;
-      }
-      if (d < nearest[j]!) {
-        nearest[j] = d;
-        partner[j] = i;
-      }
-    });
+    const seen = new NeighbourGrid(coords, cutoff).forEachPairWithin(
+      cutoff,
+      (i, j, d) => {
+        if (d < nearest[i]!) {
+          nearest[i] = d;
+          partner[i] = j;
+        }
+        if (d < nearest[j]!) {
+          nearest[j] = d;
+          partner[j] = i;
+        }
+      },
+      MAX_EXAMINED_PAIRS,
+    );
+    if (!seen) return undefined;
   }
   const ratios: number[] = [];
   for (let i = 0; i < count; i++) {

@@ -1,13 +1,15 @@
 /**
  * The `tessera` command line. Exit codes: 0 no errors, 1 errors found in a spec or input,
- * 2 bad usage or a file that cannot be read.
+ * 2 bad usage or a file that cannot be read or written, 3 Tessera itself failed (a bug) on some
+ * file; in a batch every other file is still checked.
  */
 import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
 import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
 import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
-import { EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
+import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
+import { describeFailure } from './output';
 import { VERSION } from './version';
 
 export const USAGE = `tessera ${VERSION}: plan fragment-based hybrid quantum-classical calculations
@@ -44,7 +46,8 @@ Options:
   -h, --help       this text
   -v, --version    the version
 
-Exit codes: 0 no errors; 1 errors found; 2 bad usage, or a file that cannot be read or written.
+Exit codes: 0 no errors; 1 errors found; 2 bad usage, or a file that cannot be read or
+written; 3 Tessera itself failed on a file (a bug; the other files of a batch are still checked).
 All figures are planning estimates, not results of a calculation.
 `;
 
@@ -189,8 +192,8 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
       io.stderr(`tessera: ${(error as Error).message}\nRun 'tessera --help' for usage.\n`);
       return EXIT_USAGE;
     }
-    io.stderr(`tessera: internal error: ${(error as Error).stack ?? String(error)}\n`);
-    return EXIT_USAGE;
+    io.stderr(`tessera: internal error: ${describeFailure(error)}\n`);
+    return EXIT_INTERNAL;
   }
 }
 

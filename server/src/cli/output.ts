@@ -42,3 +42,11 @@ export function summaryLine(errors: number, warnings: number, files: number): st
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
   return `${plural(errors, 'error')}, ${plural(warnings, 'warning')} in ${plural(files, 'file')}`;
 }
+
+/** One line for a failure inside Tessera: the error and where it happened (the stack with TESSERA_DEBUG set). */
+export function describeFailure(error: unknown): string {
+  if (!(error instanceof Error)) return `${String(error)} (a bug in Tessera)`;
+  const frame = error.stack?.split('\n').find((line) => line.trim().startsWith('at '))?.trim();
+  const stack = process.env['TESSERA_DEBUG'] ? `\n${error.stack ?? ''}` : '';
+  return `${error.name}: ${error.message}${frame ? ` (${frame})` : ''}. This is a bug in Tessera; set TESSERA_DEBUG=1 for the whole stack.${stack}`;
+}

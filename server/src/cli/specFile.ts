@@ -1,6 +1,6 @@
 /** Reading a spec and writing a command's output (standard output, or a file with --out). */
-import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
+import { readTextFile } from '../language/files';
 import { analyzeDocument, type DocumentAnalysis } from '../analysis';
 import { UsageError, type CliIo } from './io';
 import { OutputError, resolveOutputTarget, writeOutputFile, type OutputContent, type ProtectedFile } from './outputFile';
@@ -14,21 +14,15 @@ export interface LoadedSpec {
   readonly errors: number;
 }
 
-function reason(error: unknown): string {
-  return (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-}
-
 /** Reads and analyses a spec; prints why and returns undefined when the file cannot be read. */
 export function loadSpec(file: string, io: CliIo): LoadedSpec | undefined {
   const absolute = path.resolve(io.cwd, file);
-  let text: string;
-  try {
-    text = readFileSync(absolute, 'utf8');
-  } catch (error) {
-    io.stderr(`tessera: cannot read ${file}: ${reason(error)}\n`);
+  const read = readTextFile(absolute);
+  if (!read.ok) {
+    io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
     return undefined;
   }
-  const analysis = analyzeDocument(text, { path: absolute });
+  const analysis = analyzeDocument(read.text, { path: absolute });
   const diagnostics = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
   return { file, absolute, analysis, diagnostics, errors: diagnostics.filter((d) => d.severity === 'error').length };
 }
@@ -36,6 +30,11 @@ export function loadSpec(file: string, io: CliIo): LoadedSpec | undefined {
 /** Prints every diagnostic as `file:line:col: severity code message` on standard error. */
 export function printDiagnostics(spec: LoadedSpec, io: CliIo): void {
   for (const diagnostic of spec.diagnostics) io.stderr(`${formatDiagnosticLine(diagnostic)}\n`);
+}
+
+/** Whether Tessera itself failed on part of the spec (exit code 3). */
+export function hasInternalError(spec: LoadedSpec): boolean {
+  return spec.diagnostics.some((d) => d.code === 'internal-error');
 }
 
 /** The name a spec goes by in exports and reports: its `spec "name"`, else its file name. */

@@ -12,13 +12,14 @@ import { checkGeometry } from './checks/geometry';
 import { checkScan } from './checks/scan';
 import { checkSpin } from './checks/spin';
 import { checkTiers } from './checks/tiers';
-import { DiagnosticSink, type Diagnostic, type DiagnosticCode } from './diagnostics';
+import { DiagnosticSink, finishDiagnostics, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
 import { interpret } from './interpret';
-import { buildModel, type SpecModel } from './model';
+import { buildModel, type ModelOptions, type SpecModel } from './model';
 import { parseSpec } from './parser';
 import type { SyntaxProblem, SyntaxTree } from './syntax';
-import { LineIndex } from './text';
+import { MAX_ATOMS, MAX_SPEC_CHARACTERS, MAX_WORDS, SUPPORTED_SIZE } from './limits';
+import { LineIndex, normalizeLineEnds } from './text';
 
 export interface AnalyzeOptions {
   /** Absolute path of the spec; needed to resolve `geometry from`. */
@@ -56,20 +57,78 @@ const SYNTAX_CODES: Record<SyntaxProblem['code'], DiagnosticCode> = {
   'bad-character': 'unexpected-character',
 };
 
-export function analyze(text: string, options: AnalyzeOptions = {}): Analysis {
+/**
+ * Runs one stage of the analysis; when it throws (a bug in Tessera, whatever the input), reports an
+ * `internal-error` at the start of the document and returns undefined, so the other stages still run.
+ */
+export function contained<T>(sink: DiagnosticSink, stage: string, run: () => T): T | undefined {
+  try {
+    return run();
+  } catch (error) {
+    sink.report('internal-error', { start: 0, end: 0 }, internalErrorMessage(stage, error));
+    return undefined;
+  }
+}
+
+/** The message of an `internal-error`: what failed and how, and that the spec is not to blame. */
+export function internalErrorMessage(stage: string, error: unknown): string {
+  const what = error instanceof Error ? `${error.name}: ${error.message}` : String(error);
+  return `Tessera failed while ${stage} (${what}). This is a bug in Tessera, not necessarily a mistake in the spec; everything else was still checked. Please report it with the spec.`;
+}
+
+function emptyTree(text: string): SyntaxTree {
+  return { statements: [], comments: [], problems: [], textLength: text.length };
+}
+
+/** How a check is named in an `internal-error`: `checkNearSymmetry` → `running the near symmetry check`. */
+export function checkName(check: { readonly name: string }): string {
+  const name = check.name.replace(/^check/, '').replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return name ? `running the ${name} check` : 'running a check';
+}
+
+/** The analysis of a spec refused for its size: one `spec-too-large` and nothing else is read. */
+function refusedAnalysis(text: string, options: AnalyzeOptions, modelOptions: ModelOptions, message: string): Analysis {
   const sink = new DiagnosticSink();
-  const tree = parseSpec(text, options.fastGeometry === false ? { fastGeometry: false } : options.previous ? { previous: options.previous } : {});
-  for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
-  const ast = interpret(tree, sink);
-  const model = buildModel(ast, sink, {
+  sink.report('spec-too-large', { start: 0, end: 0 }, message);
+  const ast: SpecAst = { fragments: [], statements: [] };
+  const model = buildModel(ast, new DiagnosticSink(), modelOptions);
+  return { text, path: options.path, lines: new LineIndex(text), tree: emptyTree(text), ast, model, diagnostics: sink.items };
+}
+
+function tooLarge(what: string): string {
+  return `${what}; Tessera analyses specs of up to ${SUPPORTED_SIZE}, and refuses larger ones so that the editor stays responsive. Split the spec into several.`;
+}
+
+export function analyze(original: string, options: AnalyzeOptions = {}): Analysis {
+  // Carriage returns alone end lines too (as the editor counts them); same length, same offsets.
+  const text = normalizeLineEnds(original);
+  const sink = new DiagnosticSink();
+  const modelOptions: ModelOptions = {
     files: options.files ?? diskFileHost,
     ...(options.path ? { path: options.path } : {}),
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
     ...(options.previous ? { previousContacts: options.previous.model.contacts } : {}),
-  });
+  };
+  if (text.length > MAX_SPEC_CHARACTERS) {
+    return refusedAnalysis(text, options, modelOptions, tooLarge(`This spec has ${text.length.toLocaleString('en-US')} characters`));
+  }
+  const read = contained(sink, 'reading the spec', () => {
+    const tree = parseSpec(text, { ...(options.fastGeometry === false ? { fastGeometry: false } : options.previous ? { previous: options.previous } : {}), maxWords: MAX_WORDS });
+    if (tree.words !== undefined) return { refused: tooLarge(`This spec has about ${tree.words.toLocaleString('en-US')} words outside plain geometry blocks`) };
+    for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
+    const ast = interpret(tree, sink);
+    const atoms = ast.geometry?.atoms.length ?? 0;
+    if (atoms > MAX_ATOMS) return { refused: tooLarge(`This spec has ${atoms.toLocaleString('en-US')} atoms`) };
+    return { tree, ast };
+  }) ?? { tree: emptyTree(text), ast: { fragments: [], statements: [] } };
+  if ('refused' in read && read.refused !== undefined) return refusedAnalysis(text, options, modelOptions, read.refused);
+  const { tree, ast } = read;
+  const model =
+    contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??
+    buildModel({ fragments: [], statements: [] }, new DiagnosticSink(), modelOptions);
   const context = { ast, model, sink };
-  for (const check of CHECKS) check(context);
-  const diagnostics = sink.items.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+  for (const check of CHECKS) contained(sink, checkName(check), () => check(context));
+  const diagnostics = finishDiagnostics(sink.items, sink.dropped);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

@@ -2,6 +2,7 @@
  * Diagnostics: every problem Tessera reports has a stable code, a severity, an exact span and a
  * message that states the numbers behind it. The registry below is the single list of codes.
  */
+import { safeMessage } from './printable';
 import type { Span } from './text';
 
 export type Severity = 'error' | 'warning' | 'information' | 'hint';
@@ -61,6 +62,7 @@ export const DIAGNOSTIC_CODES = {
   'include-outside-folder': { severity: 'error', title: 'An included file outside the spec\'s folder tree' },
   'include-unreadable': { severity: 'error', title: 'An included file that cannot be read' },
   'include-invalid': { severity: 'error', title: 'An included XYZ file with a malformed line' },
+  'coordinate-out-of-range': { severity: 'error', title: 'A coordinate beyond ±100,000 Å, which no molecule has' },
   'atoms-too-close': { severity: 'error', title: 'Two atoms closer than 0.5 Å' },
   'units-suspect': { severity: 'warning', title: 'Distances that look typed in the other length unit' },
   'bond-cut': { severity: 'warning', title: 'Covalent bonds cut by a fragment boundary' },
@@ -89,6 +91,10 @@ export const DIAGNOSTIC_CODES = {
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  // Tessera itself
+  'spec-too-large': { severity: 'error', title: 'A spec or included file beyond the supported size (8 MiB, 100,000 atoms, 1,000,000 words outside plain geometry)' },
+  'too-many-problems': { severity: 'warning', title: 'More problems than Tessera lists for one file (1,000); says how many more there are' },
+  'internal-error': { severity: 'error', title: 'A part of the analysis failed inside Tessera (a bug, not a mistake in the spec)' },
 } as const satisfies Record<string, CodeInfo>;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;
@@ -99,20 +105,32 @@ export function diagnostic(
   message: string,
   extra: { related?: readonly RelatedInformation[]; data?: Readonly<Record<string, unknown>>; severity?: Severity } = {},
 ): Diagnostic {
-  const result: Diagnostic = { code, severity: extra.severity ?? DIAGNOSTIC_CODES[code].severity, span, message };
+  // Messages quote the spec: escaped and shortened here, once, for every place they are shown.
+  const result: Diagnostic = { code, severity: extra.severity ?? DIAGNOSTIC_CODES[code].severity, span, message: safeMessage(message) };
   return {
     ...result,
-    ...(extra.related && extra.related.length > 0 ? { related: extra.related } : {}),
+    ...(extra.related && extra.related.length > 0 ? { related: extra.related.map((item) => ({ ...item, message: safeMessage(item.message) })) } : {}),
     ...(extra.data ? { data: extra.data } : {}),
   };
 }
 
+/** At most this many diagnostics are shown for one file; a `too-many-problems` note says how many more. */
+export const MAX_DIAGNOSTICS_PER_FILE = 1000;
+/** Kept while analysing, so that the earliest ones by position survive the cut; further ones are only counted. */
+const MAX_COLLECTED = 10 * MAX_DIAGNOSTICS_PER_FILE;
+
 /** Collects diagnostics during one analysis. */
 export class DiagnosticSink {
   readonly items: Diagnostic[] = [];
+  /** Reports beyond what is kept while analysing: counted, not stored. */
+  dropped = 0;
 
   add(item: Diagnostic): void {
-    this.items.push(item);
+    if (this.items.length >= MAX_COLLECTED) {
+      this.dropped++;
+      return;
+    }
+    this.items.push(diagnostic(item.code, item.span, item.message, { ...(item.related ? { related: item.related } : {}), ...(item.data ? { data: item.data } : {}), severity: item.severity }));
   }
 
   report(
@@ -121,6 +139,42 @@ export class DiagnosticSink {
     message: string,
     extra?: { related?: readonly RelatedInformation[]; data?: Readonly<Record<string, unknown>>; severity?: Severity },
   ): void {
+    if (this.items.length >= MAX_COLLECTED) {
+      this.dropped++;
+      return;
+    }
     this.items.push(diagnostic(code, span, message, extra));
   }
+}
+
+function byPosition(a: Diagnostic, b: Diagnostic): number {
+  return a.span.start - b.span.start || a.span.end - b.span.end;
+}
+
+/**
+ * The diagnostics of one file as shown: sorted by position, at most MAX_DIAGNOSTICS_PER_FILE, then
+ * one `too-many-problems` saying how many more were found. Diagnostics already finished once (the
+ * language's, then those that read estimates) can be finished again with more added.
+ */
+export function finishDiagnostics(items: readonly Diagnostic[], dropped = 0): Diagnostic[] {
+  let omitted = dropped;
+  const problems: Diagnostic[] = [];
+  for (const item of items) {
+    if (item.code === 'too-many-problems') omitted += Number(item.data?.['omitted'] ?? 0);
+    else problems.push(item);
+  }
+  problems.sort(byPosition);
+  omitted += Math.max(0, problems.length - MAX_DIAGNOSTICS_PER_FILE);
+  if (omitted === 0) return problems;
+  const kept = problems.slice(0, MAX_DIAGNOSTICS_PER_FILE);
+  const after = kept[kept.length - 1]?.span.end ?? 0;
+  kept.push(
+    diagnostic(
+      'too-many-problems',
+      { start: after, end: after },
+      `Tessera lists at most ${MAX_DIAGNOSTICS_PER_FILE.toLocaleString('en-US')} problems per file; ${omitted.toLocaleString('en-US')} more were found after this point and are not shown. Fix the ones above and check again (or is this not a spec file?).`,
+      { data: { omitted } },
+    ),
+  );
+  return kept;
 }

@@ -34,6 +34,7 @@ import {
 } from './lexer';
 import { atomTableStatements, extractGeometryBodies, type FastGeometryBlock } from './geometryFastPath';
 import type { Argument, ArgumentKind, AtomTable, Block, Statement, SyntaxProblem, SyntaxTree } from './syntax';
+import { countWords } from './limits';
 import { span, type Span } from './text';
 
 /** Keywords that only start top-level statements; seeing one at a line start closes an unclosed block. */
@@ -115,8 +116,14 @@ class SpecParser extends EmbeddedActionsParser {
   private topLevelKeywordStartsLine(): boolean {
     const next = this.LA(1);
     if (next.tokenType !== Word || !TOP_LEVEL_STARTERS.has(next.image)) return false;
-    const lineStart = this.text.lastIndexOf('\n', next.startOffset - 1) + 1;
-    return this.text.slice(lineStart, next.startOffset).trim() === '';
+    // Only blanks between the line start and the word: scanning back stops at the first other
+    // character, so that many statements on one line cost no more than the line.
+    for (let i = next.startOffset - 1; i >= 0; i--) {
+      const code = this.text.charCodeAt(i);
+      if (code === 10 || code === 13) return true;
+      if (code !== 32 && code !== 9 && code !== 12 && code !== 11 && code !== 0xa0 && code !== 0xfeff) return false;
+    }
+    return true;
   }
 
   public document = this.RULE('document', (): Statement[] => {
@@ -260,6 +267,8 @@ export interface ParseOptions {
    * block, only the changed lines of that block are read again.
    */
   readonly previous?: { readonly text: string; readonly tree: SyntaxTree };
+  /** Refuse (return an empty tree with `words` set) when the text outside plain geometry blocks has more words. */
+  readonly maxWords?: number;
 }
 
 /**
@@ -309,6 +318,10 @@ function injectGeometry(statements: Statement[], blocks: readonly FastGeometryBl
 export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree {
   const previous = options.previous?.tree.geometryBlocks ? { text: options.previous.text, blocks: options.previous.tree.geometryBlocks } : undefined;
   const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text, previous);
+  if (options.maxWords !== undefined) {
+    const words = countWords(masked);
+    if (words > options.maxWords) return { statements: [], comments: [], problems: [], textLength: text.length, words };
+  }
   const lexed = tokenize(masked);
   const parser = (sharedParser ??= new SpecParser());
   const nestingProblems: SyntaxProblem[] = [];

@@ -87,6 +87,8 @@ export interface SyntaxTree {
   readonly textLength: number;
   /** What the fast geometry reader read, so that the next version of the text can reuse it. */
   readonly geometryBlocks?: readonly FastGeometryBlock[];
+  /** Set when the parse was refused: the words counted outside plain geometry blocks, beyond `maxWords`. */
+  readonly words?: number;
 }
 
 /** Visits every statement depth-first, passing the chain of enclosing statements. */

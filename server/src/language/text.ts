@@ -18,6 +18,14 @@ export interface Range {
   end: Position;
 }
 
+/**
+ * Lone carriage returns (old Mac line ends) become line feeds, as editors read them; `\r\n` stays.
+ * The length is unchanged, so every offset, and with it every line and column, stays valid.
+ */
+export function normalizeLineEnds(text: string): string {
+  return text.indexOf('\r') < 0 ? text : text.replace(/\r(?!\n)/g, '\n');
+}
+
 export function span(start: number, end: number): Span {
   return { start, end };
 }

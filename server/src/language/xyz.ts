@@ -26,7 +26,7 @@ export interface XyzFile {
 }
 
 export function parseXyz(text: string): XyzFile {
-  const lines = text.split(/\r?\n/);
+  const lines = text.split(/\r\n|\r|\n/);
   const problems: XyzProblem[] = [];
   const countText = (lines[0] ?? '').trim();
   const count = Number(countText);

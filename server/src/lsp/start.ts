@@ -23,6 +23,7 @@ import { MAPPINGS, type Mapping } from '../chemistry/qubits';
 import * as service from '../services';
 import { AnalysisHost, type AnalysisSettings } from '../analysis';
 import { CoalescingScheduler, pathToUri, uriToPath } from './documents';
+import { FailureReporter } from './guard';
 import { warmUp } from './warmUp';
 
 /** Semantic-token results kept per document for deltas. */
@@ -80,6 +81,10 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
   let settings = DEFAULT_SETTINGS;
   let canPullConfiguration = false;
   let canWatchFiles = false;
+  const failures = new FailureReporter(connection);
+  // Last resort: a failure outside any handler is logged, and the server keeps serving.
+  process.on('uncaughtException', (error) => failures.report('the language server', undefined, undefined, error));
+  process.on('unhandledRejection', (error) => failures.report('the language server', undefined, undefined, error));
 
   const analysisOf = (uri: string) => cache.get(uri);
 
@@ -87,8 +92,23 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
   const publish = (uri: string) => {
     const document = documents.get(uri);
     if (!document) return;
-    const analysis = cache.get(uri)!;
-    void connection.sendDiagnostics({ uri, version: document.version, diagnostics: service.doValidation(analysis, uri, pathToUri) });
+    const version = document.version;
+    let diagnostics;
+    try {
+      // Always the current version, whatever was scheduled.
+      const analysis = cache.get(uri)!;
+      diagnostics = service.doValidation(analysis, uri, pathToUri);
+    } catch (error) {
+      // One document's failure shows in its own Problems; the others are not affected.
+      failures.report('checking', uri, version, error);
+      diagnostics = [failures.diagnosticFor(error)];
+    }
+    void connection.sendDiagnostics({ uri, version, diagnostics });
+  };
+  const documentOf = (params: unknown) => {
+    const uri = (params as { textDocument?: { uri?: unknown }; uri?: unknown } | null)?.textDocument?.uri ?? (params as { uri?: unknown } | null)?.uri;
+    const version = typeof uri === 'string' ? documents.get(uri)?.version : undefined;
+    return typeof uri === 'string' ? { uri, ...(version !== undefined ? { version } : {}) } : {};
   };
   const schedulePublish = (uri: string) => scheduler.schedule(uri, () => publish(uri), (documents.get(uri)?.getText().length ?? 0) / CHARACTERS_PER_MS);
 
@@ -199,37 +219,43 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
     void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
   });
 
-  const onDocument =
-    <P extends { textDocument: { uri: string } }, R>(handler: (analysis: NonNullable<ReturnType<typeof analysisOf>>, params: P) => R, empty: R) =>
-    (params: P): R => {
+  const onDocument = <P extends { textDocument: { uri: string } }, R>(feature: string, handler: (analysis: NonNullable<ReturnType<typeof analysisOf>>, params: P) => R, empty: R) =>
+    failures.guard(feature, documentOf, (params: P): R => {
       const analysis = analysisOf(params.textDocument.uri);
       return analysis ? handler(analysis, params) : empty;
-    };
+    });
 
-  connection.onHover(onDocument((analysis, params) => service.doHover(analysis, params.position), null));
-  connection.onCompletion(onDocument((analysis, params) => service.doComplete(analysis, params.position), { isIncomplete: false, items: [] }));
-  connection.onDefinition(onDocument((analysis, params) => service.findDefinition(analysis, params.textDocument.uri, params.position), null));
-  connection.onReferences(onDocument((analysis, params) => service.findReferences(analysis, params.textDocument.uri, params.position, params.context.includeDeclaration), []));
-  connection.onDocumentHighlight(onDocument((analysis, params) => service.findDocumentHighlights(analysis, params.position), []));
+  connection.onHover(onDocument('hover', (analysis, params) => service.doHover(analysis, params.position), null));
+  connection.onCompletion(onDocument('completion', (analysis, params) => service.doComplete(analysis, params.position), { isIncomplete: false, items: [] }));
+  connection.onDefinition(onDocument('go to definition', (analysis, params) => service.findDefinition(analysis, params.textDocument.uri, params.position), null));
+  connection.onReferences(onDocument('find references', (analysis, params) => service.findReferences(analysis, params.textDocument.uri, params.position, params.context.includeDeclaration), []));
+  connection.onDocumentHighlight(onDocument('highlight', (analysis, params) => service.findDocumentHighlights(analysis, params.position), []));
   connection.onPrepareRename(
-    onDocument((analysis, params) => {
+    onDocument('rename', (analysis, params) => {
       const check = service.prepareRename(analysis, params.position);
       if (!check.ok) throw new ResponseError(0, check.message);
       return { range: check.range, placeholder: check.placeholder };
     }, null),
   );
   connection.onRenameRequest(
-    onDocument((analysis, params) => {
+    onDocument('rename', (analysis, params) => {
       const result = service.rename(analysis, params.textDocument.uri, params.position, params.newName);
       if ('error' in result) throw new ResponseError(0, result.error);
       return result;
     }, null),
   );
-  connection.onDocumentSymbol(onDocument((analysis) => service.findDocumentSymbols(analysis), []));
-  connection.onWorkspaceSymbol((params) => {
-    const open = documents.all().map((document) => ({ uri: document.uri, analysis: cache.get(document.uri)! }));
-    return service.findWorkspaceSymbols(open, params.query);
-  });
+  connection.onDocumentSymbol(onDocument('outline', (analysis) => service.findDocumentSymbols(analysis), []));
+  connection.onWorkspaceSymbol((params) =>
+    // Document by document, so that one that fails leaves the others' symbols in the answer.
+    documents.all().flatMap((document) => {
+      try {
+        return service.findWorkspaceSymbols([{ uri: document.uri, analysis: cache.get(document.uri)! }], params.query);
+      } catch (error) {
+        failures.report('workspace symbols', document.uri, document.version, error);
+        return [];
+      }
+    }),
+  );
   const tokensOf = (uri: string, analysis: NonNullable<ReturnType<typeof analysisOf>>) => {
     const data = service.encodeSemanticTokens(analysis);
     const resultId = String(++tokenResults);
@@ -238,13 +264,14 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
     return { resultId, data };
   };
   connection.languages.semanticTokens.on(
-    onDocument((analysis, params) => {
+    onDocument('semantic highlighting', (analysis, params) => {
       const { resultId, data } = tokensOf(params.textDocument.uri, analysis);
       return { resultId, data: service.plainNumbers(data, 0, data.length) };
     }, { resultId: '0', data: [] as number[] }),
   );
   connection.languages.semanticTokens.onDelta(
     onDocument(
+      'semantic highlighting',
       (analysis, params) => {
         const previous = sentTokens.get(params.textDocument.uri)?.find((result) => result.resultId === params.previousResultId);
         const next = tokensOf(params.textDocument.uri, analysis);
@@ -254,48 +281,52 @@ export function startLanguageServer(connection: Connection = createConnection(Pr
       { resultId: '0', edits: [] as { start: number; deleteCount: number; data: number[] }[] },
     ),
   );
-  connection.onFoldingRanges(onDocument((analysis) => service.getFoldingRanges(analysis), []));
-  connection.onSelectionRanges(onDocument((analysis, params) => service.getSelectionRanges(analysis, params.positions), []));
-  connection.onDocumentFormatting(onDocument((analysis, params) => service.format(analysis.text, undefined, { indent: params.options.tabSize }), []));
-  connection.onDocumentRangeFormatting(onDocument((analysis, params) => service.format(analysis.text, params.range, { indent: params.options.tabSize }), []));
-  connection.onCodeAction(onDocument((analysis, params) => service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), []));
-  connection.languages.inlayHint.on(onDocument((analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), []));
-  connection.onCodeLens(onDocument((analysis) => (settings.codeLens ? service.getCodeLenses(analysis) : []), []));
+  connection.onFoldingRanges(onDocument('folding', (analysis) => service.getFoldingRanges(analysis), []));
+  connection.onSelectionRanges(onDocument('selection ranges', (analysis, params) => service.getSelectionRanges(analysis, params.positions), []));
+  connection.onDocumentFormatting(onDocument('formatting', (analysis, params) => service.format(analysis.text, undefined, { indent: params.options.tabSize }), []));
+  connection.onDocumentRangeFormatting(onDocument('range formatting', (analysis, params) => service.format(analysis.text, params.range, { indent: params.options.tabSize }), []));
+  connection.onCodeAction(onDocument('code actions', (analysis, params) => service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), []));
+  connection.languages.inlayHint.on(onDocument('inlay hints', (analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), []));
+  connection.onCodeLens(onDocument('code lens', (analysis) => (settings.codeLens ? service.getCodeLenses(analysis) : []), []));
 
-  connection.onRequest('tessera/report', (params: { uri: string }) => {
+  connection.onRequest('tessera/report', failures.guard('the resource report', documentOf, (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);
     return analysis ? { markdown: service.reportMarkdown(analysis) } : null;
-  });
-  connection.onRequest('tessera/summary', (params: { uri: string }) => {
+  }));
+  connection.onRequest('tessera/summary', failures.guard('the status bar summary', documentOf, (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);
     if (!analysis) return null;
     const largest = analysis.largestQubitCount();
     const errors = analysis.counts().errors;
     return { largestQubits: largest?.qubits ?? null, fragment: largest?.fragment ?? null, errors, limit: analysis.model.limits.qubits ?? null };
-  });
+  }));
   // Data for the extension's structure view and cost panel.
   const analysisOfParams = (params: unknown) => {
     const uri = (params as { uri?: unknown } | null)?.uri;
     return typeof uri === 'string' ? analysisOf(uri) : undefined;
   };
-  connection.onRequest('tessera/structure', (params: unknown) => {
+  connection.onRequest('tessera/structure', failures.guard('the structure view', documentOf, (params: unknown) => {
     const analysis = analysisOfParams(params);
     return analysis ? service.structureOf(analysis) : null;
-  });
-  connection.onRequest('tessera/costs', (params: unknown) => {
+  }));
+  connection.onRequest('tessera/costs', failures.guard('the cost plots', documentOf, (params: unknown) => {
     const analysis = analysisOfParams(params);
     const fragment = (params as { fragment?: unknown } | null)?.fragment;
     return analysis ? service.costPlots(analysis, Number.isInteger(fragment) ? (fragment as number) : null) : null;
-  });
-  connection.onRequest('tessera/viewTarget', (params: unknown) => {
+  }));
+  connection.onRequest('tessera/viewTarget', failures.guard('the structure view', documentOf, (params: unknown) => {
     const analysis = analysisOfParams(params);
     const position = (params as { position?: { line?: unknown; character?: unknown } | null } | null)?.position;
     if (!analysis || !position || !Number.isInteger(position.line) || !Number.isInteger(position.character)) return null;
     return service.viewTargetAt(analysis, { line: Math.max(0, position.line as number), character: Math.max(0, position.character as number) });
-  });
+  }));
 
   documents.listen(connection);
-  warmUp();
+  try {
+    warmUp();
+  } catch {
+    // A failure here shows again, and is reported, when a real document takes the same path.
+  }
   connection.listen();
   return connection;
 }

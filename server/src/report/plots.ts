@@ -85,7 +85,7 @@ export function qubitsChartSvg(report: EstimateReport): string {
   const series = ['Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered'];
   const values = fragments.map((fragment) => [fragment.qubits.jordanWigner, fragment.qubits.bravyiKitaev, fragment.qubits.parity, fragment.qubits.tapered ?? 0]);
   const limit = report.limits.qubits;
-  const max = Math.max(...values.flat(), limit ?? 0, 1);
+  const max = values.reduce((most, row) => row.reduce((m, value) => Math.max(m, value), most), Math.max(limit ?? 0, 1));
   const f = frame();
   const ticks = niceTicks(max);
   const top = ticks[ticks.length - 1]!;
@@ -131,7 +131,7 @@ export function growthChartSvg(points: readonly GrowthPoint[], fragmentName: str
   const xTicksValues = niceTicks(maxN, 4).filter((tick) => tick <= maxN);
   // Left panel: qubits.
   const left: Frame = { x0: MARGIN.left, x1: MARGIN.left + half - 30, y0: HEIGHT - MARGIN.bottom, y1: MARGIN.top + 30 };
-  const qubitTicks = niceTicks(Math.max(...points.map((p) => p.qubits)));
+  const qubitTicks = niceTicks(points.reduce((most, p) => Math.max(most, p.qubits), -Infinity));
   const qTop = qubitTicks[qubitTicks.length - 1]!;
   const toXLeft = (n: number) => left.x0 + ((left.x1 - left.x0) * n) / maxN;
   const toYLeft = (q: number) => left.y0 - ((left.y0 - left.y1) * q) / qTop;
@@ -139,7 +139,7 @@ export function growthChartSvg(points: readonly GrowthPoint[], fragmentName: str
   parts.push(polyline(points.map((p) => [toXLeft(p.orbitals), toYLeft(p.qubits)]), SERIES_COLOURS[0]!), polyline(points.map((p) => [toXLeft(p.orbitals), toYLeft(p.tapered)]), SERIES_COLOURS[3]!, true));
   // Right panel: Pauli terms, log10.
   const right: Frame = { x0: MARGIN.left + half + 40, x1: width - MARGIN.right, y0: HEIGHT - MARGIN.bottom, y1: MARGIN.top + 30 };
-  const logMax = Math.ceil(Math.log10(Math.max(...points.map((p) => p.pauliTerms), 10)));
+  const logMax = Math.ceil(Math.log10(points.reduce((most, p) => Math.max(most, p.pauliTerms), 10)));
   const logTicks = Array.from({ length: logMax + 1 }, (_, k) => k);
   const toXRight = (n: number) => right.x0 + ((right.x1 - right.x0) * n) / maxN;
   const toYRight = (log: number) => right.y0 - ((right.y0 - right.y1) * log) / logMax;
@@ -159,8 +159,8 @@ export function scanChartSvg(report: EstimateReport): string {
   const perPointCalculations = scan.totals.fragmentCalculations / scan.points;
   const perPointCircuits = scan.totals.measurementCircuits / scan.points;
   const f = frame();
-  const low = Math.min(...scan.distances);
-  const span = Math.max(...scan.distances) - low || 1;
+  const low = scan.distances.reduce((least, d) => Math.min(least, d), Infinity);
+  const span = scan.distances.reduce((most, d) => Math.max(most, d), -Infinity) - low || 1;
   const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - low)) / span;
   const ticks = niceTicks(Math.max(scan.totals.measurementCircuits, 1));
   const yTop = ticks[ticks.length - 1]!;

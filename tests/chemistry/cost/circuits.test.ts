@@ -15,7 +15,7 @@ import { jordanWignerWeight, listExcitations } from './reference';
 const h2 = (order: RegisterOrder) => ({ orbitals: 2, alpha: 1, beta: 1, order });
 
 describe('register orders', () => {
-  it('interleaved puts α, β of each spatial orbital side by side; blocked puts all α first', () => {
+  it('interleaved puts α, β of each spatial orbital side by side; blocked puts all α first (by definition of the two orders)', () => {
     expect([0, 1, 2].map((p) => qubitIndex(p, 'alpha', 3, 'interleaved'))).toEqual([0, 2, 4]);
     expect([0, 1, 2].map((p) => qubitIndex(p, 'beta', 3, 'interleaved'))).toEqual([1, 3, 5]);
     expect([0, 1, 2].map((p) => qubitIndex(p, 'beta', 3, 'blocked'))).toEqual([3, 4, 5]);
@@ -23,11 +23,11 @@ describe('register orders', () => {
 });
 
 describe('Jordan–Wigner weights of the excitations', () => {
-  it('H2, interleaved: singles on qubits (0,2) and (1,3) have weight 3, the double on 0–3 weight 4 (hand count)', () => {
+  it('H2, interleaved: singles on qubits (0,2) and (1,3) have weight 3, the double on 0–3 weight 4 (hand count from the Jordan–Wigner strings, Jordan & Wigner 1928)', () => {
     expect(uccsdExcitationWeights(h2('interleaved'))).toEqual({ singles: { count: 2, weightSum: 6 }, doubles: { count: 1, weightSum: 4 }, qubits: 4 });
   });
 
-  it('H2, blocked: singles on (0,1) and (2,3) have weight 2 (hand count)', () => {
+  it('H2, blocked: singles on (0,1) and (2,3) have weight 2 (hand count from the Jordan–Wigner strings, Jordan & Wigner 1928)', () => {
     expect(uccsdExcitationWeights(h2('blocked')).singles).toEqual({ count: 2, weightSum: 4 });
   });
 
@@ -118,7 +118,7 @@ describe('fermionic excitation construction (Yordanov et al. 2020)', () => {
 });
 
 describe('hardware-efficient circuit', () => {
-  it('takes its gates from the layout: 6 qubits, 2 blocks of CNOT chains = 10 CNOTs, 6·8 = 48 rotations', () => {
+  it('takes its gates from the layout (Kandala et al. 2017, with our CNOT chain): 6 qubits, 2 blocks of CNOT chains = 10 CNOTs, 6·8 = 48 rotations', () => {
     expect(hardwareEfficientCircuit(6, 2, 'euler')).toMatchObject({ cnots: 10, rotations: 48, basisChanges: 0, depth: 2 + 2 * 8 });
   });
 });

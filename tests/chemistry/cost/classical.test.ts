@@ -31,8 +31,8 @@ function pascal(n: number, k: number): bigint {
   return row[k] ?? 0n;
 }
 
-describe('full-CI determinant count', () => {
-  it('water in STO-3G: n = 7, nα = nβ = 5 → 441 (issue check value; 21 × 21)', () => {
+describe('full-CI determinant count, C(n, nα)·C(n, nβ) (Sherrill & Schaefer 1999)', () => {
+  it('water in STO-3G: n = 7, nα = nβ = 5 → C(7,5)² = 21 × 21 = 441', () => {
     const count = fciDeterminantCount(7, 5, 5);
     expect(count.determinants.exact).toBe(441n);
     expect(count.method).toBe('exact');
@@ -81,7 +81,7 @@ describe('full-CI determinant count', () => {
 });
 
 describe('memory', () => {
-  it('CI vector of water in STO-3G: 441 × 8 bytes = 3528 B = 3.45 KiB (hand count)', () => {
+  it('CI vector of water in STO-3G: 441 × 8 bytes = 3528 B = 3.45 KiB (one double per coefficient, common practice)', () => {
     const bytes = ciVectorBytes(fciDeterminantCount(7, 5, 5).determinants);
     expect(bytes.exact).toBe(3528n);
     expect(formatBytes(bytes)).toBe('3.45 KiB');
@@ -100,7 +100,7 @@ describe('memory', () => {
     expect(compareWithMemoryLimit(bytes, 16n * 2n ** 30n - 1n).fits).toBe(false);
   });
 
-  it('beyond 2^53 bytes the exact size is kept: 100 qubits = 2^104 bytes, far over any limit', () => {
+  it('beyond 2^53 bytes the exact size is kept: 100 qubits = 2^100 × 16 = 2^104 bytes, far over any limit (16 bytes per amplitude, common practice)', () => {
     const bytes = statevectorBytes(100);
     expect(bytes.exact).toBe(2n ** 104n);
     const verdict = compareWithMemoryLimit(bytes, 2 ** 40);

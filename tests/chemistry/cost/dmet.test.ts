@@ -74,7 +74,7 @@ function schmidt(occupied: number[][], L: number): { bath: number; full: number 
   };
 }
 
-describe('DMET bath and impurity', () => {
+describe('DMET bath and impurity (the rule of Knizia & Chan 2012 and Wouters et al. 2016, in the header)', () => {
   it('the common case L ≤ N ≤ M − L: 2L orbitals and 2L electrons (Wouters et al. 2016, from memory)', () => {
     const sizes = dmetSizes({ fragmentOrbitals: 3, systemOrbitals: 20, alpha: 10, beta: 10 });
     expect(sizes).toMatchObject({ bath: { alpha: 3, beta: 3 }, orbitals: 6, spinOrbitals: 12, electrons: 6 });
@@ -128,6 +128,7 @@ describe('DMET bath and impurity', () => {
   });
 });
 
+// The same rule (Knizia & Chan 2012) on cc-pVDZ counts: O [3s2p1d] = 14, H [2s1p] = 5 (Dunning 1989).
 describe('DMET from counted orbital spaces (frozen core outside fragment and bath)', () => {
   const basis = findBasisSet('cc-pvdz')!;
   const atoms = (symbols: string[]) => symbols.map((s) => ({ z: elementBySymbol(s)!.z, shells: basis.shellsFor(s), ecpCoreElectrons: 0 }));
@@ -149,7 +150,7 @@ describe('DMET from counted orbital spaces (frozen core outside fragment and bat
   });
 });
 
-describe('projection-based and subtractive embedding use the fragment\'s own orbitals', () => {
+describe('projection-based and subtractive embedding use the fragment\'s own orbitals (Manby et al. 2012; Svensson et al. 1996)', () => {
   it('reports the fragment\'s own size and says which convention', () => {
     const projection = ownOrbitalSizes('projection', { orbitals: 13, alpha: 4, beta: 4 });
     expect(projection).toMatchObject({ orbitals: 13, spinOrbitals: 26, electrons: 8, bath: { alpha: 0, beta: 0 } });

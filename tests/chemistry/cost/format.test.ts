@@ -14,7 +14,7 @@ import {
   scaleMagnitude,
 } from '../../../server/src/chemistry/cost/magnitude';
 
-describe('magnitudes', () => {
+describe('magnitudes (by definition: hand-computed powers of two and ten)', () => {
   it('take exact logarithms of huge BigInts (10^500 → 500, 2^5000 → 5000·log10 2)', () => {
     expect(log10OfBigInt(10n ** 500n)).toBeCloseTo(500, 10);
     expect(log10OfBigInt(2n ** 5000n)).toBeCloseTo(5000 * Math.log10(2), 9);
@@ -40,7 +40,7 @@ describe('magnitudes', () => {
   });
 });
 
-describe('formatCount', () => {
+describe('formatCount (by definition of our format: whole below 10^6, else three significant digits)', () => {
   it('prints counts below a million whole and larger ones with three significant digits', () => {
     expect(formatCount(exactMagnitude(999_999n))).toBe('999999');
     expect(formatCount(exactMagnitude(1_000_000n))).toBe('1.00 × 10^6');
@@ -55,7 +55,7 @@ describe('formatCount', () => {
   });
 });
 
-describe('formatBytes', () => {
+describe('formatBytes (binary prefixes of IEC 80000-13 (2008), three significant digits by definition of our format)', () => {
   it('uses B, KiB … EiB with three significant digits', () => {
     expect(formatBytes(exactMagnitude(0n))).toBe('0 B');
     expect(formatBytes(exactMagnitude(1023n))).toBe('1023 B');

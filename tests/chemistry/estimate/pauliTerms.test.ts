@@ -223,7 +223,8 @@ describe('structure of the strings', () => {
       const formula = 1 + 2 * n + n * (2 * n - 1) + 4 * pairs * (2 * n - 1) + 4 * pairs * pairs + 12 * choose(n, 4);
       expect(countPauliTerms(noSymmetryPattern(n)).jordanWigner).toBe(formula);
     }
-    // n = 2: 27 strings, checked against the operator algebra above; a hand count (no source):
+    // n = 2: 27 strings, checked against the operator algebra above (the fixture of this file,
+    // enumerate.ts); by construction also a hand count (no outside source):
     // 11 diagonal + 12 hops (2 spins × 2 strings × 3 Z choices) + 4 pair-pair strings.
     expect(countPauliTerms(noSymmetryPattern(2)).jordanWigner).toBe(27);
   });
@@ -253,6 +254,8 @@ describe('two-qubit reduction of the parity mapping', () => {
     for (const [alpha, beta] of SECTORS) expect(countNonzero(reduceParity(parity, alpha, beta))).toBe(full);
   });
 
+  // Observed with the operator algebra (enumerate.ts, the reference of this file) when the
+  // reduction was written; by construction of the Bravyi et al. 2017 reduction for n ≤ 4.
   it('does merge for n = 3 and n = 4, and for n = 2 and 4 the count depends on the sector', () => {
     const n3 = countPauliTerms(noSymmetryPattern(3));
     expect(Math.max(...n3.paritySectors)).toBeLessThan(n3.jordanWigner);

@@ -8,6 +8,8 @@ import { irrepMasks, symmetryPattern } from '../../../server/src/chemistry/estim
 import { taperQubits } from '../../../server/src/chemistry/estimate/tapering';
 import { nonzeroKeys, qubitHamiltonian, random, randomIntegrals } from './enumerate';
 
+// Every case applies the rule of Bravyi et al. 2017 and Setia et al. 2020 (header); the
+// hand-derived ones say so in their titles.
 describe('tapering', () => {
   it('H2 in STO-3G (Ag, B1u): 4 qubits, 3 symmetries, 1 qubit left (Bravyi et al. 2017)', () => {
     const result = taperQubits(irrepMasks('D2h', ['Ag', 'B1u']), 3);

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { ABELIAN_GROUPS, CHARACTER_TABLES, irrepByMask, irrepProduct, OPERATION_SIGNS } from '../../../server/src/chemistry/symmetry';
 
-describe('character tables of D2h and its subgroups', () => {
+describe('character tables of D2h and its subgroups (properties from Cotton 1990, §4.3)', () => {
   it.each(ABELIAN_GROUPS)('%s: as many irreps as operations, rows orthogonal with norm h', (group) => {
     const table = CHARACTER_TABLES[group];
     const h = table.operations.length;
@@ -45,7 +45,7 @@ describe('character tables of D2h and its subgroups', () => {
     }
   });
 
-  it('the first irrep is totally symmetric with mask 0', () => {
+  it('the first irrep is totally symmetric with mask 0 (Cotton 1990 lists it first; mask 0 by definition of the masks)', () => {
     for (const group of ABELIAN_GROUPS) {
       const first = CHARACTER_TABLES[group].irreps[0]!;
       expect(first.mask).toBe(0);

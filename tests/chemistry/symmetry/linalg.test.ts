@@ -30,7 +30,7 @@ describe('linear algebra helpers', () => {
     }
   });
 
-  it('rotations are proper, reflections and improper rotations are not, and C_n^n = E', () => {
+  it('rotations are proper, reflections and improper rotations are not, and C_n^n = E (by definition: det = +1 and −1)', () => {
     const axis = [0, 0.6, 0.8];
     expect(determinant(rotation(axis, 1.234))).toBeCloseTo(1, 14);
     expect(determinant(reflection(axis))).toBeCloseTo(-1, 14);

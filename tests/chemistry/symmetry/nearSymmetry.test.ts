@@ -89,6 +89,8 @@ describe('near symmetry', () => {
 });
 
 
+// The equivalent atoms by construction of the test molecules: the three H of ammonia, the two H of
+// water (Cotton 1990 for the groups C3v and C2v).
 describe('symmetrize', () => {
   it('restores C3v for the skewed ammonia', () => {
     const coordinates = shifted(M.ammonia, 1, [0, 0.02, 0]);

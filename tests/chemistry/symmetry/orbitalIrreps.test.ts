@@ -51,17 +51,17 @@ function monomialParities(l: number): number[][] {
 }
 
 describe('shell characters', () => {
-  it.each([0, 1, 2, 3, 4, 5, 6])('l = %i: spherical characters equal the count by parity of the real harmonics', (l) => {
+  it.each([0, 1, 2, 3, 4, 5, 6])('l = %i: spherical characters equal the count by parity of the real harmonics (2l+1 of them by definition)', (l) => {
     expect(realHarmonicParities(l)).toHaveLength(2 * l + 1);
     for (const operation of OPERATIONS) expect(shellCharacter(l, 'spherical', operation)).toBe(characterFromParities(realHarmonicParities(l), operation));
   });
 
-  it.each([0, 1, 2, 3, 4, 5, 6])('l = %i: cartesian characters equal the count by parity of the monomials', (l) => {
+  it.each([0, 1, 2, 3, 4, 5, 6])('l = %i: cartesian characters equal the count by parity of the monomials ((l+1)(l+2)/2 of them by definition)', (l) => {
     expect(monomialParities(l)).toHaveLength(((l + 1) * (l + 2)) / 2);
     for (const operation of OPERATIONS) expect(shellCharacter(l, 'cartesian', operation)).toBe(characterFromParities(monomialParities(l), operation));
   });
 
-  it('the rotation-group character: 2l+1 at 0, (−1)^l at π, 1 − 2 cos … at 2π/3 gives 0 for l = 1 (Tinkham eq. 5-11; from memory)', () => {
+  it('the rotation-group character: 2l+1 at 0, (−1)^l at π; for l = 1 it is 1 + 2 cos θ, 0 at 2π/3 (Tinkham eq. 5-11; from memory)', () => {
     for (let l = 0; l < 8; l++) {
       expect(rotationCharacter(l, 0)).toBe(2 * l + 1);
       expect(rotationCharacter(l, Math.PI)).toBe((-1) ** l);
@@ -93,6 +93,8 @@ describe('orbital counts per irrep', () => {
     expect(countsOf(M.water, 'cc-pvdz', 'spherical')).toEqual({ A1: 11, A2: 2, B1: 4, B2: 7 });
   });
 
+  // 6-31G*: C [3s2p1d] = 15 cartesian / 14 spherical (one d set on heavy atoms, Hariharan & Pople 1973),
+  // H [2s] = 2 (Ditchfield, Hehre & Pople 1971): 6 × 15 + 6 × 2 = 102 and 6 × 14 + 6 × 2 = 96.
   it('benzene in 6-31G*: the sums are 102 cartesian and 96 spherical functions (samples/molecules/benzene-6-31gs.tess)', () => {
     const cartesian = countsOf(M.benzene, '6-31g*', 'cartesian');
     const spherical = countsOf(M.benzene, '6-31g*', 'spherical');
@@ -108,7 +110,7 @@ describe('orbital counts per irrep', () => {
     expect(Object.fromEntries(p.irreps.map((irrep) => [irrep.label, irrep.count]))).toEqual({ Ag: 0, B1g: 0, B2g: 0, B3g: 0, Au: 0, B1u: 1, B2u: 1, B3u: 1 });
   });
 
-  it('atoms without a basis are reported and contribute nothing', () => {
+  it('atoms without a basis are reported and contribute nothing (by construction: two atoms without shells, one 2s1p = 2 + 3 functions)', () => {
     const symmetry = detectSymmetry(M.water.numbers, M.water.coordinates);
     const result = orbitalIrreps(symmetry, [[2, 1], undefined, undefined], 'spherical');
     expect(result.atomsWithoutBasis).toBe(2);
@@ -236,7 +238,7 @@ describe('fragments', () => {
     const fragment = fragmentOrbitalIrreps(M.benzene.numbers, M.benzene.coordinates, [0, 1, 6, 7], shells, 'spherical');
     expect(detectSymmetry(M.benzene.numbers, M.benzene.coordinates).fullGroup).toBe('D6h');
     expect(fragment.symmetry.fullGroup).toBe('C2v');
-    // By hand (the fragment lies in the yz plane, C2 along z through the C–C midpoint): the two
+    // By hand with the C2v table (Cotton 1990) (the fragment lies in the yz plane, C2 along z through the C–C midpoint): the two
     // 1s, 2s and H 1s give a symmetric and an antisymmetric pair each (3 A1 + 3 B2); the in-plane
     // p's along z and y give one pair each (pz: A1 + B2, py: B2 + A1); the out-of-plane px pair
     // gives B1 + A2. Total A1 5, A2 1, B1 1, B2 5 = 12 functions.
@@ -244,7 +246,7 @@ describe('fragments', () => {
     expect(counts).toEqual({ A1: 5, A2: 1, B1: 1, B2: 5 });
   });
 
-  it('a fragment can be more symmetric than its molecule: one water of a water pair is C2v', () => {
+  it('a fragment can be more symmetric than its molecule: one water of a water pair is C2v, with the STO-3G counts of water above (psi4 1.3.2 in tests/fixtures/irreps.psi4.json)', () => {
     const pair = M.molecule('water pair', [
       ['O', 0, 0, 0],
       ['H', 0, 0.75695, 0.585882],

@@ -13,8 +13,8 @@
 import { ABELIAN_GROUPS, CHARACTER_TABLES, findIrrep, type AbelianGroupName } from '../symmetry/characterTables';
 import type { OrbitalSymmetry } from '../symmetry/orbitalSymmetry';
 import { symmetryPattern } from './integralPattern';
-import { countPauliTerms, type ElectronCount, type PauliTermCounts } from './pauliTerms';
-import { taperQubits, type TaperingResult } from './tapering';
+import { countByIrrepCounts, countPauliTerms, type ElectronCount, type PauliTermCounts } from './pauliTerms';
+import { taperNumberParities, taperQubits, type TaperingResult } from './tapering';
 
 /** Orbitals of one irrep (mask as in symmetry/characterTables.ts). */
 export interface IrrepShare {
@@ -94,11 +94,24 @@ export function spreadIrreps(shares: readonly IrrepShare[]): number[] {
   return positions.map((position) => position.mask);
 }
 
+/**
+ * Active spaces beyond this many orbitals (20,000 qubits, far past any device or exact classical
+ * solver) are counted without the point group, from closed forms in n alone: no per-orbital
+ * irreps, tapering of the two number parities, the C1 Pauli-term count; UCCSD circuit costs,
+ * summed orbital by orbital, are not estimated (plan.ts). This keeps the largest supported spec
+ * (about 2 × 10^7 orbitals) bounded in time and memory, whatever its tiers say.
+ */
+export const PER_ORBITAL_LIMIT = 10_000;
+
 export interface ActiveIrreps {
   /** Orbitals per irrep of the active space. */
   readonly irreps: readonly IrrepShare[];
   readonly source: 'given' | 'proportional' | 'none';
-  /** The irrep mask of each active orbital in register order. */
+  /** Active orbitals. */
+  readonly orbitals: number;
+  /** False beyond PER_ORBITAL_LIMIT: counted without symmetry, and orbitalIrreps is empty. */
+  readonly perOrbital: boolean;
+  /** The irrep mask of each active orbital in register order (empty when not perOrbital). */
   readonly orbitalIrreps: readonly number[];
   /** Generators of the group the masks refer to (0 without symmetry). */
   readonly generatorCount: number;
@@ -106,20 +119,35 @@ export interface ActiveIrreps {
 
 /** The active orbitals per irrep, by the rule in the module comment. */
 export function activeIrreps(symmetry: PlanSymmetry | undefined, orbitals: number, given?: { readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[] }): ActiveIrreps {
+  if (orbitals > PER_ORBITAL_LIMIT) {
+    return { irreps: [{ label: 'A', mask: 0, count: orbitals }], source: 'none', orbitals, perOrbital: false, orbitalIrreps: [], generatorCount: 0 };
+  }
   if (given?.perIrrep && given.orbitals === orbitals) {
-    return { irreps: [...given.perIrrep], source: 'given', orbitalIrreps: spreadIrreps(given.perIrrep), generatorCount: symmetry?.generatorCount ?? 0 };
+    return { irreps: [...given.perIrrep], source: 'given', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(given.perIrrep), generatorCount: symmetry?.generatorCount ?? 0 };
   }
   // Also for a DMET impurity, whose bath orbitals are taken to split like the fragment's own.
   if (symmetry && symmetry.generatorCount > 0) {
     const irreps = apportion(symmetry.available, orbitals);
-    return { irreps, source: 'proportional', orbitalIrreps: spreadIrreps(irreps), generatorCount: symmetry.generatorCount };
+    return { irreps, source: 'proportional', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(irreps), generatorCount: symmetry.generatorCount };
   }
   const irreps = [{ label: 'A', mask: 0, count: orbitals }];
-  return { irreps, source: 'none', orbitalIrreps: spreadIrreps(irreps), generatorCount: 0 };
+  return { irreps, source: 'none', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(irreps), generatorCount: 0 };
+}
+
+/** Tapering of an active space with these irreps and electrons. */
+export function taperingOf(active: ActiveIrreps, electrons?: ElectronCount): TaperingResult {
+  if (!active.perOrbital) return taperNumberParities(active.orbitals, electrons);
+  return taperQubits(Uint8Array.from(active.orbitalIrreps), active.generatorCount, electrons);
 }
 
 /** Tapering and Pauli terms of an active space with these irreps and electrons. */
 export function symmetryCounts(active: ActiveIrreps, electrons: ElectronCount): { tapering: TaperingResult; pauli: PauliTermCounts } {
+  if (!active.perOrbital) {
+    // n > PER_ORBITAL_LIMIT ≥ 5, so the reduced parity count equals the full one (pauliTerms.ts).
+    const full = countByIrrepCounts([active.orbitals, 0, 0, 0, 0, 0, 0, 0]);
+    const pauli: PauliTermCounts = { orbitals: active.orbitals, jordanWigner: full, bravyiKitaev: full, parityUnreduced: full, parity: full, paritySectors: [full, full, full, full] };
+    return { tapering: taperNumberParities(active.orbitals, electrons), pauli };
+  }
   const masks = Uint8Array.from(active.orbitalIrreps);
   return { tapering: taperQubits(masks, active.generatorCount, electrons), pauli: countPauliTerms(symmetryPattern(masks), electrons) };
 }

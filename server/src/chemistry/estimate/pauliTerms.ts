@@ -110,12 +110,18 @@ export function countByClasses(pattern: IntegralPattern): number {
  * + 12 Q                               quartets: Q sets of four orbitals with product 0, 2 spins × 6.
  */
 export function countBySymmetry(irreps: ArrayLike<number>): number {
-  const n = irreps.length;
-  if (n === 0) return 0;
   const counts = new Float64Array(8);
-  for (let i = 0; i < n; i++) counts[irreps[i]!]! += 1;
+  for (let i = 0; i < irreps.length; i++) counts[irreps[i]!]! += 1;
+  return countByIrrepCounts(counts);
+}
+
+/** The same closed form from the number of orbitals of each irrep (index = mask 0–7) alone. */
+export function countByIrrepCounts(counts: ArrayLike<number>): number {
+  let n = 0;
+  for (let g = 0; g < 8; g++) n += counts[g] ?? 0;
+  if (n === 0) return 0;
   const present: number[] = [];
-  for (let g = 0; g < 8; g++) if (counts[g]! > 0) present.push(g);
+  for (let g = 0; g < 8; g++) if ((counts[g] ?? 0) > 0) present.push(g);
 
   let sameIrrepPairs = 0;
   for (const g of present) sameIrrepPairs += (counts[g]! * (counts[g]! - 1)) / 2;

@@ -24,8 +24,7 @@ import type { OrbitalSpace } from '../counting';
 import { mappingKey, qubitCounts, type Mapping } from '../qubits';
 import { symmetryPattern } from './integralPattern';
 import { measurementGroups, estimateQubitWiseGroups, type MeasurementEstimate } from './measurement';
-import { activeIrreps, symmetryCounts, type ActiveIrreps, type IrrepShare, type PlanSymmetry } from './activeIrreps';
-import { taperQubits } from './tapering';
+import { activeIrreps, PER_ORBITAL_LIMIT, symmetryCounts, taperingOf, type ActiveIrreps, type IrrepShare, type PlanSymmetry } from './activeIrreps';
 
 export type { IrrepShare, PlanSymmetry } from './activeIrreps';
 export { apportion, spreadIrreps } from './activeIrreps';
@@ -100,12 +99,19 @@ function problemSizes(input: PlanInput): EmbeddedSizes | undefined {
   });
 }
 
-function ansatzFigures(input: PlanInput, active: ActiveFigures, orbitalIrreps: readonly number[], qubits: number): AnsatzFigures | null {
+function ansatzFigures(input: PlanInput, active: ActiveFigures, irreps: ActiveIrreps, qubits: number): AnsatzFigures | null {
   if (input.tier !== 'quantum' || input.method !== 'vqe' || !input.ansatz) return null;
   const { orbitals, alpha, beta } = active;
+  const orbitalIrreps = irreps.orbitalIrreps;
   switch (input.ansatz) {
     case 'uccsd': {
       const spinOrbital = uccsdSpinOrbitalCount(spinOrbitalCounts(orbitals, alpha, beta));
+      if (!irreps.perOrbital) {
+        // Beyond PER_ORBITAL_LIMIT the space is counted without symmetry: screening removes nothing.
+        const closed = alpha === beta;
+        const spinAdapted = closed ? uccsdSpinAdaptedCount(alpha, orbitals - alpha) : null;
+        return { kind: 'uccsd', parameters: spinOrbital.total, spinOrbital, spinOrbitalScreened: spinOrbital, spinAdapted, spinAdaptedScreened: spinAdapted };
+      }
       const screened = uccsdSpinOrbitalCountWithSymmetry(referenceIrreps(orbitalIrreps, alpha, beta));
       const closed = alpha === beta;
       const reference = referenceIrreps(orbitalIrreps, alpha, beta);
@@ -133,8 +139,9 @@ function ansatzFigures(input: PlanInput, active: ActiveFigures, orbitalIrreps: r
 
 const measurementCache = new Map<string, MeasurementEstimate>();
 
-function measurementFor(orbitalIrreps: readonly number[], terms: number): MeasurementEstimate {
-  const qubits = 2 * orbitalIrreps.length;
+function measurementFor(irreps: ActiveIrreps, terms: number): MeasurementEstimate {
+  const qubits = 2 * irreps.orbitals;
+  const orbitalIrreps = irreps.orbitalIrreps;
   if (qubits > EXPLICIT_GROUPING_LIMIT) {
     return { qubits, terms, groups: estimateQubitWiseGroups(terms), exact: false, method: 'estimate: 0.21 × (terms − 1), fitted to explicit greedy groupings of 8–20 qubits' };
   }
@@ -161,7 +168,7 @@ function requiredQubits(input: PlanInput, counts: ReturnType<typeof qubitCounts>
 /** Qubits the fragment's solver needs for an active space of `orbitals` and the given spin split. */
 export function qubitsFor(input: PlanInput, orbitals: number, alpha: number, beta: number): number | null {
   const irreps = irrepsOf(input, orbitals);
-  const tapered = taperQubits(Uint8Array.from(irreps.orbitalIrreps), irreps.generatorCount, { alpha, beta }).tapered;
+  const tapered = taperingOf(irreps, { alpha, beta }).tapered;
   return requiredQubits(input, qubitCounts(orbitals), tapered);
 }
 
@@ -193,7 +200,11 @@ export function fitActiveSpace(input: PlanInput, limit: number): { electrons: nu
   return undefined;
 }
 
-/** Everything for one fragment; undefined when its charge and multiplicity do not fit. */
+/**
+ * Everything for one fragment; undefined when its charge and multiplicity do not fit, or when its
+ * active space does not fit the problem the solver sees (the checks report that): no figure is
+ * computed for a part that is rejected, however large the numbers it asks for.
+ */
 export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const problem = problemSizes(input);
   if (!problem) return undefined;
@@ -202,15 +213,11 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   let electrons = problem.electrons;
   let orbitals = problem.orbitals;
   if (input.active) {
-    if (input.active.orbitals > problem.orbitals) notes.push(`the active space (${input.active.orbitals} orbitals) is larger than the problem the solver sees (${problem.orbitals})`);
-    if (input.active.electrons > problem.electrons) notes.push(`the active space holds more electrons (${input.active.electrons}) than the problem (${problem.electrons})`);
+    if (input.active.orbitals > problem.orbitals || input.active.electrons > problem.electrons) return undefined;
     electrons = input.active.electrons;
     orbitals = input.active.orbitals;
   }
-  if (unpaired > electrons || (electrons - unpaired) % 2 !== 0 || (electrons + unpaired) / 2 > orbitals || orbitals < 0) {
-    notes.push(`${electrons} electrons in ${orbitals} orbitals cannot have multiplicity ${input.fragment.multiplicity}`);
-    return undefined;
-  }
+  if (unpaired > electrons || (electrons - unpaired) % 2 !== 0 || (electrons + unpaired) / 2 > orbitals || orbitals < 0) return undefined;
   const alpha = (electrons + unpaired) / 2;
   const beta = (electrons - unpaired) / 2;
 
@@ -227,8 +234,13 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const layout = { orbitals, alpha, beta, order: 'interleaved' as const, irreps: orbitalIrreps };
   let circuit: PlanEstimate['circuit'] = null;
   if (input.tier === 'quantum' && input.method === 'vqe') {
-    if (input.ansatz === 'uccsd') circuit = { standard: uccsdPauliRotationCircuit(layout), compact: uccsdFermionicExcitationCircuit(layout) };
+    if (input.ansatz === 'uccsd' && irreps.perOrbital) circuit = { standard: uccsdPauliRotationCircuit(layout), compact: uccsdFermionicExcitationCircuit(layout) };
     else if (input.ansatz === 'hardware-efficient') circuit = { standard: hardwareEfficientCircuit(qubitsForCircuits, input.layers), compact: null };
+  }
+  if (!irreps.perOrbital) {
+    notes.push(
+      `an active space of more than ${PER_ORBITAL_LIMIT.toLocaleString('en-US')} orbitals is counted without point-group symmetry (tapering, Pauli terms, UCCSD screening)${input.ansatz === 'uccsd' && circuit === null && input.tier === 'quantum' ? ', and its UCCSD circuit cost is not estimated' : ''}`,
+    );
   }
   const determinants = fciDeterminantCount(orbitals, alpha, beta);
   return {
@@ -250,8 +262,8 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
       upperBound,
       convention: `distinct Pauli strings, identity included, for generic real integrals allowed by ${input.symmetry?.group ?? 'C1'} selection rules${upperBound ? ` (an upper bound: the full group ${input.symmetry!.fullGroup} forbids more)` : ''}`,
     },
-    measurement: measurementFor(orbitalIrreps, pauli.jordanWigner),
-    ansatz: ansatzFigures(input, active, orbitalIrreps, qubitsForCircuits),
+    measurement: measurementFor(irreps, pauli.jordanWigner),
+    ansatz: ansatzFigures(input, active, irreps, qubitsForCircuits),
     circuit,
     classical: {
       determinants,

@@ -119,3 +119,35 @@ function eigenvalueOn(modes: Uint8Array, n: number, electrons: ElectronCount): 1
   for (let i = 0; i < Math.min(n, electrons.beta); i++) occupied += modes[n + i]!;
   return occupied % 2 === 0 ? 1 : -1;
 }
+
+/**
+ * Tapering without point-group symmetry in closed form: for n ≥ 1 active orbitals the α- and
+ * β-number parities are two independent Z strings on disjoint halves of the register, so exactly
+ * two qubits go (2n − 2); the same result as taperQubits on n orbitals of one irrep with no
+ * generators, without building its 2n-long vectors (they are made only if read).
+ */
+export function taperNumberParities(n: number, electrons?: ElectronCount): TaperingResult {
+  if (n <= 0) return { qubits: 0, removable: 0, tapered: 0, generators: [], independent: [] };
+  const parity = (label: 'N_alpha parity' | 'N_beta parity', count: number | undefined): Z2Symmetry => {
+    const offset = label === 'N_alpha parity' ? 0 : n;
+    let modes: Uint8Array | undefined;
+    return {
+      label,
+      get modes(): Uint8Array {
+        if (!modes) {
+          modes = new Uint8Array(2 * n);
+          modes.fill(1, offset, offset + n);
+        }
+        return modes;
+      },
+      ...(count === undefined ? {} : { eigenvalue: Math.min(n, count) % 2 === 0 ? (1 as const) : (-1 as const) }),
+    };
+  };
+  return {
+    qubits: 2 * n,
+    removable: 2,
+    tapered: 2 * n - 2,
+    generators: [],
+    independent: [parity('N_alpha parity', electrons?.alpha), parity('N_beta parity', electrons?.beta)],
+  };
+}

@@ -22,6 +22,7 @@
  * tolerance (possible only for a geometry right at the edge of the tolerance), the result falls
  * back to C1 rather than report operations that do not map the atoms onto themselves.
  */
+import { coordinatesInRange } from '../geometry';
 import { abelianSubgroup, type AbelianSubgroup } from './abelian';
 import type { AbelianGroupName, OperationName } from './characterTables';
 import { classifyElements } from './classify';
@@ -202,10 +203,47 @@ function describe(detection: Detection): GroupDescription {
 }
 
 /**
+ * C1 without a search: what detectSymmetry answers for coordinates it cannot work with (not finite,
+ * or beyond ±COORDINATE_LIMIT, where squared distances overflow or lose all precision).
+ */
+function withoutSymmetry(count: number, coordinates: ArrayLike<number>, masses: Float64Array, tolerance: number): SymmetryResult {
+  const axes = toMatrix3(identity());
+  const permutation = Array.from({ length: count }, (_, i) => i);
+  const centre = centreOfMass(coordinates, masses);
+  const origin: Vec3 = centre.every((value) => Number.isFinite(value)) ? toVec3(centre) : [0, 0, 0];
+  return {
+    fullGroup: 'C1',
+    order: 1,
+    abelianGroup: 'C1',
+    abelianOperations: [{ name: 'E', matrix: axes, permutation }],
+    frame: { origin, axes },
+    equivalentSets: permutation.map((i) => [i]),
+    tolerance,
+    maxDeviation: 0,
+    description: { name: 'C1', family: 'C1', n: 1, order: 1, axes, generators: [], linear: false },
+  };
+}
+
+/**
  * Detects the point group of atoms given by atomic number and coordinates (flat x, y, z per atom,
- * Å). Never throws for finite input.
+ * Å). Total: coordinates that are not finite or lie beyond ±COORDINATE_LIMIT give C1 without a
+ * search (the checks report them), and so does any failure of the search itself.
  */
 export function detectSymmetry(atomicNumbers: ArrayLike<number>, coordinates: ArrayLike<number>, options: SymmetryOptions = {}): SymmetryResult {
+  const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
+  const count = atomicNumbers.length;
+  const masses = massesOf(Int32Array.from(atomicNumbers));
+  for (let i = 0; i < count; i++) {
+    if (!coordinatesInRange(coordinates, i)) return withoutSymmetry(count, coordinates, masses, tolerance);
+  }
+  try {
+    return searchSymmetry(atomicNumbers, coordinates, options);
+  } catch {
+    return withoutSymmetry(count, coordinates, masses, tolerance);
+  }
+}
+
+function searchSymmetry(atomicNumbers: ArrayLike<number>, coordinates: ArrayLike<number>, options: SymmetryOptions): SymmetryResult {
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
   const nearTolerance = options.nearTolerance ?? DEFAULT_NEAR_TOLERANCE;
   const count = atomicNumbers.length;

@@ -1,47 +1,65 @@
 /** `tessera check <files…> [--format text|json]`: diagnostics for each spec. */
-import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { analyzeDocument } from '../../analysis';
-import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { formatDiagnosticLine, printable, summaryLine, type PrintedDiagnostic } from '../output';
+import { readTextFile } from '../../language/files';
+import { exitCode, UsageError, type CliIo } from '../io';
+import { describeFailure, formatDiagnosticLine, printable, summaryLine, type PrintedDiagnostic } from '../output';
 
 export interface CheckOptions {
   files: string[];
   format: 'text' | 'json';
 }
 
+interface FileResult {
+  file: string;
+  diagnostics: PrintedDiagnostic[];
+  error?: string;
+}
+
+/**
+ * Checks every file, whatever happens to one of them: a file that cannot be read, or on which
+ * Tessera itself fails, is reported and the batch goes on. Exit code: 3 when Tessera failed on
+ * some file, else 2 when some file could not be read, else 1 when errors were found, else 0.
+ */
 export function runCheck(options: CheckOptions, io: CliIo): number {
   if (options.files.length === 0) throw new UsageError('check needs at least one spec file: tessera check <file.tess>...');
   let errors = 0;
   let warnings = 0;
   let unreadable = 0;
-  const results: { file: string; diagnostics: PrintedDiagnostic[]; error?: string }[] = [];
+  let failed = 0;
+  const results: FileResult[] = [];
   for (const file of options.files) {
     const absolute = path.resolve(io.cwd, file);
-    let text: string;
-    try {
-      text = readFileSync(absolute, 'utf8');
-    } catch (error) {
+    const read = readTextFile(absolute);
+    if (!read.ok) {
       unreadable++;
-      const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-      results.push({ file, diagnostics: [], error: `cannot read ${file}: ${reason}` });
-      if (options.format === 'text') io.stderr(`tessera: cannot read ${file}: ${reason}\n`);
+      results.push({ file, diagnostics: [], error: `cannot read ${file}: ${read.reason}` });
+      if (options.format === 'text') io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
       continue;
     }
-    const analysis = analyzeDocument(text, { path: absolute });
-    const printed = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
-    errors += printed.filter((d) => d.severity === 'error').length;
-    warnings += printed.filter((d) => d.severity === 'warning').length;
-    results.push({ file, diagnostics: printed });
-    if (options.format === 'text') {
-      for (const diagnostic of printed) io.stdout(`${formatDiagnosticLine(diagnostic)}\n`);
+    const text = read.text;
+    try {
+      const analysis = analyzeDocument(text, { path: absolute });
+      const printed = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
+      errors += printed.filter((d) => d.severity === 'error').length;
+      warnings += printed.filter((d) => d.severity === 'warning').length;
+      if (printed.some((d) => d.code === 'internal-error')) failed++;
+      results.push({ file, diagnostics: printed });
+      if (options.format === 'text') {
+        for (const diagnostic of printed) io.stdout(`${formatDiagnosticLine(diagnostic)}\n`);
+      }
+    } catch (error) {
+      failed++;
+      const message = `Tessera failed on ${file}: ${describeFailure(error)}`;
+      results.push({ file, diagnostics: [], error: message });
+      if (options.format === 'text') io.stderr(`tessera: ${message}\n`);
     }
   }
   if (options.format === 'json') {
-    io.stdout(`${JSON.stringify({ files: results, errors, warnings, unreadable }, null, 2)}\n`);
+    io.stdout(`${JSON.stringify({ files: results, errors, warnings, unreadable, failed }, null, 2)}\n`);
   } else {
-    io.stderr(`${summaryLine(errors, warnings, options.files.length - unreadable)}${unreadable > 0 ? `; ${unreadable} unreadable` : ''}\n`);
+    const notes = [unreadable > 0 ? `${unreadable} unreadable` : '', failed > 0 ? `Tessera failed on ${failed} (a bug; see above)` : ''].filter(Boolean);
+    io.stderr(`${summaryLine(errors, warnings, options.files.length - unreadable)}${notes.length > 0 ? `; ${notes.join('; ')}` : ''}\n`);
   }
-  if (unreadable > 0) return EXIT_USAGE;
-  return errors > 0 ? EXIT_ERRORS : EXIT_OK;
+  return exitCode({ internal: failed > 0, usage: unreadable > 0, errors: errors > 0 });
 }

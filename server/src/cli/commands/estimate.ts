@@ -2,13 +2,13 @@
  * `tessera estimate <spec>` and `tessera estimate --xyz <file> --basis <name> ...`: the counts for
  * the system and each fragment, as a table, Markdown or JSON.
  */
-import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { normalizeBasisName } from '../../chemistry/basis/library';
 import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
+import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
-import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { exitCode, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
 
 export type EstimateFormat = 'text' | 'json' | 'markdown';
@@ -31,13 +31,10 @@ interface Prepared {
 }
 
 function readText(file: string, io: CliIo): string | undefined {
-  try {
-    return readFileSync(path.resolve(io.cwd, file), 'utf8');
-  } catch (error) {
-    const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-    io.stderr(`tessera: cannot read ${file}: ${reason}\n`);
-    return undefined;
-  }
+  const read = readTextFile(path.resolve(io.cwd, file));
+  if (read.ok) return read.text;
+  io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
+  return undefined;
 }
 
 function prepareSpec(file: string, io: CliIo): Prepared | undefined {
@@ -122,5 +119,5 @@ export function runEstimate(options: EstimateOptions, io: CliIo): number {
     }
   }
   if (errors > 0 && options.format !== 'json') io.stderr(`tessera: ${errors} error${errors === 1 ? '' : 's'}: the figures above may be incomplete.\n`);
-  return errors > 0 ? EXIT_ERRORS : EXIT_OK;
+  return exitCode({ internal: prepared.diagnostics.some((d) => d.code === 'internal-error'), errors: errors > 0 });
 }

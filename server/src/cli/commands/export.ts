@@ -8,8 +8,8 @@
 import { buildQcSchemaExport } from '../../report/export/qcschema';
 import { renderXyz } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
-import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, loadSpec, printDiagnostics, specTitle, writeOutput } from '../specFile';
+import { exitCode, EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput } from '../specFile';
 import { VERSION } from '../version';
 
 export const EXPORT_TARGETS = ['xyz', 'qcschema'] as const;
@@ -31,7 +31,7 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
   printDiagnostics(spec, io);
   if (spec.errors > 0) {
     io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
-    return EXIT_ERRORS;
+    return exitCode({ internal: hasInternalError(spec), errors: true });
   }
   const data = structureData(spec.analysis);
   const title = specTitle(spec);

@@ -9,8 +9,8 @@
 import { renderEstimateCsv } from '../../report/format/csv';
 import { renderReportHtml } from '../../report/format/html';
 import { renderEstimateMarkdown, type ProblemLine } from '../../report/format/render';
-import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, loadSpec, printDiagnostics, writeOutput } from '../specFile';
+import { exitCode, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, writeOutput } from '../specFile';
 import { VERSION } from '../version';
 
 export const REPORT_FORMATS = ['markdown', 'html', 'csv'] as const;
@@ -47,5 +47,5 @@ export async function runReport(options: ReportOptions, io: CliIo): Promise<numb
   printDiagnostics(spec, io);
   if (!(await writeOutput(text, options.out, spec, io))) return EXIT_USAGE;
   if (spec.errors > 0) io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'}: the figures in the report may be incomplete.\n`);
-  return spec.errors > 0 ? EXIT_ERRORS : EXIT_OK;
+  return exitCode({ internal: hasInternalError(spec), errors: spec.errors > 0 });
 }

@@ -15,6 +15,7 @@
  * K[μν] = Σ (μλ|νσ) D_λσ. h is the core Hamiltonian T + V in the atomic-orbital basis.
  */
 import { type CancelToken } from '../contracts';
+import { multiply, multiplyTransposeA } from '../linalg';
 import { aoSource, type AoTwoElectronInput } from './aoSource';
 import { transformTwoElectron, type TransformStatistics } from './transform';
 
@@ -159,24 +160,11 @@ function columns(coefficients: Float64Array, N: number, M: number, indices: read
   return out;
 }
 
-/** Cᵀ A C for symmetric A (N × N) and C (N × n); result n × n, symmetric. */
+/** Cᵀ A C for symmetric A (N × N) and C (N × n); result n × n, made exactly symmetric from its lower triangle. */
 function congruence(A: Float64Array, C: Float64Array, N: number, n: number): Float64Array {
-  const AC = new Float64Array(N * n);
-  for (let mu = 0; mu < N; mu++) {
-    for (let nu = 0; nu < N; nu++) {
-      const a = A[mu * N + nu]!;
-      if (a === 0) continue;
-      for (let q = 0; q < n; q++) AC[mu * n + q]! += a * C[nu * n + q]!;
-    }
-  }
-  const out = new Float64Array(n * n);
-  for (let p = 0; p < n; p++) {
-    for (let q = 0; q <= p; q++) {
-      let sum = 0;
-      for (let mu = 0; mu < N; mu++) sum += C[mu * n + p]! * AC[mu * n + q]!;
-      out[p * n + q] = out[q * n + p] = sum;
-    }
-  }
+  const AC = multiply(A, C, N, N, n, new Float64Array(N * n));
+  const out = multiplyTransposeA(C, AC, N, n, n, new Float64Array(n * n));
+  for (let p = 0; p < n; p++) for (let q = 0; q < p; q++) out[q * n + p] = out[p * n + q]!;
   return out;
 }
 

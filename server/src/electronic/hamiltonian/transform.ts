@@ -23,6 +23,7 @@
  * pair at once, N³n/2 doubles. The active integrals are stored packed (pairs.ts).
  */
 import { throwIfCancelled, type CancelToken } from '../contracts';
+import { multiply, multiplyTransposeA } from '../linalg';
 import type { AoSource } from './aoSource';
 import { pairCount, pairIndex, pairPairIndex, packedLength } from './pairs';
 
@@ -63,6 +64,7 @@ export function transformTwoElectron(source: AoSource, ca: Float64Array, n: numb
   const buffer = new Float64Array(maxShell ** 4);
   const M = new Float64Array(N * N);
   const MC = new Float64Array(N * n);
+  const G = new Float64Array(n * n);
   let quartets = 0;
   let screened = 0;
 
@@ -128,25 +130,14 @@ export function transformTwoElectron(source: AoSource, ca: Float64Array, n: numb
           M[nu * N + mu] = value;
         }
       }
-      // MC = M C (N × n).
-      MC.fill(0);
-      for (let mu = 0; mu < N; mu++) {
-        const mcRow = mu * n;
-        for (let nu = 0; nu < N; nu++) {
-          const m = M[mu * N + nu]!;
-          if (m === 0) continue;
-          const cRow = nu * n;
-          for (let q = 0; q < n; q++) MC[mcRow + q]! += m * ca[cRow + q]!;
-        }
-      }
+      // (pq|rs) = (Cᵀ M C)_pq.
+      multiply(M, ca, N, N, n, MC);
+      multiplyTransposeA(ca, MC, N, n, n, G);
       const rs = pairIndex(columns.r[c]!, columns.s[c]!);
       for (let p = 0; p < n; p++) {
         for (let q = 0; q <= p; q++) {
           const pq = pairIndex(p, q);
-          if (pq < rs) continue;
-          let sum = 0;
-          for (let mu = 0; mu < N; mu++) sum += ca[mu * n + p]! * MC[mu * n + q]!;
-          out[pairPairIndex(pq, rs)] = sum;
+          if (pq >= rs) out[pairPairIndex(pq, rs)] = G[p * n + q]!;
         }
       }
     }

@@ -17,6 +17,7 @@ import { type CancelToken, type MolecularBasis, throwIfCancelled } from '../cont
 import { canonicalOrthogonalization, congruence, dotMatrices, EigenWorkspace, maxAbs, multiply, symmetricEigen, weightedOuterProducts } from '../linalg';
 import { Diis } from './diis';
 import type { AtomIntegrals } from './options';
+import { MAX_TENSOR_FUNCTIONS, TensorIntegrals, uniqueIntegralsFrom } from './tensorIntegrals';
 
 export const ATOM_ITERATIONS = 60;
 const DEGENERACY = 1e-6;
@@ -41,7 +42,10 @@ export function atomicDensityGuess(basis: MolecularBasis, atomIntegrals: (center
     if (!block) {
       const atom = atomIntegrals(index);
       if (atom.basis.functionCount !== count) throw new RangeError(`Atom ${index + 1} has ${count} functions in the molecule but ${atom.basis.functionCount} alone.`);
-      block = fractionalAtomDensity(atom, center.charge, cancel);
+      // A small atom's integrals are read once into a tensor: the atomic SCF then costs almost
+      // nothing beyond one pass over its shell quartets.
+      const eri = atom.basis.functionCount <= MAX_TENSOR_FUNCTIONS ? new TensorIntegrals(atom.basis, uniqueIntegralsFrom(atom.eri, cancel)) : atom.eri;
+      block = fractionalAtomDensity({ ...atom, eri }, center.charge, cancel);
       cache.set(key, block);
     }
     for (let i = 0; i < count; i++) for (let j = 0; j < count; j++) density[(first + i) * n + first + j] = block[i * count + j]!;

@@ -9,6 +9,8 @@ export { SCF_DEFAULTS } from './options';
 export type { AtomIntegrals, ScfOptions, ScfProblem, ScfProgress, ScfReference } from './options';
 export { lowdinCharges, mullikenCharges, mullikenSpinPopulations, sumPerFragment } from './population';
 export type { MeanFieldResult } from './result';
+export { buildScfProblem, computeMeanField } from './meanField';
+export type { MeanFieldInput } from './meanField';
 export { runScf } from './run';
 export type { ScfOutcome } from './run';
 export type { OrbitalBlock, OrbitalSpace } from './space';

@@ -2,6 +2,7 @@
  * Checks on the nuclei before any integral is used, and the nuclear repulsion energy
  * E_nn = Σ_{A<B} Z_A Z_B / R_AB with Z the charge the electrons feel (less ECP core electrons).
  */
+import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import type { Center } from '../contracts';
 import { ScfInputError } from './errors';
 
@@ -12,8 +13,6 @@ import { ScfInputError } from './errors';
  */
 export const MINIMUM_NUCLEAR_DISTANCE = 0.2;
 
-const BOHR_TO_ANGSTROM = 0.52917721067; // CODATA 2014, used only to print distances
-
 /** Throws `atoms-coincide` for the first pair of nuclei closer than MINIMUM_NUCLEAR_DISTANCE. */
 export function checkNuclei(centers: readonly Center[]): void {
   for (let a = 0; a < centers.length; a++) {
@@ -22,8 +21,8 @@ export function checkNuclei(centers: readonly Center[]): void {
       if (!(distance >= MINIMUM_NUCLEAR_DISTANCE)) {
         throw new ScfInputError(
           'atoms-coincide',
-          `Atoms ${b + 1} (${centers[b]!.symbol}) and ${a + 1} (${centers[a]!.symbol}) are ${(distance * BOHR_TO_ANGSTROM).toFixed(3)} Å apart; ` +
-            `a mean-field calculation needs every pair at least ${(MINIMUM_NUCLEAR_DISTANCE * BOHR_TO_ANGSTROM).toFixed(2)} Å apart.`,
+          `Atoms ${b + 1} (${centers[b]!.symbol}) and ${a + 1} (${centers[a]!.symbol}) are ${(distance * BOHR_IN_ANGSTROM).toFixed(3)} Å apart; ` +
+            `a mean-field calculation needs every pair at least ${(MINIMUM_NUCLEAR_DISTANCE * BOHR_IN_ANGSTROM).toFixed(2)} Å apart.`,
         );
       }
     }

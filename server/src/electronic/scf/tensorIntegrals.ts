@@ -1,15 +1,48 @@
 /**
  * Two-electron integrals held as a full stored tensor: for small systems and tests (for example
- * integrals dumped by another program), never for production sizes. Memory n⁴ doubles (a 40-function
- * basis takes 20 MB); the constructor refuses more than MAX_TENSOR_FUNCTIONS functions.
+ * integrals dumped by another program), never for production sizes. Memory n⁴ doubles (a 48-function
+ * basis takes 42 MB); the constructor refuses more than MAX_TENSOR_FUNCTIONS functions.
  */
 import { type CancelToken, type MolecularBasis, type TwoElectronIntegrals, throwIfCancelled } from '../contracts';
 
-export const MAX_TENSOR_FUNCTIONS = 60;
+export const MAX_TENSOR_FUNCTIONS = 48;
 
 /** Index of the unique pair (i ≥ j): i(i+1)/2 + j. */
 export function pairIndex(i: number, j: number): number {
   return i >= j ? (i * (i + 1)) / 2 + j : (j * (j + 1)) / 2 + i;
+}
+
+/**
+ * The unique integrals of a basis read through another source's `shellQuartet` (one pass over the
+ * unique shell quartets), for a small basis whose J and K are then needed many times (the atoms of
+ * the density guess).
+ */
+export function uniqueIntegralsFrom(source: TwoElectronIntegrals, cancel?: CancelToken): Float64Array {
+  const basis = source.basis;
+  const n = basis.functionCount;
+  if (n > MAX_TENSOR_FUNCTIONS) throw new RangeError(`A stored integral tensor is meant for at most ${MAX_TENSOR_FUNCTIONS} functions, not ${n}.`);
+  const pairs = (n * (n + 1)) / 2;
+  const unique = new Float64Array((pairs * (pairs + 1)) / 2);
+  const shells = basis.shells;
+  let largest = 0;
+  for (const shell of shells) largest = Math.max(largest, shell.size);
+  const out = new Float64Array(largest ** 4);
+  for (let p = 0; p < shells.length; p++) {
+    throwIfCancelled(cancel);
+    for (let q = 0; q <= p; q++) {
+      for (let r = 0; r <= p; r++) {
+        for (let s = 0; s <= (r === p ? q : r); s++) {
+          const [sp, sq, sr, ss] = [shells[p]!, shells[q]!, shells[r]!, shells[s]!];
+          source.shellQuartet(p, q, r, s, out);
+          let w = 0;
+          for (let a = 0; a < sp.size; a++) for (let b = 0; b < sq.size; b++) for (let c = 0; c < sr.size; c++) for (let d = 0; d < ss.size; d++) {
+            unique[pairIndex(pairIndex(sp.offset + a, sq.offset + b), pairIndex(sr.offset + c, ss.offset + d))] = out[w++]!;
+          }
+        }
+      }
+    }
+  }
+  return unique;
 }
 
 export class TensorIntegrals implements TwoElectronIntegrals {

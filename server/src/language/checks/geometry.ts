@@ -1,5 +1,5 @@
 /** Geometry: atoms present, no clashes, plausible units, and bonds cut by fragment boundaries. */
-import { BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, suspectUnits } from '../../chemistry/geometry';
+import { BOND_TOLERANCE_FACTOR, CLASH_DISTANCE, COORDINATE_LIMIT, coordinatesInRange, MAX_EXAMINED_PAIRS, suspectUnits } from '../../chemistry/geometry';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import type { RelatedInformation } from '../diagnostics';
 import type { AtomModel } from '../model';
@@ -27,6 +27,8 @@ export function checkGeometry(context: CheckContext): void {
     return;
   }
 
+  checkCoordinateRange(context);
+
   const clashes = model.contacts.clashes;
   for (const clash of clashes.slice(0, MAX_CLASH_REPORTS)) {
     const a = model.atoms[clash.i]!;
@@ -38,8 +40,13 @@ export function checkGeometry(context: CheckContext): void {
       { related: [relatedAtom(a, `${shortAtomName(a)} is here`)] },
     );
   }
-  if (clashes.length > MAX_CLASH_REPORTS) {
-    sink.report('atoms-too-close', ast.geometry.statement.keyword.span, `${clashes.length - MAX_CLASH_REPORTS} more pairs of atoms are closer than ${CLASH_DISTANCE} Å.`);
+  const clashCount = model.contacts.clashCount;
+  if (clashCount > MAX_CLASH_REPORTS || !model.contacts.complete) {
+    const more = (clashCount - Math.min(clashCount, MAX_CLASH_REPORTS)).toLocaleString('en-US');
+    const stopped = model.contacts.complete
+      ? ''
+      : ` (at least: the search stopped after examining ${MAX_EXAMINED_PAIRS.toLocaleString('en-US')} pairs of atoms, which only a pile of atoms at one spot makes it do; bonds and cut bonds are not all known either)`;
+    sink.report('atoms-too-close', ast.geometry.statement.keyword.span, `${more} more pairs of atoms are closer than ${CLASH_DISTANCE} Å${stopped}.`, { data: { more: clashCount - Math.min(clashCount, MAX_CLASH_REPORTS), complete: model.contacts.complete } });
   }
 
   const radii = model.atoms.map((atom) => atom.element.covalentRadius ?? 1.5);
@@ -58,6 +65,38 @@ export function checkGeometry(context: CheckContext): void {
   }
 
   checkCutBonds(context);
+}
+
+/** Reports beyond this many coordinates out of range are summarised in one line. */
+const MAX_RANGE_REPORTS = 20;
+const AXES = ['x', 'y', 'z'] as const;
+
+/**
+ * Coordinates must be finite and within ±COORDINATE_LIMIT Å (after conversion from bohr). Such an
+ * atom is left out of the neighbour search, and the symmetry search answers C1 (chemistry/).
+ */
+function checkCoordinateRange(context: CheckContext): void {
+  const { ast, model, sink } = context;
+  const limit = `±${COORDINATE_LIMIT.toLocaleString('en-US')} Å (10 µm)`;
+  let found = 0;
+  for (const atom of model.atoms) {
+    if (coordinatesInRange(model.coordinates, atom.index)) continue;
+    found++;
+    if (found > MAX_RANGE_REPORTS) continue;
+    const axis = [0, 1, 2].find((k) => !(Math.abs(model.coordinates[3 * atom.index + k]!) <= COORDINATE_LIMIT))!;
+    const value = model.coordinates[3 * atom.index + axis]!;
+    const shown = Number.isFinite(value) ? value.toPrecision(3) : String(value);
+    const span = atom.source || !ast.geometry || ast.geometry.include ? atom.span : ast.geometry.atoms.coordinateSpan(atom.index, axis);
+    sink.report(
+      'coordinate-out-of-range',
+      span,
+      `Atom ${shortAtomName(atom)} (${atom.element.symbol})${where(atom)} has ${AXES[axis]} = ${shown} Å; coordinates are accepted within ${limit}, far beyond any molecule: a typing mistake? Until it is fixed the atom is left out of the distance and bond checks, and the point group is taken as C1.`,
+      atom.source ? { related: [relatedAtom(atom, `${shortAtomName(atom)} is here`)] } : {},
+    );
+  }
+  if (found > MAX_RANGE_REPORTS) {
+    sink.report('coordinate-out-of-range', ast.geometry!.statement.keyword.span, `${found - MAX_RANGE_REPORTS} more atoms have coordinates beyond ${limit}.`);
+  }
 }
 
 /** A bond joins atoms closer than 1.2 × the sum of their covalent radii (common practice, no source). */

@@ -44,7 +44,7 @@ export function checkScan(context: CheckContext): void {
     const name = model.fragments[shared]!.name;
     sink.report('invalid-scan', scan.statement.keyword.span, `Both scanned atoms are in fragment '${name}'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments.`);
   }
-  const shortest = Math.min(...resolved.distances);
+  const shortest = resolved.distances.reduce((least, d) => Math.min(least, d), Infinity);
   if (resolved.distances.length > 0 && shortest < CLASH_DISTANCE) {
     sink.report('invalid-scan', scan.from.span, `The scan reaches ${shortest.toFixed(3)} Å, closer than ${CLASH_DISTANCE} Å.`);
   }

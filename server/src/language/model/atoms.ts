@@ -7,6 +7,7 @@ import { toAngstrom, type LengthUnit } from '../../chemistry/units';
 import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import { resolveInclude } from '../files';
+import { MAX_ATOMS, SUPPORTED_SIZE } from '../limits';
 import { parseXyz } from '../xyz';
 import type { AtomModel, ModelOptions } from './types';
 
@@ -47,6 +48,11 @@ function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>
   const read = options.files.readFile(resolved.path);
   if (!read.ok) {
     sink.report('include-unreadable', include.span, `Cannot read "${include.value}" (${resolved.path}): ${read.reason}.`);
+    return none;
+  }
+  const declared = Number(read.text.slice(0, read.text.search(/\r?\n|$/)).trim());
+  if (declared > MAX_ATOMS) {
+    sink.report('spec-too-large', include.span, `"${include.value}" says it holds ${declared.toLocaleString('en-US')} atoms; Tessera analyses specs of up to ${SUPPORTED_SIZE}. Split the system into several specs.`);
     return none;
   }
   const xyz = parseXyz(read.text);

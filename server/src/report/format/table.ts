@@ -10,7 +10,7 @@ export interface Table {
 
 export function renderTextTable(table: Table): string {
   const widths = table.headers.map((header, column) =>
-    Math.max(header.length, ...table.rows.map((row) => (row[column] ?? '').length)),
+    table.rows.reduce((most, row) => Math.max(most, (row[column] ?? '').length), header.length),
   );
   const line = (cells: readonly string[]) =>
     cells

@@ -15,14 +15,24 @@ import type { MolecularBasis } from '../../contracts';
 import { cartesianCount } from '../../basis/cartesian';
 import { BOYS_MAX_ORDER, boys } from '../boys';
 import { functionTransform, type FunctionTransform } from '../transform';
+import { compileVrr, type VrrKernel } from './compiled';
 import { buildHrrProgram, buildVrrProgram, OP_FIELDS, type HrrProgram, type VrrProgram } from './programs';
 import type { ShellPairs } from './shellPairs';
 
 const TWO_PI_POW_2_5 = 2 * Math.PI ** 2.5;
 
+/**
+ * Primitive quartets whose prefactor 2π^(5/2) K_ab K_cd / (ζη√(ζ+η)) (the size of their [00|00]^(0)
+ * contribution, F_m ≤ 1) is below this are skipped: a thousand of them change an integral by less
+ * than 1e-12.
+ */
+const PRIMITIVE_QUARTET_THRESHOLD = 1e-15;
+
 /** Everything one angular-momentum class (la ≥ lb | lc ≥ ld, la+lb ≥ lc+ld) needs, with its buffers. */
 interface QuartetClass {
   readonly vrr: VrrProgram;
+  /** The recurrence unrolled (compiled.ts), or null for classes too large to unroll. */
+  readonly kernel: VrrKernel | null;
   readonly braHrr: HrrProgram;
   readonly ketHrr: HrrProgram;
   readonly ta: FunctionTransform;
@@ -43,6 +53,30 @@ interface QuartetClass {
   readonly nd: number;
 }
 
+interface SharedClass {
+  readonly vrr: VrrProgram;
+  readonly kernel: VrrKernel | null;
+  readonly braHrr: HrrProgram;
+  readonly ketHrr: HrrProgram;
+}
+
+/**
+ * Programs and compiled kernels depend on the momenta only, so they are made once per process and
+ * shared by every engine (an SCF guess builds one engine per atom); buffers stay per engine.
+ */
+const sharedClasses = new Map<number, SharedClass>();
+
+function sharedClass(la: number, lb: number, lc: number, ld: number): SharedClass {
+  const key = ((la * 16 + lb) * 16 + lc) * 16 + ld;
+  let shared = sharedClasses.get(key);
+  if (!shared) {
+    const vrr = buildVrrProgram(la, lb, lc, ld);
+    shared = { vrr, kernel: compileVrr(vrr), braHrr: buildHrrProgram(la, lb), ketHrr: buildHrrProgram(lc, ld) };
+    sharedClasses.set(key, shared);
+  }
+  return shared;
+}
+
 export class EriEngine {
   /** The last quartet in layout [c][d][a][b] over functions of shells `c`, `d`, `a`, `b` (below). */
   readonly result: Float64Array;
@@ -61,6 +95,7 @@ export class EriEngine {
   private readonly classes = new Map<number, QuartetClass>();
   private readonly boysValues = new Float64Array(BOYS_MAX_ORDER + 1);
   private readonly geometry = new Float64Array(12);
+  private readonly factors = new Float64Array(5);
   private readonly scratch1: Float64Array;
   private readonly scratch2: Float64Array;
 
@@ -81,9 +116,7 @@ export class EriEngine {
     const key = ((la * 16 + lb) * 16 + lc) * 16 + ld;
     let cls = this.classes.get(key);
     if (!cls) {
-      const vrr = buildVrrProgram(la, lb, lc, ld);
-      const braHrr = buildHrrProgram(la, lb);
-      const ketHrr = buildHrrProgram(lc, ld);
+      const { vrr, kernel, braHrr, ketHrr } = sharedClass(la, lb, lc, ld);
       const kind = this.basis.kind;
       const ta = functionTransform(la, kind);
       const tb = functionTransform(lb, kind);
@@ -93,6 +126,7 @@ export class EriEngine {
       const nb = cartesianCount(lb);
       cls = {
         vrr,
+        kernel,
         braHrr,
         ketHrr,
         ta,
@@ -161,6 +195,7 @@ export class EriEngine {
     const p = this.pairs;
     const f = this.boysValues;
     let sum = 0;
+    const ssssCutoff = PRIMITIVE_QUARTET_THRESHOLD / TWO_PI_POW_2_5;
     const braEnd = p.primStart[bra + 1]!;
     const ketStart = p.primStart[ket]!;
     const ketEnd = p.primStart[ket + 1]!;
@@ -177,9 +212,11 @@ export class EriEngine {
         const dx = px - p.px[j]!;
         const dy = py - p.py[j]!;
         const dz = pz - p.pz[j]!;
+        const weight = p.weight[j]! / Math.sqrt(s);
+        if (Math.abs(wi * weight) < ssssCutoff) continue;
         const t = ((zeta * eta) / s) * (dx * dx + dy * dy + dz * dz);
         boys(0, t, f);
-        partial += (p.weight[j]! * f[0]!) / Math.sqrt(s);
+        partial += weight * f[0]!;
       }
       sum += wi * partial;
     }
@@ -198,6 +235,7 @@ export class EriEngine {
     const allEnd = braEnd + vrr.ketOps * OP_FIELDS;
     const L = vrr.L;
     const targets = vrr.targets;
+    const kernel = cls.kernel;
     const nTargets = targets.length;
     const acc = cls.braRows;
     for (let k = 0; k < nTargets; k++) acc[k] = 0;
@@ -214,17 +252,19 @@ export class EriEngine {
       g[1] = p.pay[i]!;
       g[2] = p.paz[i]!;
       const wi = TWO_PI_POW_2_5 * p.weight[i]!;
+      const halfInverseZeta = 0.5 * p.inverseZeta[i]!;
       for (let j = ketStartIndex; j < ketEndIndex; j++) {
         const eta = p.zeta[j]!;
         const s = zeta + eta;
         const inverseS = 1 / s;
+        const prefactor = wi * p.weight[j]! * Math.sqrt(inverseS);
+        if (Math.abs(prefactor) < PRIMITIVE_QUARTET_THRESHOLD) continue;
         const rho = zeta * eta * inverseS;
         const pqx = px - p.px[j]!;
         const pqy = py - p.py[j]!;
         const pqz = pz - p.pz[j]!;
         const t = rho * (pqx * pqx + pqy * pqy + pqz * pqz);
         boys(L, t, f);
-        const prefactor = wi * p.weight[j]! * Math.sqrt(inverseS);
         for (let m = 0; m <= L; m++) v[m] = prefactor * f[m]!;
         // W − P = −η/(ζ+η) PQ, W − Q = ζ/(ζ+η) PQ.
         const wpScale = -eta * inverseS;
@@ -238,11 +278,20 @@ export class EriEngine {
         g[9] = wqScale * pqx;
         g[10] = wqScale * pqy;
         g[11] = wqScale * pqz;
-        const halfInverseZeta = 0.5 / zeta;
-        const rhoOverZeta = rho / zeta;
-        const halfInverseEta = 0.5 / eta;
-        const rhoOverEta = rho / eta;
+        const halfInverseEta = 0.5 * p.inverseZeta[j]!;
+        const rhoOverZeta = eta * inverseS;
+        const rhoOverEta = zeta * inverseS;
         const halfInverseS = 0.5 * inverseS;
+        if (kernel) {
+          const c = this.factors;
+          c[0] = halfInverseZeta;
+          c[1] = rhoOverZeta;
+          c[2] = halfInverseEta;
+          c[3] = rhoOverEta;
+          c[4] = halfInverseS;
+          kernel(v, g, c, acc);
+          continue;
+        }
         for (let o = 0; o < braEnd; o += OP_FIELDS) {
           const dir = ops[o]!;
           const dst = ops[o + 1]!;

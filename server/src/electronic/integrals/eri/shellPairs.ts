@@ -18,6 +18,7 @@ export interface ShellPairs {
   readonly primStart: Int32Array;
   /** Per primitive pair: ζ, 1/ζ, P (x, y, z), P − A (x, y, z), c_a c_b exp(−μ|AB|²)/ζ. */
   readonly zeta: Float64Array;
+  readonly inverseZeta: Float64Array;
   readonly px: Float64Array;
   readonly py: Float64Array;
   readonly pz: Float64Array;
@@ -49,6 +50,7 @@ export function buildShellPairs(basis: MolecularBasis): ShellPairs {
   let capacity = 0;
   for (let p = 0; p < n; p++) for (let q = 0; q <= p; q++) capacity += shells[p]!.exponents.length * shells[q]!.exponents.length;
   const zeta = new Float64Array(capacity);
+  const inverseZeta = new Float64Array(capacity);
   const px = new Float64Array(capacity);
   const py = new Float64Array(capacity);
   const pz = new Float64Array(capacity);
@@ -83,6 +85,7 @@ export function buildShellPairs(basis: MolecularBasis): ShellPairs {
           const w = (a.coefficients[i]! * b.coefficients[j]! * Math.exp((-alpha * beta * ab2) / z)) / z;
           if (Math.abs(w) * (Math.PI / z) ** 1.5 * z < PRIMITIVE_PAIR_THRESHOLD) continue;
           zeta[prim] = z;
+          inverseZeta[prim] = 1 / z;
           const x = (alpha * a.x + beta * b.x) / z;
           const y = (alpha * a.y + beta * b.y) / z;
           const zz = (alpha * a.z + beta * b.z) / z;
@@ -100,5 +103,5 @@ export function buildShellPairs(basis: MolecularBasis): ShellPairs {
   }
   // Pairs were filled in index order (pairIndex grows with p, then q), so starts are monotone.
   primStart[count] = prim;
-  return { count, pairFirst, pairSecond, primStart, zeta, px, py, pz, pax, pay, paz, weight, abx, aby, abz };
+  return { count, pairFirst, pairSecond, primStart, zeta, inverseZeta, px, py, pz, pax, pay, paz, weight, abx, aby, abz };
 }

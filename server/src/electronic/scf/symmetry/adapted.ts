@@ -19,6 +19,7 @@
  * the geometry is too far from the group for that orbital to belong to one irrep.
  */
 import { type AbelianGroupName, CHARACTER_TABLES, detectSymmetry, type SymmetryResult } from '../../../chemistry/symmetry';
+import { BOHR_IN_ANGSTROM } from '../../../chemistry/units';
 import type { MolecularBasis } from '../../contracts';
 import { DEFAULT_LINEAR_DEPENDENCY_THRESHOLD, multiply, multiplyTransposeA, orthonormalizeColumns, symmetricEigen } from '../../linalg';
 import type { OrbitalBlock, OrbitalSpace } from '../space';
@@ -28,8 +29,6 @@ export const BLOCK_TOLERANCE = 1e-8;
 export const LABEL_WEIGHT = 0.9;
 /** Orbitals closer in energy than this (hartree, relative above 1) count as degenerate for labelling. */
 export const DEGENERACY_TOLERANCE = 1e-6;
-
-const BOHR_TO_ANGSTROM = 0.52917721067; // CODATA 2014; the symmetry module works in Å
 
 export interface BasisOperation {
   readonly name: string;
@@ -77,7 +76,7 @@ export function adaptBasis(basis: MolecularBasis, given?: Pick<SymmetryResult, '
     given ??
     detectSymmetry(
       centers.map((center) => center.atomicNumber),
-      centers.flatMap((center) => [center.x * BOHR_TO_ANGSTROM, center.y * BOHR_TO_ANGSTROM, center.z * BOHR_TO_ANGSTROM]),
+      centers.flatMap((center) => [center.x * BOHR_IN_ANGSTROM, center.y * BOHR_IN_ANGSTROM, center.z * BOHR_IN_ANGSTROM]),
       { nearTolerance: 0 },
     );
   const table = CHARACTER_TABLES[symmetry.abelianGroup];
