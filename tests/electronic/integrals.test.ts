@@ -322,6 +322,30 @@ describe('stored integrals', () => {
     expect(direct.stored).toBe(false);
   });
 
+  it('keep the dearest share when not all fit (semi-direct), with the same J and K and fewer quartets computed later', () => {
+    const direct = createTwoElectronIntegrals(basis, { storageLimitBytes: 0 });
+    const partial = createTwoElectronIntegrals(basis, { storageLimitBytes: 200_000 });
+    expect(partial.storedFraction).toBeGreaterThan(0);
+    expect(partial.storedFraction).toBeLessThan(1);
+    expect(partial.storageBytes).toBeLessThanOrEqual(200_000);
+    const next = random(13);
+    for (let build = 0; build < 3; build++) {
+      const d = [symmetricMatrix(n, next)];
+      const [j1, k1, j2, k2] = [0, 1, 2, 3].map(() => [new Float64Array(n * n)]);
+      direct.buildJK(d, j1!, k1!);
+      partial.buildJK(d, j2!, k2!);
+      if (build > 0) {
+        expect(partial.lastStatistics.quartetsRead).toBeGreaterThan(0);
+        expect(partial.lastStatistics.quartetsComputed).toBeGreaterThan(0);
+        expect(partial.lastStatistics.quartetsComputed).toBeLessThan(direct.lastStatistics.quartetsComputed);
+      }
+      for (let k = 0; k < n * n; k++) {
+        expect(Math.abs(j1![0]![k]! - j2![0]![k]!)).toBeLessThan(1e-11);
+        expect(Math.abs(k1![0]![k]! - k2![0]![k]!)).toBeLessThan(1e-11);
+      }
+    }
+  });
+
   it('are not used by a build whose threshold asks for more than they hold, nor kept half-way when cancelled', () => {
     const eri = createTwoElectronIntegrals(basis);
     const d = [symmetricMatrix(n, random(5))];

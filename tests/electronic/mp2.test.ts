@@ -4,7 +4,7 @@
  * spin-orbital expressions evaluated here directly (Helgaker, Jørgensen & Olsen §14.7).
  */
 import { describe, expect, it } from 'vitest';
-import { frozenCoreOrbitals, mp2, Mp2InputError } from '../../server/src/electronic/correlation';
+import { frozenCoreOrbitals, mp2, Mp2InputError, naturalOrbitalIrreps } from '../../server/src/electronic/correlation';
 import { runScf, type ScfReference } from '../../server/src/electronic/scf';
 import { fixtureCase, loadCase, PSI4_FIXTURE } from './aoIntegralsFixture';
 
@@ -95,6 +95,14 @@ describe('MP2 density and batching', () => {
     expect(small.result.correlationEnergy).toBeCloseTo(whole.result.correlationEnergy, 13);
     small.density.forEach((value, k) => expect(value).toBeCloseTo(whole.density[k]!, 12));
     expect(() => mp2(wavefunction, problem.eri, { memoryBytes: 1000 })).toThrow(Mp2InputError);
+  });
+
+  it('labels the natural orbitals of water: as many per irrep as basis functions (A1 4, B1 1, B2 2 in STO-3G)', () => {
+    const { problem } = water();
+    const { wavefunction } = runScf(problem, TIGHT);
+    const labels = naturalOrbitalIrreps(mp2(wavefunction, problem.eri), problem.basis, problem.overlap);
+    // Functions per irrep of water in STO-3G, C2v, yz plane: psi4 1.3.2, tests/fixtures/irreps.psi4.json.
+    expect({ A1: labels.filter((l) => l === 'A1').length, B1: labels.filter((l) => l === 'B1').length, B2: labels.filter((l) => l === 'B2').length }).toEqual({ A1: 4, B1: 1, B2: 2 });
   });
 
   it('refuses an open-shell reference and an impossible frozen core', () => {

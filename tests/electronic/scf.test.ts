@@ -120,6 +120,10 @@ describe('convergence, progress and bad input', () => {
     expect(result.iterations).toBe(3);
     expect(Number.isFinite(result.energy)).toBe(true);
     expect(result.convergence.gradient).toBeGreaterThan(result.convergence.gradientTolerance);
+    expect(Math.abs(result.convergence.energyChange!)).toBeGreaterThan(0);
+    const converged = runScf(water()).result;
+    expect(Math.abs(converged.convergence.energyChange!)).toBeLessThan(converged.convergence.energyTolerance);
+    expect(runScf(water(), { maxIterations: 1 }).result.convergence.energyChange).toBeNull();
   });
 
   it('throws CancelledError when cancelled mid-run', () => {

@@ -1,14 +1,13 @@
 /**
  * The language server: a thin adapter between the LSP connection and the language service.
- * Transport (stdio or node IPC) comes from the command line, as vscode-languageserver reads it.
+ * Transport (stdio, node IPC, socket or pipe) comes from the command line (transport.ts, which also
+ * holds back malformed input and requests the protocol forbids before `initialize` or after `shutdown`).
  */
 import {
   CodeActionKind,
-  createConnection,
   LSPErrorCodes,
   DidChangeConfigurationNotification,
   DidChangeWatchedFilesNotification,
-  ProposedFeatures,
   ResponseError,
   TextDocuments,
   TextDocumentSyncKind,
@@ -24,6 +23,7 @@ import * as service from '../services';
 import { AnalysisHost, type AnalysisSettings } from '../analysis';
 import { CoalescingScheduler, pathToUri, uriToPath } from './documents';
 import { FailureReporter } from './guard';
+import { openServerConnection } from './transport';
 import { warmUp } from './warmUp';
 
 /** Semantic-token results kept per document for deltas. */
@@ -65,7 +65,7 @@ function readSettings(raw: unknown): EditorSettings {
   };
 }
 
-export function startLanguageServer(connection: Connection = createConnection(ProposedFeatures.all, { cancelUndispatched })): Connection {
+export function startLanguageServer(connection: Connection = openServerConnection(process.argv.slice(2), { cancelUndispatched })): Connection {
   const documents = new TextDocuments(TextDocument);
   const cache = new AnalysisHost({ open: (uri) => documents.get(uri), pathOf: uriToPath, uriOf: pathToUri });
   const scheduler = new CoalescingScheduler();

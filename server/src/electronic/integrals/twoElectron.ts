@@ -30,8 +30,8 @@ const CANCEL_CHECK_INTERVAL = 64;
  */
 export const STORED_QUARTET_BOUND = 1e-14;
 
-/** Default memory for stored integrals: above it, every build is direct. */
-export const DEFAULT_STORAGE_LIMIT_BYTES = 256 * 2 ** 20;
+/** Default memory for stored integrals. */
+export const DEFAULT_STORAGE_LIMIT_BYTES = 512 * 2 ** 20;
 
 export interface JkStatistics {
   /** Unique shell quartets computed in the last buildJK (0 when it read stored integrals). */
@@ -44,9 +44,10 @@ export interface JkStatistics {
 
 export interface TwoElectronOptions {
   /**
-   * Keep the integrals of the first J/K build in memory and read them in later builds when they fit
-   * in this many bytes (default 256 MiB); 0 makes every build direct. The size is counted from the
-   * Schwarz bounds before anything is stored, so a large basis never tries.
+   * Memory for integrals kept from the first J/K build and read by later builds (default 512 MiB;
+   * 0 makes every build direct). When not all fit, the quartets that are dearest to compute for
+   * the memory they take (primitive quartets × 2^L per value) are kept and the rest recomputed
+   * (semi-direct). The sizes are counted from the Schwarz bounds before anything is stored.
    */
   readonly storageLimitBytes?: number;
 }
@@ -54,19 +55,22 @@ export interface TwoElectronOptions {
 export interface DirectTwoElectronIntegrals extends TwoElectronIntegrals {
   /** Counts of the last buildJK, for benchmarks and progress. */
   readonly lastStatistics: JkStatistics;
-  /** Bytes the stored integrals take or would take (values and quartet indices). */
+  /** Bytes the stored integrals take (all, or the dearest share that fits the limit). */
   readonly storageBytes: number;
+  /** Fraction of the screened integral values kept in memory (1: all, 0: direct). */
+  readonly storedFraction: number;
   /** Whether builds read stored integrals (true once the first build has stored them). */
   readonly stored: boolean;
 }
 
-/** Integrals kept from the first build: shells (a, b, c, d) per quartet and its values, in order. */
+/**
+ * Integrals kept from the first build: the values of every quartet whose cost per value reaches
+ * `cutoff`, in the order the builds visit quartets (a build walks the same order and so finds each
+ * stored quartet at the running offset).
+ */
 interface Storage {
-  readonly quartets: Int32Array;
   readonly values: Float64Array;
-  /** Schwarz bound of each quartet. */
-  readonly bounds: Float64Array;
-  count: number;
+  readonly cutoff: number;
   filled: boolean;
 }
 
@@ -80,18 +84,17 @@ export function createTwoElectronIntegrals(basis: MolecularBasis, options: TwoEl
   const engine = new EriEngine(basis, pairs);
   const schwarzValues = computeSchwarz(engine, pairs);
   const order = Int32Array.from({ length: pairs.count }, (_, k) => k).sort((x, y) => schwarzValues[y]! - schwarzValues[x]!);
-  const { quartets, values } = countStored(basis, pairs, schwarzValues, order);
-  const storageBytes = quartets * (4 * 4 + 8) + values * 8;
-  let storage: Storage | null =
-    storageBytes <= (options.storageLimitBytes ?? DEFAULT_STORAGE_LIMIT_BYTES)
-      ? { quartets: new Int32Array(4 * quartets), values: new Float64Array(values), bounds: new Float64Array(quartets), count: 0, filled: false }
-      : null;
+  const cost = pairCosts(basis, pairs);
+  const plan = planStorage(pairs, schwarzValues, order, cost, options.storageLimitBytes ?? DEFAULT_STORAGE_LIMIT_BYTES);
+  const storage: Storage | null = plan ? { values: new Float64Array(plan.values), cutoff: plan.cutoff, filled: false } : null;
+  const storageBytes = plan ? plan.values * 8 : 0;
   let statistics: JkStatistics = { quartetsComputed: 0, quartetsSkipped: 0, quartetsRead: 0 };
-  const context: JkContext = { basis, engine, pairs, schwarz: schwarzValues, order };
+  const context: JkContext = { basis, engine, pairs, schwarz: schwarzValues, order, cost };
 
   return {
     basis,
     storageBytes,
+    storedFraction: plan ? plan.fraction : 0,
     get stored() {
       return storage?.filled ?? false;
     },
@@ -107,43 +110,78 @@ export function createTwoElectronIntegrals(basis: MolecularBasis, options: TwoEl
       const threshold = buildOptions?.threshold ?? 1e-12;
       const cancel = buildOptions?.cancel;
       const prepared = prepareBuild(basis, densities, J, K);
-      const usable = storage && threshold / Math.max(prepared.densityMax, 1e-300) >= STORED_QUARTET_BOUND;
-      if (usable && storage!.filled) {
-        statistics = buildFromStorage(context, storage!, prepared, densities, J, K, threshold, cancel);
-      } else {
-        try {
-          statistics = buildDirect(context, prepared, densities, J, K, threshold, cancel, usable ? storage : null);
-        } catch (error) {
-          // A build stopped part-way leaves nothing half-stored.
-          if (storage) storage.count = 0;
-          throw error;
-        }
-      }
+      const usable = storage !== null && threshold / Math.max(prepared.densityMax, 1e-300) >= STORED_QUARTET_BOUND;
+      // A build stopped part-way leaves the storage unfilled (filled is set at the end), so the next fills it again.
+      statistics = buildPass(context, prepared, densities, J, K, threshold, cancel, usable ? storage : null);
       finishBuild(basis, J, K);
     },
   };
 }
 
-/** The quartets and values stored integrals would hold: every quartet with Schwarz bound ≥ STORED_QUARTET_BOUND. */
-function countStored(basis: MolecularBasis, pairs: ShellPairs, schwarz: Float64Array, order: Int32Array): { quartets: number; values: number } {
+/** Per shell pair: functions, primitive pairs and total momentum, for the cost of its quartets. */
+interface PairCosts {
+  readonly size: Float64Array;
+  readonly primitives: Float64Array;
+  readonly momentum: Int32Array;
+}
+
+function pairCosts(basis: MolecularBasis, pairs: ShellPairs): PairCosts {
   const shells = basis.shells;
-  const pairSize = new Float64Array(pairs.count);
-  for (let k = 0; k < pairs.count; k++) pairSize[k] = shells[pairs.pairFirst[k]!]!.size * shells[pairs.pairSecond[k]!]!.size;
-  let quartets = 0;
-  let values = 0;
+  const size = new Float64Array(pairs.count);
+  const primitives = new Float64Array(pairs.count);
+  const momentum = new Int32Array(pairs.count);
+  for (let k = 0; k < pairs.count; k++) {
+    const a = shells[pairs.pairFirst[k]!]!;
+    const b = shells[pairs.pairSecond[k]!]!;
+    size[k] = a.size * b.size;
+    primitives[k] = Math.max(1, pairs.primStart[k + 1]! - pairs.primStart[k]!);
+    momentum[k] = a.l + b.l;
+  }
+  return { size, primitives, momentum };
+}
+
+/**
+ * Work per stored value of a quartet: primitive quartets × 2^L (the recurrence grows about so with
+ * the total momentum L) over its values. Stored quartets are those at or above a cutoff of this.
+ */
+function costPerValue(cost: PairCosts, pq: number, rs: number): number {
+  return (cost.primitives[pq]! * cost.primitives[rs]! * 2 ** (cost.momentum[pq]! + cost.momentum[rs]!)) / (cost.size[pq]! * cost.size[rs]!);
+}
+
+/**
+ * What to store: everything with a Schwarz bound ≥ STORED_QUARTET_BOUND when it fits the limit,
+ * else the dearest quartets (cost per value at or above a power-of-two cutoff) that fit; null when
+ * nothing useful fits.
+ */
+function planStorage(pairs: ShellPairs, schwarz: Float64Array, order: Int32Array, cost: PairCosts, limitBytes: number): { values: number; cutoff: number; fraction: number } | null {
+  if (limitBytes <= 0) return null;
+  // Values per cost bin (bin k: cost per value in [2^(k−32), 2^(k−31))).
+  const BINS = 96;
+  const valuesInBin = new Float64Array(BINS);
+  let total = 0;
   for (let ii = 0; ii < pairs.count; ii++) {
     const pq = order[ii]!;
     const q = schwarz[pq]!;
     if (q * q < STORED_QUARTET_BOUND) break;
-    const size = pairSize[pq]!;
     for (let jj = ii; jj < pairs.count; jj++) {
       const rs = order[jj]!;
       if (q * schwarz[rs]! < STORED_QUARTET_BOUND) break;
-      quartets++;
-      values += size * pairSize[rs]!;
+      const values = cost.size[pq]! * cost.size[rs]!;
+      const bin = Math.min(BINS - 1, Math.max(0, Math.floor(Math.log2(costPerValue(cost, pq, rs))) + 32));
+      valuesInBin[bin]! += values;
+      total += values;
     }
   }
-  return { quartets, values };
+  const limitValues = Math.floor(limitBytes / 8);
+  if (total <= limitValues) return total > 0 ? { values: total, cutoff: 0, fraction: 1 } : null;
+  let kept = 0;
+  let bin = BINS - 1;
+  for (; bin >= 0; bin--) {
+    if (kept + valuesInBin[bin]! > limitValues) break;
+    kept += valuesInBin[bin]!;
+  }
+  if (kept === 0) return null;
+  return { values: kept, cutoff: 2 ** (bin + 1 - 32), fraction: kept / total };
 }
 
 function computeSchwarz(engine: EriEngine, pairs: ShellPairs): Float64Array {
@@ -201,6 +239,7 @@ interface JkContext {
   readonly pairs: ShellPairs;
   readonly schwarz: Float64Array;
   readonly order: Int32Array;
+  readonly cost: PairCosts;
 }
 
 interface PreparedBuild {
@@ -248,7 +287,12 @@ function densityBound(blockMax: Float64Array, nShells: number, P: number, Q: num
   return dm;
 }
 
-function buildDirect(
+/**
+ * One J/K build: walks the unique quartets in decreasing Schwarz order; each needed quartet is
+ * read from the storage when it is kept there (after the first build) or computed. The first build
+ * with a storage computes and keeps every quartet the storage holds, needed now or not.
+ */
+function buildPass(
   context: JkContext,
   prepared: PreparedBuild,
   densities: readonly Float64Array[],
@@ -258,18 +302,21 @@ function buildDirect(
   cancel: CancelToken | undefined,
   storage: Storage | null,
 ): JkStatistics {
-  const { basis, engine, pairs, schwarz, order } = context;
+  const { basis, engine, pairs, schwarz, order, cost } = context;
   const { blockMax, densityMax } = prepared;
   const nShells = basis.shells.length;
   const count = pairs.count;
   const wantJ = J !== null;
   const wantK = K !== null;
-  // When storing, every quartet with a bound above STORED_QUARTET_BOUND is computed.
+  const filling = storage !== null && !storage.filled;
+  // With a storage every quartet it may hold is visited, so that the running offset stays in step.
   const bound0 = storage ? STORED_QUARTET_BOUND : threshold / Math.max(densityMax, 1e-300);
+  const cutoff = storage ? storage.cutoff : Number.POSITIVE_INFINITY;
+  const stored = storage ? storage.values : null;
   let computed = 0;
   let skipped = 0;
-  let valueOffset = 0;
-  if (storage) storage.count = 0;
+  let read = 0;
+  let offset = 0;
   throwIfCancelled(cancel);
   for (let ii = 0; ii < count; ii++) {
     const pq = order[ii]!;
@@ -277,76 +324,47 @@ function buildDirect(
     if (qpq * qpq < bound0) break;
     const P = pairs.pairFirst[pq]!;
     const Q = pairs.pairSecond[pq]!;
+    const sizePQ = cost.size[pq]!;
     for (let jj = ii; jj < count; jj++) {
       const rs = order[jj]!;
       const bound = qpq * schwarz[rs]!;
       if (bound < bound0) break;
-      const dm = densityBound(blockMax, nShells, P, Q, pairs.pairFirst[rs]!, pairs.pairSecond[rs]!, wantJ, wantK);
-      const needed = bound * dm >= threshold;
-      if (!needed && !storage) {
+      const R = pairs.pairFirst[rs]!;
+      const S = pairs.pairSecond[rs]!;
+      const needed = bound * densityBound(blockMax, nShells, P, Q, R, S, wantJ, wantK) >= threshold;
+      const keep = stored !== null && costPerValue(cost, pq, rs) >= cutoff;
+      if (keep && !filling) {
+        if (needed) {
+          // Stored in the engine's layout; the engine's orientation depends on the pairs only.
+          engine.orient(pq, rs);
+          scatter(basis, engine.a, engine.b, engine.c, engine.d, stored, offset, densities, J, K);
+          read++;
+        } else {
+          skipped++;
+        }
+        offset += sizePQ * cost.size[rs]!;
+        if ((read + skipped) % 1024 === 0) throwIfCancelled(cancel);
+        continue;
+      }
+      if (!needed && !keep) {
         skipped++;
         continue;
       }
       engine.compute(pq, rs);
       computed++;
-      const size = engine.sizeA * engine.sizeB * engine.sizeC * engine.sizeD;
-      if (storage) {
-        const k = storage.count++;
-        storage.quartets[4 * k] = engine.a;
-        storage.quartets[4 * k + 1] = engine.b;
-        storage.quartets[4 * k + 2] = engine.c;
-        storage.quartets[4 * k + 3] = engine.d;
-        storage.bounds[k] = bound;
-        const stored = storage.values;
+      if (keep) {
+        const size = sizePQ * cost.size[rs]!;
         const result = engine.result;
-        for (let i = 0; i < size; i++) stored[valueOffset + i] = result[i]!;
-        valueOffset += size;
+        for (let i = 0; i < size; i++) stored![offset + i] = result[i]!;
+        offset += size;
       }
       if (needed) scatter(basis, engine.a, engine.b, engine.c, engine.d, engine.result, 0, densities, J, K);
       else skipped++;
       if (computed % CANCEL_CHECK_INTERVAL === 0) throwIfCancelled(cancel);
     }
   }
-  if (storage) storage.filled = true;
-  return { quartetsComputed: computed, quartetsSkipped: skipped, quartetsRead: 0 };
-}
-
-function buildFromStorage(
-  context: JkContext,
-  storage: Storage,
-  prepared: PreparedBuild,
-  densities: readonly Float64Array[],
-  J: Float64Array[] | null,
-  K: Float64Array[] | null,
-  threshold: number,
-  cancel: CancelToken | undefined,
-): JkStatistics {
-  const { basis } = context;
-  const shells = basis.shells;
-  const nShells = shells.length;
-  const wantJ = J !== null;
-  const wantK = K !== null;
-  const q = storage.quartets;
-  let offset = 0;
-  let read = 0;
-  let skipped = 0;
-  throwIfCancelled(cancel);
-  for (let k = 0; k < storage.count; k++) {
-    const a = q[4 * k]!;
-    const b = q[4 * k + 1]!;
-    const c = q[4 * k + 2]!;
-    const d = q[4 * k + 3]!;
-    const size = shells[a]!.size * shells[b]!.size * shells[c]!.size * shells[d]!.size;
-    if (storage.bounds[k]! * densityBound(prepared.blockMax, nShells, a, b, c, d, wantJ, wantK) >= threshold) {
-      scatter(basis, a, b, c, d, storage.values, offset, densities, J, K);
-      read++;
-    } else {
-      skipped++;
-    }
-    offset += size;
-    if ((k & 1023) === 0) throwIfCancelled(cancel);
-  }
-  return { quartetsComputed: 0, quartetsSkipped: skipped, quartetsRead: read };
+  if (filling) storage!.filled = true;
+  return { quartetsComputed: computed, quartetsSkipped: skipped, quartetsRead: read };
 }
 
 function finishBuild(basis: MolecularBasis, J: Float64Array[] | null, K: Float64Array[] | null): void {

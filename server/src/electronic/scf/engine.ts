@@ -107,7 +107,8 @@ export interface ScfWavefunction {
   readonly nuclearRepulsion: number;
   readonly converged: boolean;
   readonly iterations: number;
-  readonly energyChange: number;
+  /** Energy change of the last iteration; null after a single iteration. */
+  readonly energyChange: number | null;
   readonly gradient: number;
 }
 
@@ -143,7 +144,7 @@ export function solveScf(problem: ScfProblem, space: OrbitalSpace, options: ScfO
     reference,
     energyTolerance: options.energyTolerance ?? SCF_DEFAULTS.energyTolerance,
     gradientTolerance: options.gradientTolerance ?? SCF_DEFAULTS.gradientTolerance,
-    maxIterations: options.maxIterations ?? SCF_DEFAULTS.maxIterations,
+    maxIterations: Math.max(1, Math.floor(options.maxIterations ?? SCF_DEFAULTS.maxIterations)),
     diisSize: options.diisSize ?? SCF_DEFAULTS.diisSize,
     levelShift: options.levelShift ?? SCF_DEFAULTS.levelShift,
     integralThreshold: options.integralThreshold ?? SCF_DEFAULTS.integralThreshold,
@@ -252,6 +253,7 @@ class ScfRun {
     let energy = NaN;
     let previous = NaN;
     let gradient = Infinity;
+    let lastChange: number | null = null;
     let converged = false;
     let iterations = 0;
     let shiftLeft = 0;
@@ -265,6 +267,7 @@ class ScfRun {
       gradient = this.buildSolveMatrices();
       const change = energy - previous;
       previous = energy;
+      lastChange = Number.isNaN(change) ? null : change;
       const accelerator = shiftLeft > 0 ? 'level-shift' : 'diis';
       options.onProgress?.({ iteration, energy, energyChange: change, gradient, accelerator });
       if (Math.abs(change) < settings.energyTolerance && gradient < settings.gradientTolerance) {
@@ -303,7 +306,7 @@ class ScfRun {
     // Orbitals of the final Fock matrix, without extrapolation or shift.
     this.buildSolveMatrices();
     this.diagonalize();
-    return this.wavefunction(energy, converged, iterations, energy - (Number.isNaN(previous) ? energy : previous), gradient);
+    return this.wavefunction(energy, converged, iterations, lastChange, gradient);
   }
 
   /** Starting orbitals from the guess density's RHF-like Fock matrix (or from H). */
@@ -539,7 +542,7 @@ class ScfRun {
     });
   }
 
-  private wavefunction(energy: number, converged: boolean, iterations: number, energyChange: number, gradient: number): ScfWavefunction {
+  private wavefunction(energy: number, converged: boolean, iterations: number, energyChange: number | null, gradient: number): ScfWavefunction {
     const n = this.n;
     const mTotal = this.space.m;
     const spinData = (spin: 0 | 1) => {

@@ -17,7 +17,7 @@ export interface MeanFieldResult {
   readonly nuclearRepulsion: number;
   readonly converged: boolean;
   readonly iterations: number;
-  readonly convergence: { readonly energyChange: number; readonly gradient: number; readonly energyTolerance: number; readonly gradientTolerance: number };
+  readonly convergence: { readonly energyChange: number | null; readonly gradient: number; readonly energyTolerance: number; readonly gradientTolerance: number };
   readonly electrons: { readonly alpha: number; readonly beta: number };
   readonly functionCount: number;
   /** Molecular orbitals (functions less linear dependencies dropped). */

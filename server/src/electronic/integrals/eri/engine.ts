@@ -86,6 +86,8 @@ export class EriEngine {
   d = 0;
   /** Whether (a, b) came from the second pair given to compute() (the bra is the larger pair). */
   swapped = false;
+  braPair = 0;
+  ketPair = 0;
   /** Function counts of shells a, b, c, d of the last quartet. */
   sizeA = 0;
   sizeB = 0;
@@ -153,33 +155,14 @@ export class EriEngine {
    * order (pairFirst, pairSecond). Sets a, b, c, d and their sizes.
    */
   compute(pair1: number, pair2: number): void {
-    const pairs = this.pairs;
+    this.orient(pair1, pair2);
+    const bra = this.braPair;
+    const ket = this.ketPair;
     const shells = this.basis.shells;
-    let bra = pair1;
-    let ket = pair2;
-    const l1 = shells[pairs.pairFirst[pair1]!]!.l + shells[pairs.pairSecond[pair1]!]!.l;
-    const l2 = shells[pairs.pairFirst[pair2]!]!.l + shells[pairs.pairSecond[pair2]!]!.l;
-    this.swapped = l2 > l1;
-    if (this.swapped) {
-      bra = pair2;
-      ket = pair1;
-    }
-    const a = pairs.pairFirst[bra]!;
-    const b = pairs.pairSecond[bra]!;
-    const c = pairs.pairFirst[ket]!;
-    const d = pairs.pairSecond[ket]!;
-    this.a = a;
-    this.b = b;
-    this.c = c;
-    this.d = d;
-    const sa = shells[a]!;
-    const sb = shells[b]!;
-    const sc = shells[c]!;
-    const sd = shells[d]!;
-    this.sizeA = sa.size;
-    this.sizeB = sb.size;
-    this.sizeC = sc.size;
-    this.sizeD = sd.size;
+    const sa = shells[this.a]!;
+    const sb = shells[this.b]!;
+    const sc = shells[this.c]!;
+    const sd = shells[this.d]!;
     const cls = this.classFor(sa.l, sb.l, sc.l, sd.l);
     if (cls.vrr.L === 0) {
       this.result[0] = this.contractSsss(bra, ket);
@@ -188,6 +171,30 @@ export class EriEngine {
     this.contract(cls, bra, ket);
     this.horizontal(cls, bra, ket);
     this.toFunctions(cls);
+  }
+
+  /**
+   * Sets a, b, c, d, their sizes and `swapped` for the quartet of two pairs without computing it
+   * (the layout compute() would use), and braPair / ketPair.
+   */
+  orient(pair1: number, pair2: number): void {
+    const pairs = this.pairs;
+    const shells = this.basis.shells;
+    const l1 = shells[pairs.pairFirst[pair1]!]!.l + shells[pairs.pairSecond[pair1]!]!.l;
+    const l2 = shells[pairs.pairFirst[pair2]!]!.l + shells[pairs.pairSecond[pair2]!]!.l;
+    this.swapped = l2 > l1;
+    const bra = this.swapped ? pair2 : pair1;
+    const ket = this.swapped ? pair1 : pair2;
+    this.a = pairs.pairFirst[bra]!;
+    this.b = pairs.pairSecond[bra]!;
+    this.c = pairs.pairFirst[ket]!;
+    this.d = pairs.pairSecond[ket]!;
+    this.sizeA = shells[this.a]!.size;
+    this.sizeB = shells[this.b]!.size;
+    this.sizeC = shells[this.c]!.size;
+    this.sizeD = shells[this.d]!.size;
+    this.braPair = bra;
+    this.ketPair = ket;
   }
 
   /** (ss|ss): the sum over primitive quartets of the prefactor times F_0. */
