@@ -4,7 +4,7 @@
  * arrive as an AtomTable; other blocks are read line by line here.
  */
 import { elementBySymbol } from '../../chemistry/elements';
-import { atomListOf, atomListOfTable, type AtomAst, type GeometryAst, type Located } from '../ast';
+import { atomListOf, atomListOfMixed, type AtomAst, type GeometryAst, type Located } from '../ast';
 import { didYouMean } from '../suggest';
 import type { Statement } from '../syntax';
 import { joinSpans } from '../text';
@@ -64,7 +64,15 @@ export function readGeometry(reader: StatementReader, statement: Statement): Geo
   if (include) return { statement, atoms: atomListOf([]), include };
   // A block after a malformed `… from` is reported above and not read.
   if (!statement.block || (first && !header)) return withUnit({ statement, atoms: atomListOf([]) });
-  if (statement.block.atomTable) return withUnit({ statement, atoms: atomListOfTable(statement.block.atomTable) });
+  if (statement.block.atomTable) {
+    // The fast reader's rows, and the lines it left to the general parser.
+    const others: AtomAst[] = [];
+    for (const line of statement.block.otherStatements ?? []) {
+      const atom = readAtomLine(reader, line);
+      if (atom) others.push(atom);
+    }
+    return withUnit({ statement, atoms: atomListOfMixed(statement.block.atomTable, others) });
+  }
   const atoms: AtomAst[] = [];
   for (const line of statement.block.statements) {
     const atom = readAtomLine(reader, line);
