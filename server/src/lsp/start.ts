@@ -1,13 +1,12 @@
 /**
  * The language server: a thin adapter between the LSP connection and the language service.
- * Transport (stdio or node IPC) comes from the command line, as vscode-languageserver reads it.
+ * Transport (stdio, node IPC, socket or pipe) comes from the command line (transport.ts, which also
+ * holds back malformed input and requests the protocol forbids before `initialize` or after `shutdown`).
  */
 import {
   CodeActionKind,
-  createConnection,
   DidChangeConfigurationNotification,
   DidChangeWatchedFilesNotification,
-  ProposedFeatures,
   ResponseError,
   TextDocuments,
   TextDocumentSyncKind,
@@ -21,6 +20,7 @@ import * as service from '../services';
 import { AnalysisHost, type AnalysisSettings } from '../analysis';
 import { Debouncer, pathToUri, uriToPath } from './documents';
 import { FailureReporter } from './guard';
+import { openServerConnection } from './transport';
 
 /** Quiet time after the last keystroke before diagnostics are recomputed. */
 const DIAGNOSTICS_DELAY_MS = 20;
@@ -48,7 +48,7 @@ function readSettings(raw: unknown): EditorSettings {
   };
 }
 
-export function startLanguageServer(connection: Connection = createConnection(ProposedFeatures.all)): Connection {
+export function startLanguageServer(connection: Connection = openServerConnection()): Connection {
   const documents = new TextDocuments(TextDocument);
   const cache = new AnalysisHost({ open: (uri) => documents.get(uri), pathOf: uriToPath, uriOf: pathToUri });
   const debouncer = new Debouncer(DIAGNOSTICS_DELAY_MS);
