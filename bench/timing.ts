@@ -4,6 +4,7 @@ export interface Timing {
   readonly median: number;
   readonly p95: number;
   readonly min: number;
+  readonly max: number;
   readonly runs: number;
 }
 
@@ -15,7 +16,7 @@ export function percentile(sorted: readonly number[], fraction: number): number 
 
 export function summarize(samples: readonly number[]): Timing {
   const sorted = [...samples].sort((a, b) => a - b);
-  return { median: percentile(sorted, 0.5), p95: percentile(sorted, 0.95), min: sorted[0] ?? NaN, runs: sorted.length };
+  return { median: percentile(sorted, 0.5), p95: percentile(sorted, 0.95), min: sorted[0] ?? NaN, max: sorted[sorted.length - 1] ?? NaN, runs: sorted.length };
 }
 
 /** Times `work` after `warmup` untimed runs, in milliseconds. */

@@ -6,6 +6,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { analyzeDocument, SYMMETRY_ATOM_LIMIT } from '../../server/src/analysis';
 import { countBySymmetry } from '../../server/src/chemistry/estimate/pauliTerms';
 import { doHover, getCodeLenses, getInlayHints } from '../../server/src/services';
+import { WATER_LINES } from '../fixtures/water';
 import { positionOf, readSample } from '../services/service';
 
 /** Water at Hoy & Bunker's structure (1979), placed as in tests/fixtures/water.ts. */

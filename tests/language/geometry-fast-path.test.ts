@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { waterBoxSpec } from '../../bench/generate';
 import { analyze } from '../../server/src/language/analyze';
-import { extractGeometryBodies, readNumber } from '../../server/src/language/geometryFastPath';
+import { changedRange, extractGeometryBodies, readNumber, rereadChangedLines } from '../../server/src/language/geometryFastPath';
 import { parseSpec } from '../../server/src/language/parser';
 import type { Statement } from '../../server/src/language/syntax';
 
@@ -45,11 +45,29 @@ function expectSameReading(text: string): void {
 }
 
 describe('fast geometry reader', () => {
-  it('is used for plain geometry blocks and declines anything else', () => {
+  it('reads plain lines, leaves other lines to the general parser, and declines blocks whose structure needs it', () => {
     expect(extractGeometryBodies('geometry {\n  O o 0 0 0 # oxygen\n  H 0 0 1\n}\n').blocks).toHaveLength(1);
-    for (const body of ['H 0 0', 'H "x" 0 0 0', 'H 0 0 0; H 1 1 1', 'H #1 0 0', 'Xx 0 0 0', 'fragment a', 'H 0 0 1e999', 'H 6-31g 0 0 0', '{ }']) {
+    for (const body of ['H 0 0', 'H 0 0 0; H 1 1 1', 'H #1 0 0', 'Xx 0 0 0', 'H 0 0 1e999', 'H 6-31g 0 0 0', 'H 1 2 3 4 5 6']) {
+      const text = `geometry {\n  O 0 0 0\n ${body}\n  H 0 0 1\n}\n`;
+      const { blocks, masked } = extractGeometryBodies(text);
+      expect(blocks, body).toHaveLength(1);
+      expect(blocks[0]!.table.count, body).toBe(2);
+      expect(blocks[0]!.handedOver.map((line) => text.slice(line.start, line.end).trim()), body).toEqual([body]);
+      // Only the handed-over line is left for the general parser, on a line of its own.
+      expect(masked.replace(/\s+/g, ' ')).toBe(`geometry { ${body} } `);
+    }
+    for (const body of ['H "x" 0 0 0', 'fragment a', '{ }']) {
       expect(extractGeometryBodies(`geometry {\n ${body}\n}\n`).blocks, body).toHaveLength(0);
     }
+  });
+
+  it('costs one line for one bad line: the other lines stay in the table', () => {
+    const spec = waterBoxSpec(300).text;
+    const broken = spec.replace('\n  H ', '\n  C 1.5 2.5\n  H ');
+    const block = parseSpec(broken).statements.find((statement) => statement.keyword.text === 'geometry')!.block!;
+    expect(block.atomTable!.count).toBe(waterBoxSpec(300).atoms);
+    expect(block.otherStatements!.map((statement) => broken.slice(statement.span.start, statement.span.end))).toEqual(['C 1.5 2.5']);
+    expectSameReading(broken);
   });
 
   it('reads every sample exactly as the general parser does', () => {
@@ -94,6 +112,58 @@ describe('fast geometry reader', () => {
         expect(Object.is(readNumber(field, 0, field.length), Number(field))).toBe(true);
       }),
       { numRuns: 2000 },
+    );
+  });
+});
+
+describe('reading only what changed', () => {
+  /** The tree parsed from scratch and the tree parsed with the previous version's reading agree. */
+  function expectSameIncremental(before: string, after: string): void {
+    const previous = { text: before, tree: parseSpec(before) };
+    const incremental = parseSpec(after, { previous });
+    const fresh = parseSpec(after);
+    expect(plain(incremental.statements)).toEqual(plain(fresh.statements));
+    expect(incremental.comments).toEqual(fresh.comments);
+    expect(incremental.problems).toEqual(fresh.problems);
+    const tables = (tree: typeof fresh) => tree.geometryBlocks?.map((block) => ({ ...block, table: { ...block.table, labels: [...block.table.labels] } }));
+    expect(tables(incremental)).toEqual(tables(fresh));
+  }
+
+  it('reuses the rows before and after an edited line', () => {
+    const base = waterBoxSpec(60).text;
+    const digit = base.indexOf('\n', base.indexOf('geometry {') + 40) - 1;
+    const edited = `${base.slice(0, digit)}7${base.slice(digit + 1)}`;
+    expect(changedRange(base, edited)).toEqual({ start: digit, oldEnd: digit + 1, newEnd: digit + 1 });
+    // The edit is inside the block: only its line is read again.
+    expect(rereadChangedLines(edited, { text: base, blocks: parseSpec(base).geometryBlocks! })).toBeDefined();
+    expectSameIncremental(base, edited);
+    // An edit outside the block reads everything again.
+    expect(rereadChangedLines(base.replace('basis sto-3g', 'basis sto-6g'), { text: base, blocks: parseSpec(base).geometryBlocks! })).toBeUndefined();
+    // A new line typed character by character, through malformed states.
+    const line = '\n  C c9 1.5 -2.25 3e-1 # new';
+    const at = base.indexOf('\n', base.indexOf('geometry {'));
+    let before = base;
+    for (let k = 1; k <= line.length; k++) {
+      const after = `${base.slice(0, at)}${line.slice(0, k)}${base.slice(at)}`;
+      expectSameIncremental(before, after);
+      before = after;
+    }
+  });
+
+  it('agrees with a fresh reading after random edits anywhere', () => {
+    const base = `basis sto-3g\ngeometry {\n  O o 0 0 0 # oxygen\n  H 0 0.75695 0.585882\n  H 0 -0.75695 0.585882\n  C 1 2 3\n}\nfragment f { atoms rest }\n`;
+    const insert = fc.constantFrom('1', '.', '-', ' ', '\n', '\n  H 0 0 0', '#', '#3', ';', '}', '{', '"', 'geometry {', 'fragment x', 'Xx', 'e5', '');
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.nat(), fc.nat({ max: 4 }), insert), { minLength: 1, maxLength: 6 }), (edits) => {
+        let text = base;
+        for (const [position, remove, inserted] of edits) {
+          const at = position % (text.length + 1);
+          const next = `${text.slice(0, at)}${inserted}${text.slice(Math.min(text.length, at + remove))}`;
+          expectSameIncremental(text, next);
+          text = next;
+        }
+      }),
+      { numRuns: 500 },
     );
   });
 });

@@ -12,6 +12,7 @@ import { estimatePlan, type PlanEstimate, type PlanInput } from '../chemistry/es
 import { orbitalSymmetry, type OrbitalSymmetry } from '../chemistry/symmetry';
 import type { Mapping } from '../chemistry/qubits';
 import type { SpecModel } from '../language/model';
+import { InputMemo } from './memo';
 
 /**
  * Point groups are looked for in atom sets up to this many atoms (the whole system with the
@@ -28,6 +29,10 @@ export interface SystemCounts {
 }
 
 const PLAN_EMBEDDINGS = new Set(['dmet', 'projection', 'subtractive']);
+
+/** Point groups of atom sets and plan estimates, by their full inputs, across versions and documents. */
+const SYMMETRIES = new InputMemo<OrbitalSymmetry | undefined>(64);
+const PLANS = new InputMemo<PlanEstimate | undefined>(256);
 
 export class Estimates {
   private systemSymmetryCache: OrbitalSymmetry | undefined | null = null;
@@ -110,12 +115,14 @@ export class Estimates {
   private computePlan(index: number): PlanEstimate | undefined {
     const input = this.planInput(index);
     if (!input) return undefined;
-    try {
-      return estimatePlan(input);
-    } catch {
-      // Sizes outside what the counting rules accept (reported by the checks); no estimate.
-      return undefined;
-    }
+    return PLANS.get(JSON.stringify(input), () => {
+      try {
+        return estimatePlan(input);
+      } catch {
+        // Sizes outside what the counting rules accept (reported by the checks); no estimate.
+        return undefined;
+      }
+    });
   }
 
   private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean): OrbitalSymmetry | undefined {
@@ -127,6 +134,8 @@ export class Estimates {
     const basisOf = (atom: number) => model.basis.overrides.get(model.atoms[atom]!.element.symbol) ?? model.basis.main;
     const shells = atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol));
     const coreShells = frozenCore ? atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)) : undefined;
-    return orbitalSymmetry({ numbers, positions, shells, coreShells, functions: model.basis.functions }, withNear ? {} : { nearTolerance: 0 });
+    const functions = model.basis.functions;
+    const key = JSON.stringify([withNear, functions, numbers, Array.from(positions), shells, coreShells ?? null]);
+    return SYMMETRIES.get(key, () => orbitalSymmetry({ numbers, positions, shells, coreShells, functions }, withNear ? {} : { nearTolerance: 0 }));
   }
 }

@@ -67,6 +67,8 @@ export class AnalysisHost {
       {
         ...(file ? { path: file } : {}),
         files: this.files,
+        // The parser reads again only what changed since the version analysed last.
+        ...(cached ? { previous: cached.analysis } : {}),
         ...(this.settings.defaultMapping ? { defaultMapping: this.settings.defaultMapping } : {}),
         ...(this.settings.defaultQubitLimit ? { defaultQubitLimit: this.settings.defaultQubitLimit } : {}),
       },

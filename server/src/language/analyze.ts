@@ -31,6 +31,8 @@ export interface AnalyzeOptions {
   readonly fastGeometry?: boolean;
   /** Qubit limit for specs that set none in `limits` (an editor setting or a CLI option). */
   readonly defaultQubitLimit?: number;
+  /** The previous version of the same document, whose reading the parser may reuse in part. */
+  readonly previous?: Pick<Analysis, 'text' | 'tree' | 'model'>;
 }
 
 export interface Analysis {
@@ -106,12 +108,13 @@ export function analyze(original: string, options: AnalyzeOptions = {}): Analysi
     ...(options.path ? { path: options.path } : {}),
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
+    ...(options.previous ? { previousContacts: options.previous.model.contacts } : {}),
   };
   if (text.length > MAX_SPEC_CHARACTERS) {
     return refusedAnalysis(text, options, modelOptions, tooLarge(`This spec has ${text.length.toLocaleString('en-US')} characters`));
   }
   const read = contained(sink, 'reading the spec', () => {
-    const tree = parseSpec(text, { ...(options.fastGeometry === false ? { fastGeometry: false } : {}), maxWords: MAX_WORDS });
+    const tree = parseSpec(text, { ...(options.fastGeometry === false ? { fastGeometry: false } : options.previous ? { previous: options.previous } : {}), maxWords: MAX_WORDS });
     if (tree.words !== undefined) return { refused: tooLarge(`This spec has about ${tree.words.toLocaleString('en-US')} words outside plain geometry blocks`) };
     for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
     const ast = interpret(tree, sink);

@@ -2,7 +2,7 @@
  * The typed syntax tree: what each statement says, with the span of every part. Built from the
  * concrete tree by `interpret/`; names are not resolved yet (that is `model/`).
  */
-import { elementByNumber } from '../chemistry/elements';
+import { elementByNumber, elementBySymbol } from '../chemistry/elements';
 import type { Span } from './text';
 import type { AtomTable, Statement } from './syntax';
 import type { TierLevel } from './vocabulary';
@@ -57,6 +57,8 @@ export interface AtomList {
   readonly length: number;
   /** Canonical element symbol. */
   symbol(i: number): string;
+  /** Atomic number. */
+  atomicNumber(i: number): number;
   label(i: number): string | undefined;
   /** Coordinate `axis` (0 x, 1 y, 2 z) in the file's unit. */
   coordinate(i: number, axis: number): number;
@@ -77,6 +79,7 @@ export function atomListOf(atoms: readonly AtomAst[]): AtomList {
   return {
     length: atoms.length,
     symbol: (i) => atoms[i]!.element.value,
+    atomicNumber: (i) => elementBySymbol(atoms[i]!.element.value)!.z,
     label: (i) => atoms[i]!.label?.value,
     coordinate: (i, axis) => atoms[i]!.coordinates[axis]!.value,
     span: (i) => atoms[i]!.span,
@@ -90,12 +93,42 @@ export function atomListOfTable(table: AtomTable): AtomList {
   return {
     length: table.count,
     symbol: (i) => elementByNumber(table.atomicNumbers[i]!)!.symbol,
+    atomicNumber: (i) => table.atomicNumbers[i]!,
     label: (i) => table.labels.get(i),
     coordinate: (i, axis) => table.coordinates[3 * i + axis]!,
     span: (i) => ({ start: table.lineStart[i]!, end: table.lineEnd[i]! }),
     elementSpan: (i) => ({ start: table.lineStart[i]!, end: table.elementEnd[i]! }),
     labelSpan: (i) => (table.labelStart[i]! >= 0 ? { start: table.labelStart[i]!, end: table.labelEnd[i]! } : undefined),
     coordinateSpan: (i, axis) => ({ start: table.coordinateStart[3 * i + axis]!, end: table.coordinateEnd[3 * i + axis]! }),
+  };
+}
+
+/** The atoms of a block the fast reader read, with those of the lines it left to the general parser, in document order. */
+export function atomListOfMixed(table: AtomTable, others: readonly AtomAst[]): AtomList {
+  const fast = atomListOfTable(table);
+  if (others.length === 0) return fast;
+  const slow = atomListOf(others);
+  const count = table.count + others.length;
+  // Where the i-th atom lives: its index in the table (≥ 0), or −1 − its index among the others.
+  const where = new Int32Array(count);
+  for (let i = 0, j = 0, k = 0; k < count; k++) {
+    if (j >= others.length || (i < table.count && table.lineStart[i]! < others[j]!.span.start)) where[k] = i++;
+    else where[k] = -1 - j++;
+  }
+  const pick = <T>(k: number, fromTable: (i: number) => T, fromOthers: (j: number) => T): T => {
+    const at = where[k]!;
+    return at >= 0 ? fromTable(at) : fromOthers(-1 - at);
+  };
+  return {
+    length: count,
+    symbol: (k) => pick(k, fast.symbol, slow.symbol),
+    atomicNumber: (k) => pick(k, fast.atomicNumber, slow.atomicNumber),
+    label: (k) => pick(k, fast.label, slow.label),
+    coordinate: (k, axis) => pick(k, (i) => fast.coordinate(i, axis), (j) => slow.coordinate(j, axis)),
+    span: (k) => pick(k, fast.span, slow.span),
+    elementSpan: (k) => pick(k, fast.elementSpan, slow.elementSpan),
+    labelSpan: (k) => pick(k, fast.labelSpan, slow.labelSpan),
+    coordinateSpan: (k, axis) => pick(k, (i) => fast.coordinateSpan(i, axis), (j) => slow.coordinateSpan(j, axis)),
   };
 }
 

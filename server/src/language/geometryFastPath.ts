@@ -1,12 +1,13 @@
 /**
  * A fast reader for the body of `geometry { ... }` blocks, which hold nearly all of a large spec.
  *
- * It accepts only well-formed atom lines (`Element [label] x y z` with a known element, a plain
- * label and three finite numbers), comments and blank lines, and stores them column-wise in an
- * AtomTable. On anything else (a mistake, a string, `;`, `#index`, nested braces, a top-level
- * keyword that suggests a missing `}`) it gives up and the block goes through the general parser,
- * which reports the mistake. tests/language/geometry-fast-path.test.ts checks that both readers
- * give the same statements.
+ * It reads well-formed atom lines (`Element [label] x y z` with a known element, a plain label and
+ * three finite numbers), comments and blank lines, and stores them column-wise in an AtomTable.
+ * Any other line (a mistake, a line being typed, `;`, `#index`) is left to the general parser, which
+ * reads it and reports the mistake: one bad line costs one line. Only what changes the block's
+ * structure (a brace or a string, or a top-level keyword that suggests a missing `}`) sends the
+ * whole block to the general parser. tests/language/geometry-fast-path.test.ts checks that both
+ * readers give the same statements.
  */
 import { elementBySymbol } from '../chemistry/elements';
 import type { Argument, AtomTable, CommentNode, Statement } from './syntax';
@@ -21,7 +22,12 @@ export interface FastGeometryBlock {
   readonly close: number;
   readonly table: AtomTable;
   readonly comments: CommentNode[];
+  /** Lines left to the general parser, [start, end) from the line's start to its end (or the `}`). */
+  readonly handedOver: readonly { readonly start: number; readonly end: number }[];
 }
+
+/** Keywords that only start top-level statements: at a line start inside a block they mean a missing `}` (as in parser.ts). */
+const TOP_LEVEL_STARTERS = new Set(['spec', 'units', 'basis', 'geometry', 'fragment', 'embedding', 'scan', 'limits']);
 
 function isSpace(code: number): boolean {
   return code === 32 || code === 9 || code === 13 || code === 12 || code === 11 || code === 0xa0 || code === 0xfeff;
@@ -45,6 +51,32 @@ class Growable<T extends Int32Array | Float64Array> {
     this.data[this.length++] = value;
   }
 
+  /** Puts back −1 where an appended value was −1 before `shift` was added (a missing label), here and in `other`. */
+  unshiftMissing(from: number, shift: number, other: Growable<T>): void {
+    for (let k = from; k < this.length; k++) {
+      if (this.data[k] === shift - 1) {
+        this.data[k] = -1;
+        other.data[k] = -1;
+      }
+    }
+  }
+
+  /** Appends source[from, to), each value plus `shift`. */
+  appendShifted(source: ArrayLike<number>, from: number, to: number, shift: number): void {
+    const needed = this.length + (to - from);
+    if (needed > this.data.length) {
+      const bigger = this.make(Math.max(needed, this.data.length * 2));
+      bigger.set(this.data);
+      this.data = bigger;
+    }
+    const data = this.data;
+    let at = this.length;
+    // A plain copy when nothing moves: adding 0 would turn −0 into 0.
+    if (shift === 0) for (let k = from; k < to; k++) data[at++] = source[k]!;
+    else for (let k = from; k < to; k++) data[at++] = source[k]! + shift;
+    this.length = at;
+  }
+
   toArray(): T {
     return this.data.slice(0, this.length) as T;
   }
@@ -65,6 +97,25 @@ class Columns {
   readonly coordinateStart = int32();
   readonly coordinateEnd = int32();
   readonly coordinates = new Growable((size) => new Float64Array(size));
+
+  /** Appends rows [from, to) of a table, their offsets moved by `shift`. */
+  appendRows(table: AtomTable, from: number, to: number, shift: number): void {
+    if (to <= from) return;
+    for (const [index, label] of table.labels) if (index >= from && index < to) this.labels.set(this.count + index - from, label);
+    this.atomicNumbers.appendShifted(table.atomicNumbers, from, to, 0);
+    this.lineStart.appendShifted(table.lineStart, from, to, shift);
+    this.lineEnd.appendShifted(table.lineEnd, from, to, shift);
+    this.elementEnd.appendShifted(table.elementEnd, from, to, shift);
+    // A label start of −1 (no label) stays −1.
+    const labelFrom = this.labelStart.length;
+    this.labelStart.appendShifted(table.labelStart, from, to, shift);
+    this.labelEnd.appendShifted(table.labelEnd, from, to, shift);
+    if (shift !== 0) this.labelStart.unshiftMissing(labelFrom, shift, this.labelEnd);
+    this.coordinateStart.appendShifted(table.coordinateStart, 3 * from, 3 * to, shift);
+    this.coordinateEnd.appendShifted(table.coordinateEnd, 3 * from, 3 * to, shift);
+    this.coordinates.appendShifted(table.coordinates, 3 * from, 3 * to, 0);
+    this.count += to - from;
+  }
 
   table(text: string): AtomTable {
     return {
@@ -89,21 +140,39 @@ const fieldStarts: number[] = [];
 const fieldEnds: number[] = [];
 
 /**
- * Reads the lines after the `{` at `open` up to the first `}`; undefined when the block is not
- * plain enough.
+ * Reads the lines after the `{` at `open` up to the first `}`; undefined when the block's
+ * structure needs the general parser.
  */
 function readBody(text: string, open: number): FastGeometryBlock | undefined {
-  const columns = new Columns();
-  const comments: CommentNode[] = [];
-  const elementCache = new Map<number, number>();
-  let position = open + 1;
+  const parts: BodyParts = { columns: new Columns(), comments: [], handedOver: [] };
+  const close = readLines(text, open + 1, text.length, parts, new Map<number, number>());
+  if (close === undefined || close < 0) return undefined;
+  return { open, close, table: parts.columns.table(text), comments: parts.comments, handedOver: parts.handedOver };
+}
+
+interface BodyParts {
+  readonly columns: Columns;
+  readonly comments: CommentNode[];
+  readonly handedOver: { start: number; end: number }[];
+}
+
+/**
+ * Reads whole lines from `position` (a line start) while lines start before `limit`, into `parts`.
+ * Returns the offset of the `}` that ends the block, −1 when `limit` was reached first, or
+ * undefined when the block's structure needs the general parser.
+ */
+function readLines(text: string, position: number, limit: number, parts: BodyParts, elementCache: Map<number, number>): number | undefined {
+  const { columns, comments, handedOver } = parts;
   const length = text.length;
-  while (position < length) {
+  while (position < length && position < limit) {
     let lineEnd = text.indexOf('\n', position);
     if (lineEnd < 0) lineEnd = length;
     let fields = 0;
     let cursor = position;
     let closeAt = -1;
+    let comment = -1;
+    // A sixth field, `#index` or `;` make the line one for the general parser.
+    let unusual = false;
     while (cursor < lineEnd) {
       const code = text.charCodeAt(cursor);
       if (isSpace(code)) {
@@ -112,8 +181,12 @@ function readBody(text: string, open: number): FastGeometryBlock | undefined {
       }
       if (code === 35 /* # */) {
         const next = text.charCodeAt(cursor + 1);
-        if (next >= 48 && next <= 57) return undefined;
-        comments.push({ text: text.slice(cursor, lineEnd), span: { start: cursor, end: lineEnd } });
+        if (next >= 48 && next <= 57) {
+          unusual = true;
+          cursor++;
+          continue;
+        }
+        comment = cursor;
         break;
       }
       if (code === 125 /* } */) {
@@ -123,23 +196,31 @@ function readBody(text: string, open: number): FastGeometryBlock | undefined {
       let end = cursor;
       while (end < lineEnd) {
         const c = text.charCodeAt(end);
+        if (c === 123 /* { */ || c === 34 /* " */) return undefined;
         if (isSpace(c) || c === 35 || c === 125) break;
         end++;
       }
-      if (fields === 5) return undefined;
-      fieldStarts[fields] = cursor;
-      fieldEnds[fields] = end;
+      if (fields === 0 && TOP_LEVEL_STARTERS.has(text.slice(cursor, end))) return undefined;
+      if (fields < 5) {
+        fieldStarts[fields] = cursor;
+        fieldEnds[fields] = end;
+      } else {
+        unusual = true;
+      }
       fields++;
       cursor = end;
     }
-    if (fields > 0 && !readAtomLine(text, fields, columns, elementCache)) return undefined;
-    if (closeAt >= 0) {
-      // Anything after the `}` on its line is left to the general parser, which sees it as usual.
-      return { open, close: closeAt, table: columns.table(text), comments };
+    if (fields > 0 && (unusual || !readAtomLine(text, fields, columns, elementCache))) {
+      // The whole line up to the `}`, comment included, goes to the general parser.
+      handedOver.push({ start: position, end: closeAt >= 0 ? closeAt : lineEnd });
+    } else if (comment >= 0) {
+      comments.push({ text: text.slice(comment, lineEnd), span: { start: comment, end: lineEnd } });
     }
+    // Anything after the `}` on its line is left to the general parser, which sees it as usual.
+    if (closeAt >= 0) return closeAt;
     position = lineEnd + 1;
   }
-  return undefined;
+  return position >= length ? undefined : -1;
 }
 
 const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
@@ -216,10 +297,15 @@ function readAtomLine(text: string, fields: number, columns: Columns, elementCac
     if (!PLAIN_WORD.test(label)) return false;
     first = 2;
   }
+  // Every value is read before any is stored, so that a rejected line leaves no trace in the columns.
+  const x = readNumber(text, fieldStarts[first]!, fieldEnds[first]!);
+  const y = readNumber(text, fieldStarts[first + 1]!, fieldEnds[first + 1]!);
+  const zValue = readNumber(text, fieldStarts[first + 2]!, fieldEnds[first + 2]!);
+  if (!Number.isFinite(x) || !Number.isFinite(y) || !Number.isFinite(zValue)) return false;
+  columns.coordinates.push(x);
+  columns.coordinates.push(y);
+  columns.coordinates.push(zValue);
   for (let k = 0; k < 3; k++) {
-    const value = readNumber(text, fieldStarts[first + k]!, fieldEnds[first + k]!);
-    if (!Number.isFinite(value)) return false;
-    columns.coordinates.push(value);
     columns.coordinateStart.push(fieldStarts[first + k]!);
     columns.coordinateEnd.push(fieldEnds[first + k]!);
   }
@@ -256,26 +342,116 @@ export function atomTableStatements(table: AtomTable): Statement[] {
 
 /**
  * Finds `geometry {` at the start of a line and reads its body. Returns the blocks it could read,
- * and the text with each such body blanked out (same length, so every offset stays valid).
+ * and the text with what it read blanked out (same length, so every offset stays valid): the lines
+ * it handed over stay, each on a line of its own, for the general parser.
  */
-export function extractGeometryBodies(text: string): { masked: string; blocks: FastGeometryBlock[] } {
-  const blocks: FastGeometryBlock[] = [];
-  const pattern = /^[ \t]*geometry[ \t]*\{/gm;
-  let match: RegExpExecArray | null;
-  while ((match = pattern.exec(text)) !== null) {
-    const open = match.index + match[0].length - 1;
-    const block = readBody(text, open);
-    if (!block) continue;
-    blocks.push(block);
-    pattern.lastIndex = block.close + 1;
+export function extractGeometryBodies(text: string, previous?: PreviousReading): { masked: string; blocks: FastGeometryBlock[] } {
+  const reused = previous ? rereadChangedLines(text, previous) : undefined;
+  const blocks: FastGeometryBlock[] = reused ?? [];
+  if (!reused) {
+    const pattern = /^[ \t]*geometry[ \t]*\{/gm;
+    let match: RegExpExecArray | null;
+    while ((match = pattern.exec(text)) !== null) {
+      const open = match.index + match[0].length - 1;
+      const block = readBody(text, open);
+      if (!block) continue;
+      blocks.push(block);
+      pattern.lastIndex = block.close + 1;
+    }
   }
-  if (blocks.length === 0) return { masked: text, blocks };
+  return { masked: maskBodies(text, blocks), blocks };
+}
+
+/** What the previous version of a document read: its text and its fast-read blocks. */
+export interface PreviousReading {
+  readonly text: string;
+  readonly blocks: readonly FastGeometryBlock[];
+}
+
+/** Where two texts differ: [start, oldEnd) of the old one became [start, newEnd) of the new one. */
+export function changedRange(before: string, after: string): { start: number; oldEnd: number; newEnd: number } | undefined {
+  if (before === after) return undefined;
+  const shortest = Math.min(before.length, after.length);
+  // Compare in chunks first (native string comparison), then character by character.
+  const CHUNK = 1024;
+  let start = 0;
+  while (start + CHUNK <= shortest && before.slice(start, start + CHUNK) === after.slice(start, start + CHUNK)) start += CHUNK;
+  while (start < shortest && before.charCodeAt(start) === after.charCodeAt(start)) start++;
+  let suffix = 0;
+  const room = shortest - start;
+  while (suffix + CHUNK <= room && before.slice(before.length - suffix - CHUNK, before.length - suffix) === after.slice(after.length - suffix - CHUNK, after.length - suffix)) suffix += CHUNK;
+  while (suffix < room && before.charCodeAt(before.length - 1 - suffix) === after.charCodeAt(after.length - 1 - suffix)) suffix++;
+  return { start, oldEnd: before.length - suffix, newEnd: after.length - suffix };
+}
+
+/**
+ * The blocks of the new text when the edit since the previous reading lies inside the body of one
+ * fast-read block, away from its braces: only the changed lines are read again, the rows before
+ * them are kept and those after them moved by the edit's length. Undefined when the edit is
+ * anywhere else (or changes the block's structure): then the whole text is read again.
+ */
+export function rereadChangedLines(text: string, previous: PreviousReading): FastGeometryBlock[] | undefined {
+  const change = changedRange(previous.text, text);
+  if (!change) return [...previous.blocks];
+  if (previous.blocks.length !== 1) return undefined;
+  const old = previous.blocks[0]!;
+  const { start, oldEnd, newEnd } = change;
+  const shift = newEnd - oldEnd;
+  // Strictly inside the body, and not on the line of the `{` or of the `}`.
+  const oldText = previous.text;
+  const firstLine = oldText.lastIndexOf('\n', start - 1) + 1;
+  if (firstLine <= old.open || oldEnd > old.close) return undefined;
+  const oldLastLineEnd = oldText.indexOf('\n', oldEnd);
+  if (oldLastLineEnd < 0 || oldLastLineEnd >= old.close) return undefined;
+  // A geometry block cannot start inside the changed lines of the new text either.
+  const newLastLineEnd = text.indexOf('\n', newEnd);
+  if (newLastLineEnd < 0 || /^[ \t]*geometry[ \t]*\{/m.test(text.slice(firstLine, newLastLineEnd))) return undefined;
+
+  const parts: BodyParts = { columns: new Columns(), comments: [], handedOver: [] };
+  const table = old.table;
+  // Rows on the lines before the change, as they were.
+  let row = 0;
+  while (row < table.count && table.lineStart[row]! < firstLine) row++;
+  parts.columns.appendRows(table, 0, row, 0);
+  for (const comment of old.comments) if (comment.span.start < firstLine) parts.comments.push(comment);
+  for (const line of old.handedOver) if (line.start < firstLine) parts.handedOver.push(line);
+  // The changed lines, read again.
+  const ended = readLines(text, firstLine, newLastLineEnd + 1, parts, new Map<number, number>());
+  if (ended !== -1) return undefined;
+  // Rows after the change, moved.
+  let after = row;
+  while (after < table.count && table.lineStart[after]! <= oldLastLineEnd) after++;
+  parts.columns.appendRows(table, after, table.count, shift);
+  for (const comment of old.comments) {
+    if (comment.span.start > oldLastLineEnd) parts.comments.push({ text: comment.text, span: { start: comment.span.start + shift, end: comment.span.end + shift } });
+  }
+  for (const line of old.handedOver) if (line.start > oldLastLineEnd) parts.handedOver.push({ start: line.start + shift, end: line.end + shift });
+  return [{ open: old.open, close: old.close + shift, table: parts.columns.table(text), comments: parts.comments, handedOver: parts.handedOver }];
+}
+
+/** The text with what the fast reader read blanked out; handed-over lines stay, each on a line of its own. */
+function maskBodies(text: string, blocks: readonly FastGeometryBlock[]): string {
+  if (blocks.length === 0) return text;
   const pieces: string[] = [];
   let from = 0;
+  const blank = (start: number, end: number) => {
+    if (end > start) pieces.push(' '.repeat(end - start));
+  };
   for (const block of blocks) {
-    pieces.push(text.slice(from, block.open + 1), ' '.repeat(block.close - block.open - 1));
+    pieces.push(text.slice(from, block.open + 1));
+    let cursor = block.open + 1;
+    for (const line of block.handedOver) {
+      // Keep the line break before the handed-over line (it ends the previous line) and the line itself.
+      blank(cursor, line.start - 1);
+      if (line.start - 1 >= cursor) pieces.push(text[line.start - 1]!);
+      pieces.push(text.slice(line.start, line.end));
+      cursor = line.end;
+      // And the line break after it, which ends a comment on it.
+      if (text[cursor] === '\n' && cursor < block.close) pieces.push(text[cursor++]!);
+    }
+    blank(cursor, block.close);
     from = block.close;
   }
   pieces.push(text.slice(from));
-  return { masked: pieces.join(''), blocks };
+  return pieces.join('');
 }

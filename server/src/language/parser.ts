@@ -262,22 +262,43 @@ function limitNesting(tokens: IToken[], problems: SyntaxProblem[]): IToken[] {
 export interface ParseOptions {
   /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
+  /**
+   * The previous version of the same document: when the edit since then lies inside a geometry
+   * block, only the changed lines of that block are read again.
+   */
+  readonly previous?: { readonly text: string; readonly tree: SyntaxTree };
   /** Refuse (return an empty tree with `words` set) when the text outside plain geometry blocks has more words. */
   readonly maxWords?: number;
 }
 
-/** A geometry block read by the fast reader: its statements are built from the table on first use. */
+/**
+ * A geometry block read by the fast reader: its statements are built from the table on first use,
+ * merged in document order with those the general parser read from the lines handed over to it.
+ */
 function tableBlock(block: Block, table: AtomTable): Block {
   let statements: Statement[] | undefined;
+  const others = block.statements;
   return {
     open: block.open,
     ...(block.close ? { close: block.close } : {}),
     span: block.span,
     atomTable: table,
+    ...(others.length > 0 ? { otherStatements: others } : {}),
     get statements(): Statement[] {
-      return (statements ??= atomTableStatements(table));
+      return (statements ??= others.length === 0 ? atomTableStatements(table) : mergeByStart(atomTableStatements(table), others));
     },
   };
+}
+
+function mergeByStart(a: readonly Statement[], b: readonly Statement[]): Statement[] {
+  const merged: Statement[] = [];
+  let i = 0;
+  let j = 0;
+  while (i < a.length || j < b.length) {
+    if (j >= b.length || (i < a.length && a[i]!.span.start < b[j]!.span.start)) merged.push(a[i++]!);
+    else merged.push(b[j++]!);
+  }
+  return merged;
 }
 
 /** Puts what the fast reader found into the geometry blocks the parser saw as empty. */
@@ -295,7 +316,8 @@ function injectGeometry(statements: Statement[], blocks: readonly FastGeometryBl
 
 /** Parses spec text into a syntax tree; never throws on bad input. */
 export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree {
-  const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text);
+  const previous = options.previous?.tree.geometryBlocks ? { text: options.previous.text, blocks: options.previous.tree.geometryBlocks } : undefined;
+  const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text, previous);
   if (options.maxWords !== undefined) {
     const words = countWords(masked);
     if (words > options.maxWords) return { statements: [], comments: [], problems: [], textLength: text.length, words };
@@ -321,6 +343,7 @@ export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree 
     comments,
     problems,
     textLength: text.length,
+    ...(blocks.length > 0 ? { geometryBlocks: blocks } : {}),
   };
 }
 

@@ -2,6 +2,7 @@
  * The concrete syntax tree: statements (`keyword arguments... { block }`), their arguments and
  * blocks, each with its exact source span. The typed reading of statements lives in `ast.ts`.
  */
+import type { FastGeometryBlock } from './geometryFastPath';
 import type { Span } from './text';
 
 export type ArgumentKind =
@@ -28,10 +29,12 @@ export interface Block {
   readonly statements: Statement[];
   readonly span: Span;
   /**
-   * For a plain geometry block read by the fast reader: its atom lines column by column. Then
+   * For a geometry block read by the fast reader: its atom lines column by column. Then
    * `statements` is built from it on first use; analysis reads the table directly.
    */
   readonly atomTable?: AtomTable;
+  /** With `atomTable`: the statements of the lines the fast reader left to the general parser. */
+  readonly otherStatements?: Statement[];
 }
 
 /**
@@ -82,6 +85,8 @@ export interface SyntaxTree {
   readonly comments: CommentNode[];
   readonly problems: SyntaxProblem[];
   readonly textLength: number;
+  /** What the fast geometry reader read, so that the next version of the text can reuse it. */
+  readonly geometryBlocks?: readonly FastGeometryBlock[];
   /** Set when the parse was refused: the words counted outside plain geometry blocks, beyond `maxWords`. */
   readonly words?: number;
 }

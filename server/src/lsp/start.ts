@@ -5,6 +5,7 @@
  */
 import {
   CodeActionKind,
+  LSPErrorCodes,
   DidChangeConfigurationNotification,
   DidChangeWatchedFilesNotification,
   ResponseError,
@@ -13,17 +14,33 @@ import {
   type Connection,
   type InitializeParams,
   type InitializeResult,
+  type Message,
+  type ResponseMessage,
 } from 'vscode-languageserver/node';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { MAPPINGS, type Mapping } from '../chemistry/qubits';
 import * as service from '../services';
 import { AnalysisHost, type AnalysisSettings } from '../analysis';
-import { Debouncer, pathToUri, uriToPath } from './documents';
+import { CoalescingScheduler, pathToUri, uriToPath } from './documents';
 import { FailureReporter } from './guard';
 import { openServerConnection } from './transport';
+import { warmUp } from './warmUp';
 
-/** Quiet time after the last keystroke before diagnostics are recomputed. */
-const DIAGNOSTICS_DELAY_MS = 20;
+/** Semantic-token results kept per document for deltas. */
+const TOKEN_HISTORY = 4;
+
+/** A first guess at what analysing a document costs before it has been measured: 1 ms per 20,000 characters. */
+const CHARACTERS_PER_MS = 20_000;
+
+/**
+ * A request the editor cancelled before the server got to it (it sends `$/cancelRequest` when the
+ * document changes under a pending request) is answered as cancelled without running: stale work
+ * for an older version never delays the latest one.
+ */
+const cancelUndispatched = (message: Message): ResponseMessage | undefined => {
+  const id = (message as { id?: number | string }).id;
+  return id === undefined ? undefined : { jsonrpc: '2.0', id, error: { code: LSPErrorCodes.RequestCancelled, message: 'The request was cancelled before it ran.' } };
+};
 
 export interface EditorSettings {
   defaultMapping: Mapping;
@@ -48,10 +65,19 @@ function readSettings(raw: unknown): EditorSettings {
   };
 }
 
-export function startLanguageServer(connection: Connection = openServerConnection()): Connection {
+export function startLanguageServer(connection: Connection = openServerConnection(process.argv.slice(2), { cancelUndispatched })): Connection {
   const documents = new TextDocuments(TextDocument);
   const cache = new AnalysisHost({ open: (uri) => documents.get(uri), pathOf: uriToPath, uriOf: pathToUri });
-  const debouncer = new Debouncer(DIAGNOSTICS_DELAY_MS);
+  const scheduler = new CoalescingScheduler();
+  /**
+   * The semantic tokens last sent per document, a few results deep: the editor asks for a delta
+   * from the last result it received, which is not always the last one sent (it may have cancelled
+   * that request), so a delta from any recent one saves sending the whole document again.
+   */
+  const sentTokens = new Map<string, { resultId: string; data: Int32Array }[]>();
+  let tokenResults = 0;
+  let canRefreshHints = false;
+  let canRefreshLenses = false;
   let settings = DEFAULT_SETTINGS;
   let canPullConfiguration = false;
   let canWatchFiles = false;
@@ -62,15 +88,15 @@ export function startLanguageServer(connection: Connection = openServerConnectio
 
   const analysisOf = (uri: string) => cache.get(uri);
 
+  /** Analyses the document's current version, whatever was scheduled, and sends its diagnostics. */
   const publish = (uri: string) => {
     const document = documents.get(uri);
     if (!document) return;
     const version = document.version;
     let diagnostics;
     try {
+      // Always the current version, whatever was scheduled.
       const analysis = cache.get(uri)!;
-      // A newer version may have arrived while this one was analysed; its own run will publish.
-      if (documents.get(uri)?.version !== version) return;
       diagnostics = service.doValidation(analysis, uri, pathToUri);
     } catch (error) {
       // One document's failure shows in its own Problems; the others are not affected.
@@ -84,12 +110,24 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     const version = typeof uri === 'string' ? documents.get(uri)?.version : undefined;
     return typeof uri === 'string' ? { uri, ...(version !== undefined ? { version } : {}) } : {};
   };
+  const schedulePublish = (uri: string) => scheduler.schedule(uri, () => publish(uri), (documents.get(uri)?.getText().length ?? 0) / CHARACTERS_PER_MS);
+
+  // Results that arrive later change figures: diagnostics are sent again, and editors that can
+  // are asked to fetch hints and lenses again.
+  cache.late.onDidChange(() => {
+    for (const document of documents.all()) schedulePublish(document.uri);
+    if (canRefreshHints) void connection.languages.inlayHint.refresh().catch(() => undefined);
+    if (canRefreshLenses) void connection.sendRequest('workspace/codeLens/refresh').catch(() => undefined);
+  });
 
   const applySettings = (next: EditorSettings) => {
+    const unchanged = JSON.stringify(next) === JSON.stringify(settings);
     settings = next;
+    // Settings are sent again on every change of any setting; unchanged ones keep the analyses.
+    if (unchanged) return;
     const analysisSettings: AnalysisSettings = { defaultMapping: next.defaultMapping, ...(next.qubitLimit ? { defaultQubitLimit: next.qubitLimit } : {}) };
     cache.configure(analysisSettings);
-    for (const document of documents.all()) publish(document.uri);
+    for (const document of documents.all()) schedulePublish(document.uri);
     void connection.sendNotification('tessera/settingsChanged');
   };
 
@@ -106,6 +144,8 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     const capabilities = params.capabilities;
     canPullConfiguration = capabilities.workspace?.configuration === true;
     canWatchFiles = capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
+    canRefreshHints = capabilities.workspace?.inlayHint?.refreshSupport === true;
+    canRefreshLenses = capabilities.workspace?.codeLens?.refreshSupport === true;
     const initial = (params.initializationOptions as { settings?: unknown } | undefined)?.settings;
     if (initial) settings = readSettings(initial);
     cache.configure({ defaultMapping: settings.defaultMapping, ...(settings.qubitLimit ? { defaultQubitLimit: settings.qubitLimit } : {}) });
@@ -120,7 +160,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
         renameProvider: { prepareProvider: true },
         documentSymbolProvider: true,
         workspaceSymbolProvider: true,
-        semanticTokensProvider: { legend: service.semanticTokensLegend, full: true },
+        semanticTokensProvider: { legend: service.semanticTokensLegend, full: { delta: true } },
         foldingRangeProvider: true,
         selectionRangeProvider: true,
         documentFormattingProvider: true,
@@ -154,26 +194,27 @@ export function startLanguageServer(connection: Connection = openServerConnectio
       if (!file) continue;
       for (const uri of cache.dependents(file)) {
         cache.invalidate(uri);
-        debouncer.schedule(uri, () => publish(uri));
+        schedulePublish(uri);
       }
     }
   });
 
-  documents.onDidOpen((event) => publish(event.document.uri));
+  documents.onDidOpen((event) => schedulePublish(event.document.uri));
   documents.onDidChangeContent((event) => {
     const uri = event.document.uri;
-    debouncer.schedule(uri, () => publish(uri));
+    schedulePublish(uri);
     // An open XYZ file included by other specs: re-check them.
     const file = uriToPath(uri);
     if (file?.endsWith('.xyz')) {
       for (const dependent of cache.dependents(file)) {
         cache.invalidate(dependent);
-        debouncer.schedule(dependent, () => publish(dependent));
+        schedulePublish(dependent);
       }
     }
   });
   documents.onDidClose((event) => {
-    debouncer.cancel(event.document.uri);
+    scheduler.forget(event.document.uri);
+    sentTokens.delete(event.document.uri);
     cache.remove(event.document.uri);
     void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
   });
@@ -215,7 +256,31 @@ export function startLanguageServer(connection: Connection = openServerConnectio
       }
     }),
   );
-  connection.languages.semanticTokens.on(onDocument('semantic highlighting', (analysis) => service.getSemanticTokens(analysis), { data: [] }));
+  const tokensOf = (uri: string, analysis: NonNullable<ReturnType<typeof analysisOf>>) => {
+    const data = service.encodeSemanticTokens(analysis);
+    const resultId = String(++tokenResults);
+    const history = sentTokens.get(uri) ?? [];
+    sentTokens.set(uri, [{ resultId, data }, ...history].slice(0, TOKEN_HISTORY));
+    return { resultId, data };
+  };
+  connection.languages.semanticTokens.on(
+    onDocument('semantic highlighting', (analysis, params) => {
+      const { resultId, data } = tokensOf(params.textDocument.uri, analysis);
+      return { resultId, data: service.plainNumbers(data, 0, data.length) };
+    }, { resultId: '0', data: [] as number[] }),
+  );
+  connection.languages.semanticTokens.onDelta(
+    onDocument(
+      'semantic highlighting',
+      (analysis, params) => {
+        const previous = sentTokens.get(params.textDocument.uri)?.find((result) => result.resultId === params.previousResultId);
+        const next = tokensOf(params.textDocument.uri, analysis);
+        if (!previous) return { resultId: next.resultId, data: service.plainNumbers(next.data, 0, next.data.length) };
+        return { resultId: next.resultId, edits: service.semanticTokensEdits(previous.data, next.data) };
+      },
+      { resultId: '0', edits: [] as { start: number; deleteCount: number; data: number[] }[] },
+    ),
+  );
   connection.onFoldingRanges(onDocument('folding', (analysis) => service.getFoldingRanges(analysis), []));
   connection.onSelectionRanges(onDocument('selection ranges', (analysis, params) => service.getSelectionRanges(analysis, params.positions), []));
   connection.onDocumentFormatting(onDocument('formatting', (analysis, params) => service.format(analysis.text, undefined, { indent: params.options.tabSize }), []));
@@ -257,6 +322,11 @@ export function startLanguageServer(connection: Connection = openServerConnectio
   }));
 
   documents.listen(connection);
+  try {
+    warmUp();
+  } catch {
+    // A failure here shows again, and is reported, when a real document takes the same path.
+  }
   connection.listen();
   return connection;
 }

@@ -28,6 +28,7 @@ import {
   type DataCallback,
   type MessageReader,
   type MessageWriter,
+  type ConnectionStrategy,
 } from 'vscode-languageserver/node';
 
 /** Largest message accepted: far beyond the 8 MiB supported spec, even escaped in JSON. */
@@ -250,7 +251,7 @@ function argument(argv: readonly string[], name: string): string | undefined {
 }
 
 /** The connection of a server process, on the transport its command line names. */
-export function openServerConnection(argv: readonly string[] = process.argv.slice(2)): Connection {
+export function openServerConnection(argv: readonly string[] = process.argv.slice(2), strategy?: ConnectionStrategy): Connection {
   let log: (line: string) => void = (line) => process.stderr.write(`${line}\n`);
   let writer: MessageWriter;
   let reader: MessageReader;
@@ -276,7 +277,7 @@ export function openServerConnection(argv: readonly string[] = process.argv.slic
     reader = new FramedStreamReader(process.stdin, report, skipped);
   }
   const gate = new LifecycleGate(reader, writer, (line) => log(line));
-  const connection = createConnection(ProposedFeatures.all, gate, writer);
+  const connection = createConnection(ProposedFeatures.all, gate, writer, strategy);
   log = (line) => connection.console.warn(line);
   if (stream === process.stdin) {
     // Standard output carries the protocol: nothing else may print there.

@@ -10,14 +10,21 @@ function untaperedQubits(figures: FragmentFigures): number | null {
   return figures.qubits[mappingKey(figures.mapping as Mapping)];
 }
 
-/** The short cost label of a fragment, as shown in hints and the outline: `20 qubits · 17 tapered`. */
-export function fragmentCostLabel(figures: FragmentFigures): string {
-  const qubits = untaperedQubits(figures);
-  if (qubits !== null) {
-    const tapered = figures.qubits.tapered;
-    return tapered !== null && tapered < qubits ? `${qubits} qubits · ${tapered} tapered` : `${qubits} qubits`;
+/**
+ * The short cost label of a fragment, as shown in hints and the outline: `20 qubits · 17 tapered`
+ * for the quantum tier, else its orbitals and electrons (counted by the model: no figures needed).
+ */
+export function fragmentCostLabel(analysis: DocumentAnalysis, index: number): string {
+  const fragment = analysis.model.fragments[index]!;
+  if (fragment.tier?.level === 'quantum') {
+    const figures = analysis.fragmentFigures(index);
+    const qubits = untaperedQubits(figures);
+    if (qubits !== null) {
+      const tapered = figures.qubits.tapered;
+      return tapered !== null && tapered < qubits ? `${qubits} qubits · ${tapered} tapered` : `${qubits} qubits`;
+    }
   }
-  return `${figures.orbitals} orbitals · ${figures.electrons} e⁻`;
+  return `${fragment.space.orbitals} orbitals · ${fragment.space.electrons} e⁻`;
 }
 
 /** Hints for the fragments whose names lie in the range (the visible lines); only those are estimated. */
@@ -31,7 +38,7 @@ export function getInlayHints(analysis: DocumentAnalysis, range?: Range): InlayH
     const figures = analysis.fragmentFigures(fragment.index);
     hints.push({
       position,
-      label: fragmentCostLabel(figures),
+      label: fragmentCostLabel(analysis, fragment.index),
       kind: InlayHintKind.Type,
       paddingLeft: true,
       paddingRight: true,

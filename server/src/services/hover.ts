@@ -5,7 +5,7 @@
 import { MarkupKind, type Hover } from 'vscode-languageserver-types';
 import { findBasisSet, type BasisSet } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
-import { NeighbourGrid } from '../chemistry/geometry';
+import { nearestAtoms } from '../chemistry/geometry';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import type { DocumentAnalysis } from '../analysis';
 import { claimsOf, type AtomModel } from '../language/model';
@@ -33,17 +33,12 @@ function markdown(value: string, analysis: DocumentAnalysis, node: Argument): Ho
   return { contents: { kind: MarkupKind.Markdown, value }, range: toRange(analysis, node.span) };
 }
 
-const gridCache = new WeakMap<DocumentAnalysis, NeighbourGrid>();
 /** Neighbour search radius for atom cards, Å. */
 const NEIGHBOUR_RADIUS = 4;
 
-function neighbours(analysis: DocumentAnalysis, atom: number): { atom: number; distance: number }[] {
-  let grid = gridCache.get(analysis);
-  if (!grid) {
-    grid = new NeighbourGrid(analysis.model.coordinates, NEIGHBOUR_RADIUS);
-    gridCache.set(analysis, grid);
-  }
-  return grid.neighboursOf(atom, NEIGHBOUR_RADIUS).map((pair) => ({ atom: pair.j, distance: pair.distance }));
+/** The atom's nearest neighbours: one scan of the coordinates, no grid of the whole geometry. */
+function neighbours(analysis: DocumentAnalysis, atom: number, limit: number): { atom: number; distance: number }[] {
+  return nearestAtoms(analysis.model.coordinates, atom, NEIGHBOUR_RADIUS, limit).map((pair) => ({ atom: pair.j, distance: pair.distance }));
 }
 
 function atomTitle(atom: AtomModel): string {
@@ -57,7 +52,7 @@ export function atomCard(analysis: DocumentAnalysis, index: number): string {
   const xyz = [c[3 * index]!, c[3 * index + 1]!, c[3 * index + 2]!];
   const inBohr = xyz.map((value) => value / BOHR_IN_ANGSTROM);
   const fragments = claimsOf(model, index).map((fragment) => `\`${model.fragments[fragment]!.name}\``);
-  const near = neighbours(analysis, index).slice(0, 4);
+  const near = neighbours(analysis, index, 4);
   const lines = [
     `**${atom.element.name}** ${atomTitle(atom)} · ${atom.element.symbol}, Z = ${atom.element.z}`,
     '',

@@ -9,7 +9,7 @@ export { format, formatText, formatLines, type FormatOptions } from './format';
 export { doHover, atomCard, basisCard } from './hover';
 export { getCodeLenses, getInlayHints, largestQubitCount, fragmentCostLabel } from './hints';
 export { findDefinition, findDocumentHighlights, findReferences, prepareRename, rename } from './navigation';
-export { getSemanticTokens, semanticTokensLegend } from './semanticTokens';
+export { encodeSemanticTokens, getSemanticTokens, plainNumbers, semanticTokensEdits, semanticTokensLegend } from './semanticTokens';
 export { getFoldingRanges, getSelectionRanges } from './structure';
 export { findDocumentSymbols, findWorkspaceSymbols } from './symbols';
 export { fragmentCard } from './cards';

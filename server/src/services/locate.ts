@@ -99,11 +99,13 @@ export function locate(text: string, statements: readonly Statement[], offset: n
       parents.push(statement);
       block = innerBlockKind(statement, block) ?? 'top';
       if (inner.atomTable) {
+        // The atom line of the table or the line the general parser read, whichever starts last before the cursor.
         const atom = atomLineAt(inner, offset);
-        if (atom < 0) return { offset, parents, block, argumentIndex: 0 };
-        const atomStatement = atomTableStatement(inner.atomTable, atom);
-        if (offset > lineEndAfter(text, atomStatement.span.end)) return { offset, parents, block, argumentIndex: 0 };
-        return { ...withToken(atomStatement, offset), offset, parents, block, statement: atomStatement };
+        const atomStatement = atom >= 0 ? atomTableStatement(inner.atomTable, atom) : undefined;
+        const other = inner.otherStatements ? statementAt(text, inner.otherStatements, offset)?.statement : undefined;
+        const candidate = other && (!atomStatement || other.span.start > atomStatement.span.start) ? other : atomStatement;
+        if (!candidate || (candidate === atomStatement && offset > lineEndAfter(text, atomStatement.span.end))) return { offset, parents, block, argumentIndex: 0 };
+        return { ...withToken(candidate, offset), offset, parents, block, statement: candidate };
       }
       list = inner.statements;
       continue;

@@ -21,12 +21,33 @@ const VALUE_KEYWORDS = new Set(['tier', 'method', 'ansatz', 'mapping', 'embeddin
 const SELECTOR_KEYWORDS = new Set(['rest', 'all', 'within', 'of']);
 const SCAN_KEYWORDS = new Set(['from', 'to', 'step', 'points']);
 
+/** Tokens as flat (start offset, length, type, modifiers) quadruples, in document order. */
 class TokenCollector {
-  /** start, length, type, modifiers — flat. */
-  readonly items: number[] = [];
+  items: Int32Array;
+  length = 0;
+
+  /** `expected` tokens fit without growing. */
+  constructor(expected = 1024) {
+    this.items = new Int32Array(4 * Math.max(16, expected));
+  }
+
+  push(start: number, length: number, type: number, modifiers: number): void {
+    if (this.length + 4 > this.items.length) {
+      const grown = new Int32Array(this.items.length * 2);
+      grown.set(this.items);
+      this.items = grown;
+    }
+    const items = this.items;
+    const at = this.length;
+    items[at] = start;
+    items[at + 1] = length;
+    items[at + 2] = type;
+    items[at + 3] = modifiers;
+    this.length = at + 4;
+  }
 
   add(node: { span: { start: number; end: number } }, type: TokenType, modifiers = 0): void {
-    this.items.push(node.span.start, node.span.end - node.span.start, TYPE_INDEX.get(type)!, modifiers);
+    this.push(node.span.start, node.span.end - node.span.start, TYPE_INDEX.get(type)!, modifiers);
   }
 
   plain(arg: Argument): void {
@@ -80,11 +101,16 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
       const type = TYPE_INDEX.get('type')!;
       const variable = TYPE_INDEX.get('variable')!;
       const number = TYPE_INDEX.get('number')!;
+      const others = statement.block.otherStatements ?? [];
+      let other = 0;
       for (let i = 0; i < table.count; i++) {
-        out.items.push(table.lineStart[i]!, table.elementEnd[i]! - table.lineStart[i]!, type, 0);
-        if (table.labelStart[i]! >= 0) out.items.push(table.labelStart[i]!, table.labelEnd[i]! - table.labelStart[i]!, variable, DECLARATION);
-        for (let k = 0; k < 3; k++) out.items.push(table.coordinateStart[3 * i + k]!, table.coordinateEnd[3 * i + k]! - table.coordinateStart[3 * i + k]!, number, 0);
+        // Lines the general parser read go in their place, so the tokens stay in document order.
+        while (other < others.length && others[other]!.span.start < table.lineStart[i]!) statementTokens(out, others[other++]!, 'geometry');
+        out.push(table.lineStart[i]!, table.elementEnd[i]! - table.lineStart[i]!, type, 0);
+        if (table.labelStart[i]! >= 0) out.push(table.labelStart[i]!, table.labelEnd[i]! - table.labelStart[i]!, variable, DECLARATION);
+        for (let k = 0; k < 3; k++) out.push(table.coordinateStart[3 * i + k]!, table.coordinateEnd[3 * i + k]! - table.coordinateStart[3 * i + k]!, number, 0);
       }
+      while (other < others.length) statementTokens(out, others[other++]!, 'geometry');
       continue;
     }
     statementTokens(out, statement, block);
@@ -92,21 +118,100 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
   }
 }
 
+/**
+ * The tokens of the document, encoded relative to each other as LSP wants them. Statements are
+ * walked in document order, so their tokens come sorted; comments (sorted too) are merged in, and
+ * lines are found by walking the line index forward once.
+ */
 export function getSemanticTokens(analysis: DocumentAnalysis): SemanticTokens {
-  const out = new TokenCollector();
+  return { data: plainNumbers(encodeSemanticTokens(analysis), 0, Infinity) };
+}
+
+/** values[from, to) as a plain array (what JSON can carry), filled in one loop. */
+export function plainNumbers(values: ArrayLike<number>, from: number, to: number): number[] {
+  const end = Math.min(to, values.length);
+  const out: number[] = [];
+  for (let k = from; k < end; k++) out.push(values[k]!);
+  return out;
+}
+
+/** The encoded tokens as a typed array (what getSemanticTokens sends, and what deltas compare). */
+export function encodeSemanticTokens(analysis: DocumentAnalysis): Int32Array {
+  // At most five tokens per atom line, and a few hundred for the rest of a spec.
+  let rows = 0;
+  for (const block of analysis.tree.geometryBlocks ?? []) rows += block.table.count;
+  const out = new TokenCollector(5 * rows + 1024);
   walk(out, analysis.tree.statements, 'top', analysis);
-  for (const comment of analysis.tree.comments) out.add({ span: { start: comment.span.start, end: comment.span.start + comment.text.replace(/\r$/, '').length } }, 'comment');
-  const count = out.items.length / 4;
-  const order = Array.from({ length: count }, (_, i) => i).sort((a, b) => out.items[4 * a]! - out.items[4 * b]!);
+  const comments = new TokenCollector();
+  for (const comment of analysis.tree.comments) comments.add({ span: { start: comment.span.start, end: comment.span.start + comment.text.replace(/\r$/, '').length } }, 'comment');
+  const items = out.items;
+  const notes = comments.items;
+  const data = new Int32Array(((out.length + comments.length) / 4) * 5);
+  const lines = analysis.lines;
+  let line = 0;
+  let nextLineStart = lines.lineStart(1);
+  let previousLine = 0;
+  let previousCharacter = 0;
+  let written = 0;
+  let previousStart = -1;
+  for (let a = 0, b = 0; a < out.length || b < comments.length; ) {
+    const fromComments = a >= out.length || (b < comments.length && notes[b]! < items[a]!);
+    const source = fromComments ? notes : items;
+    const at = fromComments ? b : a;
+    if (fromComments) b += 4;
+    else a += 4;
+    const start = source[at]!;
+    // A token never starts where the previous one did; the walk guarantees order otherwise.
+    if (start < previousStart) return Int32Array.from(getSemanticTokensSorted(analysis, out, comments).data);
+    previousStart = start;
+    while (start >= nextLineStart && line + 1 < lines.lineCount) {
+      line++;
+      nextLineStart = lines.lineStart(line + 1);
+    }
+    const character = start - lines.lineStart(line);
+    const deltaLine = line - previousLine;
+    data[written++] = deltaLine;
+    data[written++] = deltaLine === 0 ? character - previousCharacter : character;
+    data[written++] = source[at + 1]!;
+    data[written++] = source[at + 2]!;
+    data[written++] = source[at + 3]!;
+    previousLine = line;
+    previousCharacter = character;
+  }
+  return data;
+}
+
+/** The general path for tokens that do not come in document order (never expected; kept for safety). */
+function getSemanticTokensSorted(analysis: DocumentAnalysis, out: TokenCollector, comments: TokenCollector): SemanticTokens {
+  const quads: number[][] = [];
+  for (const collector of [out, comments]) for (let i = 0; i < collector.length; i += 4) quads.push([collector.items[i]!, collector.items[i + 1]!, collector.items[i + 2]!, collector.items[i + 3]!]);
+  quads.sort((x, y) => x[0]! - y[0]!);
   const data: number[] = [];
   let previousLine = 0;
   let previousCharacter = 0;
-  for (const i of order) {
-    const start = analysis.lines.positionAt(out.items[4 * i]!);
+  for (const [offset, length, type, modifiers] of quads) {
+    const start = analysis.lines.positionAt(offset!);
     const deltaLine = start.line - previousLine;
-    data.push(deltaLine, deltaLine === 0 ? start.character - previousCharacter : start.character, out.items[4 * i + 1]!, out.items[4 * i + 2]!, out.items[4 * i + 3]!);
+    data.push(deltaLine, deltaLine === 0 ? start.character - previousCharacter : start.character, length!, type!, modifiers!);
     previousLine = start.line;
     previousCharacter = start.character;
   }
   return { data };
+}
+
+/**
+ * The edits that turn one token array into the next: the part between their common prefix and
+ * common suffix, in whole tokens (five numbers). An edit inside one line changes a few tokens, so
+ * the editor receives a few numbers instead of the whole document's tokens.
+ */
+export function semanticTokensEdits(previous: ArrayLike<number>, next: ArrayLike<number>): { start: number; deleteCount: number; data: number[] }[] {
+  const shortest = Math.min(previous.length, next.length);
+  let prefix = 0;
+  while (prefix < shortest && previous[prefix] === next[prefix]) prefix++;
+  prefix -= prefix % 5;
+  let suffix = 0;
+  while (suffix < shortest - prefix && previous[previous.length - 1 - suffix] === next[next.length - 1 - suffix]) suffix++;
+  suffix -= suffix % 5;
+  if (prefix === previous.length && prefix === next.length) return [];
+  return [{ start: prefix, deleteCount: previous.length - prefix - suffix, data: plainNumbers(next, prefix, next.length - suffix) }];
 }

@@ -23,8 +23,7 @@ function detailOf(analysis: DocumentAnalysis, statement: Statement): string {
     case 'fragment': {
       const fragment = model.fragments.find((f) => f.ast.statement === statement);
       if (!fragment) return '';
-      const figures = analysis.fragmentFigures(fragment.index);
-      return `${fragment.tier?.level ?? 'no tier'} · ${fragment.atoms.length} atoms · ${fragmentCostLabel(figures)}`;
+      return `${fragment.tier?.level ?? 'no tier'} · ${fragment.atoms.length} atoms · ${fragmentCostLabel(analysis, fragment.index)}`;
     }
     case 'scan':
       return model.scan ? `${model.scan.distances.length} points` : '';

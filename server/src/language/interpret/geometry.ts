@@ -3,7 +3,7 @@
  * took whole arrive as an AtomTable; other blocks are read line by line here.
  */
 import { elementBySymbol } from '../../chemistry/elements';
-import { atomListOf, atomListOfTable, type AtomAst, type GeometryAst, type Located } from '../ast';
+import { atomListOf, atomListOfMixed, type AtomAst, type GeometryAst, type Located } from '../ast';
 import { didYouMean } from '../suggest';
 import type { Statement } from '../syntax';
 import { joinSpans } from '../text';
@@ -16,7 +16,12 @@ const COMMON_ELEMENTS = ['H', 'He', 'Li', 'Be', 'B', 'C', 'N', 'O', 'F', 'Ne', '
 export function readGeometry(reader: StatementReader, statement: Statement): GeometryAst {
   const sink = reader.sink;
   if (statement.args.length === 0 && statement.block?.atomTable) {
-    return { statement, atoms: atomListOfTable(statement.block.atomTable) };
+    const others: AtomAst[] = [];
+    for (const line of statement.block.otherStatements ?? []) {
+      const atom = readAtomLine(reader, line);
+      if (atom) others.push(atom);
+    }
+    return { statement, atoms: atomListOfMixed(statement.block.atomTable, others) };
   }
   const atoms: AtomAst[] = [];
   let include: Located<string> | undefined;

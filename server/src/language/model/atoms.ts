@@ -2,7 +2,7 @@
  * The atoms of a spec in ångström: from the inline geometry block, or from the XYZ file it
  * includes; and the label index (each label names one atom).
  */
-import { elementBySymbol } from '../../chemistry/elements';
+import { elementByNumber, elementBySymbol } from '../../chemistry/elements';
 import { toAngstrom, type LengthUnit } from '../../chemistry/units';
 import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
@@ -26,7 +26,7 @@ export function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink,
   const atoms = geometry.atoms;
   const positions = new Float64Array(3 * atoms.length);
   for (let i = 0; i < atoms.length; i++) {
-    const element = elementBySymbol(atoms.symbol(i))!;
+    const element = elementByNumber(atoms.atomicNumber(i))!;
     const label = atoms.label(i);
     const labelSpan = atoms.labelSpan(i);
     list.push(label !== undefined && labelSpan ? { index: i, element, label, span: atoms.span(i), labelSpan } : { index: i, element, span: atoms.span(i) });

@@ -40,7 +40,7 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const frozenCore = ast.frozenCore?.value ?? true;
   const system = countOrbitalSpace({ atoms: counted, charge, multiplicity, functions: basis.functions, frozenCore });
   const radii = new Float64Array(atoms.list.map((atom) => atom.element.covalentRadius ?? 1.5));
-  const contacts = analyseContacts(coordinates, radii);
+  const contacts = analyseContacts(coordinates, radii, options.previousContacts);
 
   const resolver = new SelectorResolver(atoms.list, labels, coordinates, units, sink);
   const selections = ast.fragments.map((fragmentAst) => resolver.resolve(fragmentAst.atoms?.selectors ?? []));

@@ -108,4 +108,6 @@ export interface ModelOptions {
   readonly files: FileHost;
   readonly defaultMapping?: Mapping;
   readonly defaultQubitLimit?: number;
+  /** The contacts of the previous version of the same document: only what an edit moved is searched again. */
+  readonly previousContacts?: ContactAnalysis;
 }
