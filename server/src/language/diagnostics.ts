@@ -70,6 +70,8 @@ export const DIAGNOSTIC_CODES = {
   // Basis
   'missing-basis': { severity: 'error', title: 'No basis set chosen' },
   'basis-missing-element': { severity: 'error', title: 'An element the chosen basis does not define' },
+  'basis-override-conflict': { severity: 'warning', title: 'Two basis lines of the same kind giving an atom different bases (the later one wins)' },
+  'basis-override-unused': { severity: 'warning', title: 'A basis override line that changes no atom\'s basis' },
   // Charge and spin
   'charge-not-integer': { severity: 'error', title: 'A charge that is not a whole number' },
   'multiplicity-invalid': { severity: 'error', title: 'A multiplicity that is not a positive whole number' },
@@ -91,8 +93,10 @@ export const DIAGNOSTIC_CODES = {
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  // Spellings the language no longer uses
+  'retired-spelling': { severity: 'error', title: 'An old spelling (`geometry`, `units`, the braced basis block, `within … of`); the quick fix rewrites it' },
   // Tessera itself
-  'spec-too-large': { severity: 'error', title: 'A spec or included file beyond the supported size (8 MiB, 100,000 atoms, 1,000,000 words outside plain geometry)' },
+  'spec-too-large': { severity: 'error', title: 'A spec or included file beyond the supported size (8 MiB, 100,000 atoms, 1,000,000 words outside plain structure blocks)' },
   'too-many-problems': { severity: 'warning', title: 'More problems than Tessera lists for one file (1,000); says how many more there are' },
   'internal-error': { severity: 'error', title: 'A part of the analysis failed inside Tessera (a bug, not a mistake in the spec)' },
 } as const satisfies Record<string, CodeInfo>;

@@ -58,12 +58,12 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
   const lines = [
     `# generated from ${path.basename(file)}`,
     `spec "${path.basename(file).replace(/["\\\n]/g, '')}"`,
-    'units angstrom',
     `charge ${options.charge ?? 0}`,
     ...(options.multiplicity !== undefined ? [`multiplicity ${options.multiplicity}`] : []),
     `frozen-core ${options.frozenCore ? 'on' : 'off'}`,
-    `basis ${normalizeBasisName(options.basis).replace(/\s+/g, '')}${options.functions ? ` { functions ${options.functions} }` : ''}`,
-    'geometry {',
+    `basis ${normalizeBasisName(options.basis).replace(/\s+/g, '')}`,
+    ...(options.functions ? [`functions ${options.functions}`] : []),
+    'structure {',
   ];
   const firstAtomLine = lines.length;
   for (const atom of xyz.atoms) {
