@@ -27,7 +27,7 @@ describe('one set of limits', () => {
 describe('long names are shortened, not dropped', () => {
   const label = `h${'x'.repeat(149)}`;
   const name = `f${'y'.repeat(299)}`;
-  const spec = `spec "${'s'.repeat(1500)}"\nbasis sto-3g\ngeometry {\n  O o 0 0 0\n  H ${label} 0 ${WATER_H_Y} ${WATER_H_Z}\n  H h2 0 -${WATER_H_Y} ${WATER_H_Z}\n}\nfragment ${name} { atoms rest; tier quantum { active 4e 4o } }\n`;
+  const spec = `spec "${'s'.repeat(1500)}"\nbasis sto-3g\nstructure {\n  O o 0 0 0\n  H ${label} 0 ${WATER_H_Y} ${WATER_H_Z}\n  H h2 0 -${WATER_H_Y} ${WATER_H_Z}\n}\nfragment ${name} { atoms rest; tier quantum { active 4e 4o } }\n`;
   const analysis = analyzeDocument(spec);
 
   it('the structure passes the view checks, with the label, the name and the spec name cut at the limits', () => {
@@ -56,7 +56,7 @@ describe('long names are shortened, not dropped', () => {
 describe('beyond a count', () => {
   it('10,001 fragments: both views answer why, and the view reads the reason', () => {
     const fragments = Array.from({ length: 10_001 }, (_, i) => `fragment f${i} { atoms #1 }`).join('\n');
-    const analysis = analyzeDocument(`basis sto-3g\ngeometry {\n  H 0 0 0\n}\n${fragments}\n`);
+    const analysis = analyzeDocument(`basis sto-3g\nstructure {\n  H 0 0 0\n}\n${fragments}\n`);
     const structure = structureAnswer(analysis);
     expect(unavailableReason(JSON.parse(JSON.stringify(structure)))).toBe('This spec is too large for the structure view: 10,001 fragments, more than the 10,000 the view shows.');
     expect(unavailableReason(JSON.parse(JSON.stringify(costsAnswer(analysis))))).toBe('This spec is too large for the cost plots: 10,001 fragments, more than the 10,000 the view shows.');

@@ -18,7 +18,7 @@ import { tempFiles } from '../support/tempFolders';
 import { WATER_LINES } from '../fixtures/water';
 
 function spec(name: string): string {
-  return `spec "${name.replace(/["\\]/g, (c) => `\\${c}`)}"\nbasis sto-3g\ngeometry {\n${WATER_LINES}\n}\nfragment w_1* { atoms rest; tier mean-field { } }\n`;
+  return `spec "${name.replace(/["\\]/g, (c) => `\\${c}`)}"\nbasis sto-3g\nstructure {\n${WATER_LINES}\n}\nfragment w_1* { atoms rest; tier mean-field { } }\n`;
 }
 
 const HOSTILE_NAMES = ['<img src=x onerror=alert(1)>', '*bold* _it_ [link](http://example.invalid) `code`', '</title><script>alert(1)</script>', '| a | b |', '&lt;escaped&gt;'];
