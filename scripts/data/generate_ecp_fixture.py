@@ -238,10 +238,18 @@ def main():
 
 
 def write_independent(path):
+    """Computes the independent blocks; blocks already in `path` for the same case are kept (the
+    brute-force quadrature takes minutes per case), and the file is rewritten after each case."""
     import ecp_reference
     import mpmath
     import numpy
     import scipy
+    previous = {}
+    if os.path.exists(path):
+        with open(path) as handle:
+            for case in json.load(handle)["cases"]:
+                for block in case["blocks"]:
+                    previous[(case["name"], case["basis"], json.dumps(case["geometry"]), tuple(block["shells"]), block["method"])] = block["values"]
     entries = []
     for name, atoms, basis, ecp_atom, blocks in independent_cases():
         if blocks == "all":
@@ -249,28 +257,35 @@ def write_independent(path):
             blocks = [("projection", p, q) for p in range(count) for q in range(p + 1)]
         values = []
         for method, p, q in blocks:
-            if method == "projection":
-                block = ecp_reference.projection_block(basis, atoms, ecp_atom, p, q)
+            key = (name, basis, json.dumps(geometry(atoms)), (p, q), method)
+            if key in previous:
+                block = previous[key]
+            elif method == "projection":
+                block = ecp_reference.projection_block(basis, atoms, ecp_atom, p, q, **PROJECTION_GRID)
             else:
                 assert p == q
                 block = ecp_reference.s_shell_diagonal(basis, atoms, ecp_atom, p)
             values.append({"shells": [p, q], "method": method, "values": block})
         entries.append({"name": name, "basis": basis, "kind": "cartesian", "ecpAtom": ecp_atom, "geometry": geometry(atoms), "blocks": values})
         print("%-42s %-9s %d blocks" % (name, basis, len(values)), file=sys.stderr)
-    fixture = {
-        "origin": {
-            "program": "scripts/data/ecp_reference.py (numpy %s, scipy %s, mpmath %s from Debian)" % (numpy.__version__, scipy.__version__, mpmath.__version__),
-            "generatedBy": GENERATED_BY,
-            "note": ("Cartesian ECP blocks (each component with unit norm) by brute-force projection quadrature "
-                     "(polar 128 x azimuthal 256 x radial 1200 points) or, for s shells, exact projection and mpmath "
-                     "quadrature; basis data from server/src/chemistry/data/basis-sets. Invented geometries in bohr."),
-        },
-        "cases": entries,
-    }
-    with open(path, "w") as handle:
-        json.dump(fixture, handle, indent=1)
-        handle.write("\n")
+        fixture = {
+            "origin": {
+                "program": "scripts/data/ecp_reference.py (numpy %s, scipy %s, mpmath %s from Debian)" % (numpy.__version__, scipy.__version__, mpmath.__version__),
+                "generatedBy": GENERATED_BY,
+                "note": ("Cartesian ECP blocks (each component with unit norm) by brute-force projection quadrature "
+                         "(polar %(polar)d x azimuthal %(azimuthal)d x radial %(radial_points)d points) or, for s shells, exact "
+                         "projection and mpmath quadrature; basis data from server/src/chemistry/data/basis-sets. Invented "
+                         "geometries in bohr." % PROJECTION_GRID),
+            },
+            "cases": entries,
+        }
+        with open(path, "w") as handle:
+            json.dump(fixture, handle, indent=1)
+            handle.write("\n")
     print("wrote %s (%d bytes)" % (os.path.relpath(path, REPO_ROOT), os.path.getsize(path)), file=sys.stderr)
+
+
+PROJECTION_GRID = {"polar": 96, "azimuthal": 192, "radial_points": 1000}
 
 
 def write(path, entries, note):
