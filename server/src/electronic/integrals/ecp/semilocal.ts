@@ -42,8 +42,10 @@ export interface SemilocalChannel {
 
 /** Primitive triples whose envelope height (with coefficients) falls below this are left out. */
 const ENVELOPE_CUTOFF = 1e-20;
-/** A peak starts in a panel no longer than this many of its widths. */
+/** A peak starts in a panel no longer than this many of its widths (1/√p)... */
 const PANEL_WIDTHS = 6;
+/** ... and so do its flanks out to this many widths (exp(−64) beyond). */
+const TAIL_WIDTHS = 8;
 /**
  * Error estimate asked of the radial integrals, relative to the largest ∫|integrand| of the shell
  * pair. QUADPACK's estimate is pessimistic for these smooth integrands: at 1e-10 the ECP matrices
@@ -124,8 +126,10 @@ function powers(value: number, n: number): Float64Array {
 
 /**
  * The radial integrand of one shell pair for every channel of one centre: values at r of
- * r^(2+n) U_l(r) G_A(λ; r) G_B(λ'; r), laid out per channel h at offset[h] as [λ][λ'][n >> 1]
- * (only n with λ + λ' + n even occur: the others vanish by parity).
+ * r^(2+n) U_l(r) G_A(λ; r) G_B(λ'; r) for the (λ, λ', n) the angular factors can meet: X_A[λ][N]
+ * vanishes unless |l − λ| ≤ N ≤ l_A with N + λ + l even, so n = N + N' runs from
+ * |l − λ| + |l − λ'| to l_A + l_B in steps of 2. slot(h, λ, λ') is where the run of one (λ, λ')
+ * starts; n sits at slot + (n − |l − λ| − |l − λ'|)/2.
  */
 class RadialIntegrand implements VectorIntegrand {
   a!: Shell;
@@ -135,9 +139,10 @@ class RadialIntegrand implements VectorIntegrand {
   lambdaA = 0;
   lambdaB = 0;
   nCount = 0;
-  /** Slots per (λ, λ'): the n of one parity, ⌈nCount/2⌉. */
-  nHalf = 0;
-  readonly offsets: Int32Array;
+  /** Stride of λ and λ' in `slots`. */
+  readonly lambdaStride: number;
+  /** First slot of each (channel, λ, λ'): slots[(h · stride + λ) · stride + λ']. */
+  readonly slots: Int32Array;
   readonly gA: Float64Array;
   readonly gB: Float64Array;
   readonly bessel: Float64Array;
@@ -149,7 +154,8 @@ class RadialIntegrand implements VectorIntegrand {
     lambdaMax: number,
     nMax: number,
   ) {
-    this.offsets = new Int32Array(channels.length + 1);
+    this.lambdaStride = lambdaMax + 1;
+    this.slots = new Int32Array(channels.length * this.lambdaStride * this.lambdaStride);
     this.gA = new Float64Array(lambdaMax + 1);
     this.gB = new Float64Array(lambdaMax + 1);
     this.bessel = new Float64Array(lambdaMax + 1);
@@ -168,14 +174,19 @@ class RadialIntegrand implements VectorIntegrand {
     this.lambdaA = a.l + lmax;
     this.lambdaB = b.l + lmax;
     this.nCount = a.l + b.l + 1;
-    this.nHalf = (this.nCount + 1) >> 1;
-    let offset = 0;
+    const stride = this.lambdaStride;
+    let slot = 0;
     this.channels.forEach((channel, h) => {
-      this.offsets[h] = offset;
-      offset += (a.l + channel.l + 1) * (b.l + channel.l + 1) * this.nHalf;
+      const l = channel.l;
+      for (let lambda = 0; lambda <= a.l + l; lambda++) {
+        for (let mu = 0; mu <= b.l + l; mu++) {
+          this.slots[(h * stride + lambda) * stride + mu] = slot;
+          const first = Math.abs(l - lambda) + Math.abs(l - mu);
+          if (first < this.nCount) slot += ((this.nCount - 1 - first) >> 1) + 1;
+        }
+      }
     });
-    this.offsets[this.channels.length] = offset;
-    return offset;
+    return slot;
   }
 
   private radial(shell: Shell, distance: number, r: number, lambdaMax: number, g: Float64Array): void {
@@ -200,7 +211,7 @@ class RadialIntegrand implements VectorIntegrand {
     this.radial(this.a, this.distanceA, r, this.lambdaA, this.gA);
     this.radial(this.b, this.distanceB, r, this.lambdaB, this.gB);
     const nCount = this.nCount;
-    const nHalf = this.nHalf;
+    const stride = this.lambdaStride;
     const rPowers = this.rPowers;
     const r2 = r * r;
     rPowers[0] = r2;
@@ -215,17 +226,16 @@ class RadialIntegrand implements VectorIntegrand {
         const term = channel.coefficients[k]! * Math.exp(-channel.exponents[k]! * r2);
         u += power === 0 ? term : term * r ** power;
       }
-      const la = this.a.l + channel.l;
-      const lb = this.b.l + channel.l;
-      let index = offset + this.offsets[h]!;
+      const l = channel.l;
+      const la = this.a.l + l;
+      const lb = this.b.l + l;
+      let slot = offset + this.slots[h * stride * stride]!;
       for (let lambda = 0; lambda <= la; lambda++) {
         const ga = u * gA[lambda]!;
-        for (let mu = 0; mu <= lb; mu++, index += nHalf) {
+        const firstA = Math.abs(l - lambda);
+        for (let mu = 0; mu <= lb; mu++) {
           const gab = ga * gB[mu]!;
-          // only n with n + λ + μ even: slot n >> 1
-          let slot = index;
-          for (let n = (lambda + mu) & 1; n < nCount; n += 2) out[slot++] = gab * rPowers[n]!;
-          if (slot < index + nHalf) out[slot] = 0;
+          for (let n = firstA + Math.abs(l - mu); n < nCount; n += 2) out[slot++] = gab * rPowers[n]!;
         }
       }
     }
@@ -362,12 +372,18 @@ export class SemilocalEngine {
     return this.split(lo, hi, count);
   }
 
-  /** Appends the right ends of the panels covering [lo, hi] (left to right). */
+  /**
+   * Appends the right ends of the panels covering [lo, hi] (left to right): a panel is halved
+   * while it reaches within TAIL_WIDTHS widths of a peak and is longer than PANEL_WIDTHS of them,
+   * so that a peak's flanks too lie in panels the rule can see (a Gaussian tail at the edge of a
+   * long panel falls between its nodes).
+   */
   private split(lo: number, hi: number, count: number): number {
     let narrowest = Infinity;
     for (let f = 0; f < this.featureCount; f++) {
+      const width = this.featureWidth[f]!;
       const center = this.featureCenter[f]!;
-      if (center >= lo && center <= hi) narrowest = Math.min(narrowest, this.featureWidth[f]!);
+      if (center + TAIL_WIDTHS * width >= lo && center - TAIL_WIDTHS * width <= hi) narrowest = Math.min(narrowest, width);
     }
     if (narrowest === Infinity || hi - lo <= PANEL_WIDTHS * narrowest) return this.pushBreakpoint(count, hi);
     const mid = 0.5 * (lo + hi);
@@ -380,7 +396,8 @@ export class SemilocalEngine {
     const nb = cartesianCount(b.l);
     const nCountA = a.l + 1;
     const nCountB = b.l + 1;
-    const nHalf = this.integrand.nHalf;
+    const stride = this.integrand.lambdaStride;
+    const slots = this.integrand.slots;
     const t = this.contracted;
     const radial = this.radialIntegrals;
     for (let h = 0; h < this.channels.length; h++) {
@@ -390,7 +407,6 @@ export class SemilocalEngine {
       const lambdaCountB = b.l + l + 1;
       const xa = pa.factors[h]!;
       const xb = pb.factors[h]!;
-      const offset = this.integrand.offsets[h]!;
       // T[cb][m][λ][N] = Σ_(λ',N') X_B[cb][m][λ'][N'] R[λ][λ'][N+N']
       const tSize = nb * mCount * lambdaCountA * nCountA;
       t.fill(0, 0, tSize);
@@ -403,10 +419,12 @@ export class SemilocalEngine {
               const xv = xb[(xbBase + mu) * nCountB + nb2]!;
               if (xv === 0) continue;
               for (let lambda = 0; lambda < lambdaCountA; lambda++) {
-                const rBase = offset + (lambda * lambdaCountB + mu) * nHalf;
+                const firstA = Math.abs(l - lambda);
+                const first = firstA + Math.abs(l - mu);
+                const rBase = slots[(h * stride + lambda) * stride + mu]! - (first >> 1);
                 const tRow = (tBase + lambda) * nCountA;
-                // R[λ][λ'][n] with n = N + N' of the parity of λ + λ' (X vanishes otherwise)
-                for (let na2 = (lambda + mu + nb2) & 1; na2 < nCountA; na2 += 2) t[tRow + na2]! += xv * radial[rBase + ((na2 + nb2) >> 1)]!;
+                // R[λ][λ'][N + N'] for the N that X_A allows (|l − λ| ≤ N, N + λ + l even)
+                for (let na2 = firstA; na2 < nCountA; na2 += 2) t[tRow + na2]! += xv * radial[rBase + ((na2 + nb2) >> 1)]!;
               }
             }
           }
