@@ -55,5 +55,5 @@ describe('SCF and MP2 with ECPs against psi4 1.3.2 (tests/fixtures/ecp-energies.
       expect(frozen.frozenCore).toBe(expected.frozenOrbitals);
       expect(Math.abs(frozen.correlationEnergy - expected.mp2FrozenCore!)).toBeLessThan(1e-6);
     }
-  });
+  }, 300_000);
 });
