@@ -201,6 +201,11 @@ describe('ECP matrices against psi4 1.3.2 (tests/fixtures/ecp-integrals.psi4.jso
 });
 
 describe('ECP blocks against independent quadrature (tests/fixtures/ecp-integrals.independent.json)', () => {
+  it('include a whole 6th-row (Au) matrix', () => {
+    // AuH in def2-SVP has 12 + 3 shells: 120 shell pairs (fixture, by construction)
+    expect(INDEPENDENT.some((c) => c.geometry.some((atom) => atom.symbol === 'Au') && c.blocks.length === 120)).toBe(true);
+  });
+
   describe.each(INDEPENDENT.map((c) => [`${c.name}, ${c.basis}`, c] as const))('%s', (_title, c) => {
     it('agrees to 1e-10 in every listed cartesian block', () => {
       const basis = basisOf(c.geometry, c.basis, 'cartesian');
