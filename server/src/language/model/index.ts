@@ -25,7 +25,7 @@ export { SelectorResolver, type Selection } from './selectors';
 export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOptions): SpecModel {
   const units = ast.units?.value ?? 'angstrom';
   const includes: string[] = [];
-  const atoms = readAtoms(ast, units, sink, options, includes);
+  const atoms = readAtoms(ast, units, sink, options, includes, options.previousAtoms);
   const coordinates = atoms.positions;
   const labels = indexLabels(atoms.list, sink);
   const basis = resolveBasis(ast);
