@@ -14,7 +14,7 @@ export function fragmentInputKey(model: SpecModel, fragmentIndex: number): strin
   const parts: string[] = [model.basis.functions, `q${fragment.charge}`, `m${fragment.multiplicity}`, `fc${fragment.tier?.frozenCore ?? model.frozenCore ? 1 : 0}`];
   for (const atom of fragment.atoms) {
     const element = model.atoms[atom]!.element.symbol;
-    const basis = (model.basis.overrides.get(element) ?? model.basis.main)?.displayName ?? '-';
+    const basis = model.basis.atomSets[atom]?.displayName ?? '-';
     const c = model.coordinates;
     parts.push(`${element}/${basis}/${c[3 * atom]!.toFixed(DECIMALS)},${c[3 * atom + 1]!.toFixed(DECIMALS)},${c[3 * atom + 2]!.toFixed(DECIMALS)}`);
   }

@@ -11,5 +11,12 @@ export {
   type OneElectronKind,
   type PointCharge,
 } from './oneElectron';
-export { createTwoElectronIntegrals, type DirectTwoElectronIntegrals, type JkStatistics } from './twoElectron';
+export {
+  createTwoElectronIntegrals,
+  DEFAULT_STORAGE_LIMIT_BYTES,
+  STORED_QUARTET_BOUND,
+  type DirectTwoElectronIntegrals,
+  type JkStatistics,
+  type TwoElectronOptions,
+} from './twoElectron';
 export { UnsupportedEcpError, assertNoEcp } from './ecp';

@@ -13,7 +13,9 @@
  *
  * Stored integrals: when the quartets above a fixed Schwarz bound fit in the memory limit, the first
  * build keeps them and later builds read them instead of recomputing (a conventional build, as psi4's
- * scf_type pk; J. Almlöf, K. Faegri, K. Korsell, J. Comput. Chem. 3, 385 (1982) contrast the two).
+ * scf_type pk); when they do not, the ones dearest to compute per value are kept and the rest
+ * recomputed (semi-direct; J. Almlöf, K. Faegri, K. Korsell, J. Comput. Chem. 3, 385 (1982) set out
+ * the direct approach and its trade-offs).
  */
 import { throwIfCancelled, type CancelToken, type MolecularBasis, type TwoElectronIntegrals } from '../contracts';
 import { assertNoEcp } from './ecp';
