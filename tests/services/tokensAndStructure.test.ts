@@ -115,7 +115,7 @@ describe('semantic token edits', () => {
 
   it('turn the tokens of one version into the next, in a few numbers for a one-line edit', () => {
     const base = waterBoxSpec(300).text;
-    const at = base.indexOf('\n', base.indexOf('geometry {')) + 1;
+    const at = base.indexOf('\n', base.indexOf('structure {')) + 1;
     const versions = [base, `${base.slice(0, at)}  C 1.5 2.${base.slice(at - 1)}`, `${base.slice(0, at)}  C c1 1.5 2.5 3.5\n${base.slice(at)}`, base.replace('spec "water-box"', 'spec "water box"')];
     for (let k = 1; k < versions.length; k++) {
       const before = getSemanticTokens(analyzeDocument(versions[k - 1]!)).data;

@@ -105,7 +105,7 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
   for (const statement of statements) {
     if (statement.block?.atomTable && statement.block.atomTable.count > SEMANTIC_ATOM_LINE_LIMIT) {
       statementTokens(out, statement, block);
-      for (const other of statement.block.otherStatements ?? []) statementTokens(out, other, 'geometry');
+      for (const other of statement.block.otherStatements ?? []) statementTokens(out, other, 'structure');
       continue;
     }
     if (statement.block?.atomTable) {
