@@ -374,7 +374,9 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     trigger: `${'@\n'.repeat(998)}@⟦⟧\n${'@\n'.repeat(2)}`,
     nearMiss: '@\n'.repeat(999),
     nearMissAllows: ['unexpected-character', 'missing-geometry'],
-    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point'],
+    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point (2 of them errors)'],
+    // An error, since errors are among the ones not listed (the registry's warning otherwise).
+    severity: 'error',
   },
   'internal-error': {
     // A file host that throws stands for any bug below analyze(): the spec itself is fine.
@@ -758,8 +760,9 @@ describe('scans', () => {
     ['scan distance o h2 from 0.9 to ⟦0⟧ step 0.1', 'Scanned distances must be positive.'],
     ['scan distance o h2 from 0.9 to 1.5 step ⟦0⟧', 'A step of 0 never reaches the end of the scan.'],
     ['scan distance o h2 from 0.9 to 1.5 step ⟦-0.1⟧', 'The scan goes from 0.9 to 1.5, so the step must be positive; it is -0.1.'],
-    ['scan distance o h2 from 0.9 to 1.5 step ⟦0.00001⟧', 'This step gives 60001 points; at most 10000 are accepted. Is the step mistyped?'],
-    ['scan distance o h2 from 0.9 to 1.5 points ⟦10001⟧', 'At most 10000 scan points are accepted.'],
+    ['scan distance o h2 from 0.9 to 1.5 step ⟦0.00001⟧', 'Going from 0.9 to 1.5 in steps of 0.00001 gives 60,001 points; at most 10,000 are accepted. Is the step mistyped?'],
+    ['scan distance o h2 from 1 to 1e308 step ⟦1e-300⟧', 'Going from 1 to 1e+308 in steps of 1e-300 gives more points than can be counted ((1e+308 − 1) / 1e-300 overflows); at most 10,000 are accepted. Is the step mistyped?'],
+    ['scan distance o h2 from 0.9 to 1.5 points ⟦10001⟧', '10,001 scan points asked for; at most 10,000 are accepted.'],
     ['scan distance h2 ⟦#3⟧ from 0.9 to 1.5 points 4', 'The scan needs two different atoms.'],
     ['⟦scan⟧ distance o h1 from 0.9 to 1.5 points 4', "Both scanned atoms are in fragment 'a'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments."],
     ['scan distance o h2 from ⟦0.3⟧ to 1.5 step 0.3', 'The scan reaches 0.300 Å, closer than 0.5 Å.'],

@@ -133,6 +133,6 @@ export function analyze(original: string, options: AnalyzeOptions = {}): Analysi
   contained(sink, 'finding retired spellings', () => {
     for (const retired of retiredSpellings(text, tree, model)) sink.report('retired-spelling', retired.span, retired.message, { data: { retired: retired.kind } });
   });
-  const diagnostics = finishDiagnostics(sink.items, sink.dropped);
+  const diagnostics = finishDiagnostics(sink.items, sink.dropped, sink.droppedErrors);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

@@ -128,10 +128,17 @@ export class DiagnosticSink {
   readonly items: Diagnostic[] = [];
   /** Reports beyond what is kept while analysing: counted, not stored. */
   dropped = 0;
+  /** How many of those were errors. */
+  droppedErrors = 0;
+
+  private drop(severity: Severity): void {
+    this.dropped++;
+    if (severity === 'error') this.droppedErrors++;
+  }
 
   add(item: Diagnostic): void {
     if (this.items.length >= MAX_COLLECTED) {
-      this.dropped++;
+      this.drop(item.severity);
       return;
     }
     this.items.push(diagnostic(item.code, item.span, item.message, { ...(item.related ? { related: item.related } : {}), ...(item.data ? { data: item.data } : {}), severity: item.severity }));
@@ -144,7 +151,7 @@ export class DiagnosticSink {
     extra?: { related?: readonly RelatedInformation[]; data?: Readonly<Record<string, unknown>>; severity?: Severity },
   ): void {
     if (this.items.length >= MAX_COLLECTED) {
-      this.dropped++;
+      this.drop(extra?.severity ?? DIAGNOSTIC_CODES[code].severity);
       return;
     }
     this.items.push(diagnostic(code, span, message, extra));
@@ -157,27 +164,35 @@ function byPosition(a: Diagnostic, b: Diagnostic): number {
 
 /**
  * The diagnostics of one file as shown: sorted by position, at most MAX_DIAGNOSTICS_PER_FILE, then
- * one `too-many-problems` saying how many more were found. Diagnostics already finished once (the
- * language's, then those that read estimates) can be finished again with more added.
+ * one `too-many-problems` saying how many more were found, an error when errors are among them
+ * (so that a count of errors, or an exit code, never misses them). Diagnostics already finished
+ * once (the language's, then those that read estimates) can be finished again with more added.
  */
-export function finishDiagnostics(items: readonly Diagnostic[], dropped = 0): Diagnostic[] {
+export function finishDiagnostics(items: readonly Diagnostic[], dropped = 0, droppedErrors = 0): Diagnostic[] {
   let omitted = dropped;
+  let omittedErrors = droppedErrors;
   const problems: Diagnostic[] = [];
   for (const item of items) {
-    if (item.code === 'too-many-problems') omitted += Number(item.data?.['omitted'] ?? 0);
-    else problems.push(item);
+    if (item.code === 'too-many-problems') {
+      omitted += Number(item.data?.['omitted'] ?? 0);
+      omittedErrors += Number(item.data?.['errors'] ?? 0);
+    } else problems.push(item);
   }
   problems.sort(byPosition);
-  omitted += Math.max(0, problems.length - MAX_DIAGNOSTICS_PER_FILE);
+  for (let i = MAX_DIAGNOSTICS_PER_FILE; i < problems.length; i++) {
+    omitted++;
+    if (problems[i]!.severity === 'error') omittedErrors++;
+  }
   if (omitted === 0) return problems;
   const kept = problems.slice(0, MAX_DIAGNOSTICS_PER_FILE);
   const after = kept[kept.length - 1]?.span.end ?? 0;
+  const errors = omittedErrors > 0 ? ` (${omittedErrors.toLocaleString('en-US')} of them errors)` : '';
   kept.push(
     diagnostic(
       'too-many-problems',
       { start: after, end: after },
-      `Tessera lists at most ${MAX_DIAGNOSTICS_PER_FILE.toLocaleString('en-US')} problems per file; ${omitted.toLocaleString('en-US')} more were found after this point and are not shown. Fix the ones above and check again (or is this not a spec file?).`,
-      { data: { omitted } },
+      `Tessera lists at most ${MAX_DIAGNOSTICS_PER_FILE.toLocaleString('en-US')} problems per file; ${omitted.toLocaleString('en-US')} more were found after this point${errors} and are not shown. Fix the ones above and check again (or is this not a spec file?).`,
+      { data: { omitted, errors: omittedErrors }, ...(omittedErrors > 0 ? { severity: 'error' as const } : {}) },
     ),
   );
   return kept;

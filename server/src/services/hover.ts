@@ -3,6 +3,7 @@
  * take which basis), and every keyword and value word of the language, with the structure's length
  * unit where a distance is read in it.
  */
+import { markdownText } from '../report/format/escape';
 import { MarkupKind, type Hover } from 'vscode-languageserver-types';
 import { findBasisSet, type BasisSet } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
@@ -47,7 +48,7 @@ function neighbours(analysis: DocumentAnalysis, atom: number, limit: number): { 
 }
 
 function atomTitle(atom: AtomModel): string {
-  return atom.label ? `${atom.label} (#${atom.index + 1})` : `#${atom.index + 1}`;
+  return atom.label ? `${markdownText(atom.label)} (#${atom.index + 1})` : `#${atom.index + 1}`;
 }
 
 export function atomCard(analysis: DocumentAnalysis, index: number): string {

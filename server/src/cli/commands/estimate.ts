@@ -2,6 +2,7 @@
  * `tessera estimate <spec>` and `tessera estimate --xyz <file> --basis <name> ...`: the counts for
  * the system and each fragment, as a table, Markdown or JSON.
  */
+import { safeJsonStringify } from '../../language/printable';
 import * as path from 'node:path';
 import { normalizeBasisName } from '../../chemistry/basis/library';
 import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
@@ -110,7 +111,7 @@ export function runEstimate(options: EstimateOptions, io: CliIo): number {
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
   if (options.format === 'json') {
-    io.stdout(`${JSON.stringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, null, 2)}\n`);
+    io.stdout(`${safeJsonStringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, 2)}\n`);
   } else {
     io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
     for (const diagnostic of prepared.diagnostics) {

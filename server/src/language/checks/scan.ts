@@ -26,11 +26,12 @@ export function checkScan(context: CheckContext): void {
     }
     const points = scanPointCount(from, to, step);
     if (points > MAX_SCAN_POINTS) {
-      sink.report('invalid-scan', scan.step.span, `This step gives ${points} points; at most ${MAX_SCAN_POINTS} are accepted. Is the step mistyped?`);
+      const count = Number.isFinite(points) ? `${points.toLocaleString('en-US')} points` : `more points than can be counted ((${to} − ${from}) / ${step} overflows)`;
+      sink.report('invalid-scan', scan.step.span, `Going from ${from} to ${to} in steps of ${step} gives ${count}; at most ${MAX_SCAN_POINTS.toLocaleString('en-US')} are accepted. Is the step mistyped?`);
       return;
     }
   } else if (scan.points && scan.points.value > MAX_SCAN_POINTS) {
-    sink.report('invalid-scan', scan.points.span, `At most ${MAX_SCAN_POINTS} scan points are accepted.`);
+    sink.report('invalid-scan', scan.points.span, `${scan.points.value.toLocaleString('en-US')} scan points asked for; at most ${MAX_SCAN_POINTS.toLocaleString('en-US')} are accepted.`);
     return;
   }
   const resolved = model.scan;
