@@ -5,5 +5,7 @@ export default defineConfig({
     include: ['tests/**/*.test.ts'],
     exclude: ['tests/e2e/**', 'node_modules/**'],
     testTimeout: 30_000,
+    // Temporary folders go under one folder per run, which must be empty at the end.
+    globalSetup: ['tests/support/tempCheck.ts'],
   },
 });

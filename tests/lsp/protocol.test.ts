@@ -1,10 +1,10 @@
 /** Protocol tests: the bundled server, started as a child process, driven over stdio like an editor. */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CodeAction, CompletionList, DocumentSymbol, Hover, MarkupContent, TextEdit, WorkspaceEdit } from 'vscode-languageserver-types';
+import { tempFolder } from '../support/tempFolders';
 import { ROOT, startServer, type TestClient } from './client';
 
 const demoPath = path.join(ROOT, 'samples', 'zn-site-h2s-scan.tess');
@@ -159,7 +159,7 @@ describe('language server over stdio', () => {
   });
 
   it('re-checks a spec when its included XYZ file changes', async () => {
-    const folder = mkdtempSync(path.join(tmpdir(), 'tessera-lsp-'));
+    const folder = tempFolder('tessera-lsp-');
     const xyz = path.join(folder, 'mol.xyz');
     writeFileSync(xyz, '2\nH2\nH 0 0 0\nH 0 0 0.74\n');
     const specUri = pathToFileURL(path.join(folder, 'mol.tess')).toString();
@@ -167,7 +167,9 @@ describe('language server over stdio', () => {
     client.open(specUri, 'basis sto-3g\nstructure from "mol.xyz"\n');
     expect(await pending).toEqual([]);
     writeFileSync(xyz, '2\nH2\nH 0 0 0\nH 0 0 0.1\n');
-    const after = client.diagnostics(specUri);
+    // A publish of the old state may still be on its way (a settings change re-publishes every
+    // spec): wait for the one that has read the new file.
+    const after = client.diagnosticsWhere(specUri, (diagnostics) => diagnostics.length > 0);
     await client.connection.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: pathToFileURL(xyz).toString(), type: 2 }] });
     expect((await after).map((d) => d.code)).toContain('atoms-too-close');
   });
