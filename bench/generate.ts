@@ -40,7 +40,7 @@ function specText(name: string, comment: string, atoms: readonly Atom[], probeAt
     `# Generated benchmark spec (invented data): ${comment}.`,
     `spec "${name}"`,
     'basis sto-3g',
-    'geometry {',
+    'structure {',
     ...lines,
     '}',
     'fragment probe {',

@@ -72,8 +72,8 @@ class EditorDocument {
 function editPlan(document: EditorDocument, count: number): (() => { range: { start: Position; end: Position }; text: string })[] {
   const edits: (() => { range: { start: Position; end: Position }; text: string })[] = [];
   const digitAt = () => {
-    // The last digit of the first coordinate of the geometry's fifth line.
-    const geometry = document.text.indexOf('geometry {');
+    // The last digit of the first coordinate of the structure block's fifth line.
+    const geometry = document.text.indexOf('structure {');
     let line = geometry;
     for (let i = 0; i < 5; i++) line = document.text.indexOf('\n', line + 1);
     const match = /-?\d+\.\d+/.exec(document.text.slice(line, line + 200))!;
@@ -88,8 +88,8 @@ function editPlan(document: EditorDocument, count: number): (() => { range: { st
   for (let k = 0; k < first; k++) edits.push(digit(k));
   for (let k = 0; k < typed.length; k++) {
     edits.push(() => {
-      // After the first geometry line, so the block stays open while the line is typed.
-      const geometry = document.text.indexOf('geometry {') + 'geometry {'.length;
+      // After the first atom line, so the block stays open while the line is typed.
+      const geometry = document.text.indexOf('structure {') + 'structure {'.length;
       const lineEnd = document.text.indexOf('\n', geometry + 1);
       const at = lineEnd + k;
       return document.replace(at, at, typed[k]!);

@@ -1,5 +1,6 @@
 /** `npm run bench`: every benchmark, printed as Markdown tables. */
 import { benchAnalysis } from './analysis';
+import { benchEcp } from './ecp';
 import { benchHamiltonian } from './hamiltonian';
 import { benchIntegrals } from './integrals';
 import { benchIrreps } from './irreps';
@@ -17,6 +18,7 @@ const sections: Record<string, Section> = {
   pauli: benchPauli,
   hamiltonian: benchHamiltonian,
   integrals: benchIntegrals,
+  ecp: benchEcp,
   scf: benchScf,
   lsp: () => benchLanguageServer(),
 };

@@ -10,7 +10,7 @@ import { WATER_LINES } from '../fixtures/water';
 import { positionOf, readSample } from '../services/service';
 
 /** Water at Hoy & Bunker's structure (1979), placed as in tests/fixtures/water.ts. */
-const WATER = `geometry {
+const WATER = `structure {
   O  o    0.000000   0.000000   0.000000
   H  h1   0.000000   0.756950   0.585882
   H  h2   0.000000  -0.756950   0.585882
@@ -84,7 +84,7 @@ describe('each request computes only what it shows', () => {
 describe('one symmetry size policy for checks and figures', () => {
   function chain(atoms: number): string {
     const lines = Array.from({ length: atoms }, (_, i) => `  H ${(i * 0.9).toFixed(2)} 0 0`);
-    return `basis sto-3g\ngeometry {\n${lines.join('\n')}\n}\nfragment all { atoms rest; tier mean-field { method rhf } }\n`;
+    return `basis sto-3g\nstructure {\n${lines.join('\n')}\n}\nfragment all { atoms rest; tier mean-field { method rhf } }\n`;
   }
 
   it('looks for point groups up to the limit', () => {

@@ -9,16 +9,16 @@ function documents() {
   return { host, set, open };
 }
 
-const SPEC = 'basis sto-3g\ngeometry from "h2.xyz"\nfragment h2 { atoms rest; tier quantum { method vqe } }\n';
+const SPEC = 'basis sto-3g\nstructure from "h2.xyz"\nfragment h2 { atoms rest; tier quantum { method vqe } }\n';
 const H2 = '2\nhydrogen\nH 0 0 0\nH 0 0 0.74\n';
 
 describe('the analysis host', () => {
   it('analyses a version once and a new version anew', () => {
     const { host, set } = documents();
-    set('file:///w/a.tess', 1, 'basis sto-3g\ngeometry { H 0 0 0; H 0 0 0.74 }\n');
+    set('file:///w/a.tess', 1, 'basis sto-3g\nstructure { H 0 0 0; H 0 0 0.74 }\n');
     const first = host.get('file:///w/a.tess')!;
     expect(host.get('file:///w/a.tess')).toBe(first);
-    set('file:///w/a.tess', 2, 'basis sto-3g\ngeometry { H 0 0 0; H 0 0 0.75 }\n');
+    set('file:///w/a.tess', 2, 'basis sto-3g\nstructure { H 0 0 0; H 0 0 0.75 }\n');
     expect(host.isCurrent('file:///w/a.tess')).toBe(false);
     expect(host.get('file:///w/a.tess')).not.toBe(first);
     expect(host.get('file:///nowhere.tess')).toBeUndefined();
@@ -67,11 +67,11 @@ describe('late results', () => {
 
   it('are keyed by what determines them: a moved atom changes the key, a label does not', () => {
     const { host, set } = documents();
-    set('file:///w/a.tess', 1, 'basis sto-3g\ngeometry { H a 0 0 0; H b 0 0 0.74 }\nfragment h2 { atoms rest; tier quantum { method vqe } }\n');
+    set('file:///w/a.tess', 1, 'basis sto-3g\nstructure { H a 0 0 0; H b 0 0 0.74 }\nfragment h2 { atoms rest; tier quantum { method vqe } }\n');
     const before = fragmentInputKey(host.get('file:///w/a.tess')!.model, 0);
-    set('file:///w/a.tess', 2, 'basis sto-3g\ngeometry { H x 0 0 0; H y 0 0 0.74 }\nfragment h2 { atoms rest; tier quantum { method vqe } }\n');
+    set('file:///w/a.tess', 2, 'basis sto-3g\nstructure { H x 0 0 0; H y 0 0 0.74 }\nfragment h2 { atoms rest; tier quantum { method vqe } }\n');
     expect(fragmentInputKey(host.get('file:///w/a.tess')!.model, 0)).toBe(before);
-    set('file:///w/a.tess', 3, 'basis sto-3g\ngeometry { H x 0 0 0; H y 0 0 0.75 }\nfragment h2 { atoms rest; tier quantum { method vqe } }\n');
+    set('file:///w/a.tess', 3, 'basis sto-3g\nstructure { H x 0 0 0; H y 0 0 0.75 }\nfragment h2 { atoms rest; tier quantum { method vqe } }\n');
     expect(fragmentInputKey(host.get('file:///w/a.tess')!.model, 0)).not.toBe(before);
   });
 });

@@ -23,7 +23,7 @@ vi.mock('../../server/src/language/analyze', async (importOriginal) => {
 });
 
 const WATER = readFileSync(path.join(root, 'samples', 'molecules', 'water-sto-3g.tess'), 'utf8');
-const FAR = 'spec "far"\nbasis sto-3g\ngeometry {\n  H 1e155 0 0\n  H 0 0 0\n}\n';
+const FAR = 'spec "far"\nbasis sto-3g\nstructure {\n  H 1e155 0 0\n  H 0 0 0\n}\n';
 
 describe('tessera check on a batch', () => {
   it('a file on which Tessera fails: reported, the others checked, exit 3', async () => {

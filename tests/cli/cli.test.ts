@@ -35,7 +35,19 @@ describe('tessera check', () => {
   it('exits 1 and prints file:line:col: severity code message for a spec with errors', async () => {
     const result = await run(['check', 'samples/mistakes.tess']);
     expect(result.code).toBe(1);
-    expect(result.stdout).toMatch(/^samples\/mistakes\.tess:9:7: error unknown-basis 'cc-pvdzz' is not in the basis-set library\. Did you mean 'cc-pVDZ'\?/m);
+    expect(result.stdout).toMatch(/^samples\/mistakes\.tess:8:7: error unknown-basis 'cc-pvdzz' is not in the basis-set library\. Did you mean 'cc-pVDZ'\?/m);
+  });
+
+  it('shows an old spelling as an error with its rewrite, and exits 1', async () => {
+    const folder = scratch({ 'old.tess': `units bohr\nbasis sto-3g { H = 3-21G }\ngeometry {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment h2 { atoms within 2 of a; tier mean-field { method rhf } }\n` });
+    const result = await run(['check', 'old.tess'], folder);
+    expect(result.code).toBe(1);
+    expect(result.stdout.trimEnd().split('\n')).toEqual([
+      'old.tess:1:1: error retired-spelling `units bohr` is an old spelling: the length unit is part of the structure header now, `structure in bohr { … }`. The rewrite moves it there and deletes this line.',
+      'old.tess:2:1: error retired-spelling The braced basis block is an old spelling: write one line per basis, `basis sto-3g`, `basis 3-21G on all H`.',
+      'old.tess:3:1: error retired-spelling `geometry` is an old spelling: write `structure in bohr { … }` (the unit of the old `units` line moves into the header, and that line goes).',
+      'old.tess:7:21: error retired-spelling `within 2 of a` is an old spelling: write `closer-than 2 to a`, every atom strictly closer than 2 bohr (the structure\'s unit) to a.',
+    ]);
   });
 
   it('gives JSON with positions, codes and counts', async () => {
@@ -43,7 +55,7 @@ describe('tessera check', () => {
     expect(result.code).toBe(1);
     const json = JSON.parse(result.stdout) as { files: { file: string; diagnostics: { line: number; column: number; code: string; severity: string }[] }[]; errors: number };
     expect(json.files).toHaveLength(2);
-    expect(json.files[0]!.diagnostics.find((d) => d.code === 'unknown-basis')).toMatchObject({ line: 9, column: 7, severity: 'error' });
+    expect(json.files[0]!.diagnostics.find((d) => d.code === 'unknown-basis')).toMatchObject({ line: 8, column: 7, severity: 'error' });
     expect(json.files[1]!.diagnostics).toEqual([]);
     expect(json.errors).toBeGreaterThan(5);
   });

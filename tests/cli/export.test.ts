@@ -55,7 +55,8 @@ interface Molecule {
       spec: string;
       part: string;
       spec_atom_numbers: number[];
-      basis: { name: string | null; overrides: Record<string, string>; functions: string };
+      basis: { name: string | null; overrides: { basis: string; on: string; atoms: number }[]; functions: string };
+      atom_basis: (string | null)[];
       fragments?: { name: string; tier: { level: string; method: string; mapping: string | null } | null }[];
       tier?: { level: string; method: string; mapping: string | null } | null;
       fragment?: string;
@@ -106,8 +107,8 @@ async function exportQc(file: string): Promise<QcExport> {
 }
 
 describe('the sample list', () => {
-  it('has the seven clean samples and the mistakes', () => {
-    expect(cleanSamples()).toHaveLength(7);
+  it('has the eight clean samples and the mistakes', () => {
+    expect(cleanSamples()).toHaveLength(8);
     expect(allSamples()).toContain('samples/mistakes.tess');
   });
 });
@@ -147,7 +148,7 @@ describe('tessera export --to xyz', () => {
 
   it('a spec in bohr is written in ångström (× 0.529177210903, CODATA 2018)', async () => {
     const folder = scratch({
-      'h2.tess': 'spec "h2-bohr"\nunits bohr\nbasis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment h2 { atoms rest; tier quantum { method vqe } }\n',
+      'h2.tess': 'spec "h2-bohr"\nbasis sto-3g\nstructure in bohr {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment h2 { atoms rest; tier quantum { method vqe } }\n',
     });
     const result = await run(['export', 'h2.tess', '--to', 'xyz'], folder);
     expect(result.code, result.stderr).toBe(0);
@@ -260,6 +261,7 @@ describe('tessera export --to qcschema', () => {
       'samples/molecules/water-sto-3g.tess': { system: [0, 1], fragments: { water: [0, 1] } },
       'samples/molecules/dinitrogen-bases.tess': { system: [0, 1], fragments: { n2: [0, 1] } },
       'samples/molecules/benzene-6-31gs.tess': { system: [0, 1], fragments: { ring: [0, 1] } },
+      'samples/molecules/water-pair-overrides.tess': { system: [0, 1], fragments: { donor: [0, 1], acceptor: [0, 1] } },
     };
     expect(Object.keys(expected).sort()).toEqual(cleanSamples());
     for (const [file, want] of Object.entries(expected)) {
@@ -285,7 +287,10 @@ describe('tessera export --to qcschema', () => {
   it('the basis, tiers and embedding under extras.tessera; provenance names Tessera', async () => {
     const qc = await exportQc('samples/zn-site-h2s-scan.tess');
     const extras = qc.system.extras.tessera;
-    expect(extras.basis).toEqual({ name: 'def2-SVP', overrides: { Zn: 'def2-TZVP' }, functions: 'spherical' });
+    expect(extras.basis).toEqual({ name: 'def2-SVP', overrides: [{ basis: 'def2-TZVP', on: 'all Zn', atoms: 1 }], functions: 'spherical' });
+    // Each atom's basis in the molecule's atom order: the zinc takes the override, the others the main basis.
+    expect(extras.atom_basis.map((name, k) => [qc.system.symbols[k], name]).filter(([, name]) => name !== 'def2-SVP')).toEqual([['Zn', 'def2-TZVP']]);
+    expect(qc.fragments[0]!.extras.tessera.atom_basis[0]).toBe('def2-TZVP');
     expect(extras.fragments!.map((fragment) => [fragment.name, fragment.tier?.level, fragment.tier?.method])).toEqual([
       ['site', 'quantum', 'vqe'],
       ['guest', 'correlated', 'ccsd(t)'],
@@ -319,7 +324,7 @@ describe('tessera export --to qcschema', () => {
   });
 
   it('a spec without fragments: the system alone, without QCSchema fragments', async () => {
-    const folder = scratch({ 'he.tess': 'spec "helium"\nbasis cc-pVDZ\ngeometry {\n  He 0 0 0\n}\n' });
+    const folder = scratch({ 'he.tess': 'spec "helium"\nbasis cc-pVDZ\nstructure {\n  He 0 0 0\n}\n' });
     const result = await run(['export', 'he.tess', '--to', 'qcschema'], folder);
     expect(result.code, result.stderr).toBe(0);
     const qc = JSON.parse(result.stdout) as QcExport;
@@ -336,13 +341,13 @@ describe('tessera export: errors, files and usage', () => {
       const result = await run(['export', 'samples/mistakes.tess', '--to', to]);
       expect(result.code).toBe(1);
       expect(result.stdout).toBe('');
-      expect(result.stderr).toMatch(/^samples\/mistakes\.tess:9:7: error unknown-basis /m);
+      expect(result.stderr).toMatch(/^samples\/mistakes\.tess:8:7: error unknown-basis /m);
       expect(result.stderr).toContain('nothing exported');
     }
   });
 
   it('does not write --out for a spec with errors', async () => {
-    const folder = scratch({ 'bad.tess': 'spec "bad"\nbasis sto-3g\nmultiplicity 2\ngeometry {\n  He 0 0 0\n}\n' });
+    const folder = scratch({ 'bad.tess': 'spec "bad"\nbasis sto-3g\nmultiplicity 2\nstructure {\n  He 0 0 0\n}\n' });
     const result = await run(['export', 'bad.tess', '--to', 'xyz', '--out', 'bad.xyz'], folder);
     expect(result.code).toBe(1);
     expect(result.stderr).toContain('multiplicity-parity');

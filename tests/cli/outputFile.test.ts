@@ -14,7 +14,7 @@ import { root, run } from './harness';
 const WATER = readFileSync(path.join(root, 'samples', 'molecules', 'water-sto-3g.tess'), 'utf8');
 /** Water at Hoy & Bunker's structure (1979), placed as in tests/fixtures/water.ts. */
 const WATER_XYZ = '3\nwater\nO 0 0 0\nH 0 0.756950 0.585882\nH 0 -0.756950 0.585882\n';
-const INCLUDING = 'spec "inc"\nbasis sto-3g\ngeometry from "water.xyz"\n';
+const INCLUDING = 'spec "inc"\nbasis sto-3g\nstructure from "water.xyz"\n';
 
 /** Files of a folder other than the ones given: leftovers such as temporary files. */
 function leftovers(folder: string, expected: readonly string[]): string[] {

@@ -29,7 +29,7 @@ describe('tessera report', () => {
       const result = await run(['report', 'samples/mistakes.tess', '--format', format]);
       expect(result.code, format).toBe(1);
       expect(result.stdout.length).toBeGreaterThan(0);
-      expect(result.stderr).toMatch(/^samples\/mistakes\.tess:9:7: error unknown-basis /m);
+      expect(result.stderr).toMatch(/^samples\/mistakes\.tess:8:7: error unknown-basis /m);
       expect(result.stderr).toContain('the figures in the report may be incomplete');
     }
   });

@@ -21,11 +21,11 @@ function lineOf(file, text) {
   return index + 1;
 }
 
-/** The atom rows of the first geometry block in a list of lines (between `geometry {` and `}`). */
+/** The atom rows of the first structure block in a list of lines (between `structure {` and `}`). */
 function geometryRows(lines) {
-  const start = lines.findIndex((line) => /^\s*geometry\s*\{\s*$/.test(line));
+  const start = lines.findIndex((line) => /^\s*structure(\s+in\s+\w+)?\s*\{\s*$/.test(line));
   const end = lines.findIndex((line, index) => index > start && /^\s*\}\s*$/.test(line));
-  if (start < 0 || end < 0) throw new Error(`no geometry block in:\n${lines.join('\n')}`);
+  if (start < 0 || end < 0) throw new Error(`no structure block in:\n${lines.join('\n')}`);
   return lines.slice(start + 1, end).filter((line) => line.trim() !== '');
 }
 
@@ -250,7 +250,7 @@ export async function runWorkbenchChecks({ page, workspace, shots, reference, lo
     const keywords = await allRowLabels(page, '.suggest-widget.visible');
     const names = keywords.map((label) => label.split(',')[0].trim());
     const offered = ['ansatz', 'mapping', 'active', 'taper', 'layers', 'frozen-core'];
-    const notOffered = ['method', 'atoms', 'geometry', 'basis'];
+    const notOffered = ['method', 'atoms', 'structure', 'basis'];
     const missing = offered.filter((word) => !names.includes(word));
     const wrong = notOffered.filter((word) => names.includes(word));
     if (missing.length > 0 || wrong.length > 0) throw new Error(`tier keywords offered: ${names.join(', ')}; missing ${missing.join(', ') || '-'}; out of place ${wrong.join(', ') || '-'}`);
@@ -300,7 +300,7 @@ export async function runWorkbenchChecks({ page, workspace, shots, reference, lo
   });
 
   // --- formatter ------------------------------------------------------------------------------
-  await check('h', 'Format Document aligns the geometry block', async () => {
+  await check('h', 'Format Document aligns the structure block', async () => {
     const file = path.join(workspace, 'messy-geometry.tess');
     await hidePanel(page).catch(() => {});
     await openFile(page, 'messy-geometry.tess');

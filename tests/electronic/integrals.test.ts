@@ -275,13 +275,22 @@ describe('effective core potentials', () => {
     { symbol: 'H', x: 0, y: 0, z: 3.04 },
   ];
 
-  it('are refused, naming the element, rather than integrated without the potential', () => {
+  it('enter the core Hamiltonian (H − T − V is the ECP matrix, non-zero); the electron repulsion is unaffected', () => {
     const basis = buildMolecularBasis(hi, 'def2-SVP', 'spherical');
-    expect(() => createTwoElectronIntegrals(basis)).toThrow(UnsupportedEcpError);
-    expect(() => nuclearAttractionMatrix(basis)).toThrow(/I carries an effective core potential in def2-SVP/);
-    expect(() => coreHamiltonian(basis)).toThrow(UnsupportedEcpError);
-    // Integrals that do not involve the core potential are still available.
-    expect(overlapMatrix(basis)[0]).toBeCloseTo(1, 12);
+    expect(() => createTwoElectronIntegrals(basis)).not.toThrow();
+    const h = coreHamiltonian(basis);
+    const t = kineticMatrix(basis);
+    const v = nuclearAttractionMatrix(basis);
+    // The s-channel potential of I is strongly repulsive at the nucleus (def2 data): ⟨1s|U|1s⟩ > 0.
+    expect(h[0]! - t[0]! - v[0]!).toBeGreaterThan(1);
+    expect(overlapMatrix(basis)[0]).toBeCloseTo(1, 12); // unit norm, by construction
+  });
+
+  it('are refused, naming the element, when the potential has a channel the integrals do not handle', () => {
+    const basis = buildMolecularBasis(hi, 'def2-SVP', 'spherical');
+    const unsupported = { ...basis, ecps: basis.ecps.map((ecp) => ({ ...ecp, channels: [...ecp.channels, { l: 6, powers: Int32Array.of(2), exponents: Float64Array.of(1), coefficients: Float64Array.of(1) }] })) };
+    expect(() => coreHamiltonian(unsupported)).toThrow(UnsupportedEcpError);
+    expect(() => coreHamiltonian(unsupported)).toThrow(/I carries an effective core potential in def2-SVP/);
   });
 
   it('do not stop an all-electron basis of the same molecule', () => {

@@ -12,7 +12,7 @@ function report(text: string) {
 // H2 at its experimental bond length 0.7414 Å (as commonly quoted; from memory).
 const H2 = (tier = 'tier quantum { method vqe; ansatz uccsd; mapping jordan-wigner; taper on }') => `basis sto-3g
 frozen-core off
-geometry {
+structure {
   H a 0 0 0
   H b 0 0 0.7414
 }
@@ -23,7 +23,7 @@ fragment h2 {
 `;
 
 // Water, experimental geometry (Hoy & Bunker 1979: r 0.9572 Å, angle 104.52°), placed as in tests/fixtures/water.ts.
-const WATER = `geometry {
+const WATER = `structure {
   O o 0.000000 0.000000 0.000000
   H h1 0.000000 0.756950 0.585882
   H h2 0.000000 -0.756950 0.585882
@@ -81,7 +81,7 @@ describe('open shells', () => {
   // O2 at r_e = 1.2075 Å (Huber & Herzberg 1979, from memory); α = (N + 2S)/2 (Szabo & Ostlund 1989);
   // the spin-orbital UCCSD count of Romero et al. 2019, by hand below.
   it('triplet O2 in cc-pVDZ: 9 α and 7 β electrons, UCCSD counted in spin orbitals (no spin-adapted form)', () => {
-    const o2 = report(`basis cc-pVDZ\nmultiplicity 3\ngeometry {\n  O a 0 0 0.60375\n  O b 0 0 -0.60375\n}\nfragment o2 {\n  atoms rest\n  multiplicity 3\n  tier quantum { method vqe; ansatz uccsd; active 8e 6o }\n}\n`);
+    const o2 = report(`basis cc-pVDZ\nmultiplicity 3\nstructure {\n  O a 0 0 0.60375\n  O b 0 0 -0.60375\n}\nfragment o2 {\n  atoms rest\n  multiplicity 3\n  tier quantum { method vqe; ansatz uccsd; active 8e 6o }\n}\n`);
     const fragment = o2.fragments[0]!;
     expect(fragment.active).toMatchObject({ electrons: 8, orbitals: 6, alpha: 5, beta: 3 });
     // Spin-orbital UCCSD, unscreened: singles 5·1 + 3·3 = 14; doubles C(5,2)C(1,2) + C(3,2)C(3,2) + 5·3·1·3 = 0 + 9 + 45 = 54.
@@ -95,7 +95,7 @@ describe('DMET impurity sizes (Knizia & Chan 2012; Wouters et al. 2016)', () => 
   // and N = 4 + 4 = 8 occupied per spin outside the core. A one-water fragment of L = 6 orbitals gets
   // bath = min(L, M − L, N, M − N) = min(6, 6, 8, 4) = 4 (Knizia & Chan 2012; Wouters et al. 2016),
   // an impurity of 10 orbitals with 2 × (4 + max(0, 6 + 8 − 12)) = 12 electrons.
-  const two = report(`basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n  O p 6 0 0\n  H g1 6 0.756950 0.585882\n  H g2 6 -0.756950 0.585882\n}\nembedding dmet\nfragment a {\n  atoms o h1 h2\n  tier quantum { method vqe }\n}\nfragment b {\n  atoms p g1 g2\n  tier mean-field { method rhf }\n}\n`);
+  const two = report(`basis sto-3g\nstructure {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n  O p 6 0 0\n  H g1 6 0.756950 0.585882\n  H g2 6 -0.756950 0.585882\n}\nembedding dmet\nfragment a {\n  atoms o h1 h2\n  tier quantum { method vqe }\n}\nfragment b {\n  atoms p g1 g2\n  tier mean-field { method rhf }\n}\n`);
   it('gives a fragment up to L bath orbitals, fewer when the environment has fewer virtuals', () => {
     expect(two.fragments[0]!.problem).toMatchObject({ embedding: 'dmet', orbitals: 10, electrons: 12, bath: { alpha: 4, beta: 4 } });
     expect(two.fragments[0]!.qubits.jordanWigner).toBe(20);

@@ -22,7 +22,7 @@ describe('TextMate grammar', () => {
   });
 
   it('fails on a wrong assertion, so the assertions are really checked', () => {
-    const wrong = readFileSync(path.join(root, 'tests', 'grammar', 'spec.test.tess'), 'utf8').replace('#     ^^^^^^^^ constant.language.tessera', '#     ^^^^^^^^ keyword.control.tessera');
+    const wrong = readFileSync(path.join(root, 'tests', 'grammar', 'spec.test.tess'), 'utf8').replace('#         ^^^^^^^^^ constant.language.tessera', '#         ^^^^^^^^^ keyword.control.tessera');
     const file = path.join(mkdtempSync(path.join(tmpdir(), 'tessera-grammar-')), 'wrong.test.tess');
     writeFileSync(file, wrong);
     const result = runCases([file]);

@@ -10,7 +10,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { LateResults, MEAN_FIELD_KIND, requestKey, type MeanFieldOutcome, type Mp2Summary } from '../../server/src/analysis';
 import { JobQueue, type JobEvent } from '../../server/src/jobs';
-import { mp2For, referenceCase, requestFor, slowRequest } from './requests';
+import { BOHR_IN_ANGSTROM } from '../../server/src/chemistry/units';
+import { ECP_CASES, mp2For, referenceCase, requestFor, slowRequest } from './requests';
 
 const queues: JobQueue[] = [];
 
@@ -221,19 +222,24 @@ describe('the job queue', () => {
     expect(settled.data).toEqual({ code: 'basis', atoms: [1] });
   });
 
-  it('refuses an element whose basis carries an effective core potential, naming it', async () => {
+  it('computes a part whose basis carries an effective core potential (psi4 1.3.2 ECP fixture)', async () => {
     const { queue } = makeQueue();
+    const hydrogenIodide = ECP_CASES.find((c) => c.name === 'hydrogen iodide' && c.basis === 'def2-svp' && c.kind === 'spherical')!;
     const request = {
       ...requestFor(referenceCase('water', 'sto-3g', 'rhf')),
-      inputs: { atoms: [{ symbol: 'Xe', x: 0, y: 0, z: 0 }], basis: ['def2-SVP'], functions: 'spherical' as const, charge: 0, multiplicity: 1 },
-      functions: 31,
+      inputs: {
+        atoms: hydrogenIodide.geometry.map((atom) => ({ symbol: atom.symbol, x: atom.x * BOHR_IN_ANGSTROM, y: atom.y * BOHR_IN_ANGSTROM, z: atom.z * BOHR_IN_ANGSTROM })),
+        basis: hydrogenIodide.geometry.map(() => 'def2-SVP'),
+        functions: 'spherical' as const,
+        charge: 0,
+        multiplicity: 1,
+      },
+      functions: hydrogenIodide.references.rhf!.nbf,
     };
-    queue.setDemand('doc', [{ request, label: 'xenon' }]);
-    const settled = (await queue.whenSettled(request)) as { state: string; message: string; data: { code: string } };
-    expect(settled.state).toBe('failed');
-    expect(settled.data.code).toBe('ecp');
-    expect(settled.message).toContain('Xe');
-    expect(settled.message).toContain('effective core potential');
+    queue.setDemand('doc', [{ request, label: 'hydrogen iodide' }]);
+    const settled = (await queue.whenSettled(request)) as { value: MeanFieldOutcome };
+    // psi4 1.3.2, scf_type pk (tests/fixtures/ecp-energies.psi4.json).
+    expect(Math.abs(settled.value.result.energy - hydrogenIodide.references.rhf!.energy)).toBeLessThan(1e-6);
   });
 
   it('forgets the oldest finished results nobody wants beyond the ones it keeps', async () => {

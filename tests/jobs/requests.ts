@@ -1,8 +1,9 @@
 /**
  * Requests for the job tests: the psi4 reference cases (tests/fixtures/scf-reference.psi4.json,
  * made by scripts/data/generate_scf_reference_fixture.py with Debian's psi4 1.3.2; geometries in
- * bohr, given to the requests in ångström as a spec would hold them) and a benzene large enough to
- * be still computing when a test cancels it.
+ * bohr, given to the requests in ångström as a spec would hold them), the cases with effective core
+ * potentials (tests/fixtures/ecp-energies.psi4.json), and a benzene large enough to be still
+ * computing when a test cancels it.
  */
 import { MEAN_FIELD_KIND, MP2_KIND, type MeanFieldRequest, type Mp2Request, type ScfReference } from '../../server/src/analysis';
 import { BOHR_IN_ANGSTROM } from '../../server/src/chemistry/units';
@@ -25,6 +26,19 @@ export interface ReferenceCase {
   mp2?: number;
   mp2FrozenCore?: number;
 }
+
+/** Cases with effective core potentials (tests/fixtures/ecp-energies.psi4.json, scripts/data/generate_ecp_fixture.py, psi4 1.3.2). */
+export interface EcpCase {
+  name: string;
+  basis: string;
+  kind: 'spherical' | 'cartesian';
+  charge: number;
+  multiplicity: number;
+  geometry: { symbol: string; x: number; y: number; z: number }[];
+  references: Partial<Record<ScfReference, { energy: number; nbf: number; mp2?: number; mp2FrozenCore?: number }>>;
+}
+
+export const ECP_CASES = (JSON.parse(readFileSync(path.join(__dirname, '..', 'fixtures', 'ecp-energies.psi4.json'), 'utf8')) as { cases: EcpCase[] }).cases;
 
 export const REFERENCE_CASES = (JSON.parse(readFileSync(path.join(__dirname, '..', 'fixtures', 'scf-reference.psi4.json'), 'utf8')) as { cases: ReferenceCase[] }).cases;
 

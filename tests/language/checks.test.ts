@@ -30,9 +30,9 @@ const WATER_IN_BOHR = atomLines(WATER_ANGSTROM, 1 / BOHR);
 
 const ONE_FRAGMENT = 'fragment w { atoms rest; tier mean-field { method rhf } }';
 
-/** A water spec: header lines, the basis line, the atoms, and the fragments. */
-function water(fragments = ONE_FRAGMENT, header = '', basis = 'basis sto-3g', atoms = WATER): string {
-  return `${header}${header ? '\n' : ''}${basis}\ngeometry {\n${atoms}\n}\n${fragments}\n`;
+/** A water spec: header lines, the basis line, the atoms in a structure block (with its header), and the fragments. */
+function water(fragments = ONE_FRAGMENT, header = '', basis = 'basis sto-3g', atoms = WATER, structure = 'structure'): string {
+  return `${header}${header ? '\n' : ''}${basis}\n${structure} {\n${atoms}\n}\n${fragments}\n`;
 }
 
 /** Two waters 5 Å apart (no bonds between them), labelled o h1 h2 and p g1 g2. */
@@ -71,7 +71,7 @@ const FILES = memoryFiles({
   '/work/water.xyz': XYZ_WATER,
 });
 const withFiles: AnalyzeOptions = { path: SPEC_PATH, files: FILES };
-const fromFile = (file: string) => `basis sto-3g\ngeometry from ${file}\n${ONE_FRAGMENT}\n`;
+const fromFile = (file: string) => `basis sto-3g\nstructure from ${file}\n${ONE_FRAGMENT}\n`;
 
 const CASES: { readonly [C in DiagnosticCode]: Case } = {
   // Reading the text
@@ -118,8 +118,8 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMiss: water(ONE_FRAGMENT, 'spec "water again and again"'),
   },
   'unexpected-block': {
-    trigger: water(ONE_FRAGMENT, 'units angstrom ⟦{⟧ }'),
-    nearMiss: water(ONE_FRAGMENT, 'units angstrom'),
+    trigger: water(ONE_FRAGMENT, 'charge 0 ⟦{⟧ }'),
+    nearMiss: water(ONE_FRAGMENT, 'charge 0'),
   },
   'missing-block': {
     trigger: water(`${ONE_FRAGMENT}\n⟦limits⟧`),
@@ -172,6 +172,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
   // Geometry
   'missing-geometry': {
     trigger: `⟦basis⟧ sto-3g\n${ONE_FRAGMENT}\n`,
+    message: ['The spec has no atoms: add `structure { <Element> [label] x y z ... }` or `structure from "file.xyz"`.'],
     nearMiss: water(ONE_FRAGMENT),
   },
   'unknown-element': {
@@ -210,20 +211,20 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
   },
   'atoms-too-close': {
     // 0.49 Å is inside the 0.5 Å clash distance, 0.51 Å outside (the threshold is common practice, no source).
-    trigger: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  ⟦H b 0 0 0.49⟧\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
-    nearMiss: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.51\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
+    trigger: `basis sto-3g\nstructure {\n  H a 0 0 0\n  ⟦H b 0 0 0.49⟧\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
+    nearMiss: `basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 0.51\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
     message: ['Atoms a (H) and b (H) are 0.490 Å apart, closer than 0.5 Å'],
   },
   'coordinate-out-of-range': {
     // 1e155 Å: squared, it overflows a double; 1e4 Å is far, but inside the ±1e5 Å range.
-    trigger: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 ⟦1e155⟧\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
-    nearMiss: `basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1e4\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
+    trigger: `basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 ⟦1e155⟧\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
+    nearMiss: `basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 1e4\n}\nfragment h2 { atoms a b; tier mean-field { } }\n`,
     message: ['Atom b (H) has z = 1.00e+155 Å', 'within ±100,000 Å (10 µm)', 'the point group is taken as C1'],
   },
   'units-suspect': {
-    trigger: water(ONE_FRAGMENT, 'units ⟦angstrom⟧', 'basis sto-3g', WATER_IN_BOHR),
-    nearMiss: water(ONE_FRAGMENT, 'units bohr', 'basis sto-3g', WATER_IN_BOHR),
-    message: ['these coordinates look like bohr', 'Write `units bohr` if so.'],
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', WATER_IN_BOHR, 'structure in ⟦angstrom⟧'),
+    nearMiss: water(ONE_FRAGMENT, '', 'basis sto-3g', WATER_IN_BOHR, 'structure in bohr'),
+    message: ['these coordinates look like bohr', 'Write `structure in bohr { … }` if so.'],
   },
   'bond-cut': {
     trigger: water(SPLIT_WATER.replace('atoms h2', '⟦atoms h2⟧')),
@@ -233,14 +234,32 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
   },
   // Basis
   'missing-basis': {
-    trigger: `⟦geometry⟧ {\n${WATER}\n}\n${ONE_FRAGMENT}\n`,
+    trigger: `⟦structure⟧ {\n${WATER}\n}\n${ONE_FRAGMENT}\n`,
     nearMiss: water(ONE_FRAGMENT),
-    message: ['No basis set is chosen: add a line such as `basis STO-3G`.'],
+    message: ['No main basis set is chosen: add a line such as `basis STO-3G`.'],
   },
   'basis-missing-element': {
     trigger: water(ONE_FRAGMENT, '', 'basis ⟦6-31G⟧', RBCL),
-    nearMiss: water(ONE_FRAGMENT, '', 'basis def2-SVP', RBCL),
-    message: ['6-31G has no functions for Rb (1 atom: rb).', 'Bases that define Rb: STO-3G, 3-21G, def2-SVP', '`Rb = STO-3G`'],
+    nearMiss: water(ONE_FRAGMENT, '', 'basis 6-31G\nbasis def2-SVP on all Rb', RBCL),
+    message: ['6-31G has no functions for Rb (1 atom: rb).', 'Bases that define Rb: STO-3G, 3-21G, def2-SVP', '`basis STO-3G on all Rb`'],
+  },
+  'basis-override-conflict': {
+    // Two element lines for H: the later wins, the earlier is reported.
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G ⟦on all H⟧\nbasis 6-31G on all H'),
+    // A line naming h1 is more specific than the element line: a precedence, not a conflict.
+    nearMiss: water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G on h1\nbasis 6-31G on all H'),
+    message: ['`basis 3-21G on all H` and the later `basis 6-31G on all H` are both an element line for h1, h2; the later one wins, so these atoms take 6-31G.'],
+  },
+  'basis-override-unused': {
+    // The element line comes later but a line naming both hydrogens is more specific.
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G on h1 h2\nbasis 6-31G ⟦on all H⟧'),
+    nearMiss: water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G on h1\nbasis 6-31G on all H'),
+    message: ['`basis 6-31G on all H` changes no atom: every atom it selects takes its basis from a more specific or later line (`basis 3-21G on h1 h2`).'],
+  },
+  'retired-spelling': {
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', WATER, '⟦geometry⟧'),
+    nearMiss: water(ONE_FRAGMENT),
+    message: ['`geometry` is an old spelling: write `structure { … }`.'],
   },
   // Charge and spin
   'charge-not-integer': {
@@ -288,7 +307,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
   'invalid-selector': {
     trigger: water('fragment w { atoms ⟦h2..o⟧; tier mean-field { } }'),
     nearMiss: water('fragment w { atoms o..h2; tier mean-field { } }'),
-    message: ['This range runs backwards: atom #3 comes after #1 in the geometry'],
+    message: ['This range runs backwards: atom #3 comes after #1 in the structure'],
   },
   'fragment-empty': {
     trigger: water(`${ONE_FRAGMENT}\nfragment ⟦e⟧ { tier mean-field { } }`),
@@ -302,7 +321,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     message: ["Fragments 'a' and 'b' both claim 1 atom: h2. Each atom belongs to exactly one fragment."],
   },
   'atoms-unassigned': {
-    trigger: water('fragment a { atoms o h1 h2; tier mean-field { } }', '', 'basis sto-3g', TWO_WATERS).replace('geometry', '⟦geometry⟧'),
+    trigger: water('fragment a { atoms o h1 h2; tier mean-field { } }', '', 'basis sto-3g', TWO_WATERS).replace('structure', '⟦structure⟧'),
     nearMiss: water('fragment a { atoms o h1 h2; tier mean-field { } }\nfragment b { atoms rest; tier mean-field { } }', '', 'basis sto-3g', TWO_WATERS),
     message: ['3 atoms are in no fragment: p, g1, g2. Add them to a fragment, or let one fragment take `atoms rest`.'],
   },
@@ -315,7 +334,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
   'near-symmetry': {
     // One H of water moved 0.02 Å along z: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å
     // (the best C2v fit shares the shift between the two H atoms).
-    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', 'O o 0 0 0\nH h1 0 0.756950 0.585882\nH h2 0 -0.756950 0.605882').replace('⟦', '').replace('geometry {', '⟦geometry⟧ {'),
+    trigger: water(ONE_FRAGMENT, '', 'basis sto-3g', 'O o 0 0 0\nH h1 0 0.756950 0.585882\nH h2 0 -0.756950 0.605882').replace('⟦', '').replace('structure {', '⟦structure⟧ {'),
     nearMiss: water(ONE_FRAGMENT),
     message: [/^The geometry is C2v within 0\.0\d\d Å, but Cs at the 0\.01 Å tolerance/],
   },
@@ -348,14 +367,16 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     // One character beyond the supported 8 MiB, and a spec of exactly 8 MiB (water padded with a comment).
     trigger: `⟦⟧${padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024 + 1)}`,
     nearMiss: padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024),
-    message: ['This spec has 8,388,609 characters', 'up to 8,388,608 characters (8 MiB), 100,000 atoms and 1,000,000 words outside plain geometry blocks'],
+    message: ['This spec has 8,388,609 characters', 'up to 8,388,608 characters (8 MiB), 100,000 atoms and 1,000,000 words outside plain structure blocks'],
   },
   'too-many-problems': {
     // 1,001 stray characters and the missing geometry: 1,002 problems, the first 1,000 listed.
     trigger: `${'@\n'.repeat(998)}@⟦⟧\n${'@\n'.repeat(2)}`,
     nearMiss: '@\n'.repeat(999),
     nearMissAllows: ['unexpected-character', 'missing-geometry'],
-    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point'],
+    message: ['Tessera lists at most 1,000 problems per file; 2 more were found after this point (2 of them errors)'],
+    // An error, since errors are among the ones not listed (the registry's warning otherwise).
+    severity: 'error',
   },
   'internal-error': {
     // A file host that throws stands for any bug below analyze(): the spec itself is fine.
@@ -473,7 +494,7 @@ fragment b { atoms h2; tier mean-field { } }`, 'charge ⟦+1⟧'),
   it('does not add up charges while atoms are unassigned or claimed twice', () => {
     const unassigned = water('fragment a { atoms o h1; charge -1; tier mean-field { } }');
     expectNoDiagnostic(unassigned, 'fragment-charge-sum');
-    expectDiagnostic(unassigned.replace('geometry', '⟦geometry⟧'), 'atoms-unassigned');
+    expectDiagnostic(unassigned.replace('structure', '⟦structure⟧'), 'atoms-unassigned');
     const overlapping = water(`fragment a { atoms o h1 h2; charge -1; tier mean-field { } }\nfragment b { atoms h2; tier mean-field { } }`);
     expectNoDiagnostic(overlapping, 'fragment-charge-sum');
   });
@@ -502,7 +523,7 @@ fragment c { ⟦atoms all H⟧; tier mean-field { } }`),
 
   it('names every unassigned atom and points at each one', () => {
     const { diagnostic, analysis } = expectDiagnostic(
-      water('fragment a { atoms o h1; tier mean-field { } }', '', 'basis sto-3g', TWO_WATERS.replace(/ g2 /, ' ')).replace('geometry', '⟦geometry⟧'),
+      water('fragment a { atoms o h1; tier mean-field { } }', '', 'basis sto-3g', TWO_WATERS.replace(/ g2 /, ' ')).replace('structure', '⟦structure⟧'),
       'atoms-unassigned',
     );
     expect(diagnostic.message).toBe('4 atoms are in no fragment: h2, p, g1, #6. Add them to a fragment, or let one fragment take `atoms rest`.');
@@ -521,7 +542,7 @@ fragment c { ⟦atoms all H⟧; tier mean-field { } }`),
     const selector = noMatch.analysis.diagnostics.find((d) => d.code === 'invalid-selector');
     const at = noMatch.analysis.text.indexOf('all Cl');
     expect(selector).toMatchObject({ severity: 'warning', span: { start: at, end: at + 'all Cl'.length } });
-    expect(selector?.message).toBe("The geometry has no Cl atoms, so 'all Cl' selects nothing.");
+    expect(selector?.message).toBe("The structure has no Cl atoms, so 'all Cl' selects nothing.");
   });
 });
 
@@ -529,37 +550,45 @@ describe('basis coverage', () => {
   it('names the basis, the element, its atoms and the bases that define it', () => {
     const { diagnostic } = expectDiagnostic(water(ONE_FRAGMENT, '', 'basis ⟦6-31G⟧', RBCL), 'basis-missing-element');
     expect(diagnostic.message).toBe(
-      '6-31G has no functions for Rb (1 atom: rb). Bases that define Rb: STO-3G, 3-21G, def2-SVP, def2-SVPD, def2-TZVP, def2-TZVPD and 3 more; or add `Rb = STO-3G` to the basis block.',
+      '6-31G has no functions for Rb (1 atom: rb). Bases that define Rb: STO-3G, 3-21G, def2-SVP, def2-SVPD, def2-TZVP, def2-TZVPD and 3 more; or add the line `basis STO-3G on all Rb`.',
     );
     expect(diagnostic.data).toEqual({
       element: 'Rb',
       candidates: ['STO-3G', '3-21G', 'def2-SVP', 'def2-SVPD', 'def2-TZVP', 'def2-TZVPD', 'def2-TZVPP', 'def2-QZVP', 'def2-QZVPP'],
+      line: -1,
+      atoms: [0],
     });
   });
 
-  it('is satisfied by a per-element override', () => {
-    const analysis = analyzeMarked(water(ONE_FRAGMENT, '', 'basis 6-31G { Rb = def2-SVP }', RBCL));
+  it('is satisfied by an element override', () => {
+    const analysis = analyzeMarked(water(ONE_FRAGMENT, '', 'basis 6-31G\nbasis def2-SVP on all Rb', RBCL));
     expect(analysis.diagnostics).toEqual([]);
-    expect(analysis.model.basis.overrides.get('Rb')?.displayName).toBe('def2-SVP');
+    expect(analysis.model.basis.atomSets.map((set) => set?.displayName)).toEqual(['def2-SVP', '6-31G']);
   });
 
   it('reports an override that misses its element on the override', () => {
     // 6-31+G* stops at Ca in the library, so it has no bromine.
     const { diagnostic } = expectDiagnostic(
-      water(ONE_FRAGMENT, '', 'basis sto-3g { Br = ⟦6-31+G*⟧ }', '  Br br 0 0 0\n  Cl cl 0 0 2.14'),
+      water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis ⟦6-31+G*⟧ on all Br', '  Br br 0 0 0\n  Cl cl 0 0 2.14'),
       'basis-missing-element',
     );
     expect(diagnostic.message).toMatch(/^6-31\+G\* has no functions for Br \(1 atom: br\)\. Bases that define Br: STO-3G, /);
   });
 
-  it('reports an unknown override basis and an override for an absent element', () => {
-    expectDiagnostics(water(ONE_FRAGMENT, '', 'basis sto-3g { H = ⟦nobasis⟧; ⟦Na⟧ = def2-SVP }'), ['unknown-basis', 'setting-ignored']);
+  it('reports an unknown override basis, and an element override for an element the structure lacks', () => {
+    const analysis = analyzeMarked(water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis ⟦nobasis⟧ on all H\nbasis def2-SVP on ⟦all Na⟧'));
+    expect(analysis.diagnostics.map((d) => [d.code, d.severity, d.span])).toEqual([
+      ['unknown-basis', 'error', analysis.marks.ranges[0]],
+      ['invalid-selector', 'warning', analysis.marks.ranges[1]],
+    ]);
+    // The line with an unknown name decides nothing: the hydrogens keep the main basis.
+    expect(analysis.model.basis.atomSets.map((set) => set?.displayName)).toEqual(['STO-3G', 'STO-3G', 'STO-3G']);
   });
 
   it('offers bases covering every element when none is chosen', () => {
-    const { diagnostic } = expectDiagnostic(`⟦geometry⟧ {\n${RBCL}\n}\n${ONE_FRAGMENT}\n`, 'missing-basis');
+    const { diagnostic } = expectDiagnostic(`⟦structure⟧ {\n${RBCL}\n}\n${ONE_FRAGMENT}\n`, 'missing-basis');
     expect(diagnostic.message).toBe(
-      'No basis set is chosen: add a line such as `basis STO-3G`. Bases that cover every element here: STO-3G, 3-21G, def2-SVP, def2-SVPD, def2-TZVP, def2-TZVPD and 3 more.',
+      'No main basis set is chosen: add a line such as `basis STO-3G`. Bases that cover every element here: STO-3G, 3-21G, def2-SVP, def2-SVPD, def2-TZVP, def2-TZVPD and 3 more.',
     );
   });
 
@@ -581,7 +610,7 @@ describe('geometry checks', () => {
 
   it('gives the XYZ line of clashing atoms read from a file', () => {
     const files = memoryFiles({ '/work/specs/twice.xyz': '2\n\nH 0 0 0\nH 0 0 0.3\n' });
-    const { diagnostic } = expectDiagnostic('basis sto-3g\ngeometry from ⟦"twice.xyz"⟧\nfragment h { atoms rest; tier mean-field { } }\n', 'atoms-too-close', { path: SPEC_PATH, files });
+    const { diagnostic } = expectDiagnostic('basis sto-3g\nstructure from ⟦"twice.xyz"⟧\nfragment h { atoms rest; tier mean-field { } }\n', 'atoms-too-close', { path: SPEC_PATH, files });
     expect(diagnostic.message).toBe(
       'Atoms #1 (H) (line 3 of the XYZ file) and #2 (H) (line 4 of the XYZ file) are 0.300 Å apart, closer than 0.5 Å: a duplicated or mistyped line?',
     );
@@ -589,24 +618,24 @@ describe('geometry checks', () => {
   });
 
   it('suspects bohr typed as ångström, and ångström typed as bohr', () => {
-    const bohrAsAngstrom = expectDiagnostic(water(ONE_FRAGMENT, 'units ⟦angstrom⟧', 'basis sto-3g', WATER_IN_BOHR), 'units-suspect');
+    const bohrAsAngstrom = expectDiagnostic(water(ONE_FRAGMENT, '', 'basis sto-3g', WATER_IN_BOHR, 'structure in ⟦angstrom⟧'), 'units-suspect');
     expect(bohrAsAngstrom.diagnostic.data).toEqual({ units: 'bohr' });
     // Ratios of 1/0.529 ≈ 1.89 and 0.53 are the unit conversion factor (CODATA 2018 bohr).
     expect(bohrAsAngstrom.diagnostic.message).toMatch(/^Nearest-neighbour distances are 1\.\d\d times the sum of covalent radii \(median over 3 atoms\), close to 1\.89: /);
-    const angstromAsBohr = expectDiagnostic(water(ONE_FRAGMENT, 'units ⟦bohr⟧'), 'units-suspect');
+    const angstromAsBohr = expectDiagnostic(water(ONE_FRAGMENT, '', 'basis sto-3g', WATER, 'structure in ⟦bohr⟧'), 'units-suspect');
     expect(angstromAsBohr.diagnostic.data).toEqual({ units: 'angstrom' });
-    expect(angstromAsBohr.diagnostic.message).toContain('close to 0.53: these coordinates look like ångström, but the file reads them as bohr. Write `units angstrom` if so.');
+    expect(angstromAsBohr.diagnostic.message).toContain('close to 0.53: these coordinates look like ångström, but the structure reads them as bohr. Write `structure in angstrom { … }` if so.');
   });
 
-  it('puts the units warning on the geometry when no unit is written', () => {
-    expectDiagnostic(water(ONE_FRAGMENT, '', 'basis sto-3g', WATER_IN_BOHR).replace('geometry', '⟦geometry⟧'), 'units-suspect');
+  it('puts the units warning on the structure keyword when no unit is written', () => {
+    expectDiagnostic(water(ONE_FRAGMENT, '', 'basis sto-3g', WATER_IN_BOHR).replace('structure', '⟦structure⟧'), 'units-suspect');
   });
 
   it('says that XYZ files are read in ångström', () => {
     const inBohr = `3\nwater in bohr\n${WATER_ANGSTROM.map(([e, , x, y, z]) => `${e} ${x / BOHR} ${y / BOHR} ${z / BOHR}`).join('\n')}\n`;
     const files = memoryFiles({ '/work/specs/bohr.xyz': inBohr });
-    const { diagnostic } = expectDiagnostic(fromFile('"bohr.xyz"').replace('geometry', '⟦geometry⟧'), 'units-suspect', { path: SPEC_PATH, files });
-    expect(diagnostic.message).toMatch(/these coordinates look like bohr, but XYZ files are read in ångström\.$/);
+    const { diagnostic } = expectDiagnostic(fromFile('"bohr.xyz"').replace('structure', '⟦structure⟧'), 'units-suspect', { path: SPEC_PATH, files });
+    expect(diagnostic.message).toMatch(/these coordinates look like bohr, but XYZ files are in ångström by their convention\.$/);
   });
 
   it('lists every bond a fragment boundary cuts, with the bonded pairs as data', () => {
@@ -731,8 +760,9 @@ describe('scans', () => {
     ['scan distance o h2 from 0.9 to ⟦0⟧ step 0.1', 'Scanned distances must be positive.'],
     ['scan distance o h2 from 0.9 to 1.5 step ⟦0⟧', 'A step of 0 never reaches the end of the scan.'],
     ['scan distance o h2 from 0.9 to 1.5 step ⟦-0.1⟧', 'The scan goes from 0.9 to 1.5, so the step must be positive; it is -0.1.'],
-    ['scan distance o h2 from 0.9 to 1.5 step ⟦0.00001⟧', 'This step gives 60001 points; at most 10000 are accepted. Is the step mistyped?'],
-    ['scan distance o h2 from 0.9 to 1.5 points ⟦10001⟧', 'At most 10000 scan points are accepted.'],
+    ['scan distance o h2 from 0.9 to 1.5 step ⟦0.00001⟧', 'Going from 0.9 to 1.5 in steps of 0.00001 gives 60,001 points; at most 10,000 are accepted. Is the step mistyped?'],
+    ['scan distance o h2 from 1 to 1e308 step ⟦1e-300⟧', 'Going from 1 to 1e+308 in steps of 1e-300 gives more points than can be counted ((1e+308 − 1) / 1e-300 overflows); at most 10,000 are accepted. Is the step mistyped?'],
+    ['scan distance o h2 from 0.9 to 1.5 points ⟦10001⟧', '10,001 scan points asked for; at most 10,000 are accepted.'],
     ['scan distance h2 ⟦#3⟧ from 0.9 to 1.5 points 4', 'The scan needs two different atoms.'],
     ['⟦scan⟧ distance o h1 from 0.9 to 1.5 points 4', "Both scanned atoms are in fragment 'a'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments."],
     ['scan distance o h2 from ⟦0.3⟧ to 1.5 step 0.3', 'The scan reaches 0.300 Å, closer than 0.5 Å.'],
@@ -747,11 +777,11 @@ describe('scans', () => {
   it('converts a scan in bohr to ångström and checks the clash distance there', () => {
     // 0.8 bohr = 0.423 Å: too close; 1.0 bohr = 0.529 Å is not.
     const { diagnostic } = expectDiagnostic(
-      water(SPLIT_WATER, 'units bohr', 'basis sto-3g', WATER_IN_BOHR) + 'scan distance o h2 from ⟦0.8⟧ to 2.0 step 0.2\n',
+      water(SPLIT_WATER, '', 'basis sto-3g', WATER_IN_BOHR, 'structure in bohr') + 'scan distance o h2 from ⟦0.8⟧ to 2.0 step 0.2\n',
       'invalid-scan',
     );
-    expect(diagnostic.message).toBe('The scan reaches 0.423 Å, closer than 0.5 Å.');
-    const fine = analyzeMarked(water(SPLIT_WATER, 'units bohr', 'basis sto-3g', WATER_IN_BOHR) + 'scan distance o h2 from 1.0 to 2.0 step 0.5\n');
+    expect(diagnostic.message).toBe('The scan reaches 0.423 Å (0.8 bohr, the structure\'s unit), closer than 0.5 Å.');
+    const fine = analyzeMarked(water(SPLIT_WATER, '', 'basis sto-3g', WATER_IN_BOHR, 'structure in bohr') + 'scan distance o h2 from 1.0 to 2.0 step 0.5\n');
     expect(fine.diagnostics.filter((d) => d.code !== 'bond-cut')).toEqual([]);
     expect(fine.model.scan?.distances.map((d) => Number((d / BOHR).toFixed(9)))).toEqual([1, 1.5, 2]);
   });
@@ -806,7 +836,7 @@ describe('included geometry files', () => {
     const files = memoryFiles({ '/work/specs/traj.xyz': '2\nframe 1\nH 0 0 0\nH 0 0 0.74\n2\nframe 2\nH 0 0 0\nH 0 0 0.80\n' });
     const { diagnostic, analysis } = expectDiagnostic(fromFile('⟦"traj.xyz"⟧'), 'include-invalid', { path: SPEC_PATH, files });
     expect(diagnostic.severity).toBe('information');
-    expect(diagnostic.message).toBe('"traj.xyz" holds 2 frames; the first one is the geometry.');
+    expect(diagnostic.message).toBe('"traj.xyz" holds 2 frames; the first one is the structure.');
     expect(Array.from(analysis.model.coordinates)).toEqual([0, 0, 0, 0, 0, 0.74]);
   });
 
@@ -888,8 +918,9 @@ describe('duplicates', () => {
       ['top level', water(ONE_FRAGMENT, 'embedding dmet\n⟦embedding⟧ none')],
       ['fragment', water('fragment w { atoms rest; charge 0; ⟦charge⟧ 0; tier mean-field { } }')],
       ['tier', water('fragment w { atoms rest; tier quantum { taper on; ⟦taper⟧ off } }')],
-      ['basis', water(ONE_FRAGMENT, '', 'basis sto-3g { functions cartesian; ⟦functions⟧ spherical }')],
-      ['basis override', water(ONE_FRAGMENT, '', 'basis sto-3g { H = 3-21G; ⟦H⟧ = 6-31G }')],
+      ['functions', water(ONE_FRAGMENT, 'functions cartesian\n⟦functions⟧ spherical')],
+      ['main basis', water(ONE_FRAGMENT, '', 'basis sto-3g\n⟦basis⟧ 3-21G')],
+      ['structure', water(`${ONE_FRAGMENT}\n⟦structure⟧ { He 9 9 9 }`)],
       ['limits', water(`${ONE_FRAGMENT}\nlimits { qubits 8; ⟦qubits⟧ 10 }`)],
     ] as const;
     for (const [where, text] of repeated) {
@@ -955,10 +986,10 @@ describe('vocabulary', () => {
 
   it('suggests values of every closed list', () => {
     const cases: [string, DiagnosticCode, string][] = [
-      [water(ONE_FRAGMENT, 'units ⟦bhor⟧'), 'unknown-value', "Unknown length unit 'bhor'. Did you mean 'bohr'? Expected one of: angstrom, bohr."],
+      [water(ONE_FRAGMENT, '', 'basis sto-3g', WATER, 'structure in ⟦bhor⟧'), 'unknown-value', "Unknown length unit 'bhor'. Did you mean 'bohr'? Expected one of: angstrom, bohr."],
       [water('fragment w { atoms rest; tier ⟦quantom⟧ { } }'), 'unknown-value', "Unknown tier 'quantom'. Did you mean 'quantum'? Expected one of: quantum, correlated, mean-field."],
       [water('fragment w { atoms rest; tier quantum { taper ⟦yes⟧ } }'), 'unknown-value', 'Unknown \'taper\' setting \'yes\'. Expected one of: on, off.'],
-      [water(ONE_FRAGMENT, '', 'basis sto-3g { functions ⟦cartesain⟧ }'), 'unknown-value', "Unknown function type 'cartesain'. Did you mean 'cartesian'? Expected one of: spherical, cartesian."],
+      [water(ONE_FRAGMENT, 'functions ⟦cartesain⟧'), 'unknown-value', "Unknown function type 'cartesain'. Did you mean 'cartesian'? Expected one of: spherical, cartesian."],
       [water('fragment w { atoms rest; tier quantum { ansatz ⟦hardware-eficient⟧ } }'), 'unknown-ansatz', "Unknown ansatz 'hardware-eficient'. Did you mean 'hardware-efficient'? Expected one of: uccsd, k-upccgsd, hardware-efficient."],
       [water('fragment w { atoms rest; tier quantum { mapping ⟦jw⟧ } }'), 'unknown-mapping', "Unknown mapping 'jw'. Expected one of: jordan-wigner, bravyi-kitaev, parity."],
       [water('fragment w { atoms rest; tier quantum { method ⟦VQE2⟧ } }'), 'unknown-method', "Unknown method 'VQE2'. Did you mean 'vqe'? Expected one of: rhf, rohf, uhf, mp2, ccsd, ccsd(t), casci, casscf, fci, vqe, qpe."],
@@ -976,7 +1007,7 @@ describe('vocabulary', () => {
 
   it('suggests labels for unknown atoms, and `all X` for element symbols', () => {
     const index = expectDiagnostic(water('fragment w { atoms o h1 h2 ⟦#4⟧; tier mean-field { } }'), 'unknown-atom');
-    expect(index.diagnostic.message).toBe('There is no atom #4: the geometry has 3 atoms (#1 to #3).');
+    expect(index.diagnostic.message).toBe('There is no atom #4: the structure has 3 atoms (#1 to #3).');
     const element = expectDiagnostic(water('fragment w { atoms ⟦Cl⟧ rest; tier mean-field { } }'), 'unknown-atom');
     expect(element.diagnostic.message).toBe("No atom is labelled 'Cl'. To select every Cl atom, write 'all Cl'.");
   });
@@ -985,15 +1016,15 @@ describe('vocabulary', () => {
 describe('values', () => {
   it('reports missing values on the statement', () => {
     const cases: [string, string][] = [
-      [water(ONE_FRAGMENT, '⟦units⟧'), "'units' needs a value: write `units angstrom|bohr`."],
+      [water(ONE_FRAGMENT, '', 'basis sto-3g', WATER, 'structure ⟦in⟧'), 'Name the length unit after `in`: `structure in bohr { … }` (ångström is the default).'],
       [water(ONE_FRAGMENT, '⟦multiplicity⟧'), "'multiplicity' needs a value: write `multiplicity <2S+1>`."],
-      [water(ONE_FRAGMENT, '', '⟦basis⟧'), "'basis' needs a value: write `basis <name>`."],
-      [water('fragment w { ⟦atoms⟧; tier mean-field { } }'), 'List the atoms: labels, #indices, ranges like n1..n4, `all H`, `within 3.0 of zn` or `rest`.'],
+      [water(ONE_FRAGMENT, '', '⟦basis⟧'), 'Name the basis set: `basis cc-pVDZ`, or `basis def2-TZVP on all Zn` for some atoms.'],
+      [water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G ⟦on⟧'), 'Say which atoms take 3-21G: `on all Zn`, `on zn n1..n4`, `on #3` or `on fragment guest`.'],
+      [water('fragment w { ⟦atoms⟧; tier mean-field { } }'), 'List the atoms: labels, #indices, ranges like n1..n4, `all H`, `closer-than 3.0 to zn` or `rest`.'],
       [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`.'],
       [water('fragment w { atoms rest; tier quantum { ⟦method⟧ } }'), "'method' needs a value: write `method <name>`."],
       [water(`${ONE_FRAGMENT}\nlimits { ⟦memory⟧ }`), 'Give the memory with a unit: `memory 16 GiB` (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB).'],
-      [water(ONE_FRAGMENT, '', 'basis sto-3g { ⟦H =⟧ }'), "Name the basis for H after '=': `H = def2-TZVP`."],
-      [`basis sto-3g\ngeometry ⟦from⟧\n${ONE_FRAGMENT}\n`, 'Name the XYZ file to read: `geometry from "file.xyz"`.'],
+      [`basis sto-3g\nstructure ⟦from⟧\n${ONE_FRAGMENT}\n`, 'Name the XYZ file to read: `structure from "file.xyz"`.'],
     ];
     for (const [text, message] of cases) {
       expect(expectDiagnostic(text, 'missing-value').diagnostic.message).toBe(message);
@@ -1005,8 +1036,10 @@ describe('values', () => {
       water(ONE_FRAGMENT, 'charge 0 ⟦1 2⟧'),
       water('fragment w ⟦x y⟧ { atoms rest; tier mean-field { } }'),
       water('fragment w { atoms rest; tier quantum { mapping parity ⟦bravyi-kitaev⟧ } }'),
-      water(ONE_FRAGMENT, '', 'basis sto-3g { H = 3-21G ⟦6-31G⟧ }'),
+      water(ONE_FRAGMENT, '', 'basis sto-3g ⟦3-21G⟧'),
+      water(ONE_FRAGMENT, '', 'basis sto-3g', WATER, 'structure in bohr ⟦bohr⟧'),
       fromFile('"data/water.xyz" ⟦"more.xyz"⟧'),
+      fromFile('"data/water.xyz" ⟦in bohr⟧'),
     ];
     for (const text of cases) expectDiagnostic(text, 'extra-value', withFiles);
   });
@@ -1021,7 +1054,7 @@ describe('values', () => {
       [water(`${ONE_FRAGMENT}\nlimits { memory ⟦16⟧ }`), 'Add a unit to the memory size: 16 GiB? (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB)'],
       [water('fragment ⟦"w"⟧ { atoms rest; tier mean-field { } }'), 'A fragment name is a word, not the string "w".'],
       [water(ONE_FRAGMENT, '', 'basis sto-3g', `${WATER}\n  He he 5 ⟦x⟧ 5`), "A coordinate must be a number, not 'x'."],
-      [`basis sto-3g\ngeometry ⟦inline⟧ { H 0 0 0 }\n${ONE_FRAGMENT}\n`, "Write `geometry { ... }` with the atoms inside, or `geometry from \"file.xyz\"`; found 'inline'."],
+      [`basis sto-3g\nstructure ⟦inline⟧ { H 0 0 0 }\n${ONE_FRAGMENT}\n`, "Write `structure { ... }` with the atoms inside, `structure in bohr { ... }`, or `structure from \"file.xyz\"`; found 'inline'."],
       [water('fragment w { ⟦3⟧ atoms rest; tier mean-field { } }'), "A statement in a fragment block starts with a keyword, not the number '3'."],
     ];
     for (const [text, message] of cases) {
@@ -1038,7 +1071,7 @@ describe('values', () => {
 
   it('reports malformed selectors on the selector', () => {
     const cases: [string, string][] = [
-      ['⟦within 3 zn o⟧', "Write `within <distance> of <atom>`, for example `within 3.0 of zn` (distance in the file's unit)."],
+      ['⟦closer-than 3 zn o⟧', "Write `closer-than <distance> to <atom>`, for example `closer-than 3.0 to zn` (strictly closer; the distance in the structure's unit)."],
       ['⟦all⟧', '`all` is followed by an element symbol: `all H`.'],
       ['⟦all Xq⟧', '`all` is followed by an element symbol: `all H`.'],
       ['⟦..⟧ o', "A range needs an atom on each side of '..': `n1..n4` or `#3..#9`."],
@@ -1060,14 +1093,14 @@ describe('blocks', () => {
       water('fragment w { atoms rest ⟦{⟧ o }; tier mean-field { } }'),
       water('fragment w { atoms rest; tier quantum { method vqe ⟦{⟧ } } }'),
       water(ONE_FRAGMENT, '', 'basis sto-3g', `${WATER}\n  He 5 5 5 ⟦{⟧ }`),
-      `basis sto-3g\ngeometry from "data/water.xyz" ⟦{⟧ O 0 0 0 }\n${ONE_FRAGMENT}\n`,
+      `basis sto-3g\nstructure from "data/water.xyz" ⟦{⟧ O 0 0 0 }\n${ONE_FRAGMENT}\n`,
     ];
     for (const text of cases) expectDiagnostic(text, 'unexpected-block', withFiles);
   });
 
-  it('asks for the block of geometry, fragment and limits', () => {
-    expect(expectDiagnostic(`basis sto-3g\n⟦geometry⟧\n${ONE_FRAGMENT}\n`, 'missing-block').diagnostic.message).toBe(
-      'Give the atoms in a block, `geometry { O 0 0 0 ... }`, or from a file, `geometry from "file.xyz"`.',
+  it('asks for the block of structure, fragment and limits', () => {
+    expect(expectDiagnostic(`basis sto-3g\n⟦structure⟧\n${ONE_FRAGMENT}\n`, 'missing-block').diagnostic.message).toBe(
+      'Give the atoms in a block, `structure { O 0 0 0 ... }`, or from a file, `structure from "file.xyz"`.',
     );
     expect(expectDiagnostic(water(`${ONE_FRAGMENT}\nfragment ⟦extra⟧`), 'missing-block').diagnostic.message).toBe(
       "Fragment 'extra' needs a block with its atoms: `fragment extra { atoms ... }`.",
@@ -1078,6 +1111,6 @@ describe('blocks', () => {
   });
 
   it('reports an empty geometry', () => {
-    expectDiagnostics(`basis sto-3g\n⟦geometry⟧ { }\n`, ['missing-geometry']);
+    expectDiagnostics(`basis sto-3g\n⟦structure⟧ { }\n`, ['missing-geometry']);
   });
 });

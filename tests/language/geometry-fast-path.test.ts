@@ -46,25 +46,25 @@ function expectSameReading(text: string): void {
 
 describe('fast geometry reader', () => {
   it('reads plain lines, leaves other lines to the general parser, and declines blocks whose structure needs it', () => {
-    expect(extractGeometryBodies('geometry {\n  O o 0 0 0 # oxygen\n  H 0 0 1\n}\n').blocks).toHaveLength(1);
+    expect(extractGeometryBodies('structure {\n  O o 0 0 0 # oxygen\n  H 0 0 1\n}\n').blocks).toHaveLength(1);
     for (const body of ['H 0 0', 'H 0 0 0; H 1 1 1', 'H #1 0 0', 'Xx 0 0 0', 'H 0 0 1e999', 'H 6-31g 0 0 0', 'H 1 2 3 4 5 6']) {
-      const text = `geometry {\n  O 0 0 0\n ${body}\n  H 0 0 1\n}\n`;
+      const text = `structure {\n  O 0 0 0\n ${body}\n  H 0 0 1\n}\n`;
       const { blocks, masked } = extractGeometryBodies(text);
       expect(blocks, body).toHaveLength(1);
       expect(blocks[0]!.table.count, body).toBe(2);
       expect(blocks[0]!.handedOver.map((line) => text.slice(line.start, line.end).trim()), body).toEqual([body]);
       // Only the handed-over line is left for the general parser, on a line of its own.
-      expect(masked.replace(/\s+/g, ' ')).toBe(`geometry { ${body} } `);
+      expect(masked.replace(/\s+/g, ' ')).toBe(`structure { ${body} } `);
     }
     for (const body of ['H "x" 0 0 0', 'fragment a', '{ }']) {
-      expect(extractGeometryBodies(`geometry {\n ${body}\n}\n`).blocks, body).toHaveLength(0);
+      expect(extractGeometryBodies(`structure {\n ${body}\n}\n`).blocks, body).toHaveLength(0);
     }
   });
 
   it('costs one line for one bad line: the other lines stay in the table', () => {
     const spec = waterBoxSpec(300).text;
     const broken = spec.replace('\n  H ', '\n  C 1.5 2.5\n  H ');
-    const block = parseSpec(broken).statements.find((statement) => statement.keyword.text === 'geometry')!.block!;
+    const block = parseSpec(broken).statements.find((statement) => statement.keyword.text === 'structure')!.block!;
     expect(block.atomTable!.count).toBe(waterBoxSpec(300).atoms);
     expect(block.otherStatements!.map((statement) => broken.slice(statement.span.start, statement.span.end))).toEqual(['C 1.5 2.5']);
     expectSameReading(broken);
@@ -92,7 +92,7 @@ describe('fast geometry reader', () => {
     );
     fc.assert(
       fc.property(fc.array(line, { maxLength: 12 }), fc.constantFrom('}', '', '}\nfragment f { atoms rest }'), (lines, end) => {
-        expectSameReading(`basis sto-3g\ngeometry {\n${lines.join('\n')}\n${end}\n`);
+        expectSameReading(`basis sto-3g\nstructure {\n${lines.join('\n')}\n${end}\n`);
       }),
       { numRuns: 400 },
     );
@@ -131,8 +131,9 @@ describe('reading only what changed', () => {
 
   it('reuses the rows before and after an edited line', () => {
     const base = waterBoxSpec(60).text;
-    const digit = base.indexOf('\n', base.indexOf('geometry {') + 40) - 1;
-    const edited = `${base.slice(0, digit)}7${base.slice(digit + 1)}`;
+    const digit = base.indexOf('\n', base.indexOf('structure {') + 40) - 1;
+    // A digit other than the one there, so that the text really changes.
+    const edited = `${base.slice(0, digit)}${base[digit] === '7' ? '8' : '7'}${base.slice(digit + 1)}`;
     expect(changedRange(base, edited)).toEqual({ start: digit, oldEnd: digit + 1, newEnd: digit + 1 });
     // The edit is inside the block: only its line is read again.
     expect(rereadChangedLines(edited, { text: base, blocks: parseSpec(base).geometryBlocks! })).toBeDefined();
@@ -141,7 +142,7 @@ describe('reading only what changed', () => {
     expect(rereadChangedLines(base.replace('basis sto-3g', 'basis sto-6g'), { text: base, blocks: parseSpec(base).geometryBlocks! })).toBeUndefined();
     // A new line typed character by character, through malformed states.
     const line = '\n  C c9 1.5 -2.25 3e-1 # new';
-    const at = base.indexOf('\n', base.indexOf('geometry {'));
+    const at = base.indexOf('\n', base.indexOf('structure {'));
     let before = base;
     for (let k = 1; k <= line.length; k++) {
       const after = `${base.slice(0, at)}${line.slice(0, k)}${base.slice(at)}`;
@@ -151,8 +152,8 @@ describe('reading only what changed', () => {
   });
 
   it('agrees with a fresh reading after random edits anywhere', () => {
-    const base = `basis sto-3g\ngeometry {\n  O o 0 0 0 # oxygen\n  H 0 0.75695 0.585882\n  H 0 -0.75695 0.585882\n  C 1 2 3\n}\nfragment f { atoms rest }\n`;
-    const insert = fc.constantFrom('1', '.', '-', ' ', '\n', '\n  H 0 0 0', '#', '#3', ';', '}', '{', '"', 'geometry {', 'fragment x', 'Xx', 'e5', '');
+    const base = `basis sto-3g\nstructure {\n  O o 0 0 0 # oxygen\n  H 0 0.75695 0.585882\n  H 0 -0.75695 0.585882\n  C 1 2 3\n}\nfragment f { atoms rest }\n`;
+    const insert = fc.constantFrom('1', '.', '-', ' ', '\n', '\n  H 0 0 0', '#', '#3', ';', '}', '{', '"', 'structure {', 'fragment x', 'Xx', 'e5', '');
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.nat(), fc.nat({ max: 4 }), insert), { minLength: 1, maxLength: 6 }), (edits) => {
         let text = base;

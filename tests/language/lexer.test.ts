@@ -77,7 +77,7 @@ describe('tokens of any length', () => {
 
   it('a 5 MB fragment name: analysed, and the message quotes it shortened with its length', () => {
     const name = 'f'.repeat(LARGE);
-    const analysis = analyze(`basis sto-3g\ngeometry {\n  H 0 0 0\n}\nfragment ${name} { atoms rest }\n`);
+    const analysis = analyze(`basis sto-3g\nstructure {\n  H 0 0 0\n}\nfragment ${name} { atoms rest }\n`);
     const missingTier = analysis.diagnostics.find((d) => d.code === 'missing-tier')!;
     expect(missingTier.message.length).toBeLessThan(400);
     expect(missingTier.message).toContain('…');
@@ -86,7 +86,7 @@ describe('tokens of any length', () => {
   });
 
   it('a 5 MB coordinate: invalid-value with the number shortened', () => {
-    const analysis = analyze(`basis sto-3g\ngeometry {\n  H 0 0 ${'9'.repeat(LARGE)}\n}\n`);
+    const analysis = analyze(`basis sto-3g\nstructure {\n  H 0 0 ${'9'.repeat(LARGE)}\n}\n`);
     const invalid = analysis.diagnostics.find((d) => d.code === 'invalid-value')!;
     expect(invalid.message).toMatch(/^A coordinate '9{47}…9{15}' \(5,000,002 characters\) is too large to be a number\.$/);
   });

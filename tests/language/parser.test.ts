@@ -45,8 +45,8 @@ describe('fixture markers', () => {
   });
 
   it('codes() lists the codes in position order', () => {
-    // missing-geometry sits on the first statement's keyword, before the unknown unit.
-    expect(codes('units nm\nbasis sto-3g')).toEqual(['missing-geometry', 'unknown-value']);
+    // missing-geometry sits on the first statement's keyword, before the unknown function type.
+    expect(codes('functions pure\nbasis sto-3g')).toEqual(['missing-geometry', 'unknown-value']);
   });
 });
 
@@ -97,13 +97,13 @@ describe('tokens', () => {
   });
 
   it('splits label ranges and keeps decimals whole', () => {
-    expect(tokens('n1..n4 within 3.0 of zn 16GiB')).toEqual([
+    expect(tokens('n1..n4 closer-than 3.0 to zn 16GiB')).toEqual([
       'Word:n1',
       'RangeDots:..',
       'Word:n4',
-      'Word:within',
+      'Word:closer-than',
       'NumberLiteral:3.0',
-      'Word:of',
+      'Word:to',
       'Word:zn',
       'Word:16GiB',
     ]);
@@ -114,15 +114,15 @@ describe('every construct parses', () => {
   // Invented data: a zinc ion between two waters 3 Å away (too far for bonds to it).
   const TOUR = `# A tour of the language.
 spec "tour"
-units angstrom
 charge +2
 multiplicity 1
 frozen-core on
-basis def2-SVP {
-  Zn = def2-TZVP
-  functions spherical
-}
-geometry {
+basis def2-SVP
+basis def2-TZVP on all Zn
+basis 6-31G* on fragment left
+basis cc-pVDZ on o2 #6..#7
+functions spherical
+structure in angstrom {
   Zn zn   0.0000  0.0000  0.0000
   O  o1   3.0000  0.0000  0.0000
   H       3.6000  0.7500  0.0000
@@ -132,7 +132,7 @@ geometry {
   H      -3.6000 -7.5e-1  0.0000
 }
 fragment metal {
-  atoms zn
+  atoms zn closer-than 1.0 to zn
   charge +2
   multiplicity 1
   tier quantum { method vqe; ansatz k-upccgsd; mapping bravyi-kitaev; active 6e 6o; frozen-core on; taper on; layers 2 }
@@ -166,7 +166,8 @@ limits {
   it('reads the header statements', () => {
     const { ast, model } = tour;
     expect(ast.name?.value).toBe('tour');
-    expect(ast.units?.value).toBe('angstrom');
+    expect(ast.geometry?.unit?.value).toBe('angstrom');
+    expect(model.units).toBe('angstrom');
     expect(ast.charge?.value).toBe(2);
     expect(ast.multiplicity?.value).toBe(1);
     expect(ast.frozenCore?.value).toBe(true);
@@ -176,13 +177,19 @@ limits {
     expect(model.embedding).toBe('dmet');
   });
 
-  it('reads the basis with a per-element override and the function type', () => {
+  it('reads the main basis, override lines for an element, a fragment and atoms, and the function type', () => {
     const { ast, model } = tour;
     expect(ast.basis?.name?.value).toBe('def2-SVP');
-    expect(ast.basis?.overrides.map((o) => [o.element.value, o.basis.value])).toEqual([['Zn', 'def2-TZVP']]);
-    expect(ast.basis?.functions?.value).toBe('spherical');
+    expect(ast.basisOverrides.map((line) => [line.name?.value, line.targets.map((t) => t.kind)])).toEqual([
+      ['def2-TZVP', ['element']],
+      ['6-31G*', ['fragment']],
+      ['cc-pVDZ', ['label', 'range']],
+    ]);
+    expect(ast.functions?.value).toBe('spherical');
     expect(model.basis.main?.displayName).toBe('def2-SVP');
-    expect(model.basis.overrides.get('Zn')?.displayName).toBe('def2-TZVP');
+    // zn by its element; o1 and its hydrogens by their fragment; o2 and #6..#7 by name.
+    expect(model.basis.atomSets.map((set) => set?.displayName)).toEqual(['def2-TZVP', '6-31G*', '6-31G*', '6-31G*', 'cc-pVDZ', 'cc-pVDZ', 'cc-pVDZ']);
+    expect([...model.basis.decidedBy]).toEqual([0, 1, 1, 1, 2, 2, 2]);
     expect(model.basis.functionsGiven).toBe(true);
   });
 
@@ -250,10 +257,10 @@ limits {
 });
 
 describe('single constructs', () => {
-  const water = (rest: string, header = 'basis sto-3g') => `${header}\ngeometry {\n${WATER}\n}\n${rest}\n`;
+  const water = (rest: string, header = 'basis sto-3g') => `${header}\nstructure {\n${WATER}\n}\n${rest}\n`;
 
   it('reads a geometry without labels', () => {
-    const analysis = analyze('basis sto-3g\ngeometry {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment h2 { atoms #1..#2; tier mean-field { method rhf } }\n');
+    const analysis = analyze('basis sto-3g\nstructure {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment h2 { atoms #1..#2; tier mean-field { method rhf } }\n');
     expect(analysis.diagnostics).toEqual([]);
     expect(analysis.model.atoms.map((a) => [a.element.symbol, a.label])).toEqual([
       ['H', undefined],
@@ -262,9 +269,9 @@ describe('single constructs', () => {
     expect(Array.from(analysis.model.coordinates)).toEqual([0, 0, 0, 0, 0, 0.74]);
   });
 
-  it('reads `geometry from "file.xyz"` relative to the spec folder', () => {
+  it('reads `structure from "file.xyz"` relative to the spec folder', () => {
     const files = memoryFiles({ '/work/specs/data/water.xyz': '3\nwater\nO 0 0 0\nH 0 0.756950 0.585882\nH 0 -0.756950 0.585882\n' });
-    const analysis = analyze('basis sto-3g\ngeometry from "data/water.xyz"\nfragment w { atoms rest; tier mean-field { method rhf } }\n', {
+    const analysis = analyze('basis sto-3g\nstructure from "data/water.xyz"\nfragment w { atoms rest; tier mean-field { method rhf } }\n', {
       path: '/work/specs/water.tess',
       files,
     });
@@ -277,7 +284,7 @@ describe('single constructs', () => {
   });
 
   it('converts coordinates given in bohr to ångström', () => {
-    const analysis = analyze('units bohr\nbasis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment h2 { atoms a b; tier mean-field { method rhf } }\n');
+    const analysis = analyze('basis sto-3g\nstructure in bohr {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment h2 { atoms a b; tier mean-field { method rhf } }\n');
     expect(analysis.diagnostics).toEqual([]);
     expect(analysis.model.units).toBe('bohr');
     expect(analysis.model.coordinates[5]).toBeCloseTo(1.4 * BOHR, 12);
@@ -345,7 +352,7 @@ fragment b { atoms h2; charge +1; tier correlated { } }`),
   describe('atom selectors', () => {
     // Invented chain along x: atoms 1 Å apart, far enough that no two clash.
     const CHAIN = `basis sto-3g
-geometry {
+structure {
   C  c1  0 0 0
   C  c2  1.5 0 0
   C  c3  3.0 0 0
@@ -362,15 +369,18 @@ geometry {
       ['c2..#5', [1, 2, 3, 4]],
       ['all H', [3, 4]],
       ['all C', [0, 1, 2]],
-      ['within 1.6 of c2', [0, 1, 2]],
-      ['within 0 of o', [5]],
+      ['closer-than 1.6 to c2', [0, 1, 2]],
+      // Strictly closer: the neighbours 1.5 Å away are not selected at 1.5.
+      ['closer-than 1.5 to c2', [1]],
+      ['closer-than 0.5 to o', [5]],
+      ['closer-than 0 to o', []],
       ['c1 c1 #1', [0]],
     ];
     for (const [selector, atoms] of cases) {
       it(`atoms ${selector}`, () => {
         const analysis = analyze(`${CHAIN}\nfragment probe { atoms ${selector}; tier mean-field { } }\nfragment others { atoms rest; tier mean-field { } }\n`);
         const errors = analysis.diagnostics.filter((d) => d.code !== 'bond-cut' && d.code !== 'multiplicity-parity');
-        expect(errors.map((d) => show(analysis, d))).toEqual([]);
+        expect(errors.map((d) => show(analysis, d)).filter((line) => atoms.length > 0 || !line.includes('fragment-empty'))).toEqual([]);
         expect(analysis.model.fragments[0]!.atoms).toEqual(atoms);
         const rest = [0, 1, 2, 3, 4, 5].filter((atom) => !atoms.includes(atom));
         expect(analysis.model.fragments[1]!.atoms).toEqual(rest);
@@ -379,18 +389,19 @@ geometry {
     }
 
     it('reads selector kinds and spans', () => {
-      const { text, ranges } = parseMarkers(`${CHAIN}\nfragment f { atoms ⟦c1⟧ ⟦c2..#4⟧ ⟦#5⟧ ⟦all O⟧ ⟦within 2 of c1⟧ ⟦rest⟧ }\n`);
+      const { text, ranges } = parseMarkers(`${CHAIN}\nfragment f { atoms ⟦c1⟧ ⟦c2..#4⟧ ⟦#5⟧ ⟦all O⟧ ⟦closer-than 2 to c1⟧ ⟦rest⟧ }\n`);
       const selectors: SelectorAst[] = analyze(text).ast.fragments[0]!.atoms!.selectors;
-      expect(selectors.map((s) => s.kind)).toEqual(['label', 'range', 'index', 'element', 'within', 'rest']);
+      expect(selectors.map((s) => s.kind)).toEqual(['label', 'range', 'index', 'element', 'closer-than', 'rest']);
       expect(selectors.map((s) => s.span)).toEqual(ranges);
-      expect(selectors[4]).toMatchObject({ kind: 'within', distance: 2, of: { kind: 'label', name: 'c1' } });
+      expect(selectors[4]).toMatchObject({ kind: 'closer-than', distance: 2, inclusive: false, to: { kind: 'label', name: 'c1' } });
     });
 
-    it('measures `within` in the file unit', () => {
-      const bohr = analyze(`units bohr\n${CHAIN}\nfragment probe { atoms within 1.6 of c2; tier mean-field { } }\nfragment others { atoms rest; tier mean-field { } }\n`);
+    it('measures `closer-than` in the structure\'s unit', () => {
+      const inBohr = CHAIN.replace('structure {', 'structure in bohr {');
+      const bohr = analyze(`${inBohr}\nfragment probe { atoms closer-than 1.6 to c2; tier mean-field { } }\nfragment others { atoms rest; tier mean-field { } }\n`);
       // In bohr the neighbours are 1.5 bohr away: still inside 1.6 bohr.
       expect(bohr.model.fragments[0]!.atoms).toEqual([0, 1, 2]);
-      const tight = analyze(`units bohr\n${CHAIN}\nfragment probe { atoms within 1.4 of c2; tier mean-field { } }\nfragment others { atoms rest; tier mean-field { } }\n`);
+      const tight = analyze(`${inBohr}\nfragment probe { atoms closer-than 1.4 to c2; tier mean-field { } }\nfragment others { atoms rest; tier mean-field { } }\n`);
       expect(tight.model.fragments[0]!.atoms).toEqual([1]);
     });
   });
@@ -428,11 +439,10 @@ geometry {
 describe('exact spans', () => {
   it('spans whole statements, from the keyword to the last argument or the closing brace', () => {
     const { text, ranges } = parseMarkers(`⟦spec "spans"⟧  # a comment is not part of it
-⟦units bohr⟧;⟦charge -1⟧
-⟦basis sto-3g {
-  H = 3-21G
-}⟧
-⟦geometry
+⟦functions cartesian⟧;⟦charge -1⟧
+⟦basis sto-3g⟧
+⟦basis 3-21G on all H⟧
+⟦structure in bohr
 {
   H a 0 0 0
 }⟧
@@ -458,8 +468,9 @@ describe('exact spans', () => {
 
   it('spans the typed nodes: name, override, atom parts, active space, scan values', () => {
     const { text, ranges } = parseMarkers(`spec ⟦"s"⟧
-basis sto-3g { ⟦H = 3-21G⟧ }
-geometry {
+basis sto-3g
+basis 3-21G ⟦on all H⟧
+structure {
   ⟦H⟧ ⟦a⟧ 0 0 ⟦0⟧
   H 0 0 0.74
 }
@@ -471,10 +482,10 @@ scan distance a #2 from ⟦1.0⟧ to ⟦2.0⟧ step ⟦0.5⟧
     // The two hydrogens are bonded and split into two fragments: that warning only.
     expect(diagnostics.map((d) => d.code)).toEqual(['bond-cut']);
     const atoms = ast.geometry!.atoms;
-    const atomLine = tree.statements[2]!.block!.statements[0]!;
+    const atomLine = tree.statements[3]!.block!.statements[0]!;
     expect([
       ast.name!.span,
-      ast.basis!.overrides[0]!.span,
+      ast.basisOverrides[0]!.onSpan,
       atoms.elementSpan(0),
       atoms.labelSpan(0),
       atomLine.args[3]!.span,
@@ -502,7 +513,7 @@ describe('recovery', () => {
   // Two waters 5 Å apart (the water of tests/fixtures/water.ts), each with its own fragment; mistakes are scattered around them.
   const BROKEN = `spec ⟦"recovery⟧
 basis sto-3g
-geometry {
+structure {
   O  o   0.000000  0.000000  0.000000
   H  h1  0.000000  0.756950  0.585882
   H  h2  0.000000 -0.756950  0.585882
@@ -578,7 +589,7 @@ limits { qubits 8 }
   it('skips a block that follows no statement, with one error on its brace', () => {
     const analysis = expectDiagnostics(
       `basis sto-3g
-geometry { H a 0 0 0; H b 0 0 0.74 }
+structure { H a 0 0 0; H b 0 0 0.74 }
 ⟦{⟧ H c 0 0 3 }
 fragment h2 { atoms a b; tier mean-field { } }
 `,
@@ -588,18 +599,18 @@ fragment h2 { atoms a b; tier mean-field { } }
   });
 
   it('ends an unclosed block at the end of the file', () => {
-    const analysis = expectDiagnostics('basis sto-3g\ngeometry { H a 0 0 0; H b 0 0 0.74 }\nfragment h2 ⟦{⟧\n  atoms a b\n  tier mean-field { }\n', ['unclosed-block']);
+    const analysis = expectDiagnostics('basis sto-3g\nstructure { H a 0 0 0; H b 0 0 0.74 }\nfragment h2 ⟦{⟧\n  atoms a b\n  tier mean-field { }\n', ['unclosed-block']);
     expect(analysis.model.fragments[0]!.atoms).toEqual([0, 1]);
     expect(analysis.tree.statements[2]!.span.end).toBe(analysis.text.lastIndexOf('}') + 1);
   });
 
   it('merges a run of unreadable characters into one diagnostic', () => {
-    const analysis = expectDiagnostics('basis sto-3g ⟦@@!⟧\ngeometry { H a 0 0 0; H b 0 0 0.74 }\nfragment h2 { atoms a b; tier mean-field { } }\n', ['unexpected-character']);
+    const analysis = expectDiagnostics('basis sto-3g ⟦@@!⟧\nstructure { H a 0 0 0; H b 0 0 0.74 }\nfragment h2 { atoms a b; tier mean-field { } }\n', ['unexpected-character']);
     expect(analysis.diagnostics[0]!.message).toContain("'@@!'");
   });
 
   it('never throws, whatever the input', () => {
-    const inputs = ['', '{', '}', '"', '..', '=', '#', '#1', '6e', 'fragment', 'tier { { { ', '}}}{{{', 'geometry from', 'scan distance', 'atoms ..', '\u0000\u00ff'];
+    const inputs = ['', '{', '}', '"', '..', '=', '#', '#1', '6e', 'fragment', 'tier { { { ', '}}}{{{', 'structure from', 'scan distance', 'atoms ..', '\u0000\u00ff'];
     for (const input of inputs) {
       expect(() => analyze(input), JSON.stringify(input)).not.toThrow();
     }

@@ -41,14 +41,14 @@ describe('shortenRuns and safeMessage', () => {
 
 describe('diagnostics quote the spec safely', () => {
   it('a string with ESC and NUL reaches no message raw', () => {
-    const analysis = analyze('basis "\u001b[2J\u0000"\ngeometry {\n  H 0 0 0\n}\n');
+    const analysis = analyze('basis "\u001b[2J\u0000"\nstructure {\n  H 0 0 0\n}\n');
     const invalid = analysis.diagnostics.find((d) => d.code === 'invalid-value')!;
     expect(invalid.message).toContain('the string "\\x1b[2J\\x00"');
     for (const d of analysis.diagnostics) expect(hasControl(d.message)).toBe(false);
   });
 
   it('a raw escape character outside a string is named, escaped', () => {
-    const analysis = analyze('spec "x" \u001b[31m\nbasis sto-3g\ngeometry {\n  H 0 0 0\n}\n');
+    const analysis = analyze('spec "x" \u001b[31m\nbasis sto-3g\nstructure {\n  H 0 0 0\n}\n');
     const bad = analysis.diagnostics.find((d) => d.code === 'unexpected-character')!;
     expect(bad.message).toContain("'\\x1b['");
     expect(hasControl(bad.message)).toBe(false);

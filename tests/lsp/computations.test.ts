@@ -24,7 +24,7 @@ const PSI4_WATER_CCPVDZ_MP2_FROZEN = -0.2016211460977786;
 
 function waterSpec(basis: string): string {
   const rows = WATER_ROWS.map(([element, label, x, y, z]) => `  ${element} ${label} ${x.toFixed(6)} ${y.toFixed(6)} ${z.toFixed(6)}`).join('\n');
-  return `spec "water"\nbasis ${basis}\ngeometry {\n${rows}\n}\nfragment water {\n  atoms rest\n  tier quantum { method vqe; active 4e 4o }\n}\n`;
+  return `spec "water"\nbasis ${basis}\nstructure {\n${rows}\n}\nfragment water {\n  atoms rest\n  tier quantum { method vqe; active 4e 4o }\n}\n`;
 }
 
 function positionOf(text: string, needle: string, delta = 0): { line: number; character: number } {

@@ -92,7 +92,7 @@ describe('language server over stdio', () => {
 
   it('formats a messy geometry into aligned columns, and formatting twice changes nothing', async () => {
     const uri = 'untitled:messy.tess';
-    const text = 'basis sto-3g\ngeometry {\nO 0 0 0\n   H h1 0 .756950 0.585882\nH h2 0 -0.756950 0.585882\n}\n';
+    const text = 'basis sto-3g\nstructure {\nO 0 0 0\n   H h1 0 .756950 0.585882\nH h2 0 -0.756950 0.585882\n}\n';
     const pending = client.diagnostics(uri);
     client.open(uri, text);
     await pending;
@@ -109,7 +109,7 @@ describe('language server over stdio', () => {
 
   it('offers a quick fix that sets a valid multiplicity, and applying it clears the diagnostic', async () => {
     const uri = 'untitled:spin.tess';
-    const text = 'multiplicity 2\nbasis sto-3g\ngeometry {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\n';
+    const text = 'multiplicity 2\nbasis sto-3g\nstructure {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\n';
     const pending = client.diagnostics(uri);
     client.open(uri, text);
     const diagnostics = await pending;
@@ -126,7 +126,7 @@ describe('language server over stdio', () => {
 
   it('re-checks after an incremental edit', async () => {
     const uri = 'untitled:edit.tess';
-    const text = 'basis sto-3g\ngeometry {\n  H 0 0 0\n  H 0 0 0.74\n}\n';
+    const text = 'basis sto-3g\nstructure {\n  H 0 0 0\n  H 0 0 0.74\n}\n';
     const pending = client.diagnostics(uri);
     client.open(uri, text);
     expect(await pending).toEqual([]);
@@ -138,9 +138,9 @@ describe('language server over stdio', () => {
     expect(diagnostics[0]!.message).toContain("Did you mean 'STO-3G'?");
   });
 
-  it('lists the outline: geometry, fragments, scan, limits', async () => {
+  it('lists the outline: basis lines, structure, fragments, scan, limits', async () => {
     const symbols = await client.request<DocumentSymbol[]>('textDocument/documentSymbol', { textDocument: { uri: demoUri } });
-    expect(symbols.map((s) => s.name)).toEqual(['spec zn-site-h2s-approach', 'basis def2-svp', 'geometry', 'fragment site', 'fragment guest', 'fragment frame', 'embedding', 'scan', 'limits']);
+    expect(symbols.map((s) => s.name)).toEqual(['spec zn-site-h2s-approach', 'basis def2-svp', 'basis def2-tzvp', 'structure', 'fragment site', 'fragment guest', 'fragment frame', 'embedding', 'scan', 'limits']);
     expect(symbols.find((s) => s.name === 'fragment site')!.detail).toContain('20 qubits · 17 tapered');
   });
 
@@ -164,7 +164,7 @@ describe('language server over stdio', () => {
     writeFileSync(xyz, '2\nH2\nH 0 0 0\nH 0 0 0.74\n');
     const specUri = pathToFileURL(path.join(folder, 'mol.tess')).toString();
     const pending = client.diagnostics(specUri);
-    client.open(specUri, 'basis sto-3g\ngeometry from "mol.xyz"\n');
+    client.open(specUri, 'basis sto-3g\nstructure from "mol.xyz"\n');
     expect(await pending).toEqual([]);
     writeFileSync(xyz, '2\nH2\nH 0 0 0\nH 0 0 0.1\n');
     const after = client.diagnostics(specUri);
@@ -175,7 +175,7 @@ describe('language server over stdio', () => {
   it('keeps serving after bad input', async () => {
     const uri = 'untitled:garbage.tess';
     const pending = client.diagnostics(uri);
-    client.open(uri, '}}}{{{ @@@ "unterminated\n#\u0000\u{1F600} geometry { H 1e999 }');
+    client.open(uri, '}}}{{{ @@@ "unterminated\n#\u0000\u{1F600} structure { H 1e999 }');
     expect((await pending).length).toBeGreaterThan(0);
     const hover = await client.request<Hover | null>('textDocument/hover', { textDocument: { uri }, position: { line: 5, character: 80 } });
     expect(hover).toBeNull();
@@ -189,7 +189,7 @@ describe('settings', () => {
     const configured = await startServer({ settings: { qubitLimit: 10, defaultMapping: 'parity' } });
     try {
       const uri = 'untitled:settings.tess';
-      const text = 'basis sto-3g\ngeometry {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfrozen-core off\nfragment w {\n  atoms rest\n  tier quantum { method vqe }\n}\n';
+      const text = 'basis sto-3g\nstructure {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfrozen-core off\nfragment w {\n  atoms rest\n  tier quantum { method vqe }\n}\n';
       // The first publication may come before the settings arrive; wait for one with the limit applied.
       configured.open(uri, text);
       let diagnostics = await configured.diagnostics(uri);

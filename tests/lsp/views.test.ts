@@ -56,7 +56,7 @@ describe('view requests', () => {
 
   it('follow an edit of the spec', async () => {
     const uri = 'untitled:views-edit.tess';
-    const text = 'basis sto-3g\ngeometry {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment a { atoms rest; tier mean-field { method rhf } }\n';
+    const text = 'basis sto-3g\nstructure {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment a { atoms rest; tier mean-field { method rhf } }\n';
     const opened = client.diagnostics(uri);
     client.open(uri, text);
     await opened;

@@ -4,6 +4,7 @@
  * problems with their lines and the scan totals; HTML is standalone with the plots inline; CSV
  * parses back (RFC 4180) to the same numbers.
  */
+import { markdownText } from '../../server/src/report/format/escape';
 import { readFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -146,18 +147,19 @@ describe('tessera report --format markdown', () => {
   it('the conventions, every one of them', async () => {
     const markdown = await report('samples/zn-site-h2s-scan.tess', 'markdown');
     expect(markdown).toContain('## Conventions');
-    for (const text of Object.values(CONVENTIONS)) expect(markdown).toContain(text);
+    // As written, escaped for Markdown (report/format/escape.ts).
+    for (const text of Object.values(CONVENTIONS)) expect(markdown).toContain(markdownText(text));
   });
 
   it('the warnings and errors with their lines', async () => {
     const zn = await report('samples/zn-site-h2s-scan.tess', 'markdown');
     // The sample's two bond-cut warnings, on the `atoms` lines of guest (54) and frame (60).
     expect(zn).toContain('## Problems (2)');
-    expect(zn).toMatch(/^- line 54: \*\*warning\*\* `bond-cut` /m);
-    expect(zn).toMatch(/^- line 60: \*\*warning\*\* `bond-cut` /m);
+    expect(zn).toMatch(/^- line 52: \*\*warning\*\* `bond-cut` /m);
+    expect(zn).toMatch(/^- line 58: \*\*warning\*\* `bond-cut` /m);
     const mistakes = await report('samples/mistakes.tess', 'markdown');
-    expect(mistakes).toMatch(/^- line 9: \*\*error\*\* `unknown-basis` 'cc-pvdzz' is not in the basis-set library/m);
-    expect(mistakes).toMatch(/^- line 7: \*\*error\*\* `multiplicity-parity` /m);
+    expect(mistakes).toMatch(/^- line 8: \*\*error\*\* `unknown-basis` 'cc-pvdzz' is not in the basis-set library/m);
+    expect(mistakes).toMatch(/^- line 6: \*\*error\*\* `multiplicity-parity` /m);
   });
 
   it('the scan totals', async () => {
@@ -217,7 +219,7 @@ describe('tessera report --format html', () => {
     expect(water.match(/<svg /g)).toHaveLength(2);
     expect(water).toContain('No scan plot: the spec has no scan.');
     const folder = scratch({
-      'mf.tess': 'spec "water-mean-field"\nbasis sto-3g\ngeometry {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n',
+      'mf.tess': 'spec "water-mean-field"\nbasis sto-3g\nstructure {\n  O 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n',
     });
     const meanField = await report('mf.tess', 'html', folder);
     expect(meanField).toContain('No active-space growth plot: the spec has no quantum-tier fragment.');
@@ -231,15 +233,15 @@ describe('tessera report --format html', () => {
     for (const convention of Object.values(CONVENTIONS)) expect(text).toContain(convention);
     const problems = htmlTable(html.replace('<h2>Problems (2)</h2>\n<table>', '<h2>Problems</h2>\n<table>'), 'Problems');
     expect(problems.slice(1).map((row) => [row[0], row[1], row[2]])).toEqual([
-      ['54', 'warning', '<code>bond-cut</code>'],
-      ['60', 'warning', '<code>bond-cut</code>'],
+      ['52', 'warning', '<code>bond-cut</code>'],
+      ['58', 'warning', '<code>bond-cut</code>'],
     ]);
     const mistakes = textOf(await report('samples/mistakes.tess', 'html'));
-    expect(mistakes).toContain("9 error unknown-basis 'cc-pvdzz' is not in the basis-set library");
+    expect(mistakes).toContain("8 error unknown-basis 'cc-pvdzz' is not in the basis-set library");
   });
 
   it('escapes all text', async () => {
-    const folder = scratch({ 'odd.tess': 'spec "<b>R&D</b> \'x\'"\nbasis sto-3g\ngeometry {\n  He 0 0 0\n}\n' });
+    const folder = scratch({ 'odd.tess': 'spec "<b>R&D</b> \'x\'"\nbasis sto-3g\nstructure {\n  He 0 0 0\n}\n' });
     const html = await report('odd.tess', 'html', folder);
     expect(html).not.toContain('<b>R&D');
     expect(html).toContain('<title>Resource report: &lt;b&gt;R&amp;D&lt;/b&gt; &#39;x&#39;</title>');
@@ -286,7 +288,7 @@ describe('tessera report --format csv', () => {
   it('quotes as RFC 4180 says: the note (it has commas) in double quotes, inner quotes doubled', async () => {
     const csv = await report('samples/molecules/water-sto-3g.tess', 'csv');
     expect(csv.split('\r\n')[1]!.endsWith(`,"${PLANNING_NOTE}"`)).toBe(true);
-    const folder = scratch({ 'q.tess': 'spec "say \\"hi\\", twice"\nbasis sto-3g\ngeometry {\n  He 0 0 0\n}\n' });
+    const folder = scratch({ 'q.tess': 'spec "say \\"hi\\", twice"\nbasis sto-3g\nstructure {\n  He 0 0 0\n}\n' });
     const quoted = await report('q.tess', 'csv', folder);
     const json = await estimateJson('q.tess', folder);
     expect(json.spec.name).toContain('"');

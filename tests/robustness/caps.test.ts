@@ -9,7 +9,7 @@ import { MAX_BLOCK_DEPTH } from '../../server/src/language/parser';
 import { formatLines, formatText } from '../../server/src/services/format';
 
 function pile(count: number): string {
-  return `basis sto-3g\ngeometry {\n${'  H 0 0 0\n'.repeat(count)}}\n`;
+  return `basis sto-3g\nstructure {\n${'  H 0 0 0\n'.repeat(count)}}\n`;
 }
 
 describe('coincident atoms', () => {
@@ -58,8 +58,8 @@ describe('the formatter is linear', () => {
     expect(formatText(`spec ${'a '.repeat(100_000)}\n`)).toBe(`spec ${'a '.repeat(100_000).trimEnd()}\n`);
   });
 
-  it('a geometry block of 50,000 atoms (150,000 numbers) aligns without overflowing the stack', () => {
-    const text = `geometry {\n${Array.from({ length: 50_000 }, (_, i) => ` H ${i} 0 0`).join('\n')}\n}\n`;
+  it('a structure block of 50,000 atoms (150,000 numbers) aligns without overflowing the stack', () => {
+    const text = `structure {\n${Array.from({ length: 50_000 }, (_, i) => ` H ${i} 0 0`).join('\n')}\n}\n`;
     const lines = formatLines(text);
     expect(lines[1]).toBe('  H      0.0000      0.0000      0.0000');
     expect(lines[50_000]).toBe('  H  49999.0000      0.0000      0.0000');

@@ -51,7 +51,7 @@ describe('the neighbour search leaves atoms out of range out', () => {
 
 describe('analysis stages are contained', () => {
   it('a spec with a coordinate of 1e155 Å is analysed: one error, the other atoms still checked', () => {
-    const analysis = analyze('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.3\n  H c 1e155 0 0\n}\n');
+    const analysis = analyze('basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 0.3\n  H c 1e155 0 0\n}\n');
     expect(analysis.diagnostics.map((d) => d.code).sort()).toEqual(['atoms-too-close', 'coordinate-out-of-range']);
     expect(analysis.model.atoms).toHaveLength(3);
   });

@@ -45,7 +45,7 @@ describe('readTextFile', () => {
 
 describe('the command line and includes read only what they may', () => {
   it('check /dev/zero and a FIFO: refused at once (exit 2), the other file checked', async () => {
-    const folder = tempFiles({ 'good.tess': `spec "w"\nbasis sto-3g\ngeometry from "water.xyz"\n`, 'water.xyz': WATER_XYZ });
+    const folder = tempFiles({ 'good.tess': `spec "w"\nbasis sto-3g\nstructure from "water.xyz"\n`, 'water.xyz': WATER_XYZ });
     execFileSync('mkfifo', [path.join(folder, 'pipe.tess')]);
     const result = await run(['check', '/dev/zero', 'pipe.tess', 'good.tess'], folder);
     expect(result.code).toBe(2);
@@ -54,7 +54,7 @@ describe('the command line and includes read only what they may', () => {
     expect(result.stderr).toContain('0 errors, 0 warnings in 1 file; 2 unreadable');
   });
 
-  it('geometry from a FIFO and from a 1 GiB file: include-unreadable with the reason', () => {
+  it('structure from a FIFO and from a 1 GiB file: include-unreadable with the reason', () => {
     const folder = tempFiles({ 'big.xyz': '' });
     execFileSync('mkfifo', [path.join(folder, 'pipe.xyz')]);
     truncateSync(path.join(folder, 'big.xyz'), 1024 ** 3);
@@ -63,7 +63,7 @@ describe('the command line and includes read only what they may', () => {
       ['pipe.xyz', 'it is a FIFO (named pipe), not a regular file'],
       ['big.xyz', 'it is 1.00 GiB (1,073,741,824 bytes); Tessera reads files of at most 8.00 MiB'],
     ] as const) {
-      const analysis = analyze(`basis sto-3g\ngeometry from "${file}"\n`, { path: spec });
+      const analysis = analyze(`basis sto-3g\nstructure from "${file}"\n`, { path: spec });
       const unreadable = analysis.diagnostics.find((d) => d.code === 'include-unreadable')!;
       expect(unreadable.message).toContain(reason);
     }
@@ -71,7 +71,7 @@ describe('the command line and includes read only what they may', () => {
 
   it('an XYZ file declaring more atoms than supported is refused before its lines are read', () => {
     const folder = tempFiles({ 'many.xyz': `${MAX_ATOMS + 1}\nmany\nH 0 0 0\n` });
-    const analysis = analyze('basis sto-3g\ngeometry from "many.xyz"\n', { path: path.join(folder, 'spec.tess') });
+    const analysis = analyze('basis sto-3g\nstructure from "many.xyz"\n', { path: path.join(folder, 'spec.tess') });
     expect(analysis.diagnostics.map((d) => d.code)).toEqual(['spec-too-large']);
     expect(analysis.diagnostics[0]!.message).toContain('"many.xyz" says it holds 100,001 atoms');
   });
@@ -79,7 +79,7 @@ describe('the command line and includes read only what they may', () => {
 
 describe('the supported spec size', () => {
   it('100,001 inline atoms: refused with one diagnostic; 100,000 atoms are analysed', () => {
-    const lines = (count: number) => `basis sto-3g\ngeometry {\n${Array.from({ length: count }, (_, i) => `  H ${(i % 100) * 2} ${Math.floor(i / 100) % 100 * 2} ${Math.floor(i / 10_000) * 2}`).join('\n')}\n}\n`;
+    const lines = (count: number) => `basis sto-3g\nstructure {\n${Array.from({ length: count }, (_, i) => `  H ${(i % 100) * 2} ${Math.floor(i / 100) % 100 * 2} ${Math.floor(i / 10_000) * 2}`).join('\n')}\n}\n`;
     const refused = analyze(lines(MAX_ATOMS + 1));
     expect(refused.diagnostics.map((d) => d.code)).toEqual(['spec-too-large']);
     expect(refused.diagnostics[0]!.message).toMatch(/^This spec has 100,001 atoms; Tessera analyses specs of up to 8,388,608 characters \(8 MiB\), 100,000 atoms and 1,000,000 words/);
@@ -89,21 +89,21 @@ describe('the supported spec size', () => {
     expect(accepted.diagnostics.filter((d) => d.code === 'spec-too-large')).toEqual([]);
   });
 
-  it('more than 1,000,000 words outside plain geometry blocks: refused before lexing', () => {
+  it('more than 1,000,000 words outside plain structure blocks: refused before lexing', () => {
     const analysis = analyze(`spec "w"\n${';'.repeat(1_000_001)}\n`);
     expect(analysis.diagnostics.map((d) => d.code)).toEqual(['spec-too-large']);
-    expect(analysis.diagnostics[0]!.message).toContain('about 1,000,003 words outside plain geometry blocks');
+    expect(analysis.diagnostics[0]!.message).toContain('about 1,000,003 words outside plain structure blocks');
   });
 
   it('countWords counts runs between blanks and each brace, semicolon and equals sign', () => {
     expect(countWords('')).toBe(0);
     expect(countWords('fragment a { atoms rest; tier quantum { A1=3 } }')).toBe(14);
-    expect(countWords('  geometry\n\t{\r\n}')).toBe(3);
+    expect(countWords('  structure\n\t{\r\n}')).toBe(3);
   });
 });
 
 describe('carriage returns alone end lines', () => {
-  const CRLF = `spec "w"\r\nbasis sto-3g\r\ngeometry {\r\n  O 0 0 0\r\n  H 0 ${WATER_H_Y} ${WATER_H_Z}\r\n  H 0 -${WATER_H_Y} ${WATER_H_Z}\r\n}\r\nfragment w { atoms rest; tier mean-field { } }\r\nbogus\r\n`;
+  const CRLF = `spec "w"\r\nbasis sto-3g\r\nstructure {\r\n  O 0 0 0\r\n  H 0 ${WATER_H_Y} ${WATER_H_Z}\r\n  H 0 -${WATER_H_Y} ${WATER_H_Z}\r\n}\r\nfragment w { atoms rest; tier mean-field { } }\r\nbogus\r\n`;
 
   it('a spec with CR line ends reads like the same spec with CRLF: same diagnostics, lines and columns', () => {
     const cr = CRLF.replace(/\r\n/g, '\r');
@@ -118,14 +118,14 @@ describe('carriage returns alone end lines', () => {
 
   it('an XYZ file with CR line ends is read', () => {
     const folder = tempFiles({ 'w.xyz': WATER_XYZ.replace(/\n/g, '\r') });
-    const analysis = analyze('basis sto-3g\ngeometry from "w.xyz"\n', { path: path.join(folder, 's.tess') });
+    const analysis = analyze('basis sto-3g\nstructure from "w.xyz"\n', { path: path.join(folder, 's.tess') });
     expect(analysis.model.atoms).toHaveLength(3);
     expect(analysis.diagnostics.filter((d) => d.code.startsWith('include'))).toEqual([]);
   });
 
   it('the formatter keeps the lines of a CR-only spec', () => {
-    const formatted = formatText('geometry {\r H 0 0 0\r}\r');
-    expect(formatted.split('\n')).toEqual(['geometry {', '  H  0.0000  0.0000  0.0000', '}', '']);
+    const formatted = formatText('structure {\r H 0 0 0\r}\r');
+    expect(formatted.split('\n')).toEqual(['structure {', '  H  0.0000  0.0000  0.0000', '}', '']);
   });
 });
 

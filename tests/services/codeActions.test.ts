@@ -12,14 +12,14 @@ import { doValidation, getCodeActions, toLspDiagnostic } from '../../server/src/
 import { applyEdits, editsFor, URI } from './service';
 
 /** Water at r(OH) = 0.9572 Å, HOH = 104.52° (Hoy & Bunker, J. Mol. Spectrosc. 74, 1 (1979)), placed as in tests/fixtures/water.ts. */
-const WATER = `geometry {
+const WATER = `structure {
   O o 0 0 0
   H h1 0 0.756950 0.585882
   H h2 0 -0.756950 0.585882
 }
 `;
 /** The same water in bohr: each coordinate divided by 0.529177210903 Å (CODATA 2018). */
-const WATER_IN_BOHR = `geometry {
+const WATER_IN_BOHR = `structure {
   O o 0 0 0
   H h1 0 1.430429 1.107157
   H h2 0 -1.430429 1.107157
@@ -127,7 +127,7 @@ describe('unassigned atoms', () => {
   });
 
   it('names unlabelled atoms by #index ranges', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w {\n  atoms o\n  tier mean-field { method rohf }\n}\n`;
+    const text = `basis sto-3g\nstructure {\n  O o 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w {\n  atoms o\n  tier mean-field { method rohf }\n}\n`;
     const intoW = fixes(text, 'atoms-unassigned').find((fix) => fix.action.title.includes("fragment 'w'"))!;
     expect(intoW.text).toContain('  atoms o #2..#3\n');
     expectFixed(intoW, 'atoms-unassigned');
@@ -153,26 +153,39 @@ describe('unassigned atoms', () => {
 
 describe('basis override for an element the basis lacks', () => {
   /** RbCl: 6-31G stops at Kr, so it lacks Rb (Z = 37) (nwchem-data agrees: tests/fixtures/basis-counts.nwchem.json). */
-  const RBCL = `geometry {\n  Rb rb 0 0 0\n  Cl cl 0 0 2.79\n}\n${MEAN_FIELD}`;
-  const cases: { name: string; basis: string; expected: string }[] = [
-    { name: 'without a basis block: one is added', basis: 'basis 6-31G', expected: 'basis 6-31G {\n  Rb = STO-3G\n}\n' },
-    { name: 'with a block whose `}` has a line of its own', basis: 'basis 6-31G {\n  functions cartesian\n}', expected: 'basis 6-31G {\n  functions cartesian\n  Rb = STO-3G\n}\n' },
-    { name: 'with a one-line block holding a statement', basis: 'basis 6-31G { functions cartesian }', expected: 'basis 6-31G { functions cartesian; Rb = STO-3G }\n' },
-    { name: 'with a one-line block ending in `;`', basis: 'basis 6-31G { functions cartesian; }', expected: 'basis 6-31G { functions cartesian; Rb = STO-3G }\n' },
-    { name: 'with an empty block', basis: 'basis 6-31G { }', expected: 'basis 6-31G { Rb = STO-3G }\n' },
-    { name: 'with an override that lacks the element too', basis: 'basis def2-svp {\n  Rb = 6-31G\n}', expected: 'basis def2-svp {\n  Rb = STO-3G\n}\n' },
+  const RBCL = `structure {\n  Rb rb 0 0 0\n  Cl cl 0 0 2.79\n}\n${MEAN_FIELD}`;
+  const cases: { name: string; basis: string; expected: string; titles: string[] }[] = [
+    { name: 'an element line after the main line', basis: 'basis 6-31G', expected: 'basis 6-31G\nbasis STO-3G on all Rb\n', titles: titlesOn('all Rb') },
+    {
+      name: 'after the last basis line, with a comment on it',
+      basis: 'basis 6-31G\nbasis 3-21G on all Cl  # chlorine',
+      expected: 'basis 6-31G\nbasis 3-21G on all Cl  # chlorine\nbasis STO-3G on all Rb\n',
+      titles: titlesOn('all Rb'),
+    },
+    // The line that gave rb its basis gives it to no other atom: its name changes, or, for the main
+    // line's own basis, the line goes.
+    {
+      name: 'the name of an element line that lacks the element too',
+      basis: 'basis def2-svp\nbasis 6-31G on all Rb',
+      expected: 'basis def2-svp\nbasis STO-3G on all Rb\n',
+      titles: [...titlesOn('all Rb').slice(0, 2), 'Use def2-SVP for Rb (remove `basis 6-31G on all Rb`)', titlesOn('all Rb')[3]!],
+    },
+    {
+      name: 'the name of a line naming the atom',
+      basis: 'basis def2-svp\nbasis 6-31G on rb',
+      expected: 'basis def2-svp\nbasis STO-3G on rb\n',
+      titles: [...titlesOn('rb').slice(0, 2), 'Use def2-SVP for Rb (remove `basis 6-31G on rb`)', titlesOn('rb')[3]!],
+    },
   ];
+  function titlesOn(target: string): string[] {
+    return ['STO-3G', '3-21G', 'def2-SVP', 'def2-SVPD'].map((name) => `Use ${name} for Rb (basis ${name} on ${target})`);
+  }
   for (const c of cases) {
     it(c.name, () => {
       const applied = fixes(`${c.basis}\n${RBCL}`, 'basis-missing-element');
       // The bases of the library that define Rb, in library order: STO-3G, 3-21G, def2-SVP, ...
       // (nwchem-data has Rb in these and not in 6-31G, cc-pVDZ or 6-311G**: tests/fixtures/basis-counts.nwchem.json).
-      expect(applied.map((fix) => fix.action.title)).toEqual([
-        'Use STO-3G for Rb (per-element basis)',
-        'Use 3-21G for Rb (per-element basis)',
-        'Use def2-SVP for Rb (per-element basis)',
-        'Use def2-SVPD for Rb (per-element basis)',
-      ]);
+      expect(applied.map((fix) => fix.action.title)).toEqual(c.titles);
       expect(applied[0]!.action.isPreferred).toBe(true);
       expect(applied[0]!.text.startsWith(c.expected)).toBe(true);
       for (const fix of applied) expectFixed(fix, 'basis-missing-element');
@@ -213,24 +226,24 @@ describe('active space that exceeds the qubit limit', () => {
 });
 
 describe('length unit', () => {
-  it('adds `units bohr` for coordinates that look like bohr', () => {
+  it('names bohr in the structure header for coordinates that look like bohr', () => {
     const [fix] = fixes(`basis sto-3g\n${WATER_IN_BOHR}${MEAN_FIELD}`, 'units-suspect');
     expect(fix!.action.title).toBe('Read the coordinates as bohr');
-    expect(fix!.text.startsWith('units bohr\nbasis sto-3g\n')).toBe(true);
+    expect(fix!.text.startsWith('basis sto-3g\nstructure in bohr {\n')).toBe(true);
     expectFixed(fix!, 'units-suspect');
   });
 
-  it('replaces a unit that does not fit the coordinates', () => {
-    const [fix] = fixes(`units bohr\nbasis sto-3g\n${WATER}${MEAN_FIELD}`, 'units-suspect');
+  it('replaces a header unit that does not fit the coordinates', () => {
+    const [fix] = fixes(`basis sto-3g\n${WATER.replace('structure {', 'structure in bohr {')}${MEAN_FIELD}`, 'units-suspect');
     expect(fix!.action.title).toBe('Read the coordinates as angstrom');
-    expect(fix!.text.startsWith('units angstrom\nbasis sto-3g\n')).toBe(true);
+    expect(fix!.text.startsWith('basis sto-3g\nstructure in angstrom {\n')).toBe(true);
     expectFixed(fix!, 'units-suspect');
   });
 });
 
 describe('diagnostics without a fix, and from elsewhere', () => {
   it('offers nothing for a diagnostic without fix data', () => {
-    const analysis = analyzeDocument(`basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h 0 0 0.1\n}\n${MEAN_FIELD}`);
+    const analysis = analyzeDocument(`basis sto-3g\nstructure {\n  O o 0 0 0\n  H h 0 0 0.1\n}\n${MEAN_FIELD}`);
     const diagnostics = doValidation(analysis, URI).filter((d) => d.code === 'atoms-too-close');
     expect(diagnostics.length).toBe(1);
     expect(getCodeActions(analysis, URI, diagnostics)).toEqual([]);
@@ -248,7 +261,7 @@ describe('diagnostics without a fix, and from elsewhere', () => {
 describe('symmetrize', () => {
   it('makes a nearly symmetric water exactly C2v, and the near-symmetry note goes', () => {
     // One H of water moved 0.02 Å: Cs at the 0.01 Å tolerance, C2v within about 0.01 Å.
-    const text = 'basis sto-3g\ngeometry {\n  O o 0.000000 0.000000 0.000000\n  H h1 0.000000 0.756950 0.585882\n  H h2 0.000000 -0.756950 0.605882\n}\n';
+    const text = 'basis sto-3g\nstructure {\n  O o 0.000000 0.000000 0.000000\n  H h1 0.000000 0.756950 0.585882\n  H h2 0.000000 -0.756950 0.605882\n}\n';
     const before = analyzeDocument(text);
     const note = before.diagnostics.find((d) => d.code === 'near-symmetry')!;
     expect(note.message).toContain('C2v within');
@@ -262,5 +275,59 @@ describe('symmetrize', () => {
     const d1 = Math.hypot(c[3]! - c[0]!, c[4]! - c[1]!, c[5]! - c[2]!);
     const d2 = Math.hypot(c[6]! - c[0]!, c[7]! - c[1]!, c[8]! - c[2]!);
     expect(Math.abs(d1 - d2)).toBeLessThan(1e-4);
+  });
+});
+
+describe('old spellings', () => {
+  const OLD = `units bohr
+basis sto-3g {
+  H = 3-21G
+}
+geometry {
+  O o 0 0 0
+  H h1 0 1.430429 1.107157
+  H h2 0 -1.430429 1.107157
+}
+fragment w { atoms within 2 of o; tier mean-field { method rhf } }
+`;
+
+  it('rewrites each old statement with one click, the preferred fix of its diagnostic', () => {
+    const applied = fixes(OLD, 'retired-spelling');
+    const single = applied.filter((fix) => fix.action.title !== 'Rewrite every old spelling in this file');
+    expect(single.map((fix) => fix.action.title)).toEqual([
+      'Move the unit into the structure header',
+      'Rewrite as one-line basis statements',
+      'Rewrite as `structure in bohr`',
+      'Rewrite as `closer-than 2 to o`',
+    ]);
+    for (const fix of single) {
+      expect(fix.action.isPreferred).toBe(true);
+      // Each fix removes its own old statement and adds no other problem.
+      expect(fix.after.filter((code) => code === 'retired-spelling').length).toBeLessThan(fix.before.filter((code) => code === 'retired-spelling').length);
+      for (const after of fix.after) expect(fix.before).toContain(after);
+    }
+  });
+
+  it('offers one action that rewrites every old spelling of the file', () => {
+    const all = fixes(OLD, 'retired-spelling').filter((fix) => fix.action.title === 'Rewrite every old spelling in this file');
+    // One per request, offered with each old statement's diagnostic.
+    expect(all.length).toBeGreaterThan(0);
+    expect(all[0]!.text).toBe(`basis sto-3g
+basis 3-21G on all H
+structure in bohr {
+  O o 0 0 0
+  H h1 0 1.430429 1.107157
+  H h2 0 -1.430429 1.107157
+}
+fragment w { atoms closer-than 2 to o; tier mean-field { method rhf } }
+`);
+    expect(all[0]!.after).toEqual([]);
+  });
+
+  it('offers the file-wide rewrite once per request, however many old statements it covers', () => {
+    const analysis = analyzeDocument(OLD);
+    const diagnostics = doValidation(analysis, URI).filter((d) => d.code === 'retired-spelling');
+    const actions = getCodeActions(analysis, URI, diagnostics);
+    expect(actions.filter((action) => action.title === 'Rewrite every old spelling in this file')).toHaveLength(1);
   });
 });

@@ -26,7 +26,7 @@ function ranked(items: readonly CompletionItem[]): CompletionItem[] {
 }
 
 /** A zinc site with a hydrogen sulfide: Zn, S and H. */
-const GEOMETRY = `geometry {
+const GEOMETRY = `structure {
   Zn zn 0 0 0
   S  s  0 0 2.3
   H  h1 0.96 0 2.9
@@ -39,10 +39,11 @@ function spec(body: string, header = 'basis def2-svp'): string {
 }
 
 describe('keywords valid at the cursor', () => {
-  const TOP = ['spec', 'units', 'charge', 'multiplicity', 'basis', 'geometry', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits'];
+  const TOP = ['spec', 'charge', 'multiplicity', 'basis', 'functions', 'structure', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits'];
   const cases: { block: string; text: string; expected: string[] }[] = [
     { block: 'top level of an empty spec', text: '$0', expected: TOP },
-    { block: 'top level', text: spec('$0\n', 'spec "t"'), expected: TOP.filter((k) => k !== 'spec' && k !== 'geometry') },
+    // `basis` repeats (a main line and overrides), so it is offered after one.
+    { block: 'top level', text: spec('$0\n', 'spec "t"'), expected: TOP.filter((k) => k !== 'spec' && k !== 'structure') },
     { block: 'fragment', text: spec('fragment f {\n  $0\n}\n'), expected: ['charge', 'multiplicity', 'atoms', 'tier'] },
     { block: 'tier', text: spec('fragment f {\n  atoms rest\n  tier quantum {\n    $0\n  }\n}\n'), expected: ['frozen-core', 'method', 'ansatz', 'mapping', 'active', 'taper', 'layers'] },
     { block: 'limits', text: spec('limits {\n  $0\n}\n'), expected: ['qubits', 'memory'] },
@@ -53,16 +54,8 @@ describe('keywords valid at the cursor', () => {
     });
   }
 
-  it('basis block: `functions` and per-element entries, the file\'s elements first', () => {
-    const items = complete(spec('', 'basis def2-svp {\n  $0\n}'));
-    expect(items.filter((item) => item.kind === 14 /* Keyword */).map((item) => item.label)).toEqual(['functions']);
-    const elements = items.filter((item) => item.insertText !== undefined);
-    expect(elements.slice(0, 3).map((item) => item.insertText)).toEqual(['Zn = ', 'S = ', 'H = ']);
-    expect(elements[0]!.detail).toBe('per-element basis for Zinc, Z = 30');
-  });
-
-  it('geometry block: element symbols, those in the file first, with name and Z', () => {
-    const items = ranked(complete('basis sto-3g\ngeometry {\n  Zn zn 0 0 0\n  S s 0 0 2.3\n  $0\n}\n'));
+  it('structure block: element symbols, those in the file first, with name and Z', () => {
+    const items = ranked(complete('basis sto-3g\nstructure {\n  Zn zn 0 0 0\n  S s 0 0 2.3\n  $0\n}\n'));
     expect(items.slice(0, 3).map((item) => item.label)).toEqual(['Zn', 'S', 'H']);
     const helium = items.find((item) => item.label === 'He');
     // Z(He) = 2 (IUPAC periodic table).
@@ -72,8 +65,8 @@ describe('keywords valid at the cursor', () => {
   });
 
   it('leaves out singleton keywords already given in the block, keeps `fragment`', () => {
-    const top = labels(spec('units bohr\nfragment a { atoms rest; tier mean-field { method rhf } }\n$0\n', 'spec "t"\ncharge 0\nbasis def2-svp'));
-    expect(top).toEqual(['multiplicity', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits']);
+    const top = labels(spec('functions cartesian\nfragment a { atoms rest; tier mean-field { method rhf } }\n$0\n', 'spec "t"\ncharge 0\nbasis def2-svp'));
+    expect(top).toEqual(['multiplicity', 'basis', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits']);
     expect(labels(spec('fragment f {\n  atoms rest\n  charge 0\n  $0\n}\n'))).toEqual(['multiplicity', 'tier']);
     expect(labels(spec('fragment f {\n  atoms rest\n  tier quantum {\n    method vqe\n    taper on\n    $0\n  }\n}\n'))).toEqual(['frozen-core', 'ansatz', 'mapping', 'active', 'layers']);
     expect(labels(spec('limits {\n  qubits 4\n  $0\n}\n'))).toEqual(['memory']);
@@ -81,7 +74,7 @@ describe('keywords valid at the cursor', () => {
 
   it('starts a new statement on the line after a closed block', () => {
     const after = (block: string) => labels(spec(`${block}\n$0\n`, 'spec "t"\nbasis def2-svp'));
-    const expected = ['units', 'charge', 'multiplicity', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits'];
+    const expected = ['charge', 'multiplicity', 'basis', 'functions', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits'];
     expect(after('fragment a {\n  atoms rest\n  tier mean-field { method rhf }\n}')).toEqual(expected);
     expect(after('limits { qubits 4 }')).toEqual(expected.filter((k) => k !== 'limits'));
   });
@@ -94,8 +87,10 @@ describe('keywords valid at the cursor', () => {
 describe('values after a keyword', () => {
   const FRAGMENT = (inner: string) => spec(`fragment f {\n  atoms rest\n  ${inner}\n}\n`);
   const cases: { name: string; text: string; expected: string[] }[] = [
-    { name: 'units', text: 'units $0', expected: ['angstrom', 'bohr'] },
-    { name: 'functions', text: spec('', 'basis def2-svp { functions $0 }'), expected: ['spherical', 'cartesian'] },
+    { name: 'the structure header', text: 'structure $0', expected: ['in', 'from'] },
+    { name: 'the structure\'s unit', text: 'structure in $0', expected: ['angstrom', 'bohr'] },
+    { name: 'functions', text: spec('functions $0\n'), expected: ['spherical', 'cartesian'] },
+    { name: '`on` after the basis name', text: spec('basis def2-tzvp $0\n'), expected: ['on'] },
     { name: 'frozen-core', text: spec('frozen-core $0\n'), expected: ['on', 'off'] },
     { name: 'embedding', text: spec('embedding $0\n'), expected: ['dmet', 'projection', 'subtractive', 'none'] },
     { name: 'tier levels', text: FRAGMENT('tier $0'), expected: ['quantum', 'correlated', 'mean-field'] },
@@ -107,7 +102,7 @@ describe('values after a keyword', () => {
     { name: 'mappings', text: FRAGMENT('tier quantum { mapping $0 }'), expected: ['jordan-wigner', 'bravyi-kitaev', 'parity'] },
     { name: 'memory units after the amount', text: spec('limits { memory 16 $0 }\n'), expected: ['B', 'KiB', 'MiB', 'GiB', 'TiB', 'PiB', 'kB', 'KB', 'MB', 'GB', 'TB', 'PB'] },
     { name: 'nothing for the memory amount', text: spec('limits { memory $0 }\n'), expected: [] },
-    { name: 'nothing in the coordinates of an atom line', text: 'basis sto-3g\ngeometry {\n  Zn zn $0\n}\n', expected: [] },
+    { name: 'nothing in the coordinates of an atom line', text: 'basis sto-3g\nstructure {\n  Zn zn $0\n}\n', expected: [] },
   ];
   for (const c of cases) {
     it(c.name, () => {
@@ -120,21 +115,31 @@ describe('atom selectors', () => {
   const LABELS = ['zn', 's', 'h1', 'h2'];
   it('offers the labels and the selector words after `atoms`', () => {
     const items = complete(spec('fragment f {\n  atoms $0\n}\n'));
-    expect(items.map((item) => item.label)).toEqual([...LABELS, 'rest', 'all', 'within']);
+    expect(items.map((item) => item.label)).toEqual([...LABELS, 'rest', 'all', 'closer-than']);
     expect(items[0]!.detail).toBe('atom #1 Zn');
   });
 
   it('offers the labels after other selectors', () => {
-    expect(labels(spec('fragment f {\n  atoms zn all H $0\n}\n'))).toEqual([...LABELS, 'rest', 'all', 'within']);
+    expect(labels(spec('fragment f {\n  atoms zn all H $0\n}\n'))).toEqual([...LABELS, 'rest', 'all', 'closer-than']);
   });
 
-  it('offers only the labels after `within 2 of`', () => {
-    expect(labels(spec('fragment f {\n  atoms within 2 of $0\n}\n'))).toEqual(LABELS);
+  it('offers only the labels after `closer-than 2 to`', () => {
+    expect(labels(spec('fragment f {\n  atoms closer-than 2 to $0\n}\n'))).toEqual(LABELS);
   });
 
-  it('offers `of` after `within 2`, and nothing after `within`', () => {
-    expect(labels(spec('fragment f {\n  atoms within 2 $0\n}\n'))).toEqual(['of']);
-    expect(labels(spec('fragment f {\n  atoms within $0\n}\n'))).toEqual([]);
+  it('offers `to` after `closer-than 2`, and nothing after `closer-than`', () => {
+    expect(labels(spec('fragment f {\n  atoms closer-than 2 $0\n}\n'))).toEqual(['to']);
+    expect(labels(spec('fragment f {\n  atoms closer-than $0\n}\n'))).toEqual([]);
+  });
+
+  it('offers labels, `all`, `closer-than` and `fragment` (not `rest`) after `on` in a basis line', () => {
+    expect(labels(spec('basis def2-tzvp on $0\n'))).toEqual([...LABELS, 'all', 'closer-than', 'fragment']);
+    expect(labels(spec('basis def2-tzvp on all $0\n'))).toEqual(['Zn', 'S', 'H']);
+  });
+
+  it('offers the fragment names after `on fragment`', () => {
+    const text = spec('fragment site { atoms zn; tier quantum { method vqe } }\nfragment guest { atoms rest; tier mean-field { method rhf } }\nbasis sto-3g on fragment $0\n');
+    expect(labels(text)).toEqual(['site', 'guest']);
   });
 
   it('offers the elements of the file after `all`', () => {
@@ -219,10 +224,13 @@ describe('basis names ranked by coverage of the file\'s elements', () => {
     expect(covering).not.toContain('cc-pVDZ');
   });
 
-  it('ranks a per-element basis by the element on its left', () => {
-    const { covering, lacking } = basisRanking(`basis sto-3g {\n  Zn = $0\n}\n${GEOMETRY}`);
-    expect(covering).toContain('def2-TZVP');
-    expect(lacking.get('6-31++G**')).toBe('lacks Zn');
+  it('ranks an override\'s basis by the elements of the atoms it selects', () => {
+    // The override selects only the hydrogens: a basis that lacks Zn is no worse here.
+    const forHydrogen = basisRanking(`basis sto-3g\nbasis 6$0 on all H\n${GEOMETRY}`);
+    expect(forHydrogen.covering).toContain('6-31++G**');
+    const forZinc = basisRanking(`basis sto-3g\nbasis d$0 on zn\n${GEOMETRY}`);
+    expect(forZinc.covering).toContain('def2-TZVP');
+    expect(forZinc.lacking.get('6-31++G**')).toBe('lacks Zn');
   });
 });
 
@@ -242,10 +250,10 @@ describe('textEdit replaces the word being typed', () => {
     });
   }
 
-  it('inserts the per-element entry with its `=`', () => {
-    const m = marked(spec('', 'basis def2-svp {\n  ⟦Z$0⟧\n}'));
+  it('replaces the element being typed after `all` in a basis line', () => {
+    const m = marked(spec('basis def2-tzvp on all ⟦Z$0⟧\n'));
     const item = doComplete(m.analysis, m.cursor).items.find((candidate) => candidate.label === 'Zn');
-    expect(item?.textEdit).toEqual({ range: m.ranges[0], newText: 'Zn = ' });
+    expect(item?.textEdit).toEqual({ range: m.ranges[0], newText: 'Zn' });
   });
 
   it('carries no textEdit when nothing is typed yet', () => {

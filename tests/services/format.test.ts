@@ -26,9 +26,14 @@ describe('messy input', () => {
       expected: lines('fragment w {', '  atoms rest', '  tier quantum {', '    method vqe', '  }', '}'),
     },
     {
-      name: '`=` spaced in per-element bases, `;` bound to the word before it',
-      input: lines('basis sto-3g{', 'Zn=def2-svp ;functions cartesian', '    }'),
-      expected: lines('basis sto-3g {', '  Zn = def2-svp; functions cartesian', '}'),
+      name: 'single spaces in basis lines, `;` bound to the word before it',
+      input: lines('basis   sto-3g', '   basis  def2-svp   on all   Zn ;functions cartesian'),
+      expected: lines('basis sto-3g', 'basis def2-svp on all Zn; functions cartesian'),
+    },
+    {
+      name: '`=` spaced where it is written (active irreps), `;` bound to the word before it',
+      input: 'fragment w { atoms rest; tier quantum { active 4e A1=2 B2 =2 ;taper on } }',
+      expected: 'fragment w { atoms rest; tier quantum { active 4e A1 = 2 B2 = 2; taper on } }',
     },
     {
       name: '`..` bound to both its atoms',
@@ -42,8 +47,8 @@ describe('messy input', () => {
     },
     {
       name: 'blank lines emptied, never removed',
-      input: lines('spec "t"', '   ', '', 'units bohr   '),
-      expected: lines('spec "t"', '', '', 'units bohr'),
+      input: lines('spec "t"', '   ', '', 'functions cartesian   '),
+      expected: lines('spec "t"', '', '', 'functions cartesian'),
     },
     {
       name: 'a full-line comment indented with its block',
@@ -62,8 +67,8 @@ describe('messy input', () => {
     },
     {
       name: 'a stray `}` does not indent below zero',
-      input: lines('}', '  units bohr'),
-      expected: lines('}', 'units bohr'),
+      input: lines('}', '  functions cartesian'),
+      expected: lines('}', 'functions cartesian'),
     },
   ];
   for (const c of cases) {
@@ -75,11 +80,9 @@ describe('messy input', () => {
 
   it('a whole spec', () => {
     const input = `spec   "t"   # name
-units    bohr
-basis sto-3g{
-Zn=def2-svp;functions cartesian
-    }
-geometry {
+basis    sto-3g
+basis def2-svp  on   all Zn;functions cartesian
+structure   in  bohr{
 O o 0 0 0      # oxygen
    H h1  1.5e0 .5 -0.25
 H h22 0.000001 1E-3 2
@@ -91,11 +94,9 @@ atoms o..h22 #1 ..#2 ;charge 0
 limits{qubits 4}
 `;
     expect(formatText(input)).toBe(`spec "t"     # name
-units bohr
-basis sto-3g {
-  Zn = def2-svp; functions cartesian
-}
-geometry {
+basis sto-3g
+basis def2-svp on all Zn; functions cartesian
+structure in bohr {
   O  o     0.000000   0.000000   0.000000  # oxygen
   H  h1    1.500000   0.500000  -0.250000
   H  h22   0.000001   0.001000   2.000000
@@ -114,7 +115,7 @@ limits { qubits 4 }
 });
 
 describe('geometry columns', () => {
-  const geometry = (...rows: string[]) => lines('geometry {', ...rows, '}');
+  const geometry = (...rows: string[]) => lines('structure {', ...rows, '}');
 
   it('aligns element, label and coordinates, at least four decimals', () => {
     expect(formatText(geometry('O o 0 0 0', 'H h2 0 -0.756950 0.585882', 'Cl 0 0 2'))).toBe(
@@ -188,7 +189,7 @@ describe('tokens that must not be pulled apart or together', () => {
 
   it('keeps touching tokens together when apart they would read differently', () => {
     // `1e-32` before `.0000` reads as a word (a number cannot be followed by `.`); alone it is a number.
-    const input = lines('geometry {', '  N 1e-32.0000   0.0000 1', '}');
+    const input = lines('structure {', '  N 1e-32.0000   0.0000 1', '}');
     const output = formatText(input);
     expect(output.split('\n')[1]).toBe('  N 1e-32.0000 0.0000 1');
     expect(formatText(output)).toBe(output);
@@ -243,7 +244,7 @@ describe('range formatting', () => {
   });
 
   it('aligns atom lines in range with the whole block', () => {
-    const geometry = lines('geometry {', 'H a 0 0 0', 'H bbb 0 0 0.74', 'H c 10 0 0', '}');
+    const geometry = lines('structure {', 'H a 0 0 0', 'H bbb 0 0 0.74', 'H c 10 0 0', '}');
     const partial = format(geometry, { start: { line: 2, character: 0 }, end: { line: 2, character: 3 } });
     expect(partial).toEqual([{ range: { start: { line: 2, character: 0 }, end: { line: 2, character: 14 } }, newText: '  H  bbb   0.0000   0.0000   0.7400' }]);
     // The column width is that of 10.0000, on a line outside the range.
@@ -256,18 +257,18 @@ describe('range formatting', () => {
 
 describe('lines the formatter cannot read', () => {
   it('are left exactly as they are, and the rest is formatted', () => {
-    const input = lines('spec   "t"   @ here', 'units    bohr', 'fragment w {', '    atoms rest   ; charge 0 ; name "open', '}');
-    expect(formatText(input)).toBe(lines('spec   "t"   @ here', 'units bohr', 'fragment w {', '    atoms rest   ; charge 0 ; name "open', '}'));
+    const input = lines('spec   "t"   @ here', 'functions    cartesian', 'fragment w {', '    atoms rest   ; charge 0 ; name "open', '}');
+    expect(formatText(input)).toBe(lines('spec   "t"   @ here', 'functions cartesian', 'fragment w {', '    atoms rest   ; charge 0 ; name "open', '}'));
   });
 
   it('an unreadable line inside a geometry block is not aligned with its neighbours', () => {
-    const input = lines('geometry {', 'H a 0 0 0 @', 'H b 0 0 0.74', '}');
-    expect(formatText(input)).toBe(lines('geometry {', 'H a 0 0 0 @', '  H  b  0.0000  0.0000  0.7400', '}'));
+    const input = lines('structure {', 'H a 0 0 0 @', 'H b 0 0 0.74', '}');
+    expect(formatText(input)).toBe(lines('structure {', 'H a 0 0 0 @', '  H  b  0.0000  0.0000  0.7400', '}'));
   });
 });
 
 describe('CRLF input', () => {
-  const lf = lines('spec   "t"   # name', 'fragment w {', 'atoms rest', '}', 'geometry {', 'H a 0 0 0', 'H b 0 0 0.74', '}', '');
+  const lf = lines('spec   "t"   # name', 'fragment w {', 'atoms rest', '}', 'structure {', 'H a 0 0 0', 'H b 0 0 0.74', '}', '');
   const crlf = lf.replace(/\n/g, '\r\n');
 
   it('edits stop before the carriage return, so line ends are kept', () => {

@@ -54,7 +54,7 @@ describe('inlay hints', () => {
   });
 
   it('none for a fragment without a name', () => {
-    const analysis = analyzeDocument('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment { atoms rest; tier mean-field { method rhf } }\n');
+    const analysis = analyzeDocument('basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment { atoms rest; tier mean-field { method rhf } }\n');
     expect(getInlayHints(analysis)).toEqual([]);
   });
 });
@@ -82,7 +82,7 @@ describe('code lens', () => {
   });
 
   it('names no quantum fragment when there is none', () => {
-    const analysis = analyzeDocument('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n');
+    const analysis = analyzeDocument('basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n');
     // STO-3G: one function per H (Hehre, Stewart, Pople, J. Chem. Phys. 51, 2657 (1969)).
     expect(getCodeLenses(analysis)[0]!.command!.title).toBe('2 atoms · 2 e⁻ · 2 spherical functions · 1 fragment');
     expect(largestQubitCount(analysis)).toBeUndefined();

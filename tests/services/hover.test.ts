@@ -20,7 +20,7 @@ const WATER_ATOMS = `  O  o    0.000000   0.000000   0.000000
   H  h2   0.000000  -0.756950   0.585882`;
 
 function waterSpec(fragment: string, header = 'basis cc-pVDZ'): string {
-  return `${header}\ngeometry {\n${WATER_ATOMS}\n}\n${fragment}\n`;
+  return `${header}\nstructure {\n${WATER_ATOMS}\n}\n${fragment}\n`;
 }
 
 function hoverAt(text: string, options = {}): { markdown: string | null; range: unknown; expectedRange: unknown } {
@@ -87,7 +87,7 @@ describe('fragment card', () => {
 describe('atom card', () => {
   for (const fastGeometry of [true, false]) {
     it(`shows element, Z, position in Å and bohr, fragment and neighbours (${fastGeometry ? 'fast' : 'general'} geometry reader)`, () => {
-      const text = `basis sto-3g\ngeometry {\n  O  o    0.000000   0.000000   0.000000\n  H  ⟦h$01⟧   0.000000   0.756950   0.585882\n  H  h2   0.000000  -0.756950   0.585882\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
+      const text = `basis sto-3g\nstructure {\n  O  o    0.000000   0.000000   0.000000\n  H  ⟦h$01⟧   0.000000   0.756950   0.585882\n  H  h2   0.000000  -0.756950   0.585882\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
       const { markdown, range, expectedRange } = hoverAt(text, { fastGeometry });
       expect(range).toEqual(expectedRange);
       const card = markdown!;
@@ -103,7 +103,7 @@ describe('atom card', () => {
   }
 
   it('converts coordinates written in bohr, and shows them back in bohr', () => {
-    const text = `units bohr\nbasis sto-3g\ngeometry {\n  O o 0 0 0\n  H h$01 0 1.430429 1.107157\n  H h2 0 -1.430429 1.107157\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
+    const text = `basis sto-3g\nstructure in bohr {\n  O o 0 0 0\n  H h$01 0 1.430429 1.107157\n  H h2 0 -1.430429 1.107157\n}\nfragment water { atoms rest; tier mean-field { method rhf } }\n`;
     const card = hoverAt(text).markdown!;
     // 1 bohr = 0.529177210903 Å (CODATA 2018, Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)):
     // 1.430429 × 0.529177210903 = 0.75695 Å; 1.107157 × 0.529177210903 = 0.58588 Å.
@@ -119,7 +119,7 @@ describe('atom card', () => {
   });
 
   it('answers on #3, an unlabelled atom, naming it by index', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms o #2 ⟦#$03⟧; tier mean-field { method rhf } }\n`;
+    const text = `basis sto-3g\nstructure {\n  O o 0 0 0\n  H 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms o #2 ⟦#$03⟧; tier mean-field { method rhf } }\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**Hydrogen** #3 · H, Z = 1');
@@ -127,14 +127,14 @@ describe('atom card', () => {
   });
 
   it('answers on the first character of #3 where it touches `..`', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms o..⟦$0#3⟧; tier mean-field { method rhf } }\n`;
+    const text = `basis sto-3g\nstructure {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H 0 -0.756950 0.585882\n}\nfragment w { atoms o..⟦$0#3⟧; tier mean-field { method rhf } }\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**Hydrogen** #3 · H, Z = 1');
   });
 
   it('answers on the atoms of a scan', () => {
-    const text = `basis sto-3g\ngeometry {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\nscan distance o ⟦h$02⟧ from 1 to 2 step 0.5\n`;
+    const text = `basis sto-3g\nstructure {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\nscan distance o ⟦h$02⟧ from 1 to 2 step 0.5\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**Hydrogen** h2 (#3) · H, Z = 1');
@@ -149,7 +149,7 @@ describe('atom card', () => {
   });
 
   it('says when no atom is within the 4 Å neighbour radius', () => {
-    const text = `basis sto-3g\ngeometry {\n  He a$0 0 0 0\n  He b 0 0 5\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    const text = `basis sto-3g\nstructure {\n  He a$0 0 0 0\n  He b 0 0 5\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
     const card = hoverAt(text).markdown!;
     expect(card.split('\n')[0]).toBe('**Helium** a (#1) · He, Z = 2');
     expect(row(card, 'nearest')).toBe('| nearest | none within 4 Å |');
@@ -157,7 +157,7 @@ describe('atom card', () => {
 
   it('names the file and line of an atom read from an XYZ file', () => {
     const files = memoryFiles({ '/work/specs/data/water.xyz': '3\nwater, angstrom\nO 0 0 0\nH 0 0.756950 0.585882\nH 0 -0.756950 0.585882\n' });
-    const text = 'basis sto-3g\ngeometry from "data/water.xyz"\nfragment w { atoms #1 ⟦#$03⟧; tier mean-field { method rhf } }\n';
+    const text = 'basis sto-3g\nstructure from "data/water.xyz"\nfragment w { atoms #1 ⟦#$03⟧; tier mean-field { method rhf } }\n';
     const { markdown } = hoverAt(text, { path: '/work/specs/site.tess', files });
     // The third atom is on the fifth line of the file: count, comment, O, H, H.
     expect(row(markdown!, 'read from')).toBe('| read from | line 5 of `water.xyz` |');
@@ -180,7 +180,7 @@ describe('basis card', () => {
   });
 
   it('marks an element the basis does not define', () => {
-    const text = `basis 6-31$0G\ngeometry {\n  Rb rb 0 0 0\n  Cl cl 0 0 2.79\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    const text = `basis 6-31$0G\nstructure {\n  Rb rb 0 0 0\n  Cl cl 0 0 2.79\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
     const card = hoverAt(text).markdown!;
     // 6-31G stops at Kr in nwchem-data (tests/fixtures/basis-counts.nwchem.json): no Rb (Z = 37).
     expect(row(card, 'Rb')).toBe('| Rb | **not defined** | | |');
@@ -189,30 +189,57 @@ describe('basis card', () => {
   });
 
   it('states the core electrons an effective core potential replaces', () => {
-    const text = `basis def2-S$0VP\ngeometry {\n  I a 0 0 0\n  I b 0 0 2.67\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    const text = `basis def2-S$0VP\nstructure {\n  I a 0 0 0\n  I b 0 0 2.67\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
     // def2 bases put the 28 core electrons of Rb–Xe in an effective core potential (Weigend &
     // Ahlrichs, Phys. Chem. Chem. Phys. 7, 3297 (2005); from memory); I [4s4p2d] = 4 + 12 + 10 = 26
     // spherical, 28 cartesian (tests/fixtures/basis-counts.nwchem.json).
     expect(row(hoverAt(text).markdown!, 'I')).toBe('| I | 26 | 28 | 28 e⁻ in ECP |');
   });
 
-  it('answers on a per-element basis in the basis block', () => {
-    const text = `basis def2-svp {\n  Zn = ⟦def2-$0tzvp⟧\n}\ngeometry {\n  Zn zn 0 0 0\n  S s 0 0 2.3\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+  it('answers on the basis of an override line, and says which atoms the line gives it to', () => {
+    const text = `basis def2-svp\nbasis ⟦def2-$0tzvp⟧ on all Zn\nstructure {\n  Zn zn 0 0 0\n  S s 0 0 2.3\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
     const { markdown, range, expectedRange } = hoverAt(text);
     expect(range).toEqual(expectedRange);
     expect(markdown!.split('\n')[0]).toBe('**def2-TZVP** · Karlsruhe def2 split-, triple- and quadruple-zeta valence');
     // def2-TZVP: Zn 48 spherical / 55 cartesian, S 37 / 42 (tests/fixtures/basis-counts.nwchem.json).
     expect(row(markdown!, 'Zn')).toBe('| Zn | 48 | 55 |  |');
     expect(row(markdown!, 'S')).toBe('| S | 37 | 42 |  |');
+    expect(markdown).toContain('Override: def2-TZVP for 1 atom: zn.');
+    expect(markdown).toContain('Each atom takes the basis of the most specific line that selects it');
+  });
+
+  it('tells on the main basis line how many atoms keep it and which lines take the others', () => {
+    const text = `basis ⟦def2-$0svp⟧\nbasis def2-tzvp on all Zn\nbasis sto-3g on s\nbasis 3-21G on all S\nstructure {\n  Zn zn 0 0 0\n  S s 0 0 2.3\n  S t 0 0 4.6\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    const { markdown } = hoverAt(text);
+    expect(markdown).toContain('Main basis: 0 of 3 atoms take it.');
+    // s is named by a line of its own, which beats the later element line for S.
+    expect(markdown).toContain('- def2-TZVP on all Zn: 1 atom');
+    expect(markdown).toContain('- STO-3G on s: 1 atom');
+    expect(markdown).toContain('- 3-21G on all S: 1 atom');
+  });
+
+  it('lists the atoms an override selects that another line decides', () => {
+    const text = `basis def2-svp\nbasis sto-3g on s\nbasis 3-21G ⟦o$0n⟧ all S\nstructure {\n  S s 0 0 0\n  S t 0 0 2.3\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    const { markdown, range, expectedRange } = hoverAt(text);
+    expect(range).toEqual(expectedRange);
+    expect(markdown).toContain('Override: 3-21G for 1 atom: t.');
+    expect(markdown).toContain('Selected but decided by another line: s.');
+  });
+
+  it('shows each atom\'s basis and the line that gave it', () => {
+    const text = `basis def2-svp\nbasis def2-tzvp on all Zn\nstructure {\n  Zn ⟦z$0n⟧ 0 0 0\n  S s 0 0 2.3\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    expect(row(hoverAt(text).markdown!, 'basis')).toBe('| basis | def2-TZVP (`on all Zn`) |');
+    expect(row(hoverAt(text.replace('⟦z$0n⟧', 'zn').replace('S s', 'S ⟦s$0⟧')).markdown!, 'basis')).toBe('| basis | def2-SVP (main line) |');
   });
 });
 
 describe('keyword and value-word hovers', () => {
   const FRAGMENT = (tier: string) => waterSpec(`fragment w {\n  atoms rest\n  tier ${tier}\n}`, 'basis sto-3g');
   const cases: { name: string; text: string; heading: string; contains?: string }[] = [
-    { name: 'keyword at top level', text: `⟦un$0its⟧ bohr\n${FRAGMENT('mean-field')}`, heading: '**units**', contains: '`units angstrom|bohr`' },
-    { name: 'unit bohr', text: `units ⟦bo$0hr⟧\n${FRAGMENT('mean-field')}`, heading: '**bohr** · length unit', contains: '0.529177210903 Å (CODATA 2018)' },
-    { name: 'unit angstrom', text: `units ⟦angstrom$0⟧\n${FRAGMENT('mean-field')}`, heading: '**angstrom** · length unit' },
+    { name: 'keyword at top level, with the spec\'s unit', text: FRAGMENT('mean-field').replace('structure {', '⟦str$0ucture⟧ in bohr {'), heading: '**structure**', contains: 'Length unit of this spec: bohr.' },
+    { name: 'unit bohr', text: FRAGMENT('mean-field').replace('structure {', 'structure in ⟦bo$0hr⟧ {'), heading: '**bohr** · length unit', contains: '0.529177210903 Å (CODATA 2018)' },
+    { name: 'unit angstrom', text: FRAGMENT('mean-field').replace('structure {', 'structure in ⟦angstrom$0⟧ {'), heading: '**angstrom** · length unit' },
+    { name: 'an old spelling', text: `⟦un$0its⟧ bohr\n${FRAGMENT('mean-field')}`, heading: '**units** · old spelling', contains: 'Write `structure in bohr`; the quick fix rewrites it.' },
     { name: 'keyword in a tier', text: FRAGMENT('quantum { ⟦met$0hod⟧ vqe }'), heading: '**method**', contains: '`method <name>`' },
     { name: 'method', text: FRAGMENT('quantum { method ⟦v$0qe⟧ }'), heading: '**vqe** · method', contains: 'Peruzzo et al., Nat. Commun. 5, 4213 (2014)' },
     { name: 'correlated method', text: FRAGMENT('correlated { method ⟦ccsd$0(t)⟧ }'), heading: '**ccsd(t)** · method', contains: 'Cost: N^7 for the triples correction.' },
@@ -221,8 +248,9 @@ describe('keyword and value-word hovers', () => {
     { name: 'tier level', text: FRAGMENT('⟦corr$0elated⟧ { method mp2 }'), heading: '**correlated** · solver tier' },
     { name: 'embedding', text: `embedding ⟦proj$0ection⟧\n${FRAGMENT('mean-field')}`, heading: '**projection** · embedding', contains: 'J. Chem. Theory Comput. 8, 2564 (2012)' },
     { name: 'switch', text: `frozen-core ⟦o$0ff⟧\n${FRAGMENT('mean-field')}`, heading: '**off** · switch' },
-    { name: 'function type', text: FRAGMENT('mean-field').replace('basis sto-3g', 'basis sto-3g { functions ⟦cart$0esian⟧ }'), heading: '**cartesian** · function type' },
-    { name: 'selector word', text: FRAGMENT('mean-field').replace('atoms rest', 'atoms ⟦wit$0hin⟧ 2 of o'), heading: '**within** · selector' },
+    { name: 'function type', text: FRAGMENT('mean-field').replace('basis sto-3g', 'basis sto-3g\nfunctions ⟦cart$0esian⟧'), heading: '**cartesian** · function type' },
+    { name: 'selector word, with the unit its distance is in', text: FRAGMENT('mean-field').replace('atoms rest', 'atoms ⟦closer$0-than⟧ 2 to o'), heading: '**closer-than** · selector', contains: 'Here d is in ångström, the structure\'s unit.' },
+    { name: 'basis selection word', text: FRAGMENT('mean-field').replace('basis sto-3g', 'basis sto-3g\nbasis 3-21G on ⟦fra$0gment⟧ w'), heading: '**fragment** · basis selection' },
     { name: 'scan coordinate', text: `${FRAGMENT('mean-field')}scan ⟦dist$0ance⟧ o h1 from 1 to 2 step 0.5`, heading: '**distance** · scan coordinate' },
   ];
   for (const c of cases) {
@@ -236,7 +264,7 @@ describe('keyword and value-word hovers', () => {
   }
 
   it('answers on a value word written in another case', () => {
-    expect(hoverAt(`units BO$0HR\n${FRAGMENT('mean-field')}`).markdown?.split('\n')[0]).toBe('**bohr** · length unit');
+    expect(hoverAt(FRAGMENT('mean-field').replace('structure {', 'structure in BO$0HR {')).markdown?.split('\n')[0]).toBe('**bohr** · length unit');
   });
 });
 
@@ -244,9 +272,8 @@ describe('no hover', () => {
   const text = `# leading comment$A
 spec "t"   # trailing $B comment
 $C
-units bohr
 basis sto-3g
-geometry {
+structure in bohr {
   O o 0 0 0
   H h1 0 0.756950 0.585882
   H h2 0 -0.756950 0.585882
@@ -278,13 +305,13 @@ charge 0$J
   }
 
   it('past the end of the document', () => {
-    const m = marked(`units bohr\n`);
+    const m = marked(`structure in bohr { }\n`);
     expect(doHover(m.analysis, { line: 5, character: 3 })).toBeNull();
   });
 
   it('(while the same spec does answer on its keywords and words)', () => {
     const clean = (t: string) => t.replace(/\$[A-Z]/g, '');
-    expect(hoverAt(clean(text.replace('units bohr', 'un$0its bohr'))).markdown).not.toBeNull();
+    expect(hoverAt(clean(text.replace('structure in bohr', 'struc$0ture in bohr'))).markdown).not.toBeNull();
     expect(hoverAt(clean(text.replace('atoms  $G rest', 'atoms re$0st'))).markdown).not.toBeNull();
   });
 });

@@ -14,7 +14,7 @@ import { applyEdits, editsFor, marked, URI } from './service';
 /** Water with labels o and h1 and an unlabelled third atom; each part can carry the markers of a case. */
 function site(parts: { o?: string; h1?: string; uses?: string; scan?: string; index?: string } = {}): string {
   return `basis sto-3g
-geometry {
+structure {
   O ${parts.o ?? 'o'} 0 0 0
   H ${parts.h1 ?? 'h1'} 0 0.756950 0.585882
   H 0 -0.756950 0.585882

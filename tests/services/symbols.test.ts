@@ -34,14 +34,15 @@ describe('outline', () => {
     // 0.2 Å has (3.5 − 2.3) / 0.2 + 1 = 7 points.
     expect(outline(findDocumentSymbols(analysis))).toEqual([
       { name: 'spec zn-site-h2s-approach', kind: SymbolKind.File, detail: 'zn-site-h2s-approach', lines: [5, 5] },
-      { name: 'basis def2-svp', kind: SymbolKind.Module, detail: 'def2-svp', lines: [11, 13] },
-      { name: 'geometry', kind: SymbolKind.Struct, detail: '20 atoms', lines: [15, 36] },
-      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 17 tapered', lines: [39, 50], children: [['tier quantum', SymbolKind.Method]] },
-      { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms · 28 orbitals · 18 e⁻', lines: [53, 56], children: [['tier correlated', SymbolKind.Method]] },
-      { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms · 94 orbitals · 48 e⁻', lines: [59, 63], children: [['tier mean-field', SymbolKind.Method]] },
-      { name: 'embedding', kind: SymbolKind.Property, detail: 'dmet', lines: [65, 65] },
-      { name: 'scan', kind: SymbolKind.Event, detail: '7 points', lines: [67, 67] },
-      { name: 'limits', kind: SymbolKind.Object, detail: '', lines: [69, 72] },
+      { name: 'basis def2-svp', kind: SymbolKind.Module, detail: 'def2-svp', lines: [10, 10] },
+      { name: 'basis def2-tzvp', kind: SymbolKind.Module, detail: 'def2-tzvp on all Zn', lines: [11, 11] },
+      { name: 'structure', kind: SymbolKind.Struct, detail: '20 atoms, ångström', lines: [13, 34] },
+      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 17 tapered', lines: [37, 48], children: [['tier quantum', SymbolKind.Method]] },
+      { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms · 28 orbitals · 18 e⁻', lines: [51, 54], children: [['tier correlated', SymbolKind.Method]] },
+      { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms · 94 orbitals · 48 e⁻', lines: [57, 61], children: [['tier mean-field', SymbolKind.Method]] },
+      { name: 'embedding', kind: SymbolKind.Property, detail: 'dmet', lines: [63, 63] },
+      { name: 'scan', kind: SymbolKind.Event, detail: '7 points', lines: [65, 65] },
+      { name: 'limits', kind: SymbolKind.Object, detail: '', lines: [67, 70] },
     ]);
   });
 
@@ -50,8 +51,8 @@ describe('outline', () => {
     const symbols = findDocumentSymbols(analysis);
     const site = symbols.find((symbol) => symbol.name === 'fragment site')!;
     expect(site.selectionRange).toEqual({ start: positionOf(analysis, 'fragment site', 9), end: positionOf(analysis, 'fragment site', 13) });
-    const geometry = symbols.find((symbol) => symbol.name === 'geometry')!;
-    expect(geometry.selectionRange).toEqual({ start: positionOf(analysis, 'geometry {'), end: positionOf(analysis, 'geometry {', 8) });
+    const geometry = symbols.find((symbol) => symbol.name === 'structure')!;
+    expect(geometry.selectionRange).toEqual({ start: positionOf(analysis, 'structure {'), end: positionOf(analysis, 'structure {', 9) });
     for (const symbol of symbols) {
       expect(contains(symbol.range, symbol.selectionRange), symbol.name).toBe(true);
       for (const child of symbol.children ?? []) expect(contains(symbol.range, child.range), `${symbol.name} > ${child.name}`).toBe(true);
@@ -66,8 +67,8 @@ describe('outline', () => {
   });
 
   it('leaves out statements that are not outline entries and unknown keywords', () => {
-    const analysis = analyzeDocument('units bohr\ncharge 0\nbassis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment f { atoms rest }\n');
-    expect(findDocumentSymbols(analysis).map((symbol) => symbol.name)).toEqual(['geometry', 'fragment f']);
+    const analysis = analyzeDocument('functions cartesian\ncharge 0\nbassis sto-3g\nstructure in bohr {\n  H a 0 0 0\n  H b 0 0 1.4\n}\nfragment f { atoms rest }\n');
+    expect(findDocumentSymbols(analysis).map((symbol) => symbol.name)).toEqual(['structure', 'fragment f']);
   });
 
   it('of every sample: one fragment entry per fragment', () => {
@@ -108,7 +109,7 @@ describe('workspace symbols', () => {
   });
 
   it('omits the container of a spec without a name', () => {
-    const unnamed = { uri: 'file:///work/unnamed.tess', analysis: analyzeDocument('basis sto-3g\ngeometry {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n') };
+    const unnamed = { uri: 'file:///work/unnamed.tess', analysis: analyzeDocument('basis sto-3g\nstructure {\n  H a 0 0 0\n  H b 0 0 0.74\n}\nfragment h2 { atoms rest; tier mean-field { method rhf } }\n') };
     const found = findWorkspaceSymbols([unnamed], 'h2');
     expect(found).toEqual([{ name: 'h2', kind: SymbolKind.Class, location: { uri: unnamed.uri, range: { start: positionOf(unnamed.analysis, 'h2 {'), end: positionOf(unnamed.analysis, 'h2 {', 2) } } }]);
   });

@@ -35,17 +35,16 @@ function decode(text: string, data: readonly number[]): (Token & { line?: number
 }
 
 const SPEC = `spec "t"  # name
-units bohr
-basis sto-3g {
-  Zn = def2-svp
-  functions cartesian
-}
-geometry {
+basis sto-3g
+basis def2-svp on all Zn o closer-than 1 to o
+basis 3-21G on fragment w
+functions cartesian
+structure in bohr {
   O o 0 0 0
   H 0 1.8 0
 }
 fragment w {
-  atoms o #2 all H within 2.5 of o rest
+  atoms o #2 all H closer-than 2.5 to o rest
   tier quantum { method vqe; mapping parity; active 2e 2o }
 }
 embedding dmet
@@ -55,15 +54,15 @@ limits { qubits 4; memory 16 GiB }
 
 const EXPECTED: Token[] = [
   ['spec', 'keyword'], ['"t"', 'string'], ['# name', 'comment'],
-  ['units', 'keyword'], ['bohr', 'unit'],
   ['basis', 'keyword'], ['sto-3g', 'namespace'],
-  ['Zn', 'type'], ['=', 'operator'], ['def2-svp', 'namespace'],
+  ['basis', 'keyword'], ['def2-svp', 'namespace'], ['on', 'keyword'], ['all', 'keyword'], ['Zn', 'type'], ['o', 'variable'], ['closer-than', 'keyword'], ['1', 'number'], ['to', 'keyword'], ['o', 'variable'],
+  ['basis', 'keyword'], ['3-21G', 'namespace'], ['on', 'keyword'], ['fragment', 'keyword'], ['w', 'class'],
   ['functions', 'keyword'], ['cartesian', 'enumMember'],
-  ['geometry', 'keyword'],
+  ['structure', 'keyword'], ['in', 'keyword'], ['bohr', 'unit'],
   ['O', 'type'], ['o', 'variable', 'declaration'], ['0', 'number'], ['0', 'number'], ['0', 'number'],
   ['H', 'type'], ['0', 'number'], ['1.8', 'number'], ['0', 'number'],
   ['fragment', 'keyword'], ['w', 'class', 'declaration'],
-  ['atoms', 'keyword'], ['o', 'variable'], ['#2', 'variable'], ['all', 'keyword'], ['H', 'type'], ['within', 'keyword'], ['2.5', 'number'], ['of', 'keyword'], ['o', 'variable'], ['rest', 'keyword'],
+  ['atoms', 'keyword'], ['o', 'variable'], ['#2', 'variable'], ['all', 'keyword'], ['H', 'type'], ['closer-than', 'keyword'], ['2.5', 'number'], ['to', 'keyword'], ['o', 'variable'], ['rest', 'keyword'],
   ['tier', 'keyword'], ['quantum', 'enumMember'], ['method', 'keyword'], ['vqe', 'enumMember'], ['mapping', 'keyword'], ['parity', 'enumMember'], ['active', 'keyword'], ['2e', 'number'], ['2o', 'number'],
   ['embedding', 'keyword'], ['dmet', 'enumMember'],
   ['scan', 'keyword'], ['distance', 'enumMember'], ['o', 'variable'], ['#2', 'variable'], ['from', 'keyword'], ['1.0', 'number'], ['to', 'keyword'], ['2.0', 'number'], ['step', 'keyword'], ['0.5', 'number'],
@@ -86,9 +85,9 @@ describe('semantic tokens', () => {
   });
 
   it('measure a comment on a CRLF line without its carriage return', () => {
-    const text = 'spec "t" # note\r\nunits bohr\r\n';
+    const text = 'spec "t" # note\r\nfunctions cartesian\r\n';
     expect(decode(text.replace(/\r/g, ''), getSemanticTokens(analyzeDocument(text)).data)).toEqual([
-      ['spec', 'keyword'], ['"t"', 'string'], ['# note', 'comment'], ['units', 'keyword'], ['bohr', 'unit'],
+      ['spec', 'keyword'], ['"t"', 'string'], ['# note', 'comment'], ['functions', 'keyword'], ['cartesian', 'enumMember'],
     ]);
   });
 
@@ -110,8 +109,8 @@ describe('folding ranges', () => {
 # over three
 # lines
 spec "t"
-basis sto-3g {
-  functions cartesian
+structure {
+  H 0 0 0
 }
 # a lone comment
 fragment w {
@@ -121,7 +120,7 @@ fragment w {
   }
 }
 limits { qubits 4 }
-units bohr  # trailing
+functions cartesian  # trailing
 # two comment
 # lines at the end
 `;
@@ -156,7 +155,7 @@ units bohr  # trailing
 
 describe('selection ranges', () => {
   const TEXT = `spec "t"  # na$Ame
-geometry {
+structure {
   O o 0 0 0
   H h$B1 0 0.96 0
 }
@@ -187,7 +186,7 @@ fragment w {
 
   it('grow from an atom label in a geometry block', () => {
     const whole = TEXT.replace(/\$[A-Z]/g, '');
-    expect(chain('$B')).toEqual(['h1', 'H h1 0 0.96 0', '\n  O o 0 0 0\n  H h1 0 0.96 0\n', 'geometry {\n  O o 0 0 0\n  H h1 0 0.96 0\n}', whole]);
+    expect(chain('$B')).toEqual(['h1', 'H h1 0 0.96 0', '\n  O o 0 0 0\n  H h1 0 0.96 0\n', 'structure {\n  O o 0 0 0\n  H h1 0 0.96 0\n}', whole]);
   });
 
   it('contain the position even in a trailing comment', () => {

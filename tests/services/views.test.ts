@@ -70,7 +70,7 @@ describe('cost plots for the panel', () => {
   });
 
   it('select nothing when no fragment has a sized problem', () => {
-    const analysis = analyzeDocument('basis sto-3g\ngeometry {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment h { atoms rest; tier mean-field { method rhf } }\n');
+    const analysis = analyzeDocument('basis sto-3g\nstructure {\n  H 0 0 0\n  H 0 0 0.74\n}\nfragment h { atoms rest; tier mean-field { method rhf } }\n');
     expect(analysis.report().fragments).toHaveLength(1);
     const plots = costPlots(analysis);
     expect(plots.fragments).toEqual([]);

@@ -14,6 +14,7 @@ import {
   checkStructure,
   checkStructureViewMessage,
   decodePngDataUrl,
+  unavailableReason,
   type CostsHostMessage,
   type LevelsHostMessage,
   type PartId,
@@ -169,9 +170,18 @@ export class StructurePanel extends SpecPanel<StructureHostMessage> {
       this.post(this.unavailable('The language server has no analysis of this spec; open it in an editor.'));
       return;
     }
+    const reason = unavailableReason(answer.result);
+    if (reason !== undefined) {
+      this.data = undefined;
+      this.post(this.unavailable(reason));
+      return;
+    }
     const checked = checkStructure(answer.result);
     if (!checked.ok) {
+      // Shown as well as logged: a view that silently keeps old data misleads.
       this.host.log(`[views] structure data refused: ${checked.reason}`);
+      this.data = undefined;
+      this.post(this.unavailable(`Tessera cannot show this structure: ${checked.reason}.`));
       return;
     }
     this.data = checked.value;
@@ -243,9 +253,17 @@ export class CostsPanel extends SpecPanel<CostsHostMessage> {
       this.post(this.unavailable('The language server has no analysis of this spec; open it in an editor.'));
       return;
     }
+    const reason = unavailableReason(answer.result);
+    if (reason !== undefined) {
+      this.data = undefined;
+      this.post(this.unavailable(reason));
+      return;
+    }
     const checked = checkCosts(answer.result);
     if (!checked.ok) {
       this.host.log(`[views] cost data refused: ${checked.reason}`);
+      this.data = undefined;
+      this.post(this.unavailable(`Tessera cannot show these plots: ${checked.reason}.`));
       return;
     }
     this.data = checked.value;

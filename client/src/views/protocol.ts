@@ -12,11 +12,27 @@
 /** Result of a check: the message, or why it was refused (for the log). */
 export type Checked<T> = { ok: true; value: T } | { ok: false; reason: string };
 
-const MAX_ATOMS = 100_000;
-const MAX_BONDS = 400_000;
-const MAX_FRAGMENTS = 10_000;
-const MAX_SCAN_POINTS = 100_000;
-const MAX_TEXT = 1_000;
+/**
+ * What the views accept. The language server shortens text and refuses larger structures by the
+ * same numbers (VIEW_LIMITS in server/src/services/views.ts; tests/extension/views-limits.test.ts
+ * keeps the two equal), so data within them is never dropped here.
+ */
+export const VIEW_LIMITS = {
+  atoms: 100_000,
+  bonds: 400_000,
+  fragments: 10_000,
+  scanPoints: 100_000,
+  text: 1_000,
+  fragmentName: 200,
+  label: 100,
+  tier: 100,
+  cost: 200,
+} as const;
+const MAX_ATOMS = VIEW_LIMITS.atoms;
+const MAX_BONDS = VIEW_LIMITS.bonds;
+const MAX_FRAGMENTS = VIEW_LIMITS.fragments;
+const MAX_SCAN_POINTS = VIEW_LIMITS.scanPoints;
+const MAX_TEXT = VIEW_LIMITS.text;
 /** Largest SVG a plot may be (the charts are a few tens of kilobytes). */
 export const MAX_SVG_CHARS = 2_000_000;
 /** Largest PNG data URL the extension accepts from the cost panel. */
@@ -120,8 +136,22 @@ function isIndex(value: unknown, below: number): value is number {
   return Number.isInteger(value) && (value as number) >= 0 && (value as number) < below;
 }
 
-function isText(value: unknown, max = MAX_TEXT): value is string {
+function isText(value: unknown, max: number = MAX_TEXT): value is string {
   return typeof value === 'string' && value.length <= max;
+}
+
+/** Why a value is not text of at most `max` characters, with the numbers. */
+function textProblem(what: string, value: unknown, max: number): string {
+  return typeof value === 'string' ? `${what} has ${value.length} characters, more than the ${max} the view accepts` : `${what} is not text`;
+}
+
+/**
+ * The reason a request for view data gives instead of the data (the spec is beyond what the view
+ * shows: `{ unavailable: "..." }`), or undefined when the answer is not one.
+ */
+export function unavailableReason(raw: unknown): string | undefined {
+  if (!isRecord(raw) || !hasKeys(raw, ['unavailable']) || !isText(raw['unavailable'])) return undefined;
+  return raw['unavailable'];
 }
 
 function isFiniteNumber(value: unknown): value is number {
@@ -151,27 +181,31 @@ export function checkStructure(raw: unknown): Checked<ViewStructure> {
   if (!isRecord(raw)) return fail('structure data is not an object');
   if (!hasKeys(raw, ['spec', 'atoms', 'fragments', 'bonds', 'scan', 'unassignedColour', 'note'])) return fail('structure data has unexpected fields');
   const { spec, atoms, fragments, bonds, scan, unassignedColour, note } = raw;
-  if (spec !== null && !isText(spec)) return fail('spec name is not text');
+  if (spec !== null && !isText(spec)) return fail(textProblem('the spec name', spec, MAX_TEXT));
   if (!isText(note) || !isText(unassignedColour) || !COLOUR.test(unassignedColour)) return fail('note or unassigned colour malformed');
-  if (!Array.isArray(fragments) || fragments.length > MAX_FRAGMENTS) return fail('fragments is not a list of acceptable length');
+  if (!Array.isArray(fragments)) return fail('fragments is not a list');
+  if (fragments.length > MAX_FRAGMENTS) return fail(`${fragments.length} fragments, more than the ${MAX_FRAGMENTS} the view shows`);
   for (const fragment of fragments) {
     if (!isRecord(fragment) || !hasKeys(fragment, ['name', 'tier', 'colour', 'cost', 'atoms', 'line'])) return fail('a fragment has the wrong fields');
-    if (!isText(fragment['name'], 200) || (fragment['tier'] !== null && !isText(fragment['tier'], 100))) return fail('a fragment name or tier is not text');
+    if (!isText(fragment['name'], VIEW_LIMITS.fragmentName)) return fail(textProblem('a fragment name', fragment['name'], VIEW_LIMITS.fragmentName));
+    if (fragment['tier'] !== null && !isText(fragment['tier'], VIEW_LIMITS.tier)) return fail(textProblem('a fragment tier', fragment['tier'], VIEW_LIMITS.tier));
     if (!isText(fragment['colour']) || !COLOUR.test(fragment['colour'])) return fail(`fragment colour '${String(fragment['colour']).slice(0, 20)}' is not #rrggbb`);
-    if (!isText(fragment['cost'], 200) || !isIndex(fragment['atoms'], MAX_ATOMS + 1) || !isIndex(fragment['line'], Number.MAX_SAFE_INTEGER)) return fail('a fragment cost, atom count or line is malformed');
+    if (!isText(fragment['cost'], VIEW_LIMITS.cost) || !isIndex(fragment['atoms'], MAX_ATOMS + 1) || !isIndex(fragment['line'], Number.MAX_SAFE_INTEGER)) return fail('a fragment cost, atom count or line is malformed');
   }
-  if (!Array.isArray(atoms) || atoms.length > MAX_ATOMS) return fail('atoms is not a list of acceptable length');
+  if (!Array.isArray(atoms)) return fail('atoms is not a list');
+  if (atoms.length > MAX_ATOMS) return fail(`${atoms.length} atoms, more than the ${MAX_ATOMS} the view shows`);
   for (let k = 0; k < atoms.length; k++) {
     const atom: unknown = atoms[k];
     if (!isRecord(atom) || !hasKeys(atom, ['index', 'element', 'label', 'x', 'y', 'z', 'fragment', 'line'])) return fail(`atom ${k} has the wrong fields`);
     if (atom['index'] !== k) return fail(`atom ${k} carries index ${String(atom['index'])}`);
     if (!isText(atom['element'], 3) || !ELEMENT.test(atom['element'])) return fail(`atom ${k} has no element symbol`);
-    if (atom['label'] !== null && !isText(atom['label'], 100)) return fail(`atom ${k} label is not text`);
+    if (atom['label'] !== null && !isText(atom['label'], VIEW_LIMITS.label)) return fail(textProblem(`the label of atom #${k + 1}`, atom['label'], VIEW_LIMITS.label));
     if (!isFiniteNumber(atom['x']) || !isFiniteNumber(atom['y']) || !isFiniteNumber(atom['z'])) return fail(`atom ${k} coordinates are not finite numbers`);
     if (atom['fragment'] !== -1 && !isIndex(atom['fragment'], fragments.length)) return fail(`atom ${k} fragment index out of range`);
     if (atom['line'] !== -1 && !isIndex(atom['line'], Number.MAX_SAFE_INTEGER)) return fail(`atom ${k} line out of range`);
   }
-  if (!Array.isArray(bonds) || bonds.length > MAX_BONDS) return fail('bonds is not a list of acceptable length');
+  if (!Array.isArray(bonds)) return fail('bonds is not a list');
+  if (bonds.length > MAX_BONDS) return fail(`${bonds.length} bonds, more than the ${MAX_BONDS} the view shows`);
   for (const bond of bonds) {
     if (!isRecord(bond) || !hasKeys(bond, ['i', 'j', 'cut']) || !isIndex(bond['i'], atoms.length) || !isIndex(bond['j'], atoms.length) || typeof bond['cut'] !== 'boolean') return fail('a bond is malformed or names a missing atom');
   }
@@ -179,7 +213,8 @@ export function checkStructure(raw: unknown): Checked<ViewStructure> {
     if (!isRecord(scan) || !hasKeys(scan, ['first', 'second', 'distances', 'moving'])) return fail('scan has the wrong fields');
     if (!isIndex(scan['first'], atoms.length) || !isIndex(scan['second'], atoms.length)) return fail('scan atoms out of range');
     const { distances, moving } = scan;
-    if (!Array.isArray(distances) || distances.length > MAX_SCAN_POINTS || !distances.every(isFiniteNumber)) return fail('scan distances malformed');
+    if (Array.isArray(distances) && distances.length > MAX_SCAN_POINTS) return fail(`${distances.length} scan points, more than the ${MAX_SCAN_POINTS} the view shows`);
+    if (!Array.isArray(distances) || !distances.every(isFiniteNumber)) return fail('scan distances malformed');
     if (!Array.isArray(moving) || moving.length > atoms.length || !moving.every((m) => isIndex(m, atoms.length))) return fail('scan moving atoms malformed');
   }
   return { ok: true, value: raw as unknown as ViewStructure };
@@ -244,15 +279,18 @@ export function checkSvg(svg: unknown): Checked<string> {
 export function checkCosts(raw: unknown): Checked<ViewCosts> {
   if (!isRecord(raw) || !hasKeys(raw, ['spec', 'svg', 'fragments', 'selected', 'note'])) return fail('cost data has the wrong fields');
   const { spec, svg, fragments, selected, note } = raw;
-  if ((spec !== null && !isText(spec)) || !isText(note)) return fail('spec name or note is not text');
+  if (spec !== null && !isText(spec)) return fail(textProblem('the spec name', spec, MAX_TEXT));
+  if (!isText(note)) return fail('the note is not text');
   if (!isRecord(svg) || !hasKeys(svg, PLOTS)) return fail('charts missing');
   for (const plot of PLOTS) {
     const chart = checkSvg(svg[plot]);
     if (!chart.ok) return fail(`${plot} chart: ${chart.reason}`);
   }
-  if (!Array.isArray(fragments) || fragments.length > MAX_FRAGMENTS) return fail('fragment list malformed');
+  if (!Array.isArray(fragments)) return fail('fragment list malformed');
+  if (fragments.length > MAX_FRAGMENTS) return fail(`${fragments.length} fragments, more than the ${MAX_FRAGMENTS} the panel shows`);
   for (const fragment of fragments) {
-    if (!isRecord(fragment) || !hasKeys(fragment, ['index', 'name']) || !isIndex(fragment['index'], MAX_FRAGMENTS) || !isText(fragment['name'], 200)) return fail('a selectable fragment is malformed');
+    if (!isRecord(fragment) || !hasKeys(fragment, ['index', 'name']) || !isIndex(fragment['index'], MAX_FRAGMENTS)) return fail('a selectable fragment is malformed');
+    if (!isText(fragment['name'], VIEW_LIMITS.fragmentName)) return fail(textProblem('a fragment name', fragment['name'], VIEW_LIMITS.fragmentName));
   }
   if (selected !== null && !fragments.some((f) => (f as Json)['index'] === selected)) return fail('selected fragment is not among the selectable ones');
   return { ok: true, value: raw as unknown as ViewCosts };

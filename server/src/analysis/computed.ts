@@ -125,11 +125,11 @@ function refusalOf(model: SpecModel, part: PartRef): string | null {
   const atoms = partAtoms(model, part);
   const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
   if (atoms.length === 0) return 'it has no atoms';
-  if (!model.basis.main && model.basis.overrides.size === 0) return 'the spec chooses no basis set';
+  if (!model.basis.main && model.basis.overrides.length === 0) return 'the spec chooses no basis set';
   const c = model.coordinates;
   for (const atom of atoms) {
     const symbol = model.atoms[atom]!.element.symbol;
-    const set = model.basis.overrides.get(symbol) ?? model.basis.main;
+    const set = model.basis.atomSets[atom];
     if (!set) return `atom #${atom + 1} (${symbol}) has no basis set: the spec's basis name is not in the library`;
     if (!set.shellsFor(symbol)) return `${set.displayName} does not define ${symbol} (atom #${atom + 1})`;
     for (let axis = 0; axis < 3; axis++) {

@@ -75,7 +75,7 @@ export class DocumentAnalysis {
       const sink = new DiagnosticSink();
       const context = { ast: this.ast, model: this.model, sink, estimates: this.estimates };
       for (const check of ESTIMATE_CHECKS) contained(sink, checkName(check), () => check(context));
-      this.allDiagnostics = finishDiagnostics([...this.languageDiagnostics, ...sink.items], sink.dropped);
+      this.allDiagnostics = finishDiagnostics([...this.languageDiagnostics, ...sink.items], sink.dropped, sink.droppedErrors);
     }
     return this.allDiagnostics;
   }

@@ -131,7 +131,7 @@ export class Estimates {
     const numbers = atoms.map((atom) => model.atoms[atom]!.element.z);
     const positions = new Float64Array(3 * atoms.length);
     atoms.forEach((atom, k) => positions.set(model.coordinates.subarray(3 * atom, 3 * atom + 3), 3 * k));
-    const basisOf = (atom: number) => model.basis.overrides.get(model.atoms[atom]!.element.symbol) ?? model.basis.main;
+    const basisOf = (atom: number) => model.basis.atomSets[atom];
     const shells = atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol));
     const coreShells = frozenCore ? atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)) : undefined;
     const functions = model.basis.functions;

@@ -43,10 +43,9 @@ export function partAtoms(model: SpecModel, part: PartRef): readonly number[] {
   return model.atoms.map((atom) => atom.index);
 }
 
-/** The basis of one atom under the spec's basis settings (the override for its element, else the main set). */
+/** The basis the spec gives one atom (model/basis.ts decides which line wins). */
 function atomBasis(model: SpecModel, atom: number): string | null {
-  const element = model.atoms[atom]!.element.symbol;
-  return (model.basis.overrides.get(element) ?? model.basis.main)?.displayName ?? null;
+  return model.basis.atomSets[atom]?.displayName ?? null;
 }
 
 export function partInputs(model: SpecModel, part: PartRef): PartInputs {

@@ -3,6 +3,7 @@
  * 2 bad usage or a file that cannot be read or written, 3 Tessera itself failed (a bug) on some
  * file; in a batch every other file is still checked.
  */
+import { escapeForTerminal } from '../language/printable';
 import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
@@ -184,7 +185,9 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
 }
 
 /** Runs the command line and returns the exit code; never throws. */
-export async function runCli(argv: string[], io: CliIo): Promise<number> {
+export async function runCli(argv: string[], raw: CliIo): Promise<number> {
+  // Everything printed may quote a spec or a file name: no control character reaches the terminal.
+  const io: CliIo = { ...raw, stdout: (text) => raw.stdout(escapeForTerminal(text)), stderr: (text) => raw.stderr(escapeForTerminal(text)) };
   try {
     return await dispatch(argv, io);
   } catch (error) {

@@ -15,6 +15,7 @@ import { checkTiers } from './checks/tiers';
 import { DiagnosticSink, finishDiagnostics, type Diagnostic, type DiagnosticCode } from './diagnostics';
 import { diskFileHost, type FileHost } from './files';
 import { interpret } from './interpret';
+import { retiredSpellings } from './migrate';
 import { buildModel, type ModelOptions, type SpecModel } from './model';
 import { parseSpec } from './parser';
 import type { SyntaxProblem, SyntaxTree } from './syntax';
@@ -22,12 +23,12 @@ import { MAX_ATOMS, MAX_SPEC_CHARACTERS, MAX_WORDS, SUPPORTED_SIZE } from './lim
 import { LineIndex, normalizeLineEnds } from './text';
 
 export interface AnalyzeOptions {
-  /** Absolute path of the spec; needed to resolve `geometry from`. */
+  /** Absolute path of the spec; needed to resolve `structure from`. */
   readonly path?: string;
   readonly files?: FileHost;
   /** Mapping for quantum tiers that name none (default jordan-wigner). */
   readonly defaultMapping?: Mapping;
-  /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
+  /** Read plain structure blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
   /** Qubit limit for specs that set none in `limits` (an editor setting or a CLI option). */
   readonly defaultQubitLimit?: number;
@@ -90,7 +91,7 @@ export function checkName(check: { readonly name: string }): string {
 function refusedAnalysis(text: string, options: AnalyzeOptions, modelOptions: ModelOptions, message: string): Analysis {
   const sink = new DiagnosticSink();
   sink.report('spec-too-large', { start: 0, end: 0 }, message);
-  const ast: SpecAst = { fragments: [], statements: [] };
+  const ast: SpecAst = { fragments: [], basisOverrides: [], statements: [] };
   const model = buildModel(ast, new DiagnosticSink(), modelOptions);
   return { text, path: options.path, lines: new LineIndex(text), tree: emptyTree(text), ast, model, diagnostics: sink.items };
 }
@@ -115,20 +116,23 @@ export function analyze(original: string, options: AnalyzeOptions = {}): Analysi
   }
   const read = contained(sink, 'reading the spec', () => {
     const tree = parseSpec(text, { ...(options.fastGeometry === false ? { fastGeometry: false } : options.previous ? { previous: options.previous } : {}), maxWords: MAX_WORDS });
-    if (tree.words !== undefined) return { refused: tooLarge(`This spec has about ${tree.words.toLocaleString('en-US')} words outside plain geometry blocks`) };
+    if (tree.words !== undefined) return { refused: tooLarge(`This spec has about ${tree.words.toLocaleString('en-US')} words outside plain structure blocks`) };
     for (const problem of tree.problems) sink.report(SYNTAX_CODES[problem.code], problem.span, problem.message);
     const ast = interpret(tree, sink);
     const atoms = ast.geometry?.atoms.length ?? 0;
     if (atoms > MAX_ATOMS) return { refused: tooLarge(`This spec has ${atoms.toLocaleString('en-US')} atoms`) };
     return { tree, ast };
-  }) ?? { tree: emptyTree(text), ast: { fragments: [], statements: [] } };
+  }) ?? { tree: emptyTree(text), ast: { fragments: [], basisOverrides: [], statements: [] } };
   if ('refused' in read && read.refused !== undefined) return refusedAnalysis(text, options, modelOptions, read.refused);
   const { tree, ast } = read;
   const model =
     contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??
-    buildModel({ fragments: [], statements: [] }, new DiagnosticSink(), modelOptions);
+    buildModel({ fragments: [], basisOverrides: [], statements: [] }, new DiagnosticSink(), modelOptions);
   const context = { ast, model, sink };
   for (const check of CHECKS) contained(sink, checkName(check), () => check(context));
-  const diagnostics = finishDiagnostics(sink.items, sink.dropped);
+  contained(sink, 'finding retired spellings', () => {
+    for (const retired of retiredSpellings(text, tree, model)) sink.report('retired-spelling', retired.span, retired.message, { data: { retired: retired.kind } });
+  });
+  const diagnostics = finishDiagnostics(sink.items, sink.dropped, sink.droppedErrors);
   return { text, path: options.path, lines: new LineIndex(text), tree, ast, model, diagnostics };
 }

@@ -2,7 +2,9 @@
  * The typed syntax tree: what each statement says, with the span of every part. Built from the
  * concrete tree by `interpret/`; names are not resolved yet (that is `model/`).
  */
+import type { FunctionType } from '../chemistry/basis/shells';
 import { elementByNumber, elementBySymbol } from '../chemistry/elements';
+import type { LengthUnit } from '../chemistry/units';
 import type { Span } from './text';
 import type { AtomTable, Statement } from './syntax';
 import type { TierLevel } from './vocabulary';
@@ -14,11 +16,18 @@ export interface Located<T> {
 
 export interface SpecAst {
   name?: Located<string>;
-  units?: Located<'angstrom' | 'bohr'>;
+  /** The unit of a retired `units` line, still honoured where no structure header names one. */
+  legacyUnits?: Located<LengthUnit>;
   charge?: Located<number>;
   multiplicity?: Located<number>;
   frozenCore?: Located<boolean>;
+  /** The main `basis <name>` line. */
   basis?: BasisAst;
+  /** `basis <name> on <atoms>` lines, in the order written. */
+  basisOverrides: BasisOverrideAst[];
+  /** `functions spherical|cartesian`. */
+  functions?: Located<FunctionType>;
+  /** What the `structure` statement gives: the atoms and their length unit. */
   geometry?: GeometryAst;
   fragments: FragmentAst[];
   embedding?: Located<string>;
@@ -31,15 +40,17 @@ export interface SpecAst {
 export interface BasisAst {
   readonly statement: Statement;
   readonly name?: Located<string>;
-  readonly overrides: BasisOverrideAst[];
-  functions?: Located<'spherical' | 'cartesian'>;
 }
 
-export interface BasisOverrideAst {
-  readonly element: Located<string>;
-  readonly basis: Located<string>;
-  readonly span: Span;
+/** `basis <name> on <targets>`: a basis for the selected atoms instead of the main one. */
+export interface BasisOverrideAst extends BasisAst {
+  readonly targets: readonly BasisTargetAst[];
+  /** The span of the `on` word and its targets. */
+  readonly onSpan: Span;
 }
+
+/** What an override line selects: the atom selectors of fragments, or every atom of a fragment. */
+export type BasisTargetAst = SelectorAst | { readonly kind: 'fragment'; readonly name: Located<string>; readonly span: Span };
 
 export interface AtomAst {
   readonly element: Located<string>;
@@ -73,6 +84,8 @@ export interface GeometryAst {
   readonly statement: Statement;
   readonly atoms: AtomList;
   readonly include?: Located<string>;
+  /** The unit named in the header, `structure in bohr`. */
+  readonly unit?: Located<LengthUnit>;
 }
 
 export function atomListOf(atoms: readonly AtomAst[]): AtomList {
@@ -140,7 +153,8 @@ export type SelectorAst =
   | AtomRef
   | { readonly kind: 'range'; readonly from: AtomRef; readonly to: AtomRef; readonly span: Span }
   | { readonly kind: 'element'; readonly element: string; readonly span: Span }
-  | { readonly kind: 'within'; readonly distance: number; readonly of: AtomRef; readonly span: Span }
+  /** `closer-than <d> to <atom>`; `inclusive` only for the retired distance selector it replaced (at most d). */
+  | { readonly kind: 'closer-than'; readonly distance: number; readonly to: AtomRef; readonly inclusive: boolean; readonly span: Span }
   | { readonly kind: 'rest'; readonly span: Span };
 
 export interface ActiveIrrepAst {
@@ -195,4 +209,27 @@ export interface LimitsAst {
   qubits?: Located<number>;
   /** In bytes. */
   memory?: Located<number>;
+}
+
+function describeRef(ref: AtomRef): string {
+  return ref.kind === 'index' ? `#${ref.index}` : ref.name;
+}
+
+/** A selector or basis target written back in the language's own spelling (`all Zn`, `n1..n4`). */
+export function describeTarget(target: BasisTargetAst): string {
+  switch (target.kind) {
+    case 'label':
+    case 'index':
+      return describeRef(target);
+    case 'range':
+      return `${describeRef(target.from)}..${describeRef(target.to)}`;
+    case 'element':
+      return `all ${target.element}`;
+    case 'closer-than':
+      return `closer-than ${target.distance} to ${describeRef(target.to)}`;
+    case 'rest':
+      return 'rest';
+    case 'fragment':
+      return `fragment ${target.name.value}`;
+  }
 }

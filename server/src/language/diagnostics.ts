@@ -70,6 +70,8 @@ export const DIAGNOSTIC_CODES = {
   // Basis
   'missing-basis': { severity: 'error', title: 'No basis set chosen' },
   'basis-missing-element': { severity: 'error', title: 'An element the chosen basis does not define' },
+  'basis-override-conflict': { severity: 'warning', title: 'Two basis lines of the same kind giving an atom different bases (the later one wins)' },
+  'basis-override-unused': { severity: 'warning', title: 'A basis override line that changes no atom\'s basis' },
   // Charge and spin
   'charge-not-integer': { severity: 'error', title: 'A charge that is not a whole number' },
   'multiplicity-invalid': { severity: 'error', title: 'A multiplicity that is not a positive whole number' },
@@ -91,8 +93,10 @@ export const DIAGNOSTIC_CODES = {
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  // Spellings the language no longer uses
+  'retired-spelling': { severity: 'error', title: 'An old spelling (`geometry`, `units`, the braced basis block, `within … of`); the quick fix rewrites it' },
   // Tessera itself
-  'spec-too-large': { severity: 'error', title: 'A spec or included file beyond the supported size (8 MiB, 100,000 atoms, 1,000,000 words outside plain geometry)' },
+  'spec-too-large': { severity: 'error', title: 'A spec or included file beyond the supported size (8 MiB, 100,000 atoms, 1,000,000 words outside plain structure blocks)' },
   'too-many-problems': { severity: 'warning', title: 'More problems than Tessera lists for one file (1,000); says how many more there are' },
   'internal-error': { severity: 'error', title: 'A part of the analysis failed inside Tessera (a bug, not a mistake in the spec)' },
 } as const satisfies Record<string, CodeInfo>;
@@ -124,10 +128,17 @@ export class DiagnosticSink {
   readonly items: Diagnostic[] = [];
   /** Reports beyond what is kept while analysing: counted, not stored. */
   dropped = 0;
+  /** How many of those were errors. */
+  droppedErrors = 0;
+
+  private drop(severity: Severity): void {
+    this.dropped++;
+    if (severity === 'error') this.droppedErrors++;
+  }
 
   add(item: Diagnostic): void {
     if (this.items.length >= MAX_COLLECTED) {
-      this.dropped++;
+      this.drop(item.severity);
       return;
     }
     this.items.push(diagnostic(item.code, item.span, item.message, { ...(item.related ? { related: item.related } : {}), ...(item.data ? { data: item.data } : {}), severity: item.severity }));
@@ -140,7 +151,7 @@ export class DiagnosticSink {
     extra?: { related?: readonly RelatedInformation[]; data?: Readonly<Record<string, unknown>>; severity?: Severity },
   ): void {
     if (this.items.length >= MAX_COLLECTED) {
-      this.dropped++;
+      this.drop(extra?.severity ?? DIAGNOSTIC_CODES[code].severity);
       return;
     }
     this.items.push(diagnostic(code, span, message, extra));
@@ -153,27 +164,35 @@ function byPosition(a: Diagnostic, b: Diagnostic): number {
 
 /**
  * The diagnostics of one file as shown: sorted by position, at most MAX_DIAGNOSTICS_PER_FILE, then
- * one `too-many-problems` saying how many more were found. Diagnostics already finished once (the
- * language's, then those that read estimates) can be finished again with more added.
+ * one `too-many-problems` saying how many more were found, an error when errors are among them
+ * (so that a count of errors, or an exit code, never misses them). Diagnostics already finished
+ * once (the language's, then those that read estimates) can be finished again with more added.
  */
-export function finishDiagnostics(items: readonly Diagnostic[], dropped = 0): Diagnostic[] {
+export function finishDiagnostics(items: readonly Diagnostic[], dropped = 0, droppedErrors = 0): Diagnostic[] {
   let omitted = dropped;
+  let omittedErrors = droppedErrors;
   const problems: Diagnostic[] = [];
   for (const item of items) {
-    if (item.code === 'too-many-problems') omitted += Number(item.data?.['omitted'] ?? 0);
-    else problems.push(item);
+    if (item.code === 'too-many-problems') {
+      omitted += Number(item.data?.['omitted'] ?? 0);
+      omittedErrors += Number(item.data?.['errors'] ?? 0);
+    } else problems.push(item);
   }
   problems.sort(byPosition);
-  omitted += Math.max(0, problems.length - MAX_DIAGNOSTICS_PER_FILE);
+  for (let i = MAX_DIAGNOSTICS_PER_FILE; i < problems.length; i++) {
+    omitted++;
+    if (problems[i]!.severity === 'error') omittedErrors++;
+  }
   if (omitted === 0) return problems;
   const kept = problems.slice(0, MAX_DIAGNOSTICS_PER_FILE);
   const after = kept[kept.length - 1]?.span.end ?? 0;
+  const errors = omittedErrors > 0 ? ` (${omittedErrors.toLocaleString('en-US')} of them errors)` : '';
   kept.push(
     diagnostic(
       'too-many-problems',
       { start: after, end: after },
-      `Tessera lists at most ${MAX_DIAGNOSTICS_PER_FILE.toLocaleString('en-US')} problems per file; ${omitted.toLocaleString('en-US')} more were found after this point and are not shown. Fix the ones above and check again (or is this not a spec file?).`,
-      { data: { omitted } },
+      `Tessera lists at most ${MAX_DIAGNOSTICS_PER_FILE.toLocaleString('en-US')} problems per file; ${omitted.toLocaleString('en-US')} more were found after this point${errors} and are not shown. Fix the ones above and check again (or is this not a spec file?).`,
+      { data: { omitted, errors: omittedErrors }, ...(omittedErrors > 0 ? { severity: 'error' as const } : {}) },
     ),
   );
   return kept;

@@ -1,5 +1,5 @@
 /**
- * A fast reader for the body of `geometry { ... }` blocks, which hold nearly all of a large spec.
+ * A fast reader for the body of `structure { ... }` blocks, which hold nearly all of a large spec.
  *
  * It reads well-formed atom lines (`Element [label] x y z` with a known element, a plain label and
  * three finite numbers), comments and blank lines, and stores them column-wise in an AtomTable.
@@ -27,7 +27,10 @@ export interface FastGeometryBlock {
 }
 
 /** Keywords that only start top-level statements: at a line start inside a block they mean a missing `}` (as in parser.ts). */
-const TOP_LEVEL_STARTERS = new Set(['spec', 'units', 'basis', 'geometry', 'fragment', 'embedding', 'scan', 'limits']);
+const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'units', 'geometry']);
+
+/** A line that opens a block the fast reader reads: `structure {`, `structure in bohr {`, or the retired keyword's block. */
+const BLOCK_START = /^[ \t]*(?:structure(?:[ \t]+in[ \t]+[A-Za-z]+)?|geometry)[ \t]*\{/m;
 
 function isSpace(code: number): boolean {
   return code === 32 || code === 9 || code === 13 || code === 12 || code === 11 || code === 0xa0 || code === 0xfeff;
@@ -341,7 +344,8 @@ export function atomTableStatements(table: AtomTable): Statement[] {
 }
 
 /**
- * Finds `geometry {` at the start of a line and reads its body. Returns the blocks it could read,
+ * Finds `structure {` or `structure in <unit> {` (or the retired keyword it replaced) at the start
+ * of a line and reads its body. Returns the blocks it could read,
  * and the text with what it read blanked out (same length, so every offset stays valid): the lines
  * it handed over stay, each on a line of its own, for the general parser.
  */
@@ -349,7 +353,7 @@ export function extractGeometryBodies(text: string, previous?: PreviousReading):
   const reused = previous ? rereadChangedLines(text, previous) : undefined;
   const blocks: FastGeometryBlock[] = reused ?? [];
   if (!reused) {
-    const pattern = /^[ \t]*geometry[ \t]*\{/gm;
+    const pattern = new RegExp(BLOCK_START.source, 'gm');
     let match: RegExpExecArray | null;
     while ((match = pattern.exec(text)) !== null) {
       const open = match.index + match[0].length - 1;
@@ -403,9 +407,9 @@ export function rereadChangedLines(text: string, previous: PreviousReading): Fas
   if (firstLine <= old.open || oldEnd > old.close) return undefined;
   const oldLastLineEnd = oldText.indexOf('\n', oldEnd);
   if (oldLastLineEnd < 0 || oldLastLineEnd >= old.close) return undefined;
-  // A geometry block cannot start inside the changed lines of the new text either.
+  // A structure block cannot start inside the changed lines of the new text either.
   const newLastLineEnd = text.indexOf('\n', newEnd);
-  if (newLastLineEnd < 0 || /^[ \t]*geometry[ \t]*\{/m.test(text.slice(firstLine, newLastLineEnd))) return undefined;
+  if (newLastLineEnd < 0 || BLOCK_START.test(text.slice(firstLine, newLastLineEnd))) return undefined;
 
   const parts: BodyParts = { columns: new Columns(), comments: [], handedOver: [] };
   const table = old.table;

@@ -13,14 +13,14 @@ export const MAX_FILE_BYTES = MAX_SPEC_CHARACTERS;
 /** Atoms, inline or from an XYZ file. */
 export const MAX_ATOMS = 100_000;
 /**
- * Words (tokens) outside plain geometry blocks, which the fast reader stores column-wise; every
+ * Words (tokens) outside plain structure blocks, which the fast reader stores column-wise; every
  * other token costs a parser object. A 100,000-atom geometry the fast reader cannot take (labels
  * with a hyphen, say) is about 500,000 words.
  */
 export const MAX_WORDS = 1_000_000;
 
 /** The supported size in one phrase, for messages. */
-export const SUPPORTED_SIZE = `${MAX_SPEC_CHARACTERS.toLocaleString('en-US')} characters (8 MiB), ${MAX_ATOMS.toLocaleString('en-US')} atoms and ${MAX_WORDS.toLocaleString('en-US')} words outside plain geometry blocks`;
+export const SUPPORTED_SIZE = `${MAX_SPEC_CHARACTERS.toLocaleString('en-US')} characters (8 MiB), ${MAX_ATOMS.toLocaleString('en-US')} atoms and ${MAX_WORDS.toLocaleString('en-US')} words outside plain structure blocks`;
 
 /** A size in bytes as people read it: "1.00 GiB". */
 export function byteSize(bytes: number): string {

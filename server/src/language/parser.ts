@@ -37,8 +37,11 @@ import type { Argument, ArgumentKind, AtomTable, Block, Statement, SyntaxProblem
 import { countWords } from './limits';
 import { span, type Span } from './text';
 
-/** Keywords that only start top-level statements; seeing one at a line start closes an unclosed block. */
-const TOP_LEVEL_STARTERS = new Set(['spec', 'units', 'basis', 'geometry', 'fragment', 'embedding', 'scan', 'limits']);
+/**
+ * Keywords that only start top-level statements; seeing one at a line start closes an unclosed
+ * block. The retired `units` and `geometry` are among them, so that old specs recover the same way.
+ */
+const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'units', 'geometry']);
 
 const ARGUMENT_KINDS = new Map<TokenType, ArgumentKind>([
   [Word, 'word'],
@@ -211,7 +214,7 @@ class SpecParser extends EmbeddedActionsParser {
     this.ACTION(() => {
       this.problems.push({
         code: 'unexpected-token',
-        message: 'A block must follow a statement such as `fragment name` or `geometry`; its contents are ignored.',
+        message: 'A block must follow a statement such as `fragment name` or `structure`; its contents are ignored.',
         span: block.open,
       });
     });
@@ -260,14 +263,14 @@ function limitNesting(tokens: IToken[], problems: SyntaxProblem[]): IToken[] {
 }
 
 export interface ParseOptions {
-  /** Read plain geometry blocks with the fast reader (default true; tests compare both ways). */
+  /** Read plain structure blocks with the fast reader (default true; tests compare both ways). */
   readonly fastGeometry?: boolean;
   /**
-   * The previous version of the same document: when the edit since then lies inside a geometry
+   * The previous version of the same document: when the edit since then lies inside a structure
    * block, only the changed lines of that block are read again.
    */
   readonly previous?: { readonly text: string; readonly tree: SyntaxTree };
-  /** Refuse (return an empty tree with `words` set) when the text outside plain geometry blocks has more words. */
+  /** Refuse (return an empty tree with `words` set) when the text outside plain structure blocks has more words. */
   readonly maxWords?: number;
 }
 

@@ -79,3 +79,20 @@ export function safeMessage(message: string): string {
   if (safe.length > MAX_MESSAGE_LENGTH) safe = `${safe.slice(0, MAX_MESSAGE_LENGTH - 40)}… (message cut at ${MAX_MESSAGE_LENGTH} characters)`;
   return safe;
 }
+
+const TERMINAL_CONTROL = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\u061c\u200e\u200f\u2028-\u202e\u2066-\u2069\ufeff]/g;
+
+/** For a terminal: every control character escaped except tab, line feed and a carriage return before a line feed. */
+export function escapeForTerminal(text: string): string {
+  return text.replace(/\r(?!\n)/g, '\\x0d').replace(TERMINAL_CONTROL, escapeOne);
+}
+
+const JSON_RAW = /[\u007f-\u009f\u061c\u200e\u200f\u2028-\u202e\u2066-\u2069\ufeff]/g;
+
+/**
+ * JSON.stringify, with the characters it leaves raw that a terminal or an editor acts on (DEL, C1,
+ * bidirectional and separator characters) written as \uXXXX escapes: the same JSON value, safe to print.
+ */
+export function safeJsonStringify(value: unknown, space?: number): string {
+  return JSON.stringify(value, null, space).replace(JSON_RAW, (character) => `\\u${character.charCodeAt(0).toString(16).padStart(4, '0')}`);
+}

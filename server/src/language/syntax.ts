@@ -29,7 +29,7 @@ export interface Block {
   readonly statements: Statement[];
   readonly span: Span;
   /**
-   * For a geometry block read by the fast reader: its atom lines column by column. Then
+   * For a structure block read by the fast reader: its atom lines column by column. Then
    * `statements` is built from it on first use; analysis reads the table directly.
    */
   readonly atomTable?: AtomTable;
@@ -85,9 +85,9 @@ export interface SyntaxTree {
   readonly comments: CommentNode[];
   readonly problems: SyntaxProblem[];
   readonly textLength: number;
-  /** What the fast geometry reader read, so that the next version of the text can reuse it. */
+  /** What the fast structure-block reader read, so that the next version of the text can reuse it. */
   readonly geometryBlocks?: readonly FastGeometryBlock[];
-  /** Set when the parse was refused: the words counted outside plain geometry blocks, beyond `maxWords`. */
+  /** Set when the parse was refused: the words counted outside plain structure blocks, beyond `maxWords`. */
   readonly words?: number;
 }
 

@@ -36,5 +36,9 @@ export function parseMemorySize(args: readonly Argument[]): MemoryReading {
   const amount = Number(amountText);
   if (!Number.isFinite(amount) || amount <= 0) return { ok: false, message: 'The memory size must be a positive number.', span: first.span };
   if (!Number.isFinite(amount * factor)) return { ok: false, message: 'This memory size is too large to be a number.', span: first.span };
+  if (amount * factor < 1) {
+    // Shown as "0 B" it would mislead: say what was asked for.
+    return { ok: false, message: `${amountText} ${unitText} is ${(amount * factor).toPrecision(3)} bytes, less than one byte: is the unit or the number mistyped?`, span: whole };
+  }
   return { ok: true, bytes: amount * factor, span: whole };
 }

@@ -3,7 +3,8 @@
  * and one line on each. Validation, completion and hover all read this one table.
  */
 
-export type BlockKind = 'top' | 'basis' | 'geometry' | 'fragment' | 'tier' | 'limits';
+/** The blocks of the language: the atoms of `structure { … }`, fragments, their tiers, and limits. */
+export type BlockKind = 'top' | 'structure' | 'fragment' | 'tier' | 'limits';
 
 export interface KeywordInfo {
   readonly name: string;
@@ -15,17 +16,34 @@ export interface KeywordInfo {
   readonly opens?: BlockKind;
 }
 
+/** How override lines of `basis` combine; said in hover, messages and the contributor guide. */
+export const BASIS_PRECEDENCE =
+  'Each atom takes the basis of the most specific line that selects it: lines naming atoms (labels, #indices, ranges, closer-than) over `all <Element>` lines, over `fragment <name>` lines, over the main line; between lines of the same kind the later one wins.';
+
 export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'spec', blocks: ['top'], syntax: 'spec "name"', summary: 'Names this calculation plan.' },
-  { name: 'units', blocks: ['top'], syntax: 'units angstrom|bohr', summary: 'Length unit of every coordinate and distance in this file (default angstrom).' },
   { name: 'charge', blocks: ['top', 'fragment'], syntax: 'charge <integer>', summary: 'Total charge of the system, or the formal charge of a fragment (default 0).' },
   { name: 'multiplicity', blocks: ['top', 'fragment'], syntax: 'multiplicity <2S+1>', summary: 'Spin multiplicity 2S+1 (default: 1 for an even electron count, 2 for an odd one).' },
-  { name: 'basis', blocks: ['top'], syntax: 'basis <name> { <Element> = <name>; functions spherical|cartesian }', summary: 'The orbital basis set, with optional per-element overrides and function type.', opens: 'basis' },
-  { name: 'functions', blocks: ['basis'], syntax: 'functions spherical|cartesian', summary: 'Spherical (2l+1) or cartesian ((l+1)(l+2)/2) functions per shell; default: the basis family\'s usual convention.' },
-  { name: 'geometry', blocks: ['top'], syntax: 'geometry { <Element> [label] x y z ... }  or  geometry from "file.xyz"', summary: 'The atoms: element, optional label, and coordinates in the file\'s unit; or a plain XYZ file (always in ångström).', opens: 'geometry' },
+  {
+    name: 'basis',
+    blocks: ['top'],
+    syntax: 'basis <name>  or  basis <name> on <atoms>',
+    summary:
+      'The orbital basis set: one main line for every atom, and override lines for a selection (`on all Zn`, `on zn n1..n4`, `on #3`, `on closer-than 3.0 to zn`, `on fragment guest`). ' +
+      BASIS_PRECEDENCE,
+  },
+  { name: 'functions', blocks: ['top'], syntax: 'functions spherical|cartesian', summary: 'Spherical (2l+1) or cartesian ((l+1)(l+2)/2) functions per shell, for every basis of the spec; default: the main basis family\'s usual convention.' },
+  {
+    name: 'structure',
+    blocks: ['top'],
+    syntax: 'structure [in angstrom|bohr] { <Element> [label] x y z ... }  or  structure from "file.xyz"',
+    summary:
+      'The atoms: element, optional label and x y z, in the unit its header names (ångström unless `in bohr`); or a plain XYZ file, in ångström by the XYZ convention. Every other distance in the spec (scan ranges, `closer-than`) is in this unit.',
+    opens: 'structure',
+  },
   { name: 'frozen-core', blocks: ['top', 'tier'], syntax: 'frozen-core on|off', summary: 'Keep the noble-gas core orbitals of each element doubly occupied and out of the correlation treatment (default on).' },
   { name: 'fragment', blocks: ['top'], syntax: 'fragment <name> { atoms ...; charge; multiplicity; tier <level> { ... } }', summary: 'A part of the system treated by one solver tier.', opens: 'fragment' },
-  { name: 'atoms', blocks: ['fragment'], syntax: 'atoms <label> <a>..<b> #<n> #<n>..#<m> all <Element> within <d> of <atom> rest', summary: 'Which atoms belong to the fragment.' },
+  { name: 'atoms', blocks: ['fragment'], syntax: 'atoms <label> <a>..<b> #<n> #<n>..#<m> all <Element> closer-than <d> to <atom> rest', summary: 'Which atoms belong to the fragment.' },
   { name: 'tier', blocks: ['fragment'], syntax: 'tier quantum|correlated|mean-field { method ...; ... }', summary: 'The solver tier of this fragment and its settings.', opens: 'tier' },
   { name: 'method', blocks: ['tier'], syntax: 'method <name>', summary: 'The electronic-structure method of the tier.' },
   { name: 'ansatz', blocks: ['tier'], syntax: 'ansatz uccsd|k-upccgsd|hardware-efficient', summary: 'The trial state of a variational quantum algorithm.' },
@@ -34,7 +52,7 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
   { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
-  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms.' },
+  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
   { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
   { name: 'qubits', blocks: ['limits'], syntax: 'qubits <n>', summary: 'Largest number of qubits a quantum-tier fragment may need.' },
   { name: 'memory', blocks: ['limits'], syntax: 'memory <size> B|KiB|MiB|GiB|TiB', summary: 'Classical memory available, for example to a statevector simulator.' },
@@ -99,6 +117,7 @@ export const EMBEDDINGS: readonly TermInfo[] = [
   { name: 'none', summary: 'Fragments are planned independently.' },
 ];
 
+/** Length units of `structure in <unit>`. */
 export const UNIT_TERMS: readonly TermInfo[] = [
   { name: 'angstrom', summary: 'Ångström, 1e-10 m.' },
   { name: 'bohr', summary: 'Bohr radius, 0.529177210903 Å (CODATA 2018).' },
@@ -120,8 +139,26 @@ export const SCAN_KINDS: readonly TermInfo[] = [
 
 export const SELECTOR_WORDS: readonly TermInfo[] = [
   { name: 'rest', summary: 'Every atom that no other fragment claims.' },
-  { name: 'all', summary: '`all <Element>`: every atom of that element.' },
-  { name: 'within', summary: '`within <d> of <atom>`: every atom at most d (file units) from that atom, itself included.' },
+  { name: 'all', summary: '`all <Element>`: every atom of that element (an element is always named after `all`; a bare word is a label).' },
+  { name: 'closer-than', summary: '`closer-than <d> to <atom>`: every atom strictly closer than d to that atom, itself included; d is in the structure\'s unit.' },
+  { name: 'to', summary: '`closer-than <d> to <atom>`: the atom the distance is measured from.' },
+];
+
+/** The words of a basis override line, `basis <name> on <atoms>`. */
+export const BASIS_TARGET_WORDS: readonly TermInfo[] = [
+  { name: 'on', summary: '`basis <name> on <atoms>`: this basis for the selected atoms instead of the main one.' },
+  { name: 'fragment', summary: '`on fragment <name>`: every atom of that fragment.' },
+];
+
+/**
+ * Spellings the language used to have. Each is reported with the code `retired-spelling`, a
+ * message that shows the new spelling, and a quick fix that rewrites it (`language/migrate.ts`).
+ */
+export const RETIRED_SPELLINGS: readonly { readonly name: string; readonly now: string; readonly summary: string }[] = [
+  { name: 'geometry', now: 'structure', summary: 'The atoms are given in a `structure { … }` block, or `structure from "file.xyz"`.' },
+  { name: 'units', now: 'structure in bohr', summary: 'The length unit is part of the structure header: `structure in bohr { … }`; ångström needs no word.' },
+  { name: 'basis block', now: 'basis <name> on all <Element>', summary: 'A braced basis block becomes one line per basis: `basis def2-SVP`, `basis def2-TZVP on all Zn`, and `functions cartesian` on its own line.' },
+  { name: 'within', now: 'closer-than', summary: '`within <d> of <atom>` becomes `closer-than <d> to <atom>`, which is strict.' },
 ];
 
 export function methodsForTier(tier: TierLevel): (TermInfo & { readonly tier: TierLevel })[] {

@@ -354,14 +354,14 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     const uri = (params as { uri?: unknown } | null)?.uri;
     return typeof uri === 'string' ? analysisOf(uri) : undefined;
   };
-  connection.onRequest('tessera/structure', failures.guard('the structure view', documentOf, (params: unknown) => {
+  connection.onRequest<ReturnType<typeof service.structureAnswer> | null, void>('tessera/structure', failures.guard('the structure view', documentOf, (params: unknown) => {
     const analysis = analysisOfParams(params);
-    return analysis ? service.structureOf(analysis) : null;
+    return analysis ? service.structureAnswer(analysis) : null;
   }));
-  connection.onRequest('tessera/costs', failures.guard('the cost plots', documentOf, (params: unknown) => {
+  connection.onRequest<ReturnType<typeof service.costsAnswer> | null, void>('tessera/costs', failures.guard('the cost plots', documentOf, (params: unknown) => {
     const analysis = analysisOfParams(params);
     const fragment = (params as { fragment?: unknown } | null)?.fragment;
-    return analysis ? service.costPlots(analysis, Number.isInteger(fragment) ? (fragment as number) : null) : null;
+    return analysis ? service.costsAnswer(analysis, Number.isInteger(fragment) ? (fragment as number) : null) : null;
   }));
   connection.onRequest('tessera/viewTarget', failures.guard('the structure view', documentOf, (params: unknown) => {
     const analysis = analysisOfParams(params);

@@ -21,7 +21,7 @@ function warmUpSpec(molecules: number, variant: number): string {
   }
   // Every other round a line is being typed, as in an editor.
   if (variant % 2 === 1) lines.splice(4, 0, '  C 1.5 2.');
-  return ['# warm-up', 'spec "warm-up"', 'basis sto-3g', 'geometry {', ...lines, '}', 'fragment probe {', '  atoms #1..#3', '  tier quantum { method vqe; ansatz uccsd; active 4e 4o }', '}', 'fragment bulk {', '  atoms rest', '  tier mean-field { method rhf }', '}', 'limits { qubits 24 }', ''].join('\n');
+  return ['# warm-up', 'spec "warm-up"', 'basis sto-3g', 'structure {', ...lines, '}', 'fragment probe {', '  atoms #1..#3', '  tier quantum { method vqe; ansatz uccsd; active 4e 4o }', '}', 'fragment bulk {', '  atoms rest', '  tier mean-field { method rhf }', '}', 'limits { qubits 24 }', ''].join('\n');
 }
 
 /** Runs `rounds` rounds of what an edit costs; returns the milliseconds it took. */

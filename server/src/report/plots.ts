@@ -5,6 +5,7 @@
  * in HTML reports and in a webview with a strict content-security policy.
  */
 import type { EstimateReport } from '../analysis';
+import { escapeHtml } from './format/escape';
 import type { GrowthPoint } from '../analysis';
 
 const WIDTH = 640;
@@ -15,7 +16,7 @@ const SERIES_COLOURS = ['#0072b2', '#e69f00', '#009e73', '#cc79a7'];
 const FONT = 'font-family="Helvetica, Arial, sans-serif"';
 
 function escape(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+  return escapeHtml(text);
 }
 
 /** Round tick values covering [0, max]. */

@@ -3,6 +3,7 @@
  * comes from the document's analysis (analysis/figures), with the convention behind it; a card
  * asks for its own fragment's figures only.
  */
+import { markdownText } from '../report/format/escape';
 import { CONVENTIONS, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
 
 function signed(value: number): string {
@@ -28,7 +29,7 @@ export function spaceRows(figures: SpaceFigures): string[] {
 function fragmentHeadline(fragment: FragmentFigures): string {
   const parts = [fragment.tier ?? 'no tier'];
   if (fragment.method) parts.push([fragment.method, fragment.ansatz, fragment.mapping].filter(Boolean).join(' / '));
-  return `**fragment ${fragment.name}** · ${parts.join(' · ')}`;
+  return `**fragment ${markdownText(fragment.name)}** · ${parts.join(' · ')}`;
 }
 
 function irrepText(record: Record<string, number>): string {

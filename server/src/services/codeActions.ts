@@ -1,14 +1,19 @@
 /**
  * Quick fixes for diagnostics: the nearest valid multiplicity, a word's suggested spelling, a
- * home for unassigned atoms, a per-element basis that covers a missing element, the largest
- * active space that fits the qubit limit, and the length unit the coordinates look like.
+ * home for unassigned atoms, a basis override line that covers a missing element, the largest
+ * active space that fits the qubit limit, the length unit the coordinates look like, and the
+ * rewrite of a retired spelling (one statement, or every one in the file).
  */
 import { CodeActionKind, type CodeAction, type Diagnostic as LspDiagnostic, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
 import { symmetrize } from '../chemistry/symmetry';
 import { fromAngstrom } from '../chemistry/units';
 import type { DocumentAnalysis } from '../analysis';
+import { describeTarget } from '../language/ast';
+import { retiredSpellings, type TextChange } from '../language/migrate';
+import { rewriteRetiredSpellings } from '../language/migrateAll';
 import { decimalsNeeded } from './format';
-import type { FragmentModel } from '../language/model';
+import { basisWithout } from '../language/checks/basis';
+import { BASIS_RANK, type FragmentModel } from '../language/model';
 import { toRange } from './positions';
 
 function edit(uri: string, edits: TextEdit[]): WorkspaceEdit {
@@ -91,31 +96,73 @@ function unassignedFixes(analysis: DocumentAnalysis, uri: string, diagnostic: Ls
   return actions;
 }
 
-function basisOverrideFixes(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, element: string, candidates: readonly string[]): CodeAction[] {
-  const basis = analysis.ast.basis;
-  if (!basis) return [];
-  const existing = basis.overrides.find((override) => override.element.value === element);
+/**
+ * A basis that defines a missing element. When the override line that gave those atoms their basis
+ * gives it to no other atom, its name is replaced (or the line goes, when the candidate is the basis
+ * the atoms would have without it). Otherwise a new override line goes after the last basis line,
+ * where it wins among lines of its kind: `on all <Element>`, or, when the atoms got their basis from
+ * a line naming them (which an element line would not beat), `on` those atoms.
+ */
+function basisOverrideFixes(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, element: string, candidates: readonly string[], line: number, atoms: readonly number[]): CodeAction[] {
+  const basis = analysis.model.basis;
+  const main = analysis.ast.basis;
+  if (!main) return [];
+  const decider = line >= 0 ? basis.overrides[line] : undefined;
+  const missing = new Set(atoms);
+  const ownLine = decider?.ast.name && [...decider.atomRanks.keys()].every((atom) => basis.decidedBy[atom] !== line || missing.has(atom)) ? decider : undefined;
+  const namedAtoms = decider && atoms.some((atom) => decider.atomRanks.get(atom) === BASIS_RANK.atoms);
+  const lastLine = [main, ...analysis.ast.basisOverrides].reduce((last, current) => (current.statement.span.end > last.statement.span.end ? current : last));
+  // After a retired basis block, the new line follows its `}`; comments after it stay on their line.
+  const end = lastLine.statement.block?.close?.end ?? lastLine.statement.span.end;
+  const at = lineEndAfter(analysis.text, end);
   return candidates.slice(0, 4).map((candidate, index) => {
     let change: TextEdit;
-    if (existing) {
-      change = { range: toRange(analysis, existing.basis.span), newText: candidate };
-    } else if (basis.statement.block?.close) {
-      const close = basis.statement.block.close;
-      const lineOfClose = analysis.lines.positionAt(close.start);
-      const closeOnOwnLine = analysis.text.slice(analysis.lines.lineStart(lineOfClose.line), close.start).trim() === '';
-      // With `}` after other statements on its line, the override follows them after a `;`.
-      const before = analysis.text.slice(basis.statement.block.open.end, close.start);
-      const after = basis.statement.block.open.end + before.trimEnd().length;
-      const needsSemicolon = before.trim() !== '' && !before.trimEnd().endsWith(';');
-      change = closeOnOwnLine
-        ? { range: { start: { line: lineOfClose.line, character: 0 }, end: { line: lineOfClose.line, character: 0 } }, newText: `  ${element} = ${candidate}\n` }
-        : { range: toRange(analysis, { start: after, end: after }), newText: `${needsSemicolon ? ';' : ''} ${element} = ${candidate}` };
+    let title: string;
+    if (ownLine) {
+      const on = ownLine.ast.targets.map(describeTarget).join(' ');
+      const without = basisWithout(basis.overrides, basis.main, atoms[0]!, line);
+      if (without?.displayName === candidate) {
+        const lineStart = analysis.text.lastIndexOf('\n', ownLine.ast.statement.span.start - 1) + 1;
+        const lineEnd = lineEndAfter(analysis.text, ownLine.ast.statement.span.end);
+        change = { range: toRange(analysis, { start: lineStart, end: Math.min(lineEnd + 1, analysis.text.length) }), newText: '' };
+        title = `Use ${candidate} for ${element} (remove \`basis ${ownLine.ast.name!.value} on ${on}\`)`;
+      } else {
+        change = { range: toRange(analysis, ownLine.ast.name!.span), newText: candidate };
+        title = `Use ${candidate} for ${element} (basis ${candidate} on ${on})`;
+      }
     } else {
-      const after = basis.name?.span.end ?? basis.statement.keyword.span.end;
-      change = { range: toRange(analysis, { start: after, end: after }), newText: ` {\n  ${element} = ${candidate}\n}` };
+      const target = namedAtoms ? atomList(analysis, atoms) : `all ${element}`;
+      change = { range: toRange(analysis, { start: at, end: at }), newText: `\nbasis ${candidate} on ${target}` };
+      title = `Use ${candidate} for ${element} (basis ${candidate} on ${target})`;
     }
-    return quickFix(`Use ${candidate} for ${element} (per-element basis)`, diagnostic, edit(uri, [change]), index === 0);
+    return quickFix(title, diagnostic, edit(uri, [change]), index === 0);
   });
+}
+
+function textEdits(analysis: DocumentAnalysis, changes: readonly TextChange[]): TextEdit[] {
+  return changes.map((change) => ({ range: toRange(analysis, change.span), newText: change.newText }));
+}
+
+/** The rewrite of the retired statement a diagnostic marks. */
+function retiredFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic): CodeAction[] {
+  const start = analysis.lines.offsetAt(diagnostic.range.start);
+  const end = analysis.lines.offsetAt(diagnostic.range.end);
+  const item = retiredSpellings(analysis.text, analysis.tree, analysis.model).find((found) => found.span.start === start && found.span.end === end);
+  if (!item || item.changes.length === 0) return [];
+  return [quickFix(item.title, diagnostic, edit(uri, textEdits(analysis, item.changes)), true)];
+}
+
+/** Every retired spelling of the file rewritten, as one edit of the part of the text that changes. */
+function rewriteAllFix(analysis: DocumentAnalysis, uri: string, diagnostics: readonly LspDiagnostic[]): CodeAction | undefined {
+  const rewritten = rewriteRetiredSpellings(analysis.text, analysis.path ? { path: analysis.path } : {}).text;
+  if (rewritten === analysis.text) return undefined;
+  const old = analysis.text;
+  let prefix = 0;
+  while (prefix < old.length && prefix < rewritten.length && old[prefix] === rewritten[prefix]) prefix++;
+  let suffix = 0;
+  while (suffix < old.length - prefix && suffix < rewritten.length - prefix && old[old.length - 1 - suffix] === rewritten[rewritten.length - 1 - suffix]) suffix++;
+  const change = { range: toRange(analysis, { start: prefix, end: old.length - suffix }), newText: rewritten.slice(prefix, rewritten.length - suffix) };
+  return { title: 'Rewrite every old spelling in this file', kind: CodeActionKind.QuickFix, diagnostics: [...diagnostics], edit: edit(uri, [change]) };
 }
 
 function activeSpaceFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, active: { electrons: number; orbitals: number }): CodeAction[] {
@@ -132,11 +179,15 @@ function activeSpaceFix(analysis: DocumentAnalysis, uri: string, diagnostic: Lsp
   return [quickFix(`Shrink the active space of '${fragment.name}' to ${active.electrons}e ${active.orbitals}o`, diagnostic, edit(uri, [change]), true)];
 }
 
+/** Names the unit in the structure header (or in a retired `units` line, where one still sets it). */
 function unitsFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, units: string): CodeAction[] {
-  const given = analysis.ast.units;
-  const change: TextEdit = given
-    ? { range: toRange(analysis, given.span), newText: units }
-    : { range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, newText: `units ${units}\n` };
+  const geometry = analysis.ast.geometry;
+  if (!geometry || geometry.include) return [];
+  const keyword = geometry.statement.keyword;
+  let change: TextEdit;
+  if (geometry.unit) change = { range: toRange(analysis, geometry.unit.span), newText: units };
+  else if (analysis.ast.legacyUnits) change = { range: toRange(analysis, analysis.ast.legacyUnits.span), newText: units };
+  else change = { range: toRange(analysis, keyword.span), newText: `structure in ${units}` };
   return [quickFix(`Read the coordinates as ${units}`, diagnostic, edit(uri, [change]))];
 }
 
@@ -169,6 +220,7 @@ function symmetrizeFix(analysis: DocumentAnalysis, uri: string, diagnostic: LspD
 
 export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnostics: readonly LspDiagnostic[]): CodeAction[] {
   const actions: CodeAction[] = [];
+  const retired: LspDiagnostic[] = [];
   for (const diagnostic of diagnostics) {
     if (diagnostic.source !== undefined && diagnostic.source !== 'tessera') continue;
     const data = (diagnostic.data ?? {}) as Record<string, unknown>;
@@ -180,7 +232,10 @@ export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnost
     } else if (code === 'atoms-unassigned' && Array.isArray(data['atoms'])) {
       actions.push(...unassignedFixes(analysis, uri, diagnostic, data['atoms'] as number[]));
     } else if (code === 'basis-missing-element' && typeof data['element'] === 'string' && Array.isArray(data['candidates'])) {
-      actions.push(...basisOverrideFixes(analysis, uri, diagnostic, data['element'], data['candidates'] as string[]));
+      actions.push(...basisOverrideFixes(analysis, uri, diagnostic, data['element'], data['candidates'] as string[], Number(data['line'] ?? -1), (data['atoms'] as number[] | undefined) ?? []));
+    } else if (code === 'retired-spelling') {
+      actions.push(...retiredFix(analysis, uri, diagnostic));
+      retired.push(diagnostic);
     } else if (code === 'qubit-limit-exceeded' && data['active']) {
       actions.push(...activeSpaceFix(analysis, uri, diagnostic, data['active'] as { electrons: number; orbitals: number }));
     } else if (code === 'near-symmetry') {
@@ -188,6 +243,11 @@ export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnost
     } else if (code === 'units-suspect' && typeof data['units'] === 'string') {
       actions.push(...unitsFix(analysis, uri, diagnostic, data['units']));
     }
+  }
+  // One action for the whole file, offered with any old spelling the request covers.
+  if (retired.length > 0) {
+    const all = rewriteAllFix(analysis, uri, retired);
+    if (all) actions.push(all);
   }
   return actions;
 }

@@ -11,6 +11,7 @@ import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
 import {
   ANSATZE,
+  BASIS_TARGET_WORDS,
   EMBEDDINGS,
   FUNCTION_TERMS,
   keywordsFor,
@@ -28,10 +29,10 @@ import {
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 
-/** Keywords that may appear more than once in their block. */
-const REPEATABLE = new Set(['fragment']);
+/** Keywords that may appear more than once in their block (basis: one main line and its overrides). */
+const REPEATABLE = new Set(['fragment', 'basis']);
 
-/** Elements offered in a geometry block before any atom is written: the common ones first. */
+/** Elements offered in a structure block before any atom is written: the common ones first. */
 const COMMON_ELEMENTS = ['H', 'C', 'N', 'O', 'F', 'P', 'S', 'Cl', 'Br', 'I', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Mn', 'Cr', 'Ti', 'Pd', 'Pt'];
 
 function terms(list: readonly TermInfo[], kind: CompletionItemKind): CompletionItem[] {
@@ -81,6 +82,40 @@ function labelItems(analysis: DocumentAnalysis): CompletionItem[] {
   }));
 }
 
+function fragmentItems(analysis: DocumentAnalysis): CompletionItem[] {
+  return analysis.model.fragments.map((fragment) => ({ label: fragment.name, kind: CompletionItemKind.Class, detail: `fragment, ${fragment.atoms.length} atoms` }));
+}
+
+function keywordItem(term: TermInfo): CompletionItem {
+  return { label: term.name, kind: CompletionItemKind.Keyword, detail: term.summary };
+}
+
+const SELECTOR_TERMS = SELECTOR_WORDS.filter((term) => term.name !== 'to');
+
+/**
+ * The selector being typed at argument `index` (the selectors start at `first`): after `all` an
+ * element, after `closer-than` a number then `to` then an atom, else an atom or a selector word.
+ */
+function selectorItems(analysis: DocumentAnalysis, args: Statement['args'], index: number, first: number, forBasis: boolean): CompletionItem[] {
+  const previous = args[index - 1]?.text;
+  if (index <= first - 1) return [];
+  if (previous === 'all') return elementItems(analysis).slice(0, new Set(analysis.model.atoms.map((a) => a.element.symbol)).size || 20);
+  if (previous === 'closer-than') return [];
+  if (args[index - 2]?.text === 'closer-than') return [keywordItem(SELECTOR_WORDS.find((term) => term.name === 'to')!)];
+  // `closer-than <d> to` names one atom: selector words do not belong there.
+  if (previous === 'to' && args[index - 3]?.text === 'closer-than') return labelItems(analysis);
+  if (forBasis && previous === 'fragment') return fragmentItems(analysis);
+  const words = forBasis ? [...SELECTOR_TERMS.filter((term) => term.name !== 'rest'), BASIS_TARGET_WORDS.find((term) => term.name === 'fragment')!] : SELECTOR_TERMS;
+  return [...labelItems(analysis), ...terms(words, CompletionItemKind.Keyword)];
+}
+
+/** The elements of the atoms an override line selects, so that its basis list ranks by them. */
+function overrideElements(analysis: DocumentAnalysis, statement: Statement): string[] | undefined {
+  const line = analysis.model.basis.overrides.find((override) => override.ast.statement === statement);
+  if (!line || line.atomRanks.size === 0) return undefined;
+  return [...new Set([...line.atomRanks.keys()].map((atom) => analysis.model.atoms[atom]!.element.symbol))];
+}
+
 function tierLevelOf(context: CursorContext): TierLevel | undefined {
   const tier = [...context.parents].reverse().find((statement) => statement.keyword.text === 'tier');
   const level = tier?.args[0]?.text;
@@ -101,13 +136,16 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
   const index = context.argumentIndex;
   const previous = statement.args[index - 1]?.text;
   const block: BlockKind = context.block;
-  if (block === 'basis' && statement.args[0]?.kind === 'equals' && index === 1) return basisItems(analysis, [statement.keyword.text]);
-  if (block === 'geometry') return [];
+  if (block === 'structure') return [];
   switch (keyword) {
-    case 'units':
-      return index === 0 ? terms(UNIT_TERMS, CompletionItemKind.EnumMember) : [];
+    case 'structure':
+      if (index === 0) return ['in', 'from'].map((word) => ({ label: word, kind: CompletionItemKind.Keyword, detail: word === 'in' ? 'structure in bohr { … }: the length unit' : 'structure from "file.xyz": atoms from an XYZ file (ångström)' }));
+      return index === 1 && previous === 'in' ? terms(UNIT_TERMS, CompletionItemKind.EnumMember) : [];
     case 'basis':
-      return block === 'top' && index === 0 ? basisItems(analysis) : [];
+      if (block !== 'top') return [];
+      if (index === 0) return basisItems(analysis, overrideElements(analysis, statement));
+      if (index === 1) return [keywordItem(BASIS_TARGET_WORDS.find((term) => term.name === 'on')!)];
+      return statement.args[1]?.text === 'on' ? selectorItems(analysis, statement.args, index, 2, true) : [];
     case 'functions':
       return index === 0 ? terms(FUNCTION_TERMS, CompletionItemKind.EnumMember) : [];
     case 'frozen-core':
@@ -131,12 +169,7 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
       return multiplicityItems((fragment?.space ?? analysis.model.system).electrons);
     }
     case 'atoms':
-      if (previous === 'all') return elementItems(analysis).slice(0, new Set(analysis.model.atoms.map((a) => a.element.symbol)).size || 20);
-      if (previous === 'within') return [];
-      if (statement.args[index - 2]?.text === 'within') return [{ label: 'of', kind: CompletionItemKind.Keyword }];
-      // `within <d> of` names one atom: selector words do not belong there.
-      if (previous === 'of' && statement.args[index - 3]?.text === 'within') return labelItems(analysis);
-      return [...labelItems(analysis), ...terms(SELECTOR_WORDS, CompletionItemKind.Keyword)];
+      return selectorItems(analysis, statement.args, index, 0, false);
     case 'scan': {
       if (index === 0) return terms(SCAN_KINDS, CompletionItemKind.EnumMember);
       if (index === 1 || index === 2) return labelItems(analysis);
@@ -157,8 +190,7 @@ export function doComplete(analysis: DocumentAnalysis, position: Position): Comp
   const atStatementStart = !context.statement || context.token?.index === -1;
   let items: CompletionItem[];
   if (atStatementStart) {
-    if (context.block === 'geometry') items = elementItems(analysis);
-    else if (context.block === 'basis') items = [...keywordItems(context, analysis), ...elementItems(analysis).slice(0, 10).map((item) => ({ ...item, insertText: `${item.label} = `, detail: `per-element basis for ${item.detail}` }))];
+    if (context.block === 'structure') items = elementItems(analysis);
     else items = keywordItems(context, analysis);
   } else {
     items = valueItems(context, analysis);

@@ -1,6 +1,7 @@
 /**
  * The formatter: two-space indentation by block depth, single spaces between tokens, and
- * geometry blocks aligned in columns with coordinates at one fixed number of decimals per block.
+ * structure blocks (`structure { … }`, `structure in bohr { … }`, and the retired keyword's blocks)
+ * aligned in columns with coordinates at one fixed number of decimals per block.
  * It keeps every line where it is (so range formatting is a matter of lines), never changes a
  * number's value, leaves lines it cannot read untouched, and running it twice changes nothing.
  */
@@ -197,7 +198,7 @@ export function formatLines(original: string, options: FormatOptions = {}): stri
     else if (tokens.length === 0 && !line.comment) result[index] = '';
     else result[index] = withComment(unit.repeat(level) + joinTokens(tokens), line.comment, line.commentColumn).trimEnd();
     for (const token of tokens) {
-      if (token.tokenType === Word && token.image === 'geometry') pendingGeometry = true;
+      if (token.tokenType === Word && (token.image === 'structure' || token.image === 'geometry')) pendingGeometry = true;
       else if (token.tokenType === LBrace) {
         blocks.push(pendingGeometry);
         pendingGeometry = false;

@@ -1,22 +1,28 @@
 /**
- * Hover cards: fragments (their resource figures), atoms, basis sets, and every keyword and value
- * word of the language.
+ * Hover cards: fragments (their resource figures), atoms, basis sets and basis lines (which atoms
+ * take which basis), and every keyword and value word of the language, with the structure's length
+ * unit where a distance is read in it.
  */
+import { markdownText } from '../report/format/escape';
 import { MarkupKind, type Hover } from 'vscode-languageserver-types';
 import { findBasisSet, type BasisSet } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
 import { nearestAtoms } from '../chemistry/geometry';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import type { DocumentAnalysis } from '../analysis';
+import { describeTarget } from '../language/ast';
 import { claimsOf, type AtomModel } from '../language/model';
-import type { Argument } from '../language/syntax';
+import type { Argument, Statement } from '../language/syntax';
 import {
   ANSATZE,
+  BASIS_PRECEDENCE,
+  BASIS_TARGET_WORDS,
   EMBEDDINGS,
   FUNCTION_TERMS,
   findKeyword,
   MAPPING_TERMS,
   METHODS,
+  RETIRED_SPELLINGS,
   SCAN_KINDS,
   SELECTOR_WORDS,
   SWITCH_TERMS,
@@ -43,7 +49,7 @@ function neighbours(analysis: DocumentAnalysis, atom: number, limit: number): { 
 }
 
 function atomTitle(atom: AtomModel): string {
-  return atom.label ? `${atom.label} (#${atom.index + 1})` : `#${atom.index + 1}`;
+  return atom.label ? `${markdownText(atom.label)} (#${atom.index + 1})` : `#${atom.index + 1}`;
 }
 
 export function atomCard(analysis: DocumentAnalysis, index: number): string {
@@ -64,6 +70,9 @@ export function atomCard(analysis: DocumentAnalysis, index: number): string {
     `| fragment | ${fragments.length > 0 ? fragments.join(', ') : 'none'} |`,
     `| covalent radius | ${atom.element.covalentRadius?.toFixed(2) ?? '–'} Å (Cordero et al. 2008) |`,
   ];
+  const basis = model.basis.atomSets[index];
+  const line = model.basis.decidedBy[index]!;
+  if (basis) lines.push(`| basis | ${basis.displayName}${line >= 0 ? ` (\`on ${model.basis.overrides[line]!.ast.targets.map(describeTarget).join(' ')}\`)` : ' (main line)'} |`);
   if (atom.source) lines.push(`| read from | line ${atom.source.line + 1} of \`${atom.source.file.split('/').pop()}\` |`);
   lines.push(
     `| nearest | ${near.length > 0 ? near.map((n) => `${atomTitle(model.atoms[n.atom]!)} ${model.atoms[n.atom]!.element.symbol} ${n.distance.toFixed(3)} Å`).join(', ') : `none within ${NEIGHBOUR_RADIUS} Å`} |`,
@@ -107,6 +116,45 @@ export function basisCard(analysis: DocumentAnalysis, basis: BasisSet): string {
   ].join('\n');
 }
 
+/** `ångström` or `bohr`: the unit the structure's distances are read in. */
+function unitName(analysis: DocumentAnalysis): string {
+  return analysis.model.units === 'bohr' ? 'bohr' : 'ångström';
+}
+
+function atomList(analysis: DocumentAnalysis, atoms: readonly number[]): string {
+  const names = atoms.map((atom) => analysis.model.atoms[atom]!).map((atom) => atom.label ?? `#${atom.index + 1}`);
+  return names.length <= 12 ? names.join(', ') : `${names.slice(0, 12).join(', ')} and ${names.length - 12} more`;
+}
+
+/**
+ * What a basis line does: for the main line, how many atoms keep it and which override lines take
+ * the others; for an override, the atoms it gives its basis to and those it selects that another
+ * line decides.
+ */
+export function basisLineCard(analysis: DocumentAnalysis, statement: Statement): string | undefined {
+  const { basis } = analysis.model;
+  const lines: string[] = [];
+  if (analysis.ast.basis?.statement === statement) {
+    const kept = analysis.model.atoms.filter((atom) => basis.decidedBy[atom.index] === -1).length;
+    lines.push(`Main basis: ${kept} of ${analysis.model.atoms.length} atoms take it.`);
+    basis.overrides.forEach((line, index) => {
+      const decided = analysis.model.atoms.filter((atom) => basis.decidedBy[atom.index] === index).map((atom) => atom.index);
+      if (line.set && decided.length > 0) lines.push(`- ${line.set.displayName} on ${line.ast.targets.map(describeTarget).join(' ')}: ${decided.length} atom${decided.length === 1 ? '' : 's'}`);
+    });
+  } else {
+    const index = basis.overrides.findIndex((line) => line.ast.statement === statement);
+    const line = basis.overrides[index];
+    if (!line) return undefined;
+    const selected = [...line.atomRanks.keys()].sort((a, b) => a - b);
+    const decided = selected.filter((atom) => basis.decidedBy[atom] === index);
+    const elsewhere = selected.filter((atom) => basis.decidedBy[atom] !== index);
+    lines.push(`Override: ${line.set?.displayName ?? `'${line.ast.name?.value ?? '?'}' (not in the library)`} for ${decided.length} atom${decided.length === 1 ? '' : 's'}${decided.length > 0 ? `: ${atomList(analysis, decided)}` : ''}.`);
+    if (elsewhere.length > 0) lines.push('', `Selected but decided by another line: ${atomList(analysis, elsewhere)}.`);
+  }
+  lines.push('', BASIS_PRECEDENCE);
+  return lines.join('\n');
+}
+
 function termCard(term: TermInfo, kind: string): string {
   return [
     `**${term.name}** · ${kind}`,
@@ -119,7 +167,8 @@ function termCard(term: TermInfo, kind: string): string {
 
 /** The value words of each statement, for hover on the word after a keyword. */
 const VALUE_TERMS: Readonly<Record<string, { terms: readonly TermInfo[]; kind: string }>> = {
-  units: { terms: UNIT_TERMS, kind: 'length unit' },
+  structure: { terms: UNIT_TERMS, kind: 'length unit' },
+  basis: { terms: [...BASIS_TARGET_WORDS, ...SELECTOR_WORDS], kind: 'basis selection' },
   functions: { terms: FUNCTION_TERMS, kind: 'function type' },
   tier: { terms: TIER_LEVELS, kind: 'solver tier' },
   method: { terms: METHODS, kind: 'method' },
@@ -154,7 +203,7 @@ export function atomAt(analysis: DocumentAnalysis, context: CursorContext): numb
   if (!token) return undefined;
   const reference = analysis.model.atomReferences.find((ref) => ref.span.start === token.node.span.start && ref.span.end === token.node.span.end);
   if (reference) return reference.atom;
-  if (context.block === 'geometry' && (token.index === -1 || (token.index === 0 && token.node.kind === 'word'))) return atomAtLine(analysis, token.node.span.start);
+  if (context.block === 'structure' && (token.index === -1 || (token.index === 0 && token.node.kind === 'word'))) return atomAtLine(analysis, token.node.span.start);
   return undefined;
 }
 
@@ -172,7 +221,13 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
 
   if (token.index === -1) {
     const keyword = findKeyword(keywordText, context.block);
-    return keyword ? markdown(`**${keyword.name}**\n\n${keyword.summary}\n\n\`${keyword.syntax}\``, analysis, token.node) : null;
+    if (keyword) {
+      const unit = keyword.name === 'structure' || keyword.name === 'scan' ? `\n\nLength unit of this spec: ${unitName(analysis)}.` : '';
+      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : undefined;
+      return markdown(`**${keyword.name}**\n\n${keyword.summary}\n\n\`${keyword.syntax}\`${unit}${line ? `\n\n${line}` : ''}`, analysis, token.node);
+    }
+    const retired = context.block === 'top' ? RETIRED_SPELLINGS.find((entry) => entry.name === keywordText || (entry.name === 'basis block' && keywordText === 'basis')) : undefined;
+    return retired ? markdown(`**${keywordText}** · old spelling\n\n${retired.summary}\n\nWrite \`${retired.now}\`; the quick fix rewrites it.`, analysis, token.node) : null;
   }
 
   if (context.block === 'top' && keywordText === 'fragment' && token.index === 0) {
@@ -182,14 +237,22 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
       return markdown(`${fragmentCard(analysis, fragment.index)}\n\n---\n\n${meanFieldSection(analysis, part, policy)}`, analysis, token.node);
     }
   }
-  if ((context.block === 'top' && keywordText === 'basis' && token.index === 0) || (context.block === 'basis' && token.index === 1)) {
+  if (context.block === 'top' && keywordText === 'basis' && token.index === 0) {
     const basis = findBasisSet(token.node.text);
-    if (basis) return markdown(basisCard(analysis, basis), analysis, token.node);
+    const line = basisLineCard(analysis, statement);
+    if (basis) return markdown(`${basisCard(analysis, basis)}${line ? `\n\n---\n\n${line}` : ''}`, analysis, token.node);
+  }
+  if (context.block === 'top' && keywordText === 'basis' && token.index === 1 && token.node.text === 'on') {
+    const line = basisLineCard(analysis, statement);
+    if (line) return markdown(line, analysis, token.node);
   }
   const values = VALUE_TERMS[keywordText];
   if (values && token.node.kind === 'word') {
     const term = values.terms.find((t) => t.name === token.node.text.toLowerCase());
-    if (term) return markdown(termCard(term, values.kind), analysis, token.node);
+    if (term) {
+      const unit = term.name === 'closer-than' ? `\n\nHere d is in ${unitName(analysis)}, the structure's unit.` : '';
+      return markdown(`${termCard(term, values.kind)}${unit}`, analysis, token.node);
+    }
   }
   return null;
 }

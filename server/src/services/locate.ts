@@ -20,11 +20,16 @@ export interface CursorContext {
   readonly argumentIndex: number;
 }
 
-/** The block kind a statement's block has, given the kind of block the statement stands in. */
+/**
+ * The block kind a statement's block has, given the kind of block the statement stands in. The
+ * retired `geometry` opens a structure block; the retired basis block is no block of the language
+ * now (its lines are read as top-level statements would be).
+ */
 export function innerBlockKind(statement: Statement, outer: BlockKind): BlockKind | undefined {
   const word = statement.keyword.text;
   if (outer === 'top') {
-    if (word === 'basis' || word === 'geometry' || word === 'fragment' || word === 'limits') return word;
+    if (word === 'structure' || word === 'geometry') return 'structure';
+    if (word === 'fragment' || word === 'limits') return word;
     return undefined;
   }
   if (outer === 'fragment' && word === 'tier') return 'tier';

@@ -1,6 +1,7 @@
 /**
  * Go to definition, find references, rename and document highlights for atom labels (defined in
- * the geometry, referenced by selectors and scans) and fragment names.
+ * the structure, referenced by selectors, basis lines and scans) and fragment names (referenced by
+ * `basis … on fragment <name>`).
  */
 import { DocumentHighlightKind, type DocumentHighlight, type Location, type Position, type Range, type TextEdit, type WorkspaceEdit } from 'vscode-languageserver-types';
 import type { DocumentAnalysis } from '../analysis';
@@ -38,11 +39,19 @@ export function occurrencesAt(analysis: DocumentAnalysis, position: Position): S
       indexReferences: uses.filter((ref) => ref.kind === 'index').map((ref) => ref.span),
     };
   }
-  const fragment = model.fragments.find((f) => f.ast.name && f.ast.name.span.start === token.node.span.start);
+  const uses = fragmentReferences(analysis);
+  const used = uses.find((use) => use.span.start === token.node.span.start);
+  const fragment = model.fragments.find((f) => f.ast.name && (f.ast.name.span.start === token.node.span.start || f.name === used?.name));
   if (fragment?.ast.name) {
-    return { kind: 'fragment', name: fragment.name, definition: fragment.ast.name.span, references: [], indexReferences: [] };
+    const references = uses.filter((use) => use.name === fragment.name).map((use) => use.span);
+    return { kind: 'fragment', name: fragment.name, definition: fragment.ast.name.span, references, indexReferences: [] };
   }
   return undefined;
+}
+
+/** `on fragment <name>` in basis lines: where fragment names are used. */
+function fragmentReferences(analysis: DocumentAnalysis): { name: string; span: Span }[] {
+  return analysis.ast.basisOverrides.flatMap((line) => line.targets.flatMap((target) => (target.kind === 'fragment' ? [{ name: target.name.value, span: target.name.span }] : [])));
 }
 
 export function findDefinition(analysis: DocumentAnalysis, uri: string, position: Position): Location | null {
@@ -67,8 +76,8 @@ export function findDocumentHighlights(analysis: DocumentAnalysis, position: Pos
 }
 
 const NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
-/** Words that `atoms` reads as selectors: a label spelt like one would stop naming its atom there. */
-const SELECTOR_WORDS = new Set(['rest', 'all', 'within']);
+/** Words that `atoms` and basis lines read as selectors: a label spelt like one would stop naming its atom there. */
+const SELECTOR_WORDS = new Set(['rest', 'all', 'fragment', 'within']);
 
 export type RenameCheck = { ok: true; range: Range; placeholder: string } | { ok: false; message: string };
 

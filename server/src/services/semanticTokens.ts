@@ -18,7 +18,8 @@ const DECLARATION = 1;
 
 /** Value words: the word after these keywords is one of a closed list. */
 const VALUE_KEYWORDS = new Set(['tier', 'method', 'ansatz', 'mapping', 'embedding', 'functions', 'frozen-core', 'taper']);
-const SELECTOR_KEYWORDS = new Set(['rest', 'all', 'within', 'of']);
+/** Selector words of `atoms` and of basis lines after `on` (the retired `within … of` too, so old specs colour alike). */
+const SELECTOR_KEYWORDS = new Set(['rest', 'all', 'closer-than', 'to', 'within', 'of']);
 const SCAN_KEYWORDS = new Set(['from', 'to', 'step', 'points']);
 
 /** Tokens as flat (start offset, length, type, modifiers) quadruples, in document order. */
@@ -61,15 +62,9 @@ class TokenCollector {
 function statementTokens(out: TokenCollector, statement: Statement, block: BlockKind): void {
   const head = statement.keyword;
   const word = head.text;
-  if (block === 'geometry') {
+  if (block === 'structure') {
     if (head.kind === 'word') out.add(head, 'type');
     statement.args.forEach((arg, index) => (index === 0 && arg.kind === 'word' ? out.add(arg, 'variable', DECLARATION) : out.plain(arg)));
-    return;
-  }
-  if (block === 'basis' && statement.args[0]?.kind === 'equals') {
-    out.add(head, 'type');
-    out.add(statement.args[0], 'operator');
-    if (statement.args[1]) out.add(statement.args[1], 'namespace');
     return;
   }
   if (head.kind === 'word' && findKeyword(word, block)) out.add(head, 'keyword');
@@ -78,9 +73,15 @@ function statementTokens(out: TokenCollector, statement: Statement, block: Block
     if (arg.kind !== 'word') return out.plain(arg);
     if (word === 'fragment' && index === 0) return out.add(arg, 'class', DECLARATION);
     if (word === 'basis' && index === 0) return out.add(arg, 'namespace');
+    if (word === 'basis') {
+      if (index === 1 && arg.text === 'on') return out.add(arg, 'keyword');
+      if (arg.text === 'fragment') return out.add(arg, 'keyword');
+      if (statement.args[index - 1]?.text === 'fragment') return out.add(arg, 'class');
+    }
+    if (word === 'structure') return out.add(arg, arg.text === 'in' || arg.text === 'from' ? 'keyword' : 'unit');
     if (word === 'units' || word === 'memory') return out.add(arg, 'unit');
     if (VALUE_KEYWORDS.has(word) && index === 0) return out.add(arg, 'enumMember');
-    if (word === 'atoms') {
+    if (word === 'atoms' || word === 'basis') {
       if (SELECTOR_KEYWORDS.has(arg.text)) return out.add(arg, 'keyword');
       if (statement.args[index - 1]?.text === 'all') return out.add(arg, 'type');
       return out.add(arg, 'variable');
@@ -105,12 +106,12 @@ function walk(out: TokenCollector, statements: readonly Statement[], block: Bloc
       let other = 0;
       for (let i = 0; i < table.count; i++) {
         // Lines the general parser read go in their place, so the tokens stay in document order.
-        while (other < others.length && others[other]!.span.start < table.lineStart[i]!) statementTokens(out, others[other++]!, 'geometry');
+        while (other < others.length && others[other]!.span.start < table.lineStart[i]!) statementTokens(out, others[other++]!, 'structure');
         out.push(table.lineStart[i]!, table.elementEnd[i]! - table.lineStart[i]!, type, 0);
         if (table.labelStart[i]! >= 0) out.push(table.labelStart[i]!, table.labelEnd[i]! - table.labelStart[i]!, variable, DECLARATION);
         for (let k = 0; k < 3; k++) out.push(table.coordinateStart[3 * i + k]!, table.coordinateEnd[3 * i + k]! - table.coordinateStart[3 * i + k]!, number, 0);
       }
-      while (other < others.length) statementTokens(out, others[other++]!, 'geometry');
+      while (other < others.length) statementTokens(out, others[other++]!, 'structure');
       continue;
     }
     statementTokens(out, statement, block);

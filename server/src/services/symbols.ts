@@ -1,4 +1,4 @@
-/** The outline of a spec (geometry, basis, fragments, scan, limits) and workspace symbols. */
+/** The outline of a spec (structure, basis lines, fragments, scan, limits) and workspace symbols. */
 import { SymbolKind, type DocumentSymbol, type SymbolInformation } from 'vscode-languageserver-types';
 import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
@@ -8,6 +8,7 @@ import { toRange } from './positions';
 const KINDS: Readonly<Record<string, SymbolKind>> = {
   spec: SymbolKind.File,
   basis: SymbolKind.Module,
+  structure: SymbolKind.Struct,
   geometry: SymbolKind.Struct,
   fragment: SymbolKind.Class,
   embedding: SymbolKind.Property,
@@ -18,8 +19,9 @@ const KINDS: Readonly<Record<string, SymbolKind>> = {
 function detailOf(analysis: DocumentAnalysis, statement: Statement): string {
   const model = analysis.model;
   switch (statement.keyword.text) {
+    case 'structure':
     case 'geometry':
-      return `${model.atoms.length} atoms`;
+      return `${model.atoms.length} atoms, ${model.units === 'bohr' ? 'bohr' : 'ångström'}`;
     case 'fragment': {
       const fragment = model.fragments.find((f) => f.ast.statement === statement);
       if (!fragment) return '';

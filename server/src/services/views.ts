@@ -10,11 +10,71 @@ import { structureData, UNASSIGNED_COLOUR, type StructureData } from '../report/
 import { locate } from './locate';
 import { toOffset } from './positions';
 
+/**
+ * What the editor's views accept: the same numbers client/src/views/protocol.ts checks (the test
+ * tests/extension/views-limits.test.ts keeps them equal), so that nothing the server sends is
+ * dropped there. Text beyond a limit is shortened here with '…'; a structure beyond a count limit
+ * is not sent, and the view shows why, with the numbers, instead.
+ */
+export const VIEW_LIMITS = {
+  atoms: 100_000,
+  bonds: 400_000,
+  fragments: 10_000,
+  scanPoints: 100_000,
+  /** Spec name, titles, notes. */
+  text: 1_000,
+  fragmentName: 200,
+  label: 100,
+  tier: 100,
+  cost: 200,
+} as const;
+
+/** What a view request answers when the spec is beyond what the view shows. */
+export interface ViewUnavailable {
+  unavailable: string;
+}
+
+function shortened(text: string, limit: number): string {
+  return text.length <= limit ? text : `${text.slice(0, limit - 1)}…`;
+}
+
+function countsBeyond(counts: readonly [string, number, number][]): string | undefined {
+  const beyond = counts.filter(([, count, limit]) => count > limit);
+  if (beyond.length === 0) return undefined;
+  return beyond.map(([what, count, limit]) => `${count.toLocaleString('en-US')} ${what}, more than the ${limit.toLocaleString('en-US')} the view shows`).join('; ');
+}
+
 /** The structure data with the colour of atoms in no fragment, so that the view need not know it. */
 export type StructureView = StructureData & { unassignedColour: string; note: string };
 
+/** What `tessera/structure` answers: the structure, or why the view cannot show it. */
+export function structureAnswer(analysis: DocumentAnalysis): StructureView | ViewUnavailable {
+  const model = analysis.model;
+  const beyond = countsBeyond([
+    ['atoms', model.atoms.length, VIEW_LIMITS.atoms],
+    ['bonds', model.contacts.bonds.length, VIEW_LIMITS.bonds],
+    ['fragments', model.fragments.length, VIEW_LIMITS.fragments],
+    ['scan points', model.scan?.distances.length ?? 0, VIEW_LIMITS.scanPoints],
+  ]);
+  return beyond ? { unavailable: `This spec is too large for the structure view: ${beyond}.` } : structureOf(analysis);
+}
+
+/** The structure of a spec for the view, its text shortened to the view's limits. */
 export function structureOf(analysis: DocumentAnalysis): StructureView {
-  return { ...structureData(analysis), unassignedColour: UNASSIGNED_COLOUR, note: PLANNING_NOTE };
+  const data = structureData(analysis);
+  return {
+    ...data,
+    spec: data.spec === null ? null : shortened(data.spec, VIEW_LIMITS.text),
+    atoms: data.atoms.map((atom) => (atom.label !== null && atom.label.length > VIEW_LIMITS.label ? { ...atom, label: shortened(atom.label, VIEW_LIMITS.label) } : atom)),
+    fragments: data.fragments.map((fragment) => ({
+      ...fragment,
+      name: shortened(fragment.name, VIEW_LIMITS.fragmentName),
+      tier: fragment.tier === null ? null : shortened(fragment.tier, VIEW_LIMITS.tier),
+      cost: shortened(fragment.cost, VIEW_LIMITS.cost),
+    })),
+    unassignedColour: UNASSIGNED_COLOUR,
+    note: PLANNING_NOTE,
+  };
 }
 
 export interface CostPlots {
@@ -39,6 +99,12 @@ export function growthFragments(analysis: DocumentAnalysis): { index: number; na
  * The cost plots of a spec. The growth chart shows `fragment` when it can be plotted, otherwise the
  * first fragment that can (the quantum fragment needing the most qubits, when there is one).
  */
+/** What `tessera/costs` answers: the plots, or why the panel cannot show them. */
+export function costsAnswer(analysis: DocumentAnalysis, fragment?: number | null): CostPlots | ViewUnavailable {
+  const beyond = countsBeyond([['fragments', analysis.model.fragments.length, VIEW_LIMITS.fragments]]);
+  return beyond ? { unavailable: `This spec is too large for the cost plots: ${beyond}.` } : costPlots(analysis, fragment);
+}
+
 export function costPlots(analysis: DocumentAnalysis, fragment?: number | null): CostPlots {
   const report = analysis.report();
   const fragments = growthFragments(analysis);
@@ -52,9 +118,9 @@ export function costPlots(analysis: DocumentAnalysis, fragment?: number | null):
       ? growthChartSvg([], report.fragments.length > 0 ? 'no sized fragment' : 'no fragments')
       : growthChartSvg(analysis.growth(selected), report.fragments[selected]!.name);
   return {
-    spec: report.spec.name,
+    spec: report.spec.name === null ? null : shortened(report.spec.name, VIEW_LIMITS.text),
     svg: { qubits: qubitsChartSvg(report), growth, scan: scanChartSvg(report) },
-    fragments,
+    fragments: fragments.map((entry) => ({ index: entry.index, name: shortened(entry.name, VIEW_LIMITS.fragmentName) })),
     selected,
     note: PLANNING_NOTE,
   };

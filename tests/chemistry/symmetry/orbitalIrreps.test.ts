@@ -13,6 +13,7 @@ import {
   fragmentOrbitalIrreps,
   OPERATION_SIGNS,
   orbitalIrreps,
+  orbitalSymmetry,
   rotationCharacter,
   shellCharacter,
   type OperationName,
@@ -259,5 +260,25 @@ describe('fragments', () => {
     const fragment = fragmentOrbitalIrreps(pair.numbers, pair.coordinates, [0, 1, 2], shellsOf('sto-3g', pair.numbers), 'spherical');
     expect(fragment.symmetry.fullGroup).toBe('C2v');
     expect(Object.fromEntries(fragment.orbitals.irreps.map((irrep) => [irrep.label, irrep.count]))).toEqual({ A1: 4, A2: 0, B1: 1, B2: 2 });
+  });
+});
+
+describe('a basis that breaks the symmetry of the geometry', () => {
+  // Two copies of the water, the second moved 3 Å along x (by construction): a C2 axis and a mirror
+  // exchange the two molecules, so the geometry is C2v (Cotton 1990, ch. 3) with o1 and o2 equivalent.
+  const pair = M.molecule('water pair', [
+    ...M.water.symbols.map((symbol, i): [string, number, number, number] => [symbol, M.water.coordinates[3 * i]!, M.water.coordinates[3 * i + 1]!, M.water.coordinates[3 * i + 2]!]),
+    ...M.water.symbols.map((symbol, i): [string, number, number, number] => [symbol, M.water.coordinates[3 * i]! + 3, M.water.coordinates[3 * i + 1]!, M.water.coordinates[3 * i + 2]!]),
+  ]);
+  const atoms = (shells: (ShellCounts | undefined)[]) => ({ numbers: pair.numbers, positions: pair.coordinates, shells, coreShells: undefined, functions: 'spherical' as const });
+
+  it('keeps the point group when the equivalent atoms have the same basis', () => {
+    expect(orbitalSymmetry(atoms(shellsOf('cc-pvdz', pair.numbers)))?.group).toBe('C2v');
+  });
+
+  it('counts without symmetry when one oxygen has another basis (the operations that swap the oxygens are no symmetry of the basis)', () => {
+    const shells = shellsOf('cc-pvdz', pair.numbers);
+    shells[0] = findBasisSet('cc-pvtz')!.shellsFor('O');
+    expect(orbitalSymmetry(atoms(shells))).toBeUndefined();
   });
 });

@@ -1,6 +1,7 @@
 /** The whole estimate report of a document, assembled from the per-part figures it already holds. */
+import { describeTarget } from '../../language/ast';
 import type { Analysis } from '../../language/analyze';
-import { CONVENTIONS, PLANNING_NOTE, type EstimateReport, type FragmentFigures, type ScanTotals, type SystemFigures } from './types';
+import { CONVENTIONS, PLANNING_NOTE, type BasisOverrideFigure, type EstimateReport, type FragmentFigures, type ScanTotals, type SystemFigures } from './types';
 
 export interface ReportParts {
   readonly analysis: Pick<Analysis, 'ast' | 'model' | 'path'>;
@@ -16,11 +17,16 @@ export function scanTotals(points: number, fragments: readonly FragmentFigures[]
   return { fragmentCalculations: points * withTier, measurementCircuits: points * groups, peakQubits: qubits.length > 0 ? qubits.reduce((most, q) => Math.max(most, q), -Infinity) : null };
 }
 
-/** The basis as the report names it: the main set, the per-element overrides, the function type. */
+/** The basis as the report names it: the main set, the override lines that decide atoms, the function type. */
 export function basisFigures(analysis: Pick<Analysis, 'ast' | 'model'>): EstimateReport['basis'] {
   const { model, ast } = analysis;
-  const overrides: Record<string, string> = {};
-  for (const [symbol, set] of model.basis.overrides) overrides[symbol] = set.displayName;
+  const decided = new Map<number, number>();
+  for (const line of model.basis.decidedBy) if (line >= 0) decided.set(line, (decided.get(line) ?? 0) + 1);
+  const overrides: BasisOverrideFigure[] = [];
+  model.basis.overrides.forEach((line, index) => {
+    const atoms = decided.get(index) ?? 0;
+    if (line.set && atoms > 0) overrides.push({ basis: line.set.displayName, on: line.ast.targets.map(describeTarget).join(' '), atoms });
+  });
   return { name: model.basis.main?.displayName ?? ast.basis?.name?.value ?? null, overrides, functions: model.basis.functions };
 }
 

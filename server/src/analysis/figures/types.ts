@@ -86,11 +86,21 @@ export interface FragmentFigures extends SpaceFigures {
 
 export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null };
 
+export interface BasisOverrideFigure {
+  basis: string;
+  on: string;
+  atoms: number;
+}
+
 export interface EstimateReport {
   tool: 'tessera';
   note: string;
   spec: { name: string | null; path: string | null };
-  basis: { name: string | null; overrides: Record<string, string>; functions: 'spherical' | 'cartesian' };
+  /**
+   * The main basis, the override lines that decide at least one atom (`on` as written, `atoms`
+   * how many atoms take the line's basis), and the function type.
+   */
+  basis: { name: string | null; overrides: BasisOverrideFigure[]; functions: 'spherical' | 'cartesian' };
   embedding: string;
   conventions: typeof CONVENTIONS;
   system: SystemFigures;

@@ -1,4 +1,5 @@
 /** `tessera check <files…> [--format text|json]`: diagnostics for each spec. */
+import { safeJsonStringify } from '../../language/printable';
 import * as path from 'node:path';
 import { analyzeDocument } from '../../analysis';
 import { readTextFile } from '../../language/files';
@@ -56,7 +57,7 @@ export function runCheck(options: CheckOptions, io: CliIo): number {
     }
   }
   if (options.format === 'json') {
-    io.stdout(`${JSON.stringify({ files: results, errors, warnings, unreadable, failed }, null, 2)}\n`);
+    io.stdout(`${safeJsonStringify({ files: results, errors, warnings, unreadable, failed }, 2)}\n`);
   } else {
     const notes = [unreadable > 0 ? `${unreadable} unreadable` : '', failed > 0 ? `Tessera failed on ${failed} (a bug; see above)` : ''].filter(Boolean);
     io.stderr(`${summaryLine(errors, warnings, options.files.length - unreadable)}${notes.length > 0 ? `; ${notes.join('; ')}` : ''}\n`);

@@ -2,6 +2,7 @@
  * `tessera estimate <spec>` and `tessera estimate --xyz <file> --basis <name> ...`: the counts for
  * the system and each fragment, as a table, Markdown or JSON.
  */
+import { safeJsonStringify } from '../../language/printable';
 import * as path from 'node:path';
 import { normalizeBasisName } from '../../chemistry/basis/library';
 import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
@@ -58,12 +59,12 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
   const lines = [
     `# generated from ${path.basename(file)}`,
     `spec "${path.basename(file).replace(/["\\\n]/g, '')}"`,
-    'units angstrom',
     `charge ${options.charge ?? 0}`,
     ...(options.multiplicity !== undefined ? [`multiplicity ${options.multiplicity}`] : []),
     `frozen-core ${options.frozenCore ? 'on' : 'off'}`,
-    `basis ${normalizeBasisName(options.basis).replace(/\s+/g, '')}${options.functions ? ` { functions ${options.functions} }` : ''}`,
-    'geometry {',
+    `basis ${normalizeBasisName(options.basis).replace(/\s+/g, '')}`,
+    ...(options.functions ? [`functions ${options.functions}`] : []),
+    'structure {',
   ];
   const firstAtomLine = lines.length;
   for (const atom of xyz.atoms) {
@@ -110,7 +111,7 @@ export function runEstimate(options: EstimateOptions, io: CliIo): number {
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
   if (options.format === 'json') {
-    io.stdout(`${JSON.stringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, null, 2)}\n`);
+    io.stdout(`${safeJsonStringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, 2)}\n`);
   } else {
     io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
     for (const diagnostic of prepared.diagnostics) {

@@ -5,6 +5,7 @@
  * in bohr (layout in report/export/qcschema.ts). A spec with errors is not exported: the
  * diagnostics go to standard error and the exit code is 1, so that no half-checked geometry leaves.
  */
+import { safeJsonStringify } from '../../language/printable';
 import { buildQcSchemaExport } from '../../report/export/qcschema';
 import { renderXyz } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
@@ -40,7 +41,7 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
     text =
       options.to === 'xyz'
         ? renderXyz(data, { title, version: VERSION })
-        : `${JSON.stringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), null, 2)}\n`;
+        : `${safeJsonStringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`;
   } catch (error) {
     if (!(error instanceof RangeError)) throw error;
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);

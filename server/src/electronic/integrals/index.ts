@@ -19,4 +19,5 @@ export {
   type JkStatistics,
   type TwoElectronOptions,
 } from './twoElectron';
-export { UnsupportedEcpError, assertNoEcp } from './ecp';
+export { UnsupportedEcpError, assertEcpSupported, MAX_ECP_PROJECTOR_L } from './ecpSupport';
+export { ecpMatrix, ecpBlock, EcpIntegrals, ECP_SCREENING_THRESHOLD, type EcpOptions, type EcpStatistics } from './ecp';

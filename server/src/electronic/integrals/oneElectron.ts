@@ -13,12 +13,12 @@
  *   Coulomb integrals R (eqs. 9.9.18–9.9.20) from the Boys function (boys.ts).
  *
  * Point nuclei with the charge Center.charge (Z less the core electrons of an effective core
- * potential); a basis with effective core potentials is refused (ecp.ts).
+ * potential); the potentials themselves are integrated in ecp/ and added by coreHamiltonian.
  */
 import type { MolecularBasis, Shell } from '../contracts';
 import { cartesianCount, cartesianExponents } from '../basis/cartesian';
 import { boys } from './boys';
-import { assertNoEcp } from './ecp';
+import { ecpMatrix, type EcpOptions } from './ecp';
 import { functionTransform, transformFirstIndex, transformLastIndex } from './transform';
 
 export type OneElectronKind = 'overlap' | 'kinetic' | 'potential';
@@ -260,14 +260,12 @@ function pairBlock(kind: OneElectronKind, basis: MolecularBasis, p: number, q: n
  * the two shells. 'potential' is the attraction to the basis's nuclei (point charges Center.charge).
  */
 export function oneElectronBlock(kind: OneElectronKind, basis: MolecularBasis, p: number, q: number, out: Float64Array): void {
-  if (kind === 'potential') assertNoEcp(basis);
   const w = new OneElectronWorkspace(maxL(basis));
   pairBlock(kind, basis, p, q, nucleiOf(basis), w, out);
 }
 
 /** The full symmetric matrix (functionCount², row-major) of a one-electron operator. */
 export function oneElectronMatrix(kind: OneElectronKind, basis: MolecularBasis, charges?: readonly PointCharge[]): Float64Array {
-  if (kind === 'potential' && !charges) assertNoEcp(basis);
   const n = basis.functionCount;
   const matrix = new Float64Array(n * n);
   const w = new OneElectronWorkspace(maxL(basis));
@@ -302,19 +300,27 @@ export function kineticMatrix(basis: MolecularBasis): Float64Array {
 }
 
 /**
- * Nuclear-attraction matrix V of the basis's nuclei; refuses a basis with effective core potentials
- * (UnsupportedEcpError). With `charges`, the attraction to those point charges instead (for
- * embedding), which never involves an effective core potential.
+ * Nuclear-attraction matrix V of the basis's nuclei, with the charges the electrons feel
+ * (Center.charge: Z less the core an effective core potential replaces; the potential itself is
+ * not in V but in ecpMatrix, and coreHamiltonian adds both). With `charges`, the attraction to
+ * those point charges instead (for embedding).
  */
 export function nuclearAttractionMatrix(basis: MolecularBasis, charges?: readonly PointCharge[]): Float64Array {
   return oneElectronMatrix('potential', basis, charges);
 }
 
-/** Core Hamiltonian H = T + V. */
-export function coreHamiltonian(basis: MolecularBasis): Float64Array {
+/**
+ * Core Hamiltonian H = T + V + U_ECP (the effective core potentials of the basis, ecp/). Throws
+ * UnsupportedEcpError, naming the element, for a potential the ECP integrals cannot handle.
+ */
+export function coreHamiltonian(basis: MolecularBasis, options: EcpOptions = {}): Float64Array {
   const h = kineticMatrix(basis);
   const v = nuclearAttractionMatrix(basis);
   for (let k = 0; k < h.length; k++) h[k]! += v[k]!;
+  if (basis.ecps.length > 0) {
+    const u = ecpMatrix(basis, options);
+    for (let k = 0; k < h.length; k++) h[k]! += u[k]!;
+  }
   return h;
 }
 

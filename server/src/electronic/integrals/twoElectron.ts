@@ -18,7 +18,6 @@
  * the direct approach and its trade-offs).
  */
 import { throwIfCancelled, type CancelToken, type MolecularBasis, type TwoElectronIntegrals } from '../contracts';
-import { assertNoEcp } from './ecp';
 import { EriEngine } from './eri/engine';
 import { buildShellPairs, pairIndex, type ShellPairs } from './eri/shellPairs';
 
@@ -78,10 +77,9 @@ interface Storage {
 
 /**
  * Two-electron integrals over `basis`. Computes the shell-pair data and the Schwarz factors at
- * once; refuses a basis with effective core potentials (UnsupportedEcpError).
+ * once. (Effective core potentials are one-electron operators: they enter the core Hamiltonian.)
  */
 export function createTwoElectronIntegrals(basis: MolecularBasis, options: TwoElectronOptions = {}): DirectTwoElectronIntegrals {
-  assertNoEcp(basis);
   const pairs = buildShellPairs(basis);
   const engine = new EriEngine(basis, pairs);
   const schwarzValues = computeSchwarz(engine, pairs);

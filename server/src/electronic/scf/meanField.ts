@@ -3,7 +3,7 @@
  * integrals (electronic/basis, electronic/integrals) and runs the SCF (run.ts). Every refusal is a
  * typed error that names what and where: UnknownBasisError, BasisDataUnavailableError,
  * MissingBasisDataError (an element the basis does not define), InvalidAtomError,
- * UnsupportedEcpError (an element that needs an effective core potential), ScfInputError
+ * UnsupportedEcpError (an effective core potential the integrals cannot handle), ScfInputError
  * (nuclei on top of each other, charge or multiplicity that do not fit), CancelledError.
  */
 import { throwIfCancelled, type FunctionKind } from '../contracts';

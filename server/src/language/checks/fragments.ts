@@ -7,6 +7,9 @@ function nameSpan(fragment: FragmentModel) {
   return fragment.ast.name?.span ?? fragment.ast.statement.keyword.span;
 }
 
+/** Pairs of fragments sharing an atom examined at most; beyond, the overlaps are counted. */
+const MAX_OVERLAP_PAIRS = 100_000;
+
 export function checkFragments(context: CheckContext): void {
   const { model, sink, ast } = context;
   if (model.fragments.length === 0) return;
@@ -47,9 +50,19 @@ export function checkFragments(context: CheckContext): void {
     }
   }
 
-  // Overlaps: one report per pair of fragments, on the later fragment's atoms line.
+  // Overlaps: one report per pair of fragments, on the later fragment's atoms line. An atom that k
+  // fragments claim makes k(k − 1)/2 pairs; past MAX_OVERLAP_PAIRS pairs examined the rest are
+  // counted, not listed (10,000 fragments claiming one atom would otherwise make 5 × 10^7 reports).
   const overlaps = new Map<string, number[]>();
+  let examined = 0;
+  let unlisted = 0;
   model.sharedAtoms.forEach((owners, atom) => {
+    const pairs = (owners.length * (owners.length - 1)) / 2;
+    if (examined + pairs > MAX_OVERLAP_PAIRS) {
+      unlisted += pairs;
+      return;
+    }
+    examined += pairs;
     for (let a = 0; a < owners.length; a++) {
       for (let b = a + 1; b < owners.length; b++) {
         const key = `${owners[a]}:${owners[b]}`;
@@ -59,6 +72,15 @@ export function checkFragments(context: CheckContext): void {
       }
     }
   });
+  if (unlisted > 0) {
+    const last = model.fragments[model.fragments.length - 1]!;
+    sink.report(
+      'fragment-overlap',
+      last.ast.atoms?.span ?? nameSpan(last),
+      `Fragments claim the same atoms ${unlisted.toLocaleString('en-US')} more times (counted by pairs of fragments and shared atom) than are listed here; each atom belongs to exactly one fragment.`,
+      { data: { unlisted } },
+    );
+  }
   for (const [key, atoms] of overlaps) {
     const [first, second] = key.split(':').map(Number) as [number, number];
     const earlier = model.fragments[first]!;

@@ -19,11 +19,11 @@ function relatedAtom(atom: AtomModel, message: string): RelatedInformation {
 export function checkGeometry(context: CheckContext): void {
   const { ast, model, sink } = context;
   if (!ast.geometry) {
-    sink.report('missing-geometry', documentStart(ast), 'The spec has no geometry: add `geometry { <Element> [label] x y z ... }` or `geometry from "file.xyz"`.');
+    sink.report('missing-geometry', documentStart(ast), 'The spec has no atoms: add `structure { <Element> [label] x y z ... }` or `structure from "file.xyz"`.');
     return;
   }
   if (model.atoms.length === 0) {
-    if (!ast.geometry.include) sink.report('missing-geometry', ast.geometry.statement.keyword.span, 'The geometry has no atoms.');
+    if (!ast.geometry.include) sink.report('missing-geometry', ast.geometry.statement.keyword.span, 'The structure has no atoms.');
     return;
   }
 
@@ -50,16 +50,18 @@ export function checkGeometry(context: CheckContext): void {
   }
 
   const radii = model.atoms.map((atom) => atom.element.covalentRadius ?? 1.5);
-  const suspicion = suspectUnits(model.coordinates, radii, model.units, model.contacts);
+  // Coordinates from an XYZ file are in ångström by the format's convention; inline ones in the structure's unit.
+  const coordinateUnit = ast.geometry.include ? 'angstrom' : model.units;
+  const suspicion = suspectUnits(model.coordinates, radii, coordinateUnit, model.contacts);
   if (suspicion) {
-    const declared = model.units === 'angstrom' ? 'ångström' : 'bohr';
-    const factor = model.units === 'angstrom' ? 1 / BOHR_IN_ANGSTROM : BOHR_IN_ANGSTROM;
-    const reason = ast.geometry.include ? 'XYZ files are read in ångström' : `the file reads them as ${declared}`;
+    const declared = coordinateUnit === 'angstrom' ? 'ångström' : 'bohr';
+    const factor = coordinateUnit === 'angstrom' ? 1 / BOHR_IN_ANGSTROM : BOHR_IN_ANGSTROM;
+    const reason = ast.geometry.include ? 'XYZ files are in ångström by their convention' : `the structure reads them as ${declared}`;
     sink.report(
       'units-suspect',
-      ast.units?.span ?? ast.geometry.statement.keyword.span,
+      ast.geometry.unit?.span ?? ast.legacyUnits?.span ?? ast.geometry.statement.keyword.span,
       `Nearest-neighbour distances are ${suspicion.medianRatio.toFixed(2)} times the sum of covalent radii (median over ${suspicion.atomsConsidered} atoms), close to ${factor.toFixed(2)}: these coordinates look like ${suspicion.looksLike === 'bohr' ? 'bohr' : 'ångström'}, but ${reason}.` +
-        (ast.geometry.include ? '' : ` Write \`units ${suspicion.looksLike}\` if so.`),
+        (ast.geometry.include ? '' : ` Write \`structure in ${suspicion.looksLike} { … }\` if so.`),
       { data: { units: suspicion.looksLike } },
     );
   }

@@ -1,5 +1,6 @@
 /** Scans: two different atoms in different fragments, a range that runs the way the step goes. */
 import { CLASH_DISTANCE } from '../../chemistry/geometry';
+import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import { claimsOf, MAX_SCAN_POINTS, scanPointCount } from '../model';
 import type { CheckContext } from './context';
 
@@ -25,11 +26,12 @@ export function checkScan(context: CheckContext): void {
     }
     const points = scanPointCount(from, to, step);
     if (points > MAX_SCAN_POINTS) {
-      sink.report('invalid-scan', scan.step.span, `This step gives ${points} points; at most ${MAX_SCAN_POINTS} are accepted. Is the step mistyped?`);
+      const count = Number.isFinite(points) ? `${points.toLocaleString('en-US')} points` : `more points than can be counted ((${to} − ${from}) / ${step} overflows)`;
+      sink.report('invalid-scan', scan.step.span, `Going from ${from} to ${to} in steps of ${step} gives ${count}; at most ${MAX_SCAN_POINTS.toLocaleString('en-US')} are accepted. Is the step mistyped?`);
       return;
     }
   } else if (scan.points && scan.points.value > MAX_SCAN_POINTS) {
-    sink.report('invalid-scan', scan.points.span, `At most ${MAX_SCAN_POINTS} scan points are accepted.`);
+    sink.report('invalid-scan', scan.points.span, `${scan.points.value.toLocaleString('en-US')} scan points asked for; at most ${MAX_SCAN_POINTS.toLocaleString('en-US')} are accepted.`);
     return;
   }
   const resolved = model.scan;
@@ -46,6 +48,8 @@ export function checkScan(context: CheckContext): void {
   }
   const shortest = resolved.distances.reduce((least, d) => Math.min(least, d), Infinity);
   if (resolved.distances.length > 0 && shortest < CLASH_DISTANCE) {
-    sink.report('invalid-scan', scan.from.span, `The scan reaches ${shortest.toFixed(3)} Å, closer than ${CLASH_DISTANCE} Å.`);
+    // Written in the structure's unit; said in ångström, the unit of the clash distance, and in bohr too when the spec uses it.
+    const asWritten = model.units === 'bohr' ? ` (${Number((shortest / BOHR_IN_ANGSTROM).toPrecision(6))} bohr, the structure's unit)` : '';
+    sink.report('invalid-scan', scan.from.span, `The scan reaches ${shortest.toFixed(3)} Å${asWritten}, closer than ${CLASH_DISTANCE} Å.`);
   }
 }

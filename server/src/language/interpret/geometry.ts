@@ -1,54 +1,84 @@
 /**
- * `geometry { <Element> [label] x y z ... }` and `geometry from "file.xyz"`. Blocks the fast reader
- * took whole arrive as an AtomTable; other blocks are read line by line here.
+ * `structure [in angstrom|bohr] { <Element> [label] x y z ... }` and `structure from "file.xyz"`
+ * (and the retired `geometry` with the same shapes and no unit). Blocks the fast reader took whole
+ * arrive as an AtomTable; other blocks are read line by line here.
  */
 import { elementBySymbol } from '../../chemistry/elements';
 import { atomListOf, atomListOfMixed, type AtomAst, type GeometryAst, type Located } from '../ast';
 import { didYouMean } from '../suggest';
 import type { Statement } from '../syntax';
 import { joinSpans } from '../text';
-import { KEYWORDS } from '../vocabulary';
+import type { LengthUnit } from '../../chemistry/units';
+import { KEYWORDS, UNIT_TERMS } from '../vocabulary';
 import { describeArgument, type StatementReader } from './reader';
 
 /** Common element symbols offered when an atom line starts with a word that is none. */
 const COMMON_ELEMENTS = ['H', 'He', 'Li', 'Be', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Na', 'Mg', 'Al', 'Si', 'P', 'S', 'Cl', 'Ar', 'K', 'Ca', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Br', 'I'];
 
+/** `in angstrom|bohr` at args[at]; undefined (after a report) when malformed. */
+function readUnit(reader: StatementReader, statement: Statement, at: number): Located<LengthUnit> | undefined {
+  const word = statement.args[at]!;
+  const value = statement.args[at + 1];
+  if (!value) {
+    reader.sink.report('missing-value', word.span, 'Name the length unit after `in`: `structure in bohr { … }` (ångström is the default).');
+    return undefined;
+  }
+  return reader.term<LengthUnit>(value, UNIT_TERMS, 'length unit');
+}
+
 export function readGeometry(reader: StatementReader, statement: Statement): GeometryAst {
   const sink = reader.sink;
-  if (statement.args.length === 0 && statement.block?.atomTable) {
-    const others: AtomAst[] = [];
-    for (const line of statement.block.otherStatements ?? []) {
-      const atom = readAtomLine(reader, line);
-      if (atom) others.push(atom);
-    }
-    return { statement, atoms: atomListOfMixed(statement.block.atomTable, others) };
-  }
-  const atoms: AtomAst[] = [];
+  const keyword = statement.keyword.text;
+  const args = statement.args;
+  let unit: Located<LengthUnit> | undefined;
   let include: Located<string> | undefined;
-  if (statement.args.length > 0) {
-    const [from, path, ...rest] = statement.args;
+  const first = args[0];
+  const header = first?.kind === 'word' && first.text === 'in' && keyword === 'structure';
+  if (header) {
+    unit = readUnit(reader, statement, 0);
+    if (args.length > 2) sink.report('extra-value', joinSpans(args[2]!.span, args[args.length - 1]!.span), 'The structure header takes the unit only: `structure in bohr { … }`.');
+    if (!statement.block) sink.report('missing-block', statement.keyword.span, 'Give the atoms in a block after the header: `structure in bohr { O 0 0 0 ... }`.');
+  } else if (first) {
+    const [from, path, ...rest] = args;
     if (from!.kind !== 'word' || from!.text !== 'from') {
-      sink.report('invalid-value', from!.span, `Write \`geometry { ... }\` with the atoms inside, or \`geometry from "file.xyz"\`; found ${describeArgument(from!)}.`);
+      sink.report('invalid-value', from!.span, `Write \`structure { ... }\` with the atoms inside, \`structure in bohr { ... }\`, or \`structure from "file.xyz"\`; found ${describeArgument(from!)}.`);
     } else if (!path) {
-      sink.report('missing-value', from!.span, 'Name the XYZ file to read: `geometry from "file.xyz"`.');
+      sink.report('missing-value', from!.span, 'Name the XYZ file to read: `structure from "file.xyz"`.');
     } else if (path.kind !== 'string' && path.kind !== 'word') {
       sink.report('invalid-value', path.span, `The file to read is a path in quotes, not ${describeArgument(path)}.`);
     } else {
       include = { value: path.text, span: path.span };
     }
-    if (rest.length > 0) sink.report('extra-value', joinSpans(rest[0]!.span, rest[rest.length - 1]!.span), '`geometry from` takes one file name.');
+    if (rest[0]?.kind === 'word' && rest[0].text === 'in') {
+      sink.report('extra-value', joinSpans(rest[0].span, rest[rest.length - 1]!.span), 'An XYZ file is in ångström by the format\'s convention, so `structure from` takes no unit.');
+    } else if (rest.length > 0) {
+      sink.report('extra-value', joinSpans(rest[0]!.span, rest[rest.length - 1]!.span), '`structure from` takes one file name.');
+    }
     if (statement.block) {
       sink.report('unexpected-block', statement.block.open, 'Give the atoms either inline or from a file, not both; the block is ignored.');
     }
   } else if (!statement.block) {
-    sink.report('missing-block', statement.keyword.span, 'Give the atoms in a block, `geometry { O 0 0 0 ... }`, or from a file, `geometry from "file.xyz"`.');
-  } else {
-    for (const line of statement.block.statements) {
-      const atom = readAtomLine(reader, line);
-      if (atom) atoms.push(atom);
-    }
+    sink.report('missing-block', statement.keyword.span, 'Give the atoms in a block, `structure { O 0 0 0 ... }`, or from a file, `structure from "file.xyz"`.');
   }
-  return include ? { statement, atoms: atomListOf(atoms), include } : { statement, atoms: atomListOf(atoms) };
+  const withUnit = (ast: GeometryAst): GeometryAst => (unit ? { ...ast, unit } : ast);
+  if (include) return { statement, atoms: atomListOf([]), include };
+  // A block after a malformed `… from` is reported above and not read.
+  if (!statement.block || (first && !header)) return withUnit({ statement, atoms: atomListOf([]) });
+  if (statement.block.atomTable) {
+    // The fast reader's rows, and the lines it left to the general parser.
+    const others: AtomAst[] = [];
+    for (const line of statement.block.otherStatements ?? []) {
+      const atom = readAtomLine(reader, line);
+      if (atom) others.push(atom);
+    }
+    return withUnit({ statement, atoms: atomListOfMixed(statement.block.atomTable, others) });
+  }
+  const atoms: AtomAst[] = [];
+  for (const line of statement.block.statements) {
+    const atom = readAtomLine(reader, line);
+    if (atom) atoms.push(atom);
+  }
+  return withUnit({ statement, atoms: atomListOf(atoms) });
 }
 
 /** One atom line: element symbol, optional label, three coordinates. */

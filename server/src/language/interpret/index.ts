@@ -1,15 +1,20 @@
 /**
  * Reads the concrete tree statement by statement against the vocabulary, producing the typed tree
  * and a diagnostic for every statement that does not say what the language allows. A bad statement
- * is skipped; everything else is still read. One module per block: `basis.ts`, `geometry.ts`
- * (atom lines and includes), `fragment.ts` with `selectors.ts`, `tier.ts` (with the active space),
- * `scan.ts`, `limits.ts`; `reader.ts` holds what they share.
+ * is skipped; everything else is still read. One module per block: `basis.ts` (main and override
+ * lines), `geometry.ts` (the `structure` statement: atom lines and includes), `fragment.ts` with
+ * `selectors.ts`, `tier.ts` (with the active space), `scan.ts`, `limits.ts`; `reader.ts` holds
+ * what they share.
+ *
+ * Retired spellings (`geometry`, `units`, the braced basis block, `within … of`) are still read
+ * with their old meaning, so that the rest of an old spec keeps being analysed; `migrate.ts`
+ * reports each of them and says how to rewrite it.
  */
 import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import type { Statement, SyntaxTree } from '../syntax';
-import { EMBEDDINGS, UNIT_TERMS, type KeywordInfo } from '../vocabulary';
-import { readBasis } from './basis';
+import { EMBEDDINGS, FUNCTION_TERMS, UNIT_TERMS, type KeywordInfo } from '../vocabulary';
+import { readBasis, readRetiredBasisBlock } from './basis';
 import { readFragment } from './fragment';
 import { readGeometry } from './geometry';
 import { readLimits } from './limits';
@@ -18,19 +23,52 @@ import { readScan } from './scan';
 
 export function interpret(tree: SyntaxTree, sink: DiagnosticSink): SpecAst {
   const reader = new StatementReader(sink);
-  const ast: SpecAst = { fragments: [], statements: tree.statements };
+  const ast: SpecAst = { fragments: [], basisOverrides: [], statements: tree.statements };
   for (const statement of tree.statements) {
+    if (readRetiredStatement(reader, ast, statement)) continue;
     const keyword = reader.keyword(statement, 'top');
     if (keyword) readTopStatement(reader, ast, statement, keyword);
   }
   return ast;
 }
 
+/** `units …`, `geometry …` and `basis <name> { … }`, read with their old meaning (reported by migrate.ts). */
+function readRetiredStatement(reader: StatementReader, ast: SpecAst, statement: Statement): boolean {
+  const head = statement.keyword;
+  if (head.kind !== 'word') return false;
+  if (head.text === 'units') {
+    reader.noBlock(statement);
+    if (!reader.once('top', statement)) return true;
+    const args = reader.args(statement, 1, 'structure in angstrom|bohr { … }');
+    const unit = args ? reader.term<'angstrom' | 'bohr'>(args[0]!, UNIT_TERMS, 'length unit') : undefined;
+    if (unit) ast.legacyUnits = unit;
+    return true;
+  }
+  if (head.text === 'geometry') {
+    if (reader.onceAs('structure', statement)) ast.geometry = readGeometry(reader, statement);
+    return true;
+  }
+  if (head.text === 'basis' && statement.block) {
+    readRetiredBasisBlock(reader, ast, statement);
+    return true;
+  }
+  return false;
+}
+
 function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Statement, keyword: KeywordInfo): void {
-  if (keyword.opens === undefined && keyword.name !== 'geometry') reader.noBlock(statement);
-  // Fragments repeat; every other top-level statement is given once.
+  if (keyword.opens === undefined) reader.noBlock(statement);
+  // Fragments repeat, and so do basis lines (one main line, any number of overrides); every
+  // other top-level statement is given once.
   if (keyword.name === 'fragment') {
     ast.fragments.push(readFragment(reader, statement));
+    return;
+  }
+  if (keyword.name === 'basis') {
+    readBasis(reader, ast, statement);
+    return;
+  }
+  if (keyword.name === 'structure') {
+    if (reader.onceAs('structure', statement)) ast.geometry = readGeometry(reader, statement);
     return;
   }
   if (!reader.once('top', statement)) return;
@@ -38,14 +76,6 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
     case 'spec': {
       const args = reader.args(statement, 1, 'spec "name"');
       if (args) ast.name = { value: args[0]!.text, span: args[0]!.span };
-      return;
-    }
-    case 'units': {
-      const args = reader.args(statement, 1, 'units angstrom|bohr');
-      if (args) {
-        const unit = reader.term<'angstrom' | 'bohr'>(args[0]!, UNIT_TERMS, 'length unit');
-        if (unit) ast.units = unit;
-      }
       return;
     }
     case 'charge':
@@ -57,12 +87,14 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
     case 'frozen-core':
       ast.frozenCore = reader.switchValue(statement);
       return;
-    case 'basis':
-      ast.basis = readBasis(reader, statement);
+    case 'functions': {
+      const value = reader.args(statement, 1, 'functions spherical|cartesian');
+      if (value) {
+        const functions = reader.term<'spherical' | 'cartesian'>(value[0]!, FUNCTION_TERMS, 'function type');
+        if (functions) ast.functions = functions;
+      }
       return;
-    case 'geometry':
-      ast.geometry = readGeometry(reader, statement);
-      return;
+    }
     case 'embedding': {
       const args = reader.args(statement, 1, 'embedding dmet|projection|subtractive|none');
       if (args) ast.embedding = reader.term(args[0]!, EMBEDDINGS, 'embedding');

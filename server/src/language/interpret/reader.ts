@@ -12,8 +12,7 @@ import { KEYWORDS, keywordsFor, SWITCH_TERMS, type BlockKind, type KeywordInfo, 
 
 export const BLOCK_NAMES: Record<BlockKind, string> = {
   top: 'at the top level',
-  basis: 'in a basis block',
-  geometry: 'in a geometry block',
+  structure: 'in a structure block',
   fragment: 'in a fragment block',
   tier: 'in a tier block',
   limits: 'in a limits block',
@@ -82,11 +81,18 @@ export class StatementReader {
 
   /** True the first time a keyword appears in a scope; reports every repetition. */
   once(scope: string, statement: Statement): boolean {
-    const key = `${scope}:${statement.keyword.text}`;
+    return this.onceAs(`${scope}:${statement.keyword.text}`, statement, statement.keyword.text);
+  }
+
+  /**
+   * True the first time a setting (`key`) is given, however it is spelt (a retired `geometry` and a
+   * `structure` are one setting); reports every repetition as `what`.
+   */
+  onceAs(key: string, statement: Statement, what = key): boolean {
     const first = this.firstSeen.get(key);
     if (first) {
-      this.sink.report('duplicate-statement', statement.keyword.span, `'${statement.keyword.text}' is already given on an earlier line; give it once.`, {
-        related: [{ span: first.keyword.span, message: `first '${statement.keyword.text}' here` }],
+      this.sink.report('duplicate-statement', statement.keyword.span, `'${what}' is already given on an earlier line; give it once.`, {
+        related: [{ span: first.keyword.span, message: `first '${first.keyword.text}' here` }],
       });
       return false;
     }

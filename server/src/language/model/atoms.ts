@@ -1,5 +1,5 @@
 /**
- * The atoms of a spec in ångström: from the inline geometry block, or from the XYZ file it
+ * The atoms of a spec in ångström: from the inline structure block, or from the XYZ file it
  * includes; and the label index (each label names one atom).
  */
 import { elementByNumber, elementBySymbol } from '../../chemistry/elements';
@@ -35,7 +35,7 @@ export function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink,
   return { list, positions };
 }
 
-/** `geometry from "file.xyz"`: the first frame, always in ångström. */
+/** `structure from "file.xyz"`: the first frame, in ångström as XYZ files are by convention. */
 function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>['include']>, sink: DiagnosticSink, options: ModelOptions, includes: string[]): ReadAtoms {
   const list: AtomModel[] = [];
   const none = { list, positions: new Float64Array(0) };
@@ -62,7 +62,7 @@ function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>
     });
   }
   if (xyz.frames > 1) {
-    sink.report('include-invalid', include.span, `"${include.value}" holds ${xyz.frames} frames; the first one is the geometry.`, { severity: 'information' });
+    sink.report('include-invalid', include.span, `"${include.value}" holds ${xyz.frames} frames; the first one is the structure.`, { severity: 'information' });
   }
   const positions = new Float64Array(3 * xyz.atoms.length);
   xyz.atoms.forEach((atom, i) => {

@@ -1,40 +1,41 @@
 /**
- * The semantic model: atoms in ångström, labels and selectors resolved, basis sets looked up,
- * defaults applied, and the orbital space of the system and of every fragment counted. One module
- * per seam: `atoms.ts` (inline atoms and includes, labels), `basis.ts`, `selectors.ts`,
- * `ownership.ts` (rest and owners), `fragments.ts` (fragments and tiers), `scan.ts`.
+ * The semantic model: atoms in ångström, labels and selectors resolved, basis sets looked up and
+ * given to each atom, defaults applied, and the orbital space of the system and of every fragment
+ * counted. One module per seam: `atoms.ts` (inline atoms and includes, labels), `basis.ts`,
+ * `selectors.ts`, `ownership.ts` (rest and owners), `fragments.ts` (fragments and tiers), `scan.ts`.
  */
-import { countOrbitalSpace, type CountedAtom } from '../../chemistry/counting';
+import { countOrbitalSpace } from '../../chemistry/counting';
 import { analyseContacts } from '../../chemistry/geometry';
 import { lowestMultiplicity } from '../../chemistry/spin';
 import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import { indexLabels, readAtoms } from './atoms';
-import { countedAtom, electronCount, resolveBasis } from './basis';
+import { countedAtoms, electronCount, resolveBasis } from './basis';
 import { buildFragment } from './fragments';
 import { assignOwners } from './ownership';
 import { resolveScan } from './scan';
 import { SelectorResolver } from './selectors';
 import type { ModelOptions, SpecModel } from './types';
 
-export type { AtomModel, AtomReference, BasisModel, FragmentModel, ModelOptions, ScanModel, SpecModel, TierModel } from './types';
+export type { AtomModel, AtomReference, BasisModel, BasisOverrideModel, FragmentModel, ModelOptions, ScanModel, SpecModel, TierModel } from './types';
+export { BASIS_RANK, BASIS_RANK_NAMES } from './basis';
 export { claimsOf } from './ownership';
 export { MAX_SCAN_POINTS, scanPointCount } from './scan';
 export { SelectorResolver, type Selection } from './selectors';
 
 export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOptions): SpecModel {
-  const units = ast.units?.value ?? 'angstrom';
+  // The header's unit; a retired `units` line still counts where the header names none.
+  const units = ast.geometry?.unit?.value ?? ast.legacyUnits?.value ?? 'angstrom';
   const includes: string[] = [];
   const atoms = readAtoms(ast, units, sink, options, includes);
   const coordinates = atoms.positions;
   const labels = indexLabels(atoms.list, sink);
-  const basis = resolveBasis(ast);
-  const countedByElement = new Map<string, CountedAtom>();
-  const counted = atoms.list.map((atom) => {
-    let entry = countedByElement.get(atom.element.symbol);
-    if (!entry) countedByElement.set(atom.element.symbol, (entry = countedAtom(atom.element, basis)));
-    return entry;
-  });
+
+  const resolver = new SelectorResolver(atoms.list, labels, coordinates, units, sink);
+  const selections = ast.fragments.map((fragmentAst) => resolver.resolve(fragmentAst.atoms?.selectors ?? []));
+  const { owner, sharedAtoms } = assignOwners(selections, atoms.list.length);
+  const basis = resolveBasis(ast, atoms.list, resolver, { names: ast.fragments.map((f) => f.name?.value), selections }, sink);
+  const counted = countedAtoms(atoms.list, basis);
   const charge = ast.charge?.value ?? 0;
   const multiplicity = ast.multiplicity?.value ?? lowestMultiplicity(electronCount(counted, charge));
   const frozenCore = ast.frozenCore?.value ?? true;
@@ -42,9 +43,6 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const radii = new Float64Array(atoms.list.map((atom) => atom.element.covalentRadius ?? 1.5));
   const contacts = analyseContacts(coordinates, radii, options.previousContacts);
 
-  const resolver = new SelectorResolver(atoms.list, labels, coordinates, units, sink);
-  const selections = ast.fragments.map((fragmentAst) => resolver.resolve(fragmentAst.atoms?.selectors ?? []));
-  const { owner, sharedAtoms } = assignOwners(selections, atoms.list.length);
   const fragments = ast.fragments.map((fragmentAst, index) => buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options));
 
   return {

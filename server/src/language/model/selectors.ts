@@ -11,6 +11,24 @@ export interface Selection {
   claimsRest: boolean;
 }
 
+/**
+ * Atoms strictly closer than `radius` (Å) to atom `centre`, the centre itself included when the
+ * radius is positive; with `inclusive` (the retired `within`), those at most `radius` away.
+ */
+export function atomsCloserThan(coordinates: Float64Array, centre: number, radius: number, inclusive = false): number[] {
+  const found: number[] = [];
+  const r2 = radius * radius;
+  const count = coordinates.length / 3;
+  for (let atom = 0; atom < count; atom++) {
+    const dx = coordinates[3 * atom]! - coordinates[3 * centre]!;
+    const dy = coordinates[3 * atom + 1]! - coordinates[3 * centre + 1]!;
+    const dz = coordinates[3 * atom + 2]! - coordinates[3 * centre + 2]!;
+    const d2 = dx * dx + dy * dy + dz * dz;
+    if (inclusive ? d2 <= r2 + 1e-12 : d2 < r2) found.push(atom);
+  }
+  return found;
+}
+
 export class SelectorResolver {
   readonly references: AtomReference[] = [];
 
@@ -32,7 +50,7 @@ export class SelectorResolver {
     if (ref.kind === 'index') {
       if (ref.index >= 1 && ref.index <= this.atoms.length) return ref.index - 1;
       const count = this.atoms.length;
-      this.sink.report('unknown-atom', ref.span, `There is no atom #${ref.index}: the geometry has ${count} atom${count === 1 ? '' : 's'} (#1 to #${count}).`);
+      this.sink.report('unknown-atom', ref.span, `There is no atom #${ref.index}: the structure has ${count} atom${count === 1 ? '' : 's'} (#1 to #${count}).`);
       return undefined;
     }
     const found = this.labels.get(ref.name);
@@ -63,7 +81,7 @@ export class SelectorResolver {
           const to = this.ref(selector.to);
           if (from === undefined || to === undefined) break;
           if (from > to) {
-            this.sink.report('invalid-selector', selector.span, `This range runs backwards: atom #${from + 1} comes after #${to + 1} in the geometry; write the earlier atom first.`);
+            this.sink.report('invalid-selector', selector.span, `This range runs backwards: atom #${from + 1} comes after #${to + 1} in the structure; write the earlier atom first.`);
             break;
           }
           for (let atom = from; atom <= to; atom++) chosen.add(atom);
@@ -78,21 +96,14 @@ export class SelectorResolver {
             }
           }
           if (found === 0) {
-            this.sink.report('invalid-selector', selector.span, `The geometry has no ${selector.element} atoms, so 'all ${selector.element}' selects nothing.`, { severity: 'warning' });
+            this.sink.report('invalid-selector', selector.span, `The structure has no ${selector.element} atoms, so 'all ${selector.element}' selects nothing.`, { severity: 'warning' });
           }
           break;
         }
-        case 'within': {
-          const centre = this.ref(selector.of);
+        case 'closer-than': {
+          const centre = this.ref(selector.to);
           if (centre === undefined) break;
-          const radius = toAngstrom(selector.distance, this.units);
-          const c = this.coordinates;
-          for (let atom = 0; atom < this.atoms.length; atom++) {
-            const dx = c[3 * atom]! - c[3 * centre]!;
-            const dy = c[3 * atom + 1]! - c[3 * centre + 1]!;
-            const dz = c[3 * atom + 2]! - c[3 * centre + 2]!;
-            if (dx * dx + dy * dy + dz * dz <= radius * radius + 1e-12) chosen.add(atom);
-          }
+          for (const atom of atomsCloserThan(this.coordinates, centre, toAngstrom(selector.distance, this.units), selector.inclusive)) chosen.add(atom);
           break;
         }
       }

@@ -6,7 +6,7 @@ import type { Element } from '../../chemistry/elements';
 import type { ContactAnalysis } from '../../chemistry/geometry';
 import type { Mapping } from '../../chemistry/qubits';
 import type { LengthUnit } from '../../chemistry/units';
-import type { FragmentAst, TierAst } from '../ast';
+import type { BasisOverrideAst, FragmentAst, TierAst } from '../ast';
 import type { FileHost } from '../files';
 import type { Span } from '../text';
 import type { TierLevel } from '../vocabulary';
@@ -16,7 +16,7 @@ export interface AtomModel {
   readonly index: number;
   readonly element: Element;
   readonly label?: string;
-  /** The atom's line in the spec, or the `geometry from` path for atoms read from a file. */
+  /** The atom's line in the spec, or the `structure from` path for atoms read from a file. */
   readonly span: Span;
   readonly labelSpan?: Span;
   /** For atoms read from an XYZ file: that file and the zero-based line. */
@@ -53,9 +53,22 @@ export interface FragmentModel {
   readonly space: OrbitalSpace;
 }
 
+export interface BasisOverrideModel {
+  readonly ast: BasisOverrideAst;
+  /** Undefined when the library has no basis of that name (the line then decides nothing). */
+  readonly set: BasisSet | undefined;
+  /** The atoms the line selects, each with the rank of its most specific target (model/basis.ts). */
+  readonly atomRanks: ReadonlyMap<number, number>;
+}
+
 export interface BasisModel {
   readonly main: BasisSet | undefined;
-  readonly overrides: ReadonlyMap<string, BasisSet>;
+  /** The `basis <name> on …` lines in the order written. */
+  readonly overrides: readonly BasisOverrideModel[];
+  /** Per atom: the override line that decides its basis, or -1 for the main line. */
+  readonly decidedBy: Int32Array;
+  /** Per atom: its basis set (undefined without a main line, or when the main name is unknown). */
+  readonly atomSets: readonly (BasisSet | undefined)[];
   readonly functions: FunctionType;
   readonly functionsGiven: boolean;
 }
@@ -69,6 +82,7 @@ export interface ScanModel {
 
 export interface SpecModel {
   readonly name: string | undefined;
+  /** The structure's length unit: of inline coordinates, scan ranges and `closer-than` distances. */
   readonly units: LengthUnit;
   readonly atoms: AtomModel[];
   /** x, y, z of every atom in ångström. */

@@ -51,7 +51,8 @@ export interface TierExtras {
 
 export interface BasisExtras {
   name: string | null;
-  overrides: Record<string, string>;
+  /** The `basis <name> on …` lines that decide atoms: the basis, the selection as written, how many atoms. */
+  overrides: { basis: string; on: string; atoms: number }[];
   functions: 'spherical' | 'cartesian';
 }
 
@@ -60,6 +61,8 @@ export interface TesseraExtras {
   part: 'system' | 'fragment' | 'scan-point';
   spec_atom_numbers: number[];
   basis: BasisExtras;
+  /** The basis set of each atom of this molecule, in its atom order (null where the spec names none). */
+  atom_basis: (string | null)[];
   frozen_core: boolean;
   embedding?: string;
   fragments?: { name: string; tier: TierExtras | null }[];
@@ -151,7 +154,8 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
   const named = basisFigures(analysis);
   const { model } = analysis;
   const provenance: QcProvenance = { creator: 'Tessera', version: options.version, routine: options.routine ?? 'tessera export --to qcschema' };
-  const basis: BasisExtras = { name: named.name, overrides: { ...named.overrides }, functions: named.functions };
+  const basis: BasisExtras = { name: named.name, overrides: named.overrides.map((line) => ({ ...line })), functions: named.functions };
+  const basisOf = (atoms: readonly number[]) => atoms.map((atom) => model.basis.atomSets[atom]?.displayName ?? null);
   const fragmentAtoms = model.fragments.map((fragment) => fragment.atoms);
   const order = qcAtomOrder(data, fragmentAtoms);
   const position = new Int32Array(data.atoms.length).fill(-1);
@@ -191,6 +195,7 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
         part,
         spec_atom_numbers: order.map((atom) => atom + 1),
         basis,
+        atom_basis: basisOf(order),
         frozen_core: model.frozenCore,
         embedding: model.embedding,
         fragments: model.fragments.map((fragment, index) => ({ name: fragment.name, tier: tiers[index]! })),
@@ -225,6 +230,7 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
         part: 'fragment',
         spec_atom_numbers: fragment.atoms.map((atom) => atom + 1),
         basis,
+        atom_basis: basisOf(fragment.atoms),
         frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
         fragment: fragment.name,
         fragment_index: index,

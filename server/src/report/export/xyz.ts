@@ -3,6 +3,7 @@
  * the moving atoms shifted as the scan says. XYZ has no labels, so each line keeps only the element
  * symbol. The comment line of each frame names the spec and, for a scan, the point and the distance.
  */
+import { plainText } from '../format/escape';
 import { scanFrames } from '../../chemistry/scan';
 import type { StructureAtom, StructureData } from '../structure';
 
@@ -26,7 +27,7 @@ export interface XyzFrame {
 
 /** One line of text: XYZ comment lines cannot hold a line break. */
 function oneLine(text: string): string {
-  return text.replace(/[\r\n]+/g, ' ').trim();
+  return plainText(text.replace(/[\r\n]+/g, ' ').trim());
 }
 
 export function formatCoordinate(value: number): string {

@@ -13,10 +13,9 @@ import { FIGURE_COLUMNS, figureText, figureValue, reportParts } from './figures'
 
 export const CSV_COLUMNS: readonly string[] = ['spec', ...FIGURE_COLUMNS.map((column) => column.key), 'note'];
 
-/** One field, quoted when RFC 4180 requires it. */
-export function csvField(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
+import { csvField } from './escape';
+
+export { csvField };
 
 export function renderEstimateCsv(report: EstimateReport): string {
   const spec = report.spec.name ?? '';

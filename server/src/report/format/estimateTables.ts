@@ -133,7 +133,7 @@ export function conventionLines(report: EstimateReport): string[] {
 }
 
 export function headerLines(report: EstimateReport): string[] {
-  const overrides = Object.entries(report.basis.overrides).map(([symbol, name]) => `${symbol}: ${name}`);
+  const overrides = report.basis.overrides.map((line) => `${line.basis} on ${line.on}`);
   const basis = `${report.basis.name ?? '(none)'}${overrides.length > 0 ? ` (${overrides.join(', ')})` : ''}, ${report.basis.functions} functions`;
   const lines = [`basis ${basis}`, `embedding ${report.embedding}`];
   const system = report.system;

@@ -20,9 +20,9 @@ export interface HtmlReportOptions {
   readonly generator?: string;
 }
 
-export function escapeHtml(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
-}
+import { escapeHtml } from './escape';
+
+export { escapeHtml };
 
 export function renderHtmlTable(table: Table): string {
   const align = (column: number) => (table.numeric?.[column] ? ' class="num"' : '');

@@ -3,6 +3,7 @@ import type { EstimateReport } from '../../analysis';
 import { PLANNING_NOTE } from '../../analysis';
 import { conventionLines, estimateTables, headerLines } from './estimateTables';
 import { figuresTable, scanTable } from './figures';
+import { markdownText, plainText } from './escape';
 import { renderMarkdownTable, renderTextTable, type Table } from './table';
 
 export interface ProblemLine {
@@ -19,13 +20,13 @@ export function reportTitle(report: EstimateReport): string {
 export function renderEstimateText(report: EstimateReport): string {
   const tables = estimateTables(report);
   return [
-    `Tessera estimate: ${reportTitle(report)}`,
+    `Tessera estimate: ${plainText(reportTitle(report))}`,
     PLANNING_NOTE,
-    ...headerLines(report),
+    ...headerLines(report).map(plainText),
     '',
     ...tables.flatMap((table) => [renderTextTable(table), '']),
     'Conventions:',
-    ...conventionLines(report).map((line) => `  ${line}`),
+    ...conventionLines(report).map((line) => `  ${plainText(line)}`),
     '',
   ].join('\n');
 }
@@ -47,26 +48,30 @@ export interface MarkdownOptions {
   full?: boolean;
 }
 
-/** Markdown with `heading` levels starting at `level` (1 for a document, 2 for a section). */
+/**
+ * Markdown with `heading` levels starting at `level` (1 for a document, 2 for a section). Every
+ * piece of text is escaped (escape.ts), so names and messages from the spec show as written and
+ * never as markup, here and in the editor's report panel, which renders this Markdown.
+ */
 export function renderEstimateMarkdown(report: EstimateReport, options: MarkdownOptions = {}): string {
   const level = options.level ?? 1;
   const h = (depth: number) => '#'.repeat(level + depth);
   const lines = [
-    `${h(0)} Resource report: ${reportTitle(report)}`,
+    `${h(0)} Resource report: ${markdownText(reportTitle(report))}`,
     '',
-    `> ${PLANNING_NOTE}`,
+    `> ${markdownText(PLANNING_NOTE)}`,
     '',
-    ...headerLines(report).map((line) => `- ${line}`),
+    ...headerLines(report).map((line) => `- ${markdownText(line)}`),
     '',
     ...reportTables(report, options.full).flatMap((table) => [renderMarkdownTable(table, h(1)), '']),
     `${h(1)} Conventions`,
     '',
-    ...conventionLines(report).map((line) => `- ${line}`),
+    ...conventionLines(report).map((line) => `- ${markdownText(line)}`),
     '',
   ];
   if (options.problems) {
     lines.push(`${h(1)} Problems (${options.problems.length})`, '');
-    lines.push(...(options.problems.length === 0 ? ['None.'] : options.problems.map((p) => `- line ${p.line}: **${p.severity}** \`${p.code}\` ${p.message}`)), '');
+    lines.push(...(options.problems.length === 0 ? ['None.'] : options.problems.map((p) => `- line ${p.line}: **${p.severity}** \`${p.code}\` ${markdownText(p.message)}`)), '');
   }
   return lines.join('\n');
 }

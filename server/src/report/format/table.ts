@@ -1,4 +1,5 @@
 /** Plain-text and Markdown tables. */
+import { markdownText, plainText } from './escape';
 
 export interface Table {
   readonly title?: string;
@@ -9,31 +10,27 @@ export interface Table {
 }
 
 export function renderTextTable(table: Table): string {
-  const widths = table.headers.map((header, column) =>
-    table.rows.reduce((most, row) => Math.max(most, (row[column] ?? '').length), header.length),
-  );
+  const headers = table.headers.map(plainText);
+  const rows = table.rows.map((row) => row.map(plainText));
+  const widths = headers.map((header, column) => rows.reduce((most, row) => Math.max(most, (row[column] ?? '').length), header.length));
   const line = (cells: readonly string[]) =>
     cells
       .map((cell, column) => (table.numeric?.[column] ? cell.padStart(widths[column]!) : cell.padEnd(widths[column]!)))
       .join('  ')
       .trimEnd();
   const out: string[] = [];
-  if (table.title) out.push(table.title);
-  out.push(line(table.headers));
+  if (table.title) out.push(plainText(table.title));
+  out.push(line(headers));
   out.push(widths.map((width) => '-'.repeat(width)).join('  '));
-  for (const row of table.rows) out.push(line(row));
+  for (const row of rows) out.push(line(row));
   return out.join('\n');
-}
-
-function escapeMarkdown(cell: string): string {
-  return cell.replace(/\|/g, '\\|');
 }
 
 export function renderMarkdownTable(table: Table, heading = '###'): string {
   const out: string[] = [];
-  if (table.title) out.push(`${heading} ${table.title}`, '');
-  out.push(`| ${table.headers.map(escapeMarkdown).join(' | ')} |`);
+  if (table.title) out.push(`${heading} ${markdownText(table.title)}`, '');
+  out.push(`| ${table.headers.map(markdownText).join(' | ')} |`);
   out.push(`|${table.headers.map((_, column) => (table.numeric?.[column] ? ' ---: ' : ' --- ')).join('|')}|`);
-  for (const row of table.rows) out.push(`| ${row.map(escapeMarkdown).join(' | ')} |`);
+  for (const row of table.rows) out.push(`| ${row.map(markdownText).join(' | ')} |`);
   return out.join('\n');
 }
