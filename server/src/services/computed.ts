@@ -159,9 +159,9 @@ export function meanFieldSection(analysis: DocumentAnalysis, part: PartRef, poli
   if (result.gap !== null) rows.push(`| HOMO–LUMO gap | ${result.gap.toFixed(4)} Ha (${(result.gap * HARTREE_IN_EV).toFixed(2)} eV) |`);
   const mp2 = result.converged ? mp2Row(state.mp2) : null;
   if (mp2) rows.push(mp2);
-  rows.push(
-    `| orbitals | ${result.orbitalCount} from ${result.functionCount} basis functions${result.linearDependencies.dropped > 0 ? `: ${result.linearDependencies.dropped} dropped as near-linearly dependent (smallest overlap eigenvalue ${result.linearDependencies.smallestEigenvalue.toExponential(1)})` : ''} |`,
-  );
+  const { dropped, smallestEigenvalue } = result.linearDependencies;
+  const droppedText = dropped > 0 ? `: ${dropped} dropped as near-linearly dependent (smallest overlap eigenvalue ${smallestEigenvalue.toExponential(1)})` : '';
+  rows.push(`| orbitals | ${result.orbitalCount} from ${result.functionCount} functions${droppedText} |`);
   if (result.reference === 'uhf') rows.push(`| ⟨S²⟩ | ${result.spinSquared.toFixed(4)} |`);
   const table = (spin: 'alpha' | 'beta', heading: string) => [heading, '', '| | energy (Ha) | electrons | irrep |', '| --- | ---: | ---: | --- |', ...orbitalRows(state.outcome, spin, restricted)];
   return [
