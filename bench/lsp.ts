@@ -7,8 +7,8 @@
  *   changes of a coordinate digit, then a new atom line typed character by character (so the
  *   geometry is briefly malformed), then more digit changes;
  * - after each edit the requests an editor sends follow at once (semantic tokens, as a delta when
- *   the server offers one; inlay hints for the visible lines; code lens; document symbols), and
- *   the next edit cancels those still unanswered, as VS Code does;
+ *   the server offers one and one request at a time; inlay hints for the visible lines; code lens;
+ *   document symbols), and the next edit cancels those still unanswered, as VS Code does;
  * - every fifth edit is followed at once by a hover on a fragment name or a completion in a tier
  *   block, the first request after the edit (never a cache hit);
  * - edit → diagnostics is the time from sending an edit to the first published diagnostics for that
@@ -54,9 +54,9 @@ class EditorDocument {
   constructor(public text: string) {}
 
   positionOf(offset: number): Position {
-    const before = this.text.slice(0, offset);
-    const line = before.split('\n').length - 1;
-    return { line, character: offset - (before.lastIndexOf('\n') + 1) };
+    let line = 0;
+    for (let at = this.text.indexOf('\n'); at >= 0 && at < offset; at = this.text.indexOf('\n', at + 1)) line++;
+    return { line, character: offset - (this.text.lastIndexOf('\n', offset - 1) + 1) };
   }
 
   /** Replaces [start, end) and returns the LSP change. */
@@ -182,13 +182,24 @@ async function runScenario(kind: GeometryKind, atoms: number, editCount: number)
   const useDelta = typeof semanticDelta === 'object' && semanticDelta.delta === true;
   let previousTokens: string | undefined;
   let pending = new CancellationTokenSource();
+  // Like VS Code, one semantic-tokens request at a time: a new one waits until the last has settled.
+  let tokensInFlight = false;
   const requestMix = (around: number) => {
     const textDocument = { uri };
     const token = pending.token;
-    const tokens = useDelta && previousTokens
-      ? connection.sendRequest('textDocument/semanticTokens/full/delta', { textDocument, previousResultId: previousTokens }, token)
-      : connection.sendRequest('textDocument/semanticTokens/full', { textDocument }, token);
-    void tokens.then((result) => (previousTokens = (result as { resultId?: string } | null)?.resultId ?? previousTokens), () => undefined);
+    if (!tokensInFlight) {
+      tokensInFlight = true;
+      const tokens = useDelta && previousTokens
+        ? connection.sendRequest('textDocument/semanticTokens/full/delta', { textDocument, previousResultId: previousTokens }, token)
+        : connection.sendRequest('textDocument/semanticTokens/full', { textDocument }, token);
+      void tokens.then(
+        (result) => {
+          previousTokens = (result as { resultId?: string } | null)?.resultId ?? previousTokens;
+          tokensInFlight = false;
+        },
+        () => (tokensInFlight = false),
+      );
+    }
     void connection.sendRequest('textDocument/inlayHint', { textDocument, range: { start: { line: Math.max(0, around - 30), character: 0 }, end: { line: around + 30, character: 0 } } }, token).catch(() => undefined);
     void connection.sendRequest('textDocument/codeLens', { textDocument }, token).catch(() => undefined);
     void connection.sendRequest('textDocument/documentSymbol', { textDocument }, token).catch(() => undefined);

@@ -141,7 +141,7 @@ describe('language server over stdio', () => {
   it('lists the outline: basis lines, structure, fragments, scan, limits', async () => {
     const symbols = await client.request<DocumentSymbol[]>('textDocument/documentSymbol', { textDocument: { uri: demoUri } });
     expect(symbols.map((s) => s.name)).toEqual(['spec zn-site-h2s-approach', 'basis def2-svp', 'basis def2-tzvp', 'structure', 'fragment site', 'fragment guest', 'fragment frame', 'embedding', 'scan', 'limits']);
-    expect(symbols.find((s) => s.name === 'fragment site')!.detail).toContain('20 qubits · 17 tapered');
+    expect(symbols.find((s) => s.name === 'fragment site')!.detail).toContain('20 qubits · 18 tapered');
   });
 
   it('answers semantic tokens, folding ranges, inlay hints, code lens and the report request', async () => {
@@ -151,9 +151,9 @@ describe('language server over stdio', () => {
     const folds = await client.request<unknown[]>('textDocument/foldingRange', { textDocument: { uri: demoUri } });
     expect(folds.length).toBeGreaterThan(5);
     const hints = await client.request<{ label: string }[]>('textDocument/inlayHint', { textDocument: { uri: demoUri }, range: { start: { line: 0, character: 0 }, end: { line: 200, character: 0 } } });
-    expect(hints.map((h) => h.label)).toContain('20 qubits · 17 tapered');
+    expect(hints.map((h) => h.label)).toContain('20 qubits · 18 tapered');
     const lenses = await client.request<{ command: { title: string } }[]>('textDocument/codeLens', { textDocument: { uri: demoUri } });
-    expect(lenses[0]!.command.title).toContain('largest quantum fragment 17 qubits (site)');
+    expect(lenses[0]!.command.title).toContain('largest quantum fragment 18 qubits (site)');
     const report = await client.request<{ markdown: string }>('tessera/report', { uri: demoUri });
     expect(report.markdown).toContain('# Resource report: zn-site-h2s-approach');
   });

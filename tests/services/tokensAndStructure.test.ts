@@ -6,7 +6,9 @@
 import { describe, expect, it } from 'vitest';
 import { FoldingRangeKind, type Position, type Range, type SelectionRange } from 'vscode-languageserver-types';
 import { analyzeDocument } from '../../server/src/analysis';
-import { getFoldingRanges, getSelectionRanges, getSemanticTokens, semanticTokensLegend } from '../../server/src/services';
+import { getFoldingRanges, getSelectionRanges, getSemanticTokens, semanticTokensEdits, semanticTokensLegend } from '../../server/src/services';
+import { SEMANTIC_ATOM_LINE_LIMIT } from '../../server/src/services/semanticTokens';
+import { waterBoxSpec } from '../../bench/generate';
 import { marked, readSample, SAMPLE_NAMES } from './service';
 
 /** A decoded token: its text, type and modifiers. */
@@ -100,6 +102,38 @@ describe('semantic tokens', () => {
         expect(data[i]!, name).toBeGreaterThanOrEqual(0);
       }
     }
+  });
+});
+
+describe('semantic token edits', () => {
+  /** Applies LSP semantic-token edits to an array, as the editor does. */
+  function apply(previous: readonly number[], edits: { start: number; deleteCount: number; data: number[] }[]): number[] {
+    const result = [...previous];
+    for (const edit of [...edits].sort((a, b) => b.start - a.start)) result.splice(edit.start, edit.deleteCount, ...edit.data);
+    return result;
+  }
+
+  it('turn the tokens of one version into the next, in a few numbers for a one-line edit', () => {
+    const base = waterBoxSpec(300).text;
+    const at = base.indexOf('\n', base.indexOf('structure {')) + 1;
+    const versions = [base, `${base.slice(0, at)}  C 1.5 2.${base.slice(at - 1)}`, `${base.slice(0, at)}  C c1 1.5 2.5 3.5\n${base.slice(at)}`, base.replace('spec "water-box"', 'spec "water box"')];
+    for (let k = 1; k < versions.length; k++) {
+      const before = getSemanticTokens(analyzeDocument(versions[k - 1]!)).data;
+      const after = getSemanticTokens(analyzeDocument(versions[k]!)).data;
+      const edits = semanticTokensEdits(before, after);
+      expect(apply(before, edits)).toEqual(after);
+      expect(edits.reduce((sum, edit) => sum + edit.data.length, 0)).toBeLessThan(40);
+    }
+    expect(semanticTokensEdits([1, 2, 3, 4, 5], [1, 2, 3, 4, 5])).toEqual([]);
+  });
+
+  it('leave the atom lines of very large geometry blocks to the grammar, but not the rest', () => {
+    const big = waterBoxSpec(SEMANTIC_ATOM_LINE_LIMIT + 3).text;
+    const tokens = decode(big, getSemanticTokens(analyzeDocument(big)).data);
+    expect(tokens.filter(([, type]) => type === 'number').length).toBeLessThan(20);
+    expect(tokens).toContainEqual(['probe', 'class', 'declaration']);
+    const small = waterBoxSpec(300).text;
+    expect(decode(small, getSemanticTokens(analyzeDocument(small)).data).filter(([, type]) => type === 'number').length).toBeGreaterThan(900);
   });
 });
 

@@ -341,7 +341,7 @@ export function analyseContacts(coords: ArrayLike<number>, radii: ArrayLike<numb
   const radiusCopy = radii instanceof Float64Array ? radii.slice() : Float64Array.from(radii);
   const reusable = previous && previous.pairs.complete && previous.pairs.cutoff === cutoff;
   const updated = reusable ? updatedPairs(previous.pairs, coordinates, radiusCopy, cutoff) : undefined;
-  return updated ? contactsFromPairs(updated, radiusCopy, true) : searchContacts(coordinates, radiusCopy, cutoff);
+  return updated ? contactsFromPairs(updated, radiusCopy, true, previous) : searchContacts(coordinates, radiusCopy, cutoff);
 }
 
 /**
@@ -452,10 +452,18 @@ function updatedPairs(old: ContactPairs, coordinates: Float64Array, radii: Float
   return { cutoff, complete: true, i: is.slice(0, n), j: js.slice(0, n), distance: distance.slice(0, n), coordinates, radii };
 }
 
-function contactsFromPairs(pairs: ContactPairs, radii: Float64Array, complete: boolean): ContactAnalysis {
+function contactsFromPairs(pairs: ContactPairs, radii: Float64Array, complete: boolean, previous?: ContactAnalysis): ContactAnalysis {
   const count = radii.length;
   const bonds: AtomPair[] = [];
   const clashes: AtomPair[] = [];
+  // Bonds that read the same as in the previous version are kept as they were (both lists are sorted).
+  const oldBonds = previous?.bonds ?? [];
+  let old = 0;
+  const bond = (i: number, j: number, distance: number): AtomPair => {
+    while (old < oldBonds.length && (oldBonds[old]!.i < i || (oldBonds[old]!.i === i && oldBonds[old]!.j < j))) old++;
+    const candidate = oldBonds[old];
+    return candidate && candidate.i === i && candidate.j === j && candidate.distance === distance ? candidate : { i, j, distance };
+  };
   let bondCount = 0;
   let clashCount = 0;
   const nearestDistance = new Float64Array(count).fill(Infinity);
@@ -465,7 +473,7 @@ function contactsFromPairs(pairs: ContactPairs, radii: Float64Array, complete: b
     const j = pairs.j[k]!;
     const d = pairs.distance[k]!;
     if (d < CLASH_DISTANCE && clashCount++ < MAX_STORED_CLASHES) clashes.push({ i, j, distance: d });
-    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!) && bondCount++ < MAX_STORED_BONDS) bonds.push({ i, j, distance: d });
+    if (d < BOND_TOLERANCE_FACTOR * (radii[i]! + radii[j]!) && bondCount++ < MAX_STORED_BONDS) bonds.push(bond(i, j, d));
     // Ties go to the lower index, whatever order the pairs were found in.
     if (d < nearestDistance[i]! || (d === nearestDistance[i]! && j < nearestAtom[i]!)) {
       nearestDistance[i] = d;

@@ -109,7 +109,7 @@ export function analyze(original: string, options: AnalyzeOptions = {}): Analysi
     ...(options.path ? { path: options.path } : {}),
     ...(options.defaultMapping ? { defaultMapping: options.defaultMapping } : {}),
     ...(options.defaultQubitLimit ? { defaultQubitLimit: options.defaultQubitLimit } : {}),
-    ...(options.previous ? { previousContacts: options.previous.model.contacts } : {}),
+    ...(options.previous ? { previousContacts: options.previous.model.contacts, previousAtoms: options.previous.model.atoms } : {}),
   };
   if (text.length > MAX_SPEC_CHARACTERS) {
     return refusedAnalysis(text, options, modelOptions, tooLarge(`This spec has ${text.length.toLocaleString('en-US')} characters`));

@@ -75,6 +75,10 @@ export interface AtomList {
   coordinate(i: number, axis: number): number;
   /** The whole atom line. */
   span(i: number): Span;
+  /** span(i).start and .end, and labelSpan(i)?.start (−1 without a label), without making objects. */
+  spanStart(i: number): number;
+  spanEnd(i: number): number;
+  labelStart(i: number): number;
   elementSpan(i: number): Span;
   labelSpan(i: number): Span | undefined;
   coordinateSpan(i: number, axis: number): Span;
@@ -96,6 +100,9 @@ export function atomListOf(atoms: readonly AtomAst[]): AtomList {
     label: (i) => atoms[i]!.label?.value,
     coordinate: (i, axis) => atoms[i]!.coordinates[axis]!.value,
     span: (i) => atoms[i]!.span,
+    spanStart: (i) => atoms[i]!.span.start,
+    spanEnd: (i) => atoms[i]!.span.end,
+    labelStart: (i) => atoms[i]!.label?.span.start ?? -1,
     elementSpan: (i) => atoms[i]!.element.span,
     labelSpan: (i) => atoms[i]!.label?.span,
     coordinateSpan: (i, axis) => atoms[i]!.coordinates[axis]!.span,
@@ -110,6 +117,9 @@ export function atomListOfTable(table: AtomTable): AtomList {
     label: (i) => table.labels.get(i),
     coordinate: (i, axis) => table.coordinates[3 * i + axis]!,
     span: (i) => ({ start: table.lineStart[i]!, end: table.lineEnd[i]! }),
+    spanStart: (i) => table.lineStart[i]!,
+    spanEnd: (i) => table.lineEnd[i]!,
+    labelStart: (i) => table.labelStart[i]!,
     elementSpan: (i) => ({ start: table.lineStart[i]!, end: table.elementEnd[i]! }),
     labelSpan: (i) => (table.labelStart[i]! >= 0 ? { start: table.labelStart[i]!, end: table.labelEnd[i]! } : undefined),
     coordinateSpan: (i, axis) => ({ start: table.coordinateStart[3 * i + axis]!, end: table.coordinateEnd[3 * i + axis]! }),
@@ -139,6 +149,9 @@ export function atomListOfMixed(table: AtomTable, others: readonly AtomAst[]): A
     label: (k) => pick(k, fast.label, slow.label),
     coordinate: (k, axis) => pick(k, (i) => fast.coordinate(i, axis), (j) => slow.coordinate(j, axis)),
     span: (k) => pick(k, fast.span, slow.span),
+    spanStart: (k) => pick(k, fast.spanStart, slow.spanStart),
+    spanEnd: (k) => pick(k, fast.spanEnd, slow.spanEnd),
+    labelStart: (k) => pick(k, fast.labelStart, slow.labelStart),
     elementSpan: (k) => pick(k, fast.elementSpan, slow.elementSpan),
     labelSpan: (k) => pick(k, fast.labelSpan, slow.labelSpan),
     coordinateSpan: (k, axis) => pick(k, (i) => fast.coordinateSpan(i, axis), (j) => slow.coordinateSpan(j, axis)),

@@ -80,8 +80,9 @@ class Growable<T extends Int32Array | Float64Array> {
     this.length = at;
   }
 
+  /** The values as a view of the storage (no copy: the columns are not used again once read). */
   toArray(): T {
-    return this.data.slice(0, this.length) as T;
+    return this.data.subarray(0, this.length) as T;
   }
 }
 

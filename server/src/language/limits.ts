@@ -31,10 +31,10 @@ export function byteSize(bytes: number): string {
  * An upper estimate of the tokens of a text: runs of characters between blanks, with `{`, `}`,
  * `;` and `=` each counted on their own. Linear, and far cheaper than lexing.
  */
-export function countWords(text: string): number {
+export function countWords(text: string, from = 0, to = text.length): number {
   let words = 0;
   let inWord = false;
-  for (let i = 0; i < text.length; i++) {
+  for (let i = from; i < to; i++) {
     const code = text.charCodeAt(i);
     if (code === 123 || code === 125 || code === 59 || code === 61) {
       words++;

@@ -322,7 +322,15 @@ export function parseSpec(text: string, options: ParseOptions = {}): SyntaxTree 
   const previous = options.previous?.tree.geometryBlocks ? { text: options.previous.text, blocks: options.previous.tree.geometryBlocks } : undefined;
   const { masked, blocks } = options.fastGeometry === false ? { masked: text, blocks: [] } : extractGeometryBodies(text, previous);
   if (options.maxWords !== undefined) {
-    const words = countWords(masked);
+    // The blanked bodies of fast-read blocks hold no words: only the rest is counted.
+    let words = 0;
+    let from = 0;
+    for (const block of blocks) {
+      words += countWords(masked, from, block.open + 1);
+      for (const line of block.handedOver) words += countWords(masked, line.start, line.end);
+      from = block.close;
+    }
+    words += countWords(masked, from, masked.length);
     if (words > options.maxWords) return { statements: [], comments: [], problems: [], textLength: text.length, words };
   }
   const lexed = tokenize(masked);

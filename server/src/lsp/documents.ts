@@ -28,7 +28,7 @@ export class CoalescingScheduler {
   /** `immediateBelowMs`: tasks that last cost less run at once; `maxDelayMs` bounds the wait. */
   constructor(
     private readonly immediateBelowMs = 15,
-    private readonly maxDelayMs = 100,
+    private readonly maxDelayMs = 50,
   ) {}
 
   /** Schedules the task unless one is pending for the key; `estimateMs` stands in for a cost not yet measured. */

@@ -94,8 +94,20 @@ function statementTokens(out: TokenCollector, statement: Statement, block: Block
   });
 }
 
+/**
+ * Atom lines get tokens up to this many per geometry block. Beyond it the TextMate grammar, which
+ * colours element symbols, labels and numbers the same way, is left to do it: the tokens would be
+ * megabytes sent after every edit for no difference on screen.
+ */
+export const SEMANTIC_ATOM_LINE_LIMIT = 10_000;
+
 function walk(out: TokenCollector, statements: readonly Statement[], block: BlockKind, analysis: DocumentAnalysis): void {
   for (const statement of statements) {
+    if (statement.block?.atomTable && statement.block.atomTable.count > SEMANTIC_ATOM_LINE_LIMIT) {
+      statementTokens(out, statement, block);
+      for (const other of statement.block.otherStatements ?? []) statementTokens(out, other, 'structure');
+      continue;
+    }
     if (statement.block?.atomTable) {
       statementTokens(out, statement, block);
       const table = statement.block.atomTable;
@@ -140,7 +152,7 @@ export function plainNumbers(values: ArrayLike<number>, from: number, to: number
 export function encodeSemanticTokens(analysis: DocumentAnalysis): Int32Array {
   // At most five tokens per atom line, and a few hundred for the rest of a spec.
   let rows = 0;
-  for (const block of analysis.tree.geometryBlocks ?? []) rows += block.table.count;
+  for (const block of analysis.tree.geometryBlocks ?? []) rows += block.table.count <= SEMANTIC_ATOM_LINE_LIMIT ? block.table.count : 0;
   const out = new TokenCollector(5 * rows + 1024);
   walk(out, analysis.tree.statements, 'top', analysis);
   const comments = new TokenCollector();

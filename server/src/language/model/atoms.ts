@@ -17,20 +17,31 @@ export interface ReadAtoms {
   readonly positions: Float64Array;
 }
 
-/** Reads the atoms; `includes` receives the absolute path of every file read. */
-export function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink, options: ModelOptions, includes: string[]): ReadAtoms {
+/**
+ * Reads the atoms; `includes` receives the absolute path of every file read. An atom of the
+ * previous version that reads the same (index, element, label, line) is kept as it was, so that
+ * an edit of a few coordinates does not make every atom anew.
+ */
+export function readAtoms(ast: SpecAst, units: LengthUnit, sink: DiagnosticSink, options: ModelOptions, includes: string[], previous?: readonly AtomModel[]): ReadAtoms {
   const geometry = ast.geometry;
   if (!geometry) return { list: [], positions: new Float64Array(0) };
   if (geometry.include) return readIncludedAtoms(geometry.include, sink, options, includes);
-  const list: AtomModel[] = [];
+  const list: AtomModel[] = new Array(geometry.atoms.length);
   const atoms = geometry.atoms;
   const positions = new Float64Array(3 * atoms.length);
+  const factor = toAngstrom(1, units);
   for (let i = 0; i < atoms.length; i++) {
-    const element = elementByNumber(atoms.atomicNumber(i))!;
+    const z = atoms.atomicNumber(i);
     const label = atoms.label(i);
-    const labelSpan = atoms.labelSpan(i);
-    list.push(label !== undefined && labelSpan ? { index: i, element, label, span: atoms.span(i), labelSpan } : { index: i, element, span: atoms.span(i) });
-    for (let axis = 0; axis < 3; axis++) positions[3 * i + axis] = toAngstrom(atoms.coordinate(i, axis), units);
+    const old = previous?.[i];
+    if (old && !old.source && old.element.z === z && old.label === label && old.span.start === atoms.spanStart(i) && old.span.end === atoms.spanEnd(i) && (label === undefined || old.labelSpan?.start === atoms.labelStart(i))) {
+      list[i] = old;
+    } else {
+      const element = elementByNumber(z)!;
+      const labelSpan = atoms.labelSpan(i);
+      list[i] = label !== undefined && labelSpan ? { index: i, element, label, span: atoms.span(i), labelSpan } : { index: i, element, span: atoms.span(i) };
+    }
+    for (let axis = 0; axis < 3; axis++) positions[3 * i + axis] = atoms.coordinate(i, axis) * factor;
   }
   return { list, positions };
 }

@@ -27,7 +27,7 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   // The header's unit; a retired `units` line still counts where the header names none.
   const units = ast.geometry?.unit?.value ?? ast.legacyUnits?.value ?? 'angstrom';
   const includes: string[] = [];
-  const atoms = readAtoms(ast, units, sink, options, includes);
+  const atoms = readAtoms(ast, units, sink, options, includes, options.previousAtoms);
   const coordinates = atoms.positions;
   const labels = indexLabels(atoms.list, sink);
 

@@ -124,4 +124,6 @@ export interface ModelOptions {
   readonly defaultQubitLimit?: number;
   /** The contacts of the previous version of the same document: only what an edit moved is searched again. */
   readonly previousContacts?: ContactAnalysis;
+  /** The atoms of the previous version: those that read the same are kept. */
+  readonly previousAtoms?: readonly AtomModel[];
 }
