@@ -6,7 +6,7 @@
  */
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
-import { makeNonce } from './views/html';
+import { makeNonce, reportPageHtml } from './views/html';
 import { CostsPanel, LevelsPanel, StructurePanel, type ViewHost } from './views/panels';
 
 let client: LanguageClient | undefined;
@@ -62,22 +62,6 @@ async function refreshStatus(): Promise<void> {
   } catch {
     statusItem.hide();
   }
-}
-
-function webviewHtml(webview: vscode.Webview, body: string): string {
-  const nonce = makeNonce();
-  return `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:;">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<style nonce="${nonce}">
-body { font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); color: var(--vscode-foreground); padding: 0 1.5em; }
-table { border-collapse: collapse; margin: 0.5em 0 1.2em; }
-th, td { border: 1px solid var(--vscode-panel-border, #8884); padding: 0.2em 0.6em; }
-td { font-variant-numeric: tabular-nums; }
-blockquote { border-left: 3px solid var(--vscode-textLink-foreground); margin: 0.5em 0; padding-left: 0.8em; }
-code { font-family: var(--vscode-editor-font-family); }
-</style></head><body>${body}</body></html>`;
 }
 
 /** The active spec, or else the one a view last showed (when the view itself has the focus). */
@@ -136,7 +120,7 @@ async function showReport(reveal = true): Promise<void> {
     });
   }
   reportPanel.title = `Report: ${document.uri.path.split('/').pop() ?? 'spec'}`;
-  reportPanel.webview.html = webviewHtml(reportPanel.webview, html);
+  reportPanel.webview.html = reportPageHtml(reportPanel.webview.cspSource, makeNonce(), html);
   if (reveal) reportPanel.reveal(vscode.ViewColumn.Beside, true);
 }
 

@@ -158,6 +158,38 @@ describe('language server over stdio', () => {
     expect(report.markdown).toContain('# Resource report: zn-site-h2s-approach');
   });
 
+  it('answers the status-bar summary: the largest quantum fragment, the errors and the limit', async () => {
+    // The demo's quantum fragment 'site' needs 17 qubits (its hover card and code lens above); the
+    // spec sets `limits { qubits 24 }` and has no errors.
+    const summary = await client.request<{ largestQubits: number | null; fragment: string | null; errors: number; limit: number | null }>('tessera/summary', { uri: demoUri });
+    expect(summary).toEqual({ largestQubits: 17, fragment: 'site', errors: 0, limit: 24 });
+    const mistakes = await client.request<{ errors: number }>('tessera/summary', { uri: mistakesUri });
+    const published = (await client.request<unknown>('tessera/summary', { uri: 'untitled:not-open.tess' })) as null;
+    expect(mistakes.errors).toBeGreaterThan(5);
+    expect(published).toBeNull();
+  });
+
+  it('sends semantic tokens as a small delta after a one-line edit', async () => {
+    const uri = 'untitled:tokens.tess';
+    const text = demoText;
+    const opened = client.diagnostics(uri);
+    client.open(uri, text);
+    await opened;
+    const full = await client.request<{ resultId: string; data: number[] }>('textDocument/semanticTokens/full', { textDocument: { uri } });
+    expect(full.resultId).toBeTruthy();
+    const at = positionOf(text, 'embedding dmet', 0, 'embedding dmet'.length);
+    const changed = client.diagnostics(uri, 2);
+    client.change(uri, 2, [{ range: { start: at, end: at }, text: '  # a note' }]);
+    await changed;
+    const delta = await client.request<{ resultId: string; edits: { start: number; deleteCount: number; data: number[] }[] }>('textDocument/semanticTokens/full/delta', { textDocument: { uri }, previousResultId: full.resultId });
+    expect(delta.edits.length).toBe(1);
+    expect(delta.edits[0]!.data.length).toBeLessThanOrEqual(15);
+    const next = [...full.data];
+    next.splice(delta.edits[0]!.start, delta.edits[0]!.deleteCount, ...delta.edits[0]!.data);
+    const fresh = await client.request<{ data: number[] }>('textDocument/semanticTokens/full', { textDocument: { uri } });
+    expect(next).toEqual(fresh.data);
+  });
+
   it('re-checks a spec when its included XYZ file changes', async () => {
     const folder = tempFolder('tessera-lsp-');
     const xyz = path.join(folder, 'mol.xyz');

@@ -1,6 +1,7 @@
 /**
  * The HTML page of each webview: a strict content-security policy with a fresh nonce, the page's
- * skeleton and styles, and one script from the extension's own folder. The extension and the
+ * skeleton and styles, and (for the structure and cost views) one script from the extension's own
+ * folder; the report panel's page is here too. The extension and the
  * headless-browser test use this same function; the script fills the page from messages.
  */
 import { randomBytes } from 'node:crypto';
@@ -35,6 +36,25 @@ export function contentSecurityPolicy(cspSource: string, nonce: string): string 
     `style-src ${cspSource} 'nonce-${nonce}'`,
     `img-src ${cspSource} data: blob:`,
   ].join('; ');
+}
+
+/**
+ * The report panel: Markdown already rendered to HTML by the extension, no script at all; styles
+ * only from its nonce'd block, images from the extension's folder and data: URLs.
+ */
+export function reportPageHtml(cspSource: string, nonce: string, body: string): string {
+  return `<!DOCTYPE html>
+<html lang="en"><head><meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src ${cspSource} 'nonce-${nonce}'; img-src ${cspSource} data:;">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<style nonce="${nonce}">
+body { font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); color: var(--vscode-foreground); padding: 0 1.5em; }
+table { border-collapse: collapse; margin: 0.5em 0 1.2em; }
+th, td { border: 1px solid var(--vscode-panel-border, #8884); padding: 0.2em 0.6em; }
+td { font-variant-numeric: tabular-nums; }
+blockquote { border-left: 3px solid var(--vscode-textLink-foreground); margin: 0.5em 0; padding-left: 0.8em; }
+code { font-family: var(--vscode-editor-font-family); }
+</style></head><body>${body}</body></html>`;
 }
 
 function escapeHtml(text: string): string {
