@@ -159,10 +159,10 @@ describe('language server over stdio', () => {
   });
 
   it('answers the status-bar summary: the largest quantum fragment, the errors and the limit', async () => {
-    // The demo's quantum fragment 'site' needs 17 qubits (its hover card and code lens above); the
-    // spec sets `limits { qubits 24 }` and has no errors.
+    // The demo's quantum fragment 'site' needs 18 qubits after tapering in the stabiliser of its
+    // atoms (its code lens above); the spec sets `limits { qubits 24 }` and has no errors.
     const summary = await client.request<{ largestQubits: number | null; fragment: string | null; errors: number; limit: number | null }>('tessera/summary', { uri: demoUri });
-    expect(summary).toEqual({ largestQubits: 17, fragment: 'site', errors: 0, limit: 24 });
+    expect(summary).toEqual({ largestQubits: 18, fragment: 'site', errors: 0, limit: 24 });
     const mistakes = await client.request<{ errors: number }>('tessera/summary', { uri: mistakesUri });
     const published = (await client.request<unknown>('tessera/summary', { uri: 'untitled:not-open.tess' })) as null;
     expect(mistakes.errors).toBeGreaterThan(5);
