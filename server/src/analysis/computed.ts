@@ -7,11 +7,15 @@
  *
  * Kinds of request, each a kind of late result:
  * - `mean-field`: the SCF of one part (RHF, UHF or ROHF), with its orbitals;
- * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`).
- * A later kind (the active-space Hamiltonian) follows the same pattern: a request that names the
- * mean-field request it builds on, receives that result's orbitals, and is keyed by both.
+ * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`);
+ * - `hamiltonian`: the active-space integrals and qubit Hamiltonians of a restricted (RHF or ROHF)
+ *   mean field, with their computed figures (needs the mean field first).
+ * A later kind follows the same pattern: a request that names the mean-field request it builds on,
+ * receives that result's orbitals, and is keyed by both.
  */
 import type { MeanFieldResult } from '../electronic/scf/result';
+import type { ActiveSpaceIntegrals } from '../electronic/hamiltonian/activeSpace';
+import { figuresAtAccuracy, type ActiveSpaceFigures, type ActiveSpaceTooLargeFigures } from '../electronic/measurement/figures';
 import type { ScfReference } from '../electronic/scf/options';
 import type { SpecModel } from '../language/model';
 import { COORDINATE_LIMIT } from '../chemistry/geometry';
@@ -21,6 +25,7 @@ export type { ScfReference };
 
 export const MEAN_FIELD_KIND = 'mean-field';
 export const MP2_KIND = 'mp2';
+export const HAMILTONIAN_KIND = 'hamiltonian';
 
 export interface MeanFieldRequest {
   readonly kind: typeof MEAN_FIELD_KIND;
@@ -39,17 +44,51 @@ export interface Mp2Request {
   readonly frozenCore: boolean;
 }
 
-export type ComputeRequest = MeanFieldRequest | Mp2Request;
+/**
+ * Which orbitals of the mean field form the active space:
+ * - `window`: canonical orbitals in energy order, the doubly occupied ones below the window frozen,
+ *   then `orbitals` orbitals holding `electrons` electrons (for a closed shell the Ne/2 highest
+ *   occupied and the lowest virtual orbitals; an open shell's singly occupied orbitals inside);
+ * - `indices`: the core and active orbitals by index (zero-based, energy order), as a selection
+ *   made elsewhere gives them.
+ */
+export type ActiveSpaceChoice =
+  | { readonly kind: 'window'; readonly electrons: number; readonly orbitals: number }
+  | { readonly kind: 'indices'; readonly core: readonly number[]; readonly active: readonly number[]; readonly source: string };
+
+/** The active-space Hamiltonian of a part: always on restricted orbitals (RHF, or ROHF for open shells). */
+export interface HamiltonianRequest {
+  readonly kind: typeof HAMILTONIAN_KIND;
+  /** An RHF or ROHF request (restrictedMeanField makes one from any mean-field request). */
+  readonly meanField: MeanFieldRequest;
+  readonly space: ActiveSpaceChoice;
+}
+
+export type ComputeRequest = MeanFieldRequest | Mp2Request | HamiltonianRequest;
 
 /** The key a request's result is kept under, within its kind. */
 export function requestKey(request: ComputeRequest): string {
   if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
+  if (request.kind === HAMILTONIAN_KIND) return `${spaceKey(request.space)};${requestKey(request.meanField)}`;
   return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
+}
+
+function spaceKey(space: ActiveSpaceChoice): string {
+  return space.kind === 'window' ? `w${space.electrons}e${space.orbitals}o` : `i${space.core.join(',')}|${space.active.join(',')}`;
 }
 
 /** Requests whose results a request needs before it can run. */
 export function prerequisites(request: ComputeRequest): ComputeRequest[] {
-  return request.kind === MP2_KIND ? [request.meanField] : [];
+  return request.kind === MEAN_FIELD_KIND ? [] : [request.meanField];
+}
+
+/**
+ * The restricted mean field a Hamiltonian builds on: the request itself for RHF and ROHF; for UHF
+ * (the default of open shells) the ROHF request of the same part, because the active-space
+ * Hamiltonian needs one set of spatial orbitals for both spins.
+ */
+export function restrictedMeanField(meanField: MeanFieldRequest): MeanFieldRequest {
+  return meanField.reference === 'uhf' ? { ...meanField, reference: 'rohf' } : meanField;
 }
 
 /** rhf for singlets, uhf otherwise (a tier's `method rhf|uhf|rohf` chooses instead). */
@@ -89,6 +128,27 @@ export interface Mp2Summary {
   /** The natural orbitals in the basis functions (n×M, columns as naturalOccupations), for later requests. */
   readonly naturalOrbitals: Float64Array | null;
   readonly seconds: number;
+}
+
+/** A finished Hamiltonian job: the orbitals it used, the integrals (for exports) and the computed figures. */
+export interface HamiltonianOutcome {
+  readonly reference: 'rhf' | 'rohf';
+  /** Zero-based orbital indices of the mean field, energy order. */
+  readonly core: readonly number[];
+  readonly active: readonly number[];
+  /** How the orbitals were chosen, in words. */
+  readonly source: string;
+  /** Orbital energies of the active orbitals (hartree). */
+  readonly activeOrbitalEnergies: readonly number[];
+  readonly integrals: ActiveSpaceIntegrals;
+  /** At chemical accuracy; figuresAtAccuracy gives them at another target. */
+  readonly figures: ActiveSpaceFigures | ActiveSpaceTooLargeFigures;
+  readonly seconds: number;
+}
+
+/** A Hamiltonian's figures at the target accuracy ε (hartree) a spec asks for: the job computes them at chemical accuracy. */
+export function hamiltonianFigures(outcome: HamiltonianOutcome, epsilon: number): ActiveSpaceFigures | ActiveSpaceTooLargeFigures {
+  return outcome.figures.status === 'computed' ? figuresAtAccuracy(outcome.figures, epsilon) : outcome.figures;
 }
 
 /**

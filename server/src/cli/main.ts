@@ -7,7 +7,7 @@
 import { escapeForTerminal } from '../language/printable';
 import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
-import { runEstimate, type EstimateFormat } from './commands/estimate';
+import { parseActiveOption, runEstimate, type EstimateFormat } from './commands/estimate';
 import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
 import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
@@ -23,7 +23,7 @@ Usage:
       Electrons, basis functions, orbitals and qubits for the system and each fragment.
   tessera estimate --xyz <file.xyz> --basis <name> [--charge N] [--multiplicity M]
                    [--functions spherical|cartesian] [--frozen-core] [--format text|json|markdown]
-                   [--mean-field]
+                   [--mean-field [--active <n>e<m>o]]
       The same for a plain XYZ file (ångström), without a spec.
       --mean-field also computes the Hartree–Fock mean field of the system and each fragment
       (and MP2 after RHF and UHF; all electrons unless frozen core is on: a spec's default, or
@@ -34,6 +34,14 @@ Usage:
         --reference rhf|uhf|rohf   default: a tier's method, else rhf for singlets, uhf otherwise
         --max-iterations N         SCF iterations (default 100)
         --memory-limit MiB         refuse parts whose estimated need exceeds it (default 2048)
+        --active <n>e<m>o          with --xyz: the active-space Hamiltonian of n electrons in m
+                                   canonical orbitals (the n/2 highest occupied and the lowest
+                                   virtual RHF orbitals; ROHF for open shells, the singly occupied
+                                   orbitals inside). A spec's quantum fragments use their own
+                                   active space. JSON: hamiltonian { pauliTerms.jordanWigner/
+                                   bravyiKitaev/parity, oneNorm, constant, threshold, groups,
+                                   shots, faultTolerant, largest, activeSpace } (computed; the
+                                   shots and Toffolis are estimates built on them).
   tessera export <file.tess> --to xyz|qcschema [--out <file>]
       The geometry for other programs; standard output unless --out. A spec with errors is not
       exported (exit 1, the diagnostics on standard error).
@@ -114,6 +122,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           reference: { type: 'string' },
           'max-iterations': { type: 'string' },
           'memory-limit': { type: 'string' },
+          active: { type: 'string' },
           help: { type: 'boolean', short: 'h' },
         },
       });
@@ -148,6 +157,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(reference ? { reference } : {}),
           ...(maxIterations !== undefined ? { maxIterations } : {}),
           ...(memoryLimit !== undefined ? { memoryLimitMiB: memoryLimit } : {}),
+          ...(values.active !== undefined ? { active: parseActiveOption(values.active) } : {}),
           format: formatOption<EstimateFormat>(values.format, ['text', 'json', 'markdown'], 'text'),
         },
         io,

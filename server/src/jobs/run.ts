@@ -9,13 +9,30 @@
  * - `mp2`: the mean-field result it builds on arrives as input; the integrals are built again
  *   (their shell-pair data and Schwarz factors; MP2 recomputes quartets batch by batch anyway)
  *   and MP2 runs on it (RHF: energy, density and natural orbitals; UHF: energy).
+ * - `hamiltonian`: the restricted mean field it builds on arrives as input; the core Hamiltonian
+ *   and the integral source are built again, the active space is chosen (the canonical window, or
+ *   the indices given), its integrals are transformed (frozen core folded into a constant and an
+ *   effective one-body term) and the qubit Hamiltonians and their figures are computed
+ *   (electronic/hamiltonian, electronic/measurement).
  */
-import { MP2_KIND, type ComputeRequest, type MeanFieldOutcome, type MeanFieldRequest, type Mp2Request, type Mp2Summary } from '../analysis/computed';
+import {
+  HAMILTONIAN_KIND,
+  MP2_KIND,
+  type ComputeRequest,
+  type HamiltonianOutcome,
+  type HamiltonianRequest,
+  type MeanFieldOutcome,
+  type MeanFieldRequest,
+  type Mp2Request,
+  type Mp2Summary,
+} from '../analysis/computed';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
 import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
 import { mp2, unrestrictedMp2 } from '../electronic/correlation';
-import { createTwoElectronIntegrals } from '../electronic/integrals';
+import { coreHamiltonian, createTwoElectronIntegrals, nuclearRepulsionEnergy } from '../electronic/integrals';
+import { activeSpaceIntegrals, activeWindow } from '../electronic/hamiltonian';
+import { activeSpaceFigures } from '../electronic/measurement';
 import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
 import type { JobFailure, JobProgress } from './protocol';
 
@@ -138,8 +155,62 @@ export function runMp2(request: Mp2Request, meanField: MeanFieldOutcome, context
   };
 }
 
+/** The core and active orbitals a Hamiltonian request names, checked against the mean field. */
+function chooseSpace(request: HamiltonianRequest, meanField: MeanFieldOutcome): { core: number[]; active: number[]; source: string } {
+  const { result } = meanField;
+  const space = request.space;
+  if (space.kind === 'indices') return { core: [...space.core], active: [...space.active], source: space.source };
+  const window = activeWindow(result.orbitalCount, result.electrons, space.electrons, space.orbitals);
+  const open = result.electrons.alpha !== result.electrons.beta;
+  return {
+    ...window,
+    source:
+      `canonical ${result.reference.toUpperCase()} orbitals in energy order: ${window.core.length} doubly occupied below frozen, ` +
+      `orbitals ${window.active[0]! + 1}–${window.active[window.active.length - 1]! + 1} active (${space.electrons}e, ${space.orbitals}o${open ? '; the singly occupied orbitals inside' : ''})`,
+  };
+}
+
+export function runHamiltonian(request: HamiltonianRequest, meanField: MeanFieldOutcome, context: RunContext): HamiltonianOutcome {
+  const start = performance.now();
+  const { result, orbitals } = meanField;
+  if (!result.converged) {
+    throw new JobInputError({ code: 'prerequisite', message: `The active-space Hamiltonian needs a converged mean field; the SCF stopped after ${result.iterations} iterations without converging.` });
+  }
+  if (result.reference !== 'rhf' && result.reference !== 'rohf') {
+    throw new JobInputError({ code: 'input', message: `The active-space Hamiltonian needs restricted orbitals (RHF or ROHF), not ${result.reference.toUpperCase()}.` });
+  }
+  const { core, active, source } = chooseSpace(request, meanField);
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'integrals' });
+  const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
+  const eri = createTwoElectronIntegrals(basis, { storageLimitBytes: 0 });
+  context.onProgress({ phase: 'hamiltonian' });
+  const { statistics: _statistics, ...integrals } = activeSpaceIntegrals({
+    hCore: coreHamiltonian(basis),
+    twoElectron: eri,
+    orbitals: { functionCount: orbitals.functionCount, orbitalCount: orbitals.orbitalCount, coefficients: orbitals.alpha },
+    nuclearRepulsion: nuclearRepulsionEnergy(basis),
+    core,
+    active,
+    electrons: result.electrons,
+    cancel: context.cancel,
+  });
+  throwIfCancelled(context.cancel);
+  return {
+    reference: result.reference,
+    core,
+    active,
+    source,
+    activeOrbitalEnergies: active.map((p) => result.orbitalEnergies.alpha[p]!),
+    integrals,
+    figures: activeSpaceFigures(integrals),
+    seconds: (performance.now() - start) / 1000,
+  };
+}
+
 /** Runs any request, given the results of its prerequisites (in the order `prerequisites` lists them). */
-export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary {
+export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | HamiltonianOutcome {
   if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
+  if (request.kind === HAMILTONIAN_KIND) return runHamiltonian(request, inputs[0] as MeanFieldOutcome, context);
   return runMeanField(request, context);
 }

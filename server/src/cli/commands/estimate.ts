@@ -1,7 +1,9 @@
 /**
  * `tessera estimate <spec>` and `tessera estimate --xyz <file> --basis <name> ...`: the counts for
  * the system and each fragment, as a table, Markdown or JSON; with `--mean-field` also their
- * computed mean fields (meanField.ts), under `meanField` in the JSON and in a table of their own.
+ * computed mean fields (meanField.ts), under `meanField` in the JSON and in a table of their own;
+ * with `--active Ne No` (for `--xyz`) or a quantum fragment's active space (for a spec) also the
+ * active-space Hamiltonian, under `hamiltonian`.
  */
 import { safeJsonStringify } from '../../language/printable';
 import * as path from 'node:path';
@@ -13,7 +15,10 @@ import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/
 import type { ScfReference } from '../../analysis';
 import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { computeMeanFields } from './meanField';
+import { computeMeanFields, type ActiveSpaceOf } from './meanField';
+import { renderHamiltonianMarkdown, renderHamiltonianText, hamiltonianJson, type HamiltonianPart } from '../../report/format/hamiltonian';
+import { CHEMICAL_ACCURACY } from '../../electronic/measurement/shots';
+import { explicitLimitNote, MAX_EXPLICIT_ORBITALS } from '../../electronic/hamiltonian/qubitHamiltonian';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
 
 export type EstimateFormat = 'text' | 'json' | 'markdown';
@@ -33,6 +38,47 @@ export interface EstimateOptions {
   reference?: ScfReference;
   maxIterations?: number;
   memoryLimitMiB?: number;
+  /** `--active Ne No` with --xyz: the canonical window of the system's restricted mean field. */
+  active?: { electrons: number; orbitals: number };
+}
+
+/** `4e4o` (electrons, then orbitals), as the spec's `active 4e 4o` without the space. */
+export function parseActiveOption(value: string): { electrons: number; orbitals: number } {
+  const match = /^\s*(\d+)\s*e\s*,?\s*(\d+)\s*o\s*$/i.exec(value);
+  if (!match) throw new UsageError(`--active takes electrons and orbitals as <n>e<m>o, for example --active 4e4o; got '${value}'`);
+  const electrons = Number(match[1]);
+  const orbitals = Number(match[2]);
+  if (orbitals < 1) throw new UsageError('--active needs at least one orbital');
+  if (electrons > 2 * orbitals) throw new UsageError(`--active ${electrons}e${orbitals}o: ${electrons} electrons do not fit ${orbitals} orbitals (at most ${2 * orbitals})`);
+  return { electrons, orbitals };
+}
+
+/**
+ * Which parts get a Hamiltonian: with --xyz the system, in the window --active gives; in a spec
+ * every quantum-tier fragment, in the window of its active space (electrons and orbitals of its
+ * plan) on its own mean field. Spaces beyond the explicit limit keep the combinatorial bound.
+ */
+function activeSpaces(options: EstimateOptions, analysis: DocumentAnalysis): ActiveSpaceOf | undefined {
+  if (options.active) {
+    const active = options.active;
+    return (computation) => {
+      if (computation.part.kind !== 'system') return null;
+      if (active.orbitals > MAX_EXPLICIT_ORBITALS) return { bound: explicitLimitNote(active.orbitals) };
+      return { kind: 'window', electrons: active.electrons, orbitals: active.orbitals };
+    };
+  }
+  if (!options.spec) return undefined;
+  const quantum = analysis.model.fragments.some((fragment) => fragment.tier?.level === 'quantum');
+  if (!quantum) return undefined;
+  return (computation) => {
+    if (computation.part.kind !== 'fragment') return null;
+    const index = computation.part.index;
+    if (analysis.model.fragments[index]!.tier?.level !== 'quantum') return null;
+    const plan = analysis.estimates.plan(index);
+    if (!plan) return { refusal: 'the fragment has no valid active space (see the diagnostics)' };
+    if (plan.active.orbitals > MAX_EXPLICIT_ORBITALS) return { bound: explicitLimitNote(plan.active.orbitals) };
+    return { kind: 'window', electrons: plan.active.electrons, orbitals: plan.active.orbitals };
+  };
 }
 
 interface Prepared {
@@ -111,7 +157,7 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
 }
 
 /** Why the command ends with errors because of the computed parts: failures and non-convergence count. */
-function meanFieldTrouble(parts: readonly MeanFieldPart[]): { errors: number; internal: boolean } {
+function meanFieldTrouble(parts: readonly MeanFieldPart[], hamiltonians: readonly HamiltonianPart[]): { errors: number; internal: boolean } {
   let errors = 0;
   let internal = false;
   for (const { result } of parts) {
@@ -119,6 +165,12 @@ function meanFieldTrouble(parts: readonly MeanFieldPart[]): { errors: number; in
       errors++;
       if (result.code === 'internal' || result.code === 'worker') internal = true;
     } else if (!result.outcome.result.converged) errors++;
+  }
+  for (const [k, { result }] of hamiltonians.entries()) {
+    // A part whose mean field failed is counted once, above.
+    if (result.state !== 'failed' || parts[k]?.result.state === 'failed') continue;
+    errors++;
+    if (result.code === 'internal' || result.code === 'worker') internal = true;
   }
   return { errors, internal };
 }
@@ -129,13 +181,16 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (options.spec && (options.basis || options.charge !== undefined || options.multiplicity !== undefined || options.functions)) {
     throw new UsageError('--basis, --charge, --multiplicity and --functions go with --xyz; a spec sets them itself');
   }
-  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined)) {
-    throw new UsageError('--reference, --max-iterations and --memory-limit go with --mean-field');
+  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.active)) {
+    throw new UsageError('--reference, --max-iterations, --memory-limit and --active go with --mean-field');
   }
+  if (options.active && options.spec) throw new UsageError("--active goes with --xyz; in a spec each quantum fragment's `active` statement gives its active space");
   const prepared = options.spec ? prepareSpec(options.spec, io) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
+  const activeSpaceOf = options.meanField ? activeSpaces(options, prepared.analysis) : undefined;
+  const epsilon = CHEMICAL_ACCURACY;
   const run = options.meanField
     ? await computeMeanFields(
         prepared.analysis,
@@ -143,31 +198,40 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
           ...(options.reference ? { reference: options.reference } : {}),
           ...(options.maxIterations !== undefined ? { maxIterations: options.maxIterations } : {}),
           ...(options.memoryLimitMiB !== undefined ? { memoryLimitBytes: options.memoryLimitMiB * 2 ** 20 } : {}),
+          ...(activeSpaceOf ? { activeSpace: activeSpaceOf } : {}),
         },
         io,
       )
     : undefined;
   const parts = run?.parts;
+  const hamiltonians = run && run.hamiltonians.length > 0 ? run.hamiltonians : undefined;
+  const hamiltonianOf = (k: number) => (hamiltonians ? { hamiltonian: hamiltonianJson(hamiltonians[k]!.result, epsilon) } : {});
   if (options.format === 'json') {
     const json = parts
-      ? { ...report, system: { ...report.system, meanField: meanFieldJson(parts[0]!.result) }, fragments: report.fragments.map((fragment, k) => ({ ...fragment, meanField: meanFieldJson(parts[k + 1]!.result) })) }
+      ? {
+          ...report,
+          system: { ...report.system, meanField: meanFieldJson(parts[0]!.result), ...hamiltonianOf(0) },
+          fragments: report.fragments.map((fragment, k) => ({ ...fragment, meanField: meanFieldJson(parts[k + 1]!.result), ...hamiltonianOf(k + 1) })),
+        }
       : report;
     io.stdout(`${safeJsonStringify({ ...json, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, 2)}\n`);
   } else {
     io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
     if (parts) io.stdout(options.format === 'markdown' ? `\n${renderMeanFieldMarkdown(parts)}` : `\n${renderMeanFieldText(parts)}`);
+    if (hamiltonians) io.stdout(options.format === 'markdown' ? `\n${renderHamiltonianMarkdown(hamiltonians, epsilon)}` : `\n${renderHamiltonianText(hamiltonians, epsilon)}`);
     for (const diagnostic of prepared.diagnostics) {
       const line = diagnostic.line > 0 ? formatDiagnosticLine(diagnostic) : `${diagnostic.file}: ${diagnostic.severity} ${diagnostic.code} ${diagnostic.message}`;
       io.stderr(`${line}\n`);
     }
   }
   if (errors > 0 && options.format !== 'json') io.stderr(`tessera: ${errors} error${errors === 1 ? '' : 's'}: the figures above may be incomplete.\n`);
-  const trouble = parts ? meanFieldTrouble(parts) : { errors: 0, internal: false };
+  const trouble = parts ? meanFieldTrouble(parts, hamiltonians ?? []) : { errors: 0, internal: false };
   if (trouble.errors > 0) {
     for (const { label, result } of parts!) {
       if (result.state === 'failed') io.stderr(`tessera: ${label}: mean field not computed: ${result.message}\n`);
       else if (!result.outcome.result.converged) io.stderr(`tessera: ${label}: the SCF did not converge in ${result.outcome.result.iterations} iterations (last energy ${result.outcome.result.energy.toFixed(6)} Ha, not a result)\n`);
     }
+    for (const { label, result } of hamiltonians ?? []) if (result.state === 'failed') io.stderr(`tessera: ${label}: Hamiltonian not computed: ${result.message}\n`);
   }
   if (run?.interrupted) {
     io.stderr('tessera: interrupted: the computations still running were cancelled.\n');

@@ -3,10 +3,18 @@
  * system and every fragment, computed through the jobs layer exactly as the editor computes it:
  * the same requests (analysis/computed.ts), the same queue and worker thread. Progress goes to
  * standard error for jobs that take a while; an interrupt (Ctrl+C) cancels the running job.
+ * With an active space per part (`--active`, or a quantum fragment's `active`), the active-space
+ * Hamiltonian after a restricted mean field (RHF; ROHF for open shells) too.
  */
 import {
+  HAMILTONIAN_KIND,
   LateResults,
   partComputation,
+  restrictedMeanField,
+  type ActiveSpaceChoice,
+  type HamiltonianOutcome,
+  type HamiltonianRequest,
+  type PartComputation,
   specParts,
   type DocumentAnalysis,
   type LateResult,
@@ -15,16 +23,24 @@ import {
   type RequestOptions,
 } from '../../analysis';
 import { JobQueue, type DemandEntry, type JobEvent } from '../../jobs';
+import type { HamiltonianPart, PartHamiltonian } from '../../report/format/hamiltonian';
 import type { MeanFieldPart, PartMeanField } from '../../report/format/meanField';
 import type { CliIo } from '../io';
+
+/** A part's active space, or why it gets no Hamiltonian (null: none asked for). */
+export type ActiveSpaceOf = (computation: PartComputation) => ActiveSpaceChoice | { readonly refusal: string } | { readonly bound: string } | null;
 
 export interface MeanFieldOptions extends RequestOptions {
   readonly memoryLimitBytes?: number;
   readonly workers?: number;
+  /** Which parts get an active-space Hamiltonian, and which orbitals. */
+  readonly activeSpace?: ActiveSpaceOf;
 }
 
 export interface MeanFieldRun {
   readonly parts: MeanFieldPart[];
+  /** One per part, in the order of `parts`; empty without `activeSpace`. */
+  readonly hamiltonians: HamiltonianPart[];
   /** True when an interrupt cancelled what was still running. */
   readonly interrupted: boolean;
 }
@@ -40,7 +56,7 @@ function progressPrinter(io: CliIo): (event: JobEvent) => void {
   return (event) => {
     const id = event.job.id;
     const now = performance.now();
-    const what = `${event.job.kind === 'mp2' ? 'MP2' : 'mean field'} of ${event.job.label}`;
+    const what = `${event.job.kind === 'mp2' ? 'MP2' : event.job.kind === HAMILTONIAN_KIND ? 'Hamiltonian' : 'mean field'} of ${event.job.label}`;
     switch (event.type) {
       case 'started':
         started.set(id, now);
@@ -75,10 +91,15 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
   queue.onEvent(progressPrinter(io));
   const computations = specParts(analysis.model).map((part) => partComputation(analysis.model, part, options));
   const entries: DemandEntry[] = [];
+  const hamiltonianRequests = new Map<PartComputation, HamiltonianRequest | { refusal: string } | { bound: string } | null>();
   for (const computation of computations) {
     if (computation.refusal) continue;
     entries.push({ request: computation.meanField!, label: computation.label, explicit: true });
     if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit: true });
+    const space = options.activeSpace?.(computation) ?? null;
+    const request = space === null || 'refusal' in space || 'bound' in space ? space : ({ kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(computation.meanField!), space } as const);
+    hamiltonianRequests.set(computation, request);
+    if (request && 'kind' in request) entries.push({ request, label: computation.label, explicit: true });
   }
   let interrupted = false;
   const stopListening = io.onInterrupt?.(() => {
@@ -88,7 +109,9 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
   try {
     queue.setDemand('cli', entries);
     const parts: MeanFieldPart[] = [];
+    const hamiltonians: HamiltonianPart[] = [];
     for (const computation of computations) {
+      if (options.activeSpace) hamiltonians.push({ label: computation.label, result: await hamiltonianOf(queue, computation, hamiltonianRequests.get(computation) ?? null, interrupted) });
       if (computation.refusal) {
         parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` } });
         continue;
@@ -109,9 +132,19 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
       }
       parts.push({ label: computation.label, result });
     }
-    return { parts, interrupted };
+    return { parts, hamiltonians, interrupted };
   } finally {
     stopListening?.();
     await queue.dispose();
   }
+}
+
+async function hamiltonianOf(queue: JobQueue, computation: PartComputation, request: HamiltonianRequest | { refusal: string } | { bound: string } | null, interrupted: boolean): Promise<PartHamiltonian> {
+  if (request === null) return { state: 'not-asked', reason: 'no active space' };
+  if ('bound' in request) return { state: 'bound', note: request.bound };
+  if (computation.refusal) return { state: 'failed', code: 'refused', message: `${computation.refusal}.` };
+  if ('refusal' in request) return { state: 'failed', code: 'refused', message: request.refusal };
+  const settled = await queue.whenSettled(request);
+  if (settled.state === 'ready') return { state: 'computed', outcome: settled.value as HamiltonianOutcome };
+  return { state: 'failed', ...failed(settled, interrupted) };
 }

@@ -12,7 +12,7 @@ import { canBuildExplicitly, COEFFICIENT_THRESHOLD, explicitLimitNote, qubitHami
 import { summarizeQubitHamiltonian, type QubitHamiltonianSummary } from '../hamiltonian/summary';
 import { qubitizedPhaseEstimation, type QubitizationEstimate } from './qubitization';
 import { encodedReference } from './referenceState';
-import { CHEMICAL_ACCURACY, measurementBudget, type MeasurementBudget } from './shots';
+import { budgetAtAccuracy, CHEMICAL_ACCURACY, measurementBudget, type MeasurementBudget } from './shots';
 
 export interface MappingFigures extends QubitHamiltonianSummary {
   readonly shots: MeasurementBudget;
@@ -76,7 +76,20 @@ export function activeSpaceFigures(integrals: ActiveSpaceIntegrals, options: Fig
     threshold: COEFFICIENT_THRESHOLD,
     epsilon,
     mappings,
-    faultTolerant: qubitizedPhaseEstimation({ systemQubits: jw.qubits, terms: jw.terms - (jw.identity !== 0 ? 1 : 0), oneNorm: jw.oneNorm, epsilon }),
+    faultTolerant: faultTolerantOf(jw, epsilon),
     conventions: { spinOrbitalOrder: SPIN_ORBITAL_ORDER, groups: jw.groupMethod, shots: jw.shots.convention },
   };
+}
+
+/** The figures of a space at another target accuracy ε (hartree): shots and the phase-estimation cost change, nothing else. */
+export function figuresAtAccuracy(figures: ActiveSpaceFigures, epsilon: number): ActiveSpaceFigures {
+  if (epsilon === figures.epsilon) return figures;
+  const at = (m: MappingFigures): MappingFigures => ({ ...m, shots: budgetAtAccuracy(m.shots, epsilon) });
+  const mappings = { jordanWigner: at(figures.mappings.jordanWigner), bravyiKitaev: at(figures.mappings.bravyiKitaev), parity: at(figures.mappings.parity) };
+  const jw = mappings.jordanWigner;
+  return { ...figures, epsilon, mappings, faultTolerant: faultTolerantOf(jw, epsilon) };
+}
+
+function faultTolerantOf(jw: MappingFigures, epsilon: number): QubitizationEstimate {
+  return qubitizedPhaseEstimation({ systemQubits: jw.qubits, terms: jw.terms - (jw.identity !== 0 ? 1 : 0), oneNorm: jw.oneNorm, epsilon });
 }

@@ -79,6 +79,8 @@ export interface MeasurementBudget {
   readonly groups: number;
   /** Groups whose reference variance is zero (diagonal in the reference). */
   readonly silentGroups: number;
+  /** Σ_g √Var_g (hartree): the grouped estimate is (this / ε)², so a budget can be re-targeted. */
+  readonly rootVarianceSum: number;
   readonly convention: string;
 }
 
@@ -86,7 +88,11 @@ export function measurementBudget(sum: PauliSum, groups: QwcGroups, reference: n
   const lambda = oneNorm(sum);
   const variances = groupVariances(sum, groups, reference);
   let silent = 0;
-  for (const v of variances) if (v === 0) silent++;
+  let rootVarianceSum = 0;
+  for (const v of variances) {
+    if (v === 0) silent++;
+    rootVarianceSum += Math.sqrt(v);
+  }
   return {
     epsilon,
     oneNorm: lambda,
@@ -94,7 +100,22 @@ export function measurementBudget(sum: PauliSum, groups: QwcGroups, reference: n
     groupedEstimate: groupedShots(variances, epsilon).shots,
     groups: groups.count,
     silentGroups: silent,
+    rootVarianceSum,
     convention: `${SHOT_CONVENTION}; grouped: sorted-insertion QWC groups, variances of the mean-field reference determinant in the mapping's encoding (an estimate; correlated states need more)`,
+  };
+}
+
+/**
+ * The same budget at another target accuracy: both figures scale as 1/ε² (their numerators, λ and
+ * Σ_g √Var_g, do not depend on ε), so a Hamiltonian built once serves every accuracy a spec asks for.
+ */
+export function budgetAtAccuracy(budget: MeasurementBudget, epsilon: number): MeasurementBudget {
+  checkAccuracy(epsilon);
+  return {
+    ...budget,
+    epsilon,
+    separateBound: separateMeasurementBound(budget.oneNorm, epsilon),
+    groupedEstimate: Math.ceil((budget.rootVarianceSum / epsilon) ** 2),
   };
 }
 
