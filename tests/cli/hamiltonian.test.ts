@@ -200,3 +200,37 @@ describe('a spec: each quantum fragment on its own mean field, in the window of 
     expect(result.stderr).toContain("`active` statement");
   });
 });
+
+describe("the spec's accuracy, steps and shot rate", () => {
+  it('shots at the tier accuracy and a VQE run: (2P + 1) evaluations per step × steps × scan points, time at the shot rate', async () => {
+    const spec = [
+      'basis STO-3G',
+      'accuracy 1 kcal/mol',
+      'structure {',
+      '  H a 0 0 0',
+      '  H b 0 0 0.7414',
+      '}',
+      'limits { shot-rate 5000 }',
+      'fragment left {',
+      '  atoms a b',
+      '  tier quantum { method vqe; active 2e 2o; accuracy 0.5 mHa; steps 50 }',
+      '}',
+    ].join('\n');
+    const folder = scratch({ 'acc.tess': spec });
+    const result = await run(['estimate', 'acc.tess', '--mean-field', '--format', 'json'], folder);
+    expect(result.code).toBe(0);
+    const h = (JSON.parse(result.stdout) as Json)['fragments'][0]['hamiltonian'] as Json;
+    // The tier's 0.5 mHa wins over the spec's 1 kcal/mol (by construction); (λ/ε)² by definition (Wecker et al. 2015).
+    expect(h['shots']['epsilon']).toBe(5e-4);
+    expect(h['shots']['separateBound']).toBe(Math.ceil((h['oneNorm'] / 5e-4) ** 2));
+    const vqe = h['vqe'] as Json;
+    // UCCSD of H2 in a minimal basis: one spin-adapted double (Romero et al. 2019); 2 × 1 + 1 = 3 evaluations per step (parameter shift, by definition).
+    expect(vqe['parameters']).toBe(1);
+    expect(vqe['evaluationsPerStep']).toBe(3);
+    expect(vqe['evaluations']).toBe(150); // 3 × 50 steps × 1 point, by construction
+    expect(vqe['shots']['groupedEstimate']).toBe(150 * h['shots']['groupedEstimate']); // by definition
+    expect(vqe['seconds']['groupedEstimate']).toBeCloseTo((150 * h['shots']['groupedEstimate']) / 5000, 6); // by definition
+    // The QPE cost at the same ε: ⌈πλ/2ε⌉ walk steps (Babbush et al. 2018).
+    expect(h['faultTolerant']['walkSteps']).toBe(Math.ceil((Math.PI * h['oneNorm']) / (2 * 5e-4)));
+  });
+});

@@ -12,7 +12,7 @@ import { parseSpec } from '../../server/src/language/parser';
 const REFERENCE = new Map([
   [StringLiteral, /"(?:[^"\\\n]|\\.)*"/y],
   [UnterminatedString, /"(?:[^"\\\r\n]|\\.)*/y],
-  [Word, /(?:[A-Za-z_]|[0-9]+(?=[A-Za-z_-]))(?:[A-Za-z0-9_\-+*']|\([A-Za-z0-9_,+*' ]*\))*/y],
+  [Word, /(?:[A-Za-z_]|[0-9]+(?=[A-Za-z_-]))(?:[A-Za-z0-9_\-+*']|\/(?=[A-Za-z])|\([A-Za-z0-9_,+*' ]*\))*/y],
 ]);
 
 function scannerMatch(token: typeof Word, text: string, offset: number): string | null {
@@ -26,7 +26,7 @@ function referenceMatch(token: typeof Word, text: string, offset: number): strin
   return pattern.exec(text)?.[0] ?? null;
 }
 
-const ALPHABET = ['a', 'Z', '_', '0', '7', '-', '+', '*', "'", '(', ')', ',', ' ', '"', '\\', '\n', '\r', '\u2028', '.', 'é', '#', '{', 'x'];
+const ALPHABET = ['a', 'Z', '_', '0', '7', '-', '+', '*', "'", '/', '(', ')', ',', ' ', '"', '\\', '\n', '\r', '\u2028', '.', 'é', '#', '{', 'x'];
 
 describe('the string and word scanners', () => {
   for (const token of [StringLiteral, UnterminatedString, Word]) {
@@ -47,6 +47,8 @@ describe('the string and word scanners', () => {
     expect(scannerMatch(Word, '6-31+G(d,p) x', 0)).toBe('6-31+G(d,p)');
     expect(scannerMatch(Word, 'ccsd(t)', 0)).toBe('ccsd(t)');
     expect(scannerMatch(Word, 'ccsd(t', 0)).toBe('ccsd');
+    expect(scannerMatch(Word, 'kcal/mol;', 0)).toBe('kcal/mol');
+    expect(scannerMatch(Word, 'kcal/ mol', 0)).toBe('kcal');
     expect(scannerMatch(Word, '123 ', 0)).toBeNull();
     expect(scannerMatch(StringLiteral, '"a\\"b" c', 0)).toBe('"a\\"b"');
     expect(scannerMatch(StringLiteral, '"ab\n"', 0)).toBeNull();

@@ -30,3 +30,20 @@ export const MEMORY_UNITS: Readonly<Record<string, number>> = {
   TB: 1e12,
   PB: 1e15,
 };
+
+/**
+ * Hartree per unit of an energy tolerance, CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 93,
+ * 025010 (2021)): 1 Eh = 627.5094740631 kcal/mol = 2625.4996394799 kJ/mol = 27.211386245988 eV.
+ */
+export const ENERGY_UNITS_IN_HARTREE = {
+  Ha: 1,
+  mHa: 1e-3,
+  'kcal/mol': 1 / 627.5094740631,
+  'kJ/mol': 1 / 2625.4996394799,
+  eV: 1 / 27.211386245988,
+} as const;
+
+export type EnergyUnit = keyof typeof ENERGY_UNITS_IN_HARTREE;
+
+/** Chemical accuracy, 1.6 mHa (common practice: 1 kcal/mol ≈ 1.594 mHa), the default target accuracy. */
+export const CHEMICAL_ACCURACY_HARTREE = 1.6e-3;

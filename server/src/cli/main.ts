@@ -9,6 +9,7 @@ import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
 import { parseActiveOption, runEstimate, type EstimateFormat } from './commands/estimate';
 import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
+import { HAMILTONIAN_TARGETS, runHamiltonianExport, type HamiltonianTarget } from './commands/exportHamiltonian';
 import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
 import { describeFailure } from './output';
@@ -53,6 +54,13 @@ Usage:
         are QCSchema molecules (schema_version 2, geometry in bohr). Atoms are grouped by
         fragment, as QCSchema fragments need; extras.tessera.spec_atom_numbers gives each atom's
         #n in the spec, and extras.tessera holds the basis, tiers and embedding.
+  tessera export <file.tess> --to fcidump|pauli [--fragment <name>] [--out <file>]
+      The active-space Hamiltonian of a quantum fragment (the only one, or --fragment), computed
+      as estimate --mean-field computes it: its own RHF (ROHF for open shells) orbitals, the
+      window of its active space. fcidump: the integral dump of Knowles & Handy (1989), core
+      energy (nuclear repulsion + frozen core) last, every orbital in irrep 1. pauli: Tessera's
+      qubit Hamiltonian JSON (docs/qubit-hamiltonian-json.md) under the fragment's mapping, up to
+      16 active orbitals. Exit 1 when the spec has errors or the Hamiltonian cannot be computed.
   tessera report <file.tess> [--format markdown|html|csv] [--out <file>]
       The resource report as a document (default markdown): every figure of the system and each
       fragment, the conventions, the problems with their lines and the scan totals. html is one
@@ -168,7 +176,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         args: rest,
         allowPositionals: true,
         strict: true,
-        options: { to: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+        options: { to: { type: 'string' }, out: { type: 'string' }, fragment: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
       });
       if (values.help) {
         io.stdout(USAGE);
@@ -176,7 +184,16 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       }
       if (positionals.length > 1) throw new UsageError('export takes one spec file');
       const to = values.to;
-      if (to !== undefined && !(EXPORT_TARGETS as readonly string[]).includes(to)) throw new UsageError(`--to must be one of ${EXPORT_TARGETS.join(', ')}; got '${to}'`);
+      if (to !== undefined && (HAMILTONIAN_TARGETS as readonly string[]).includes(to)) {
+        if (positionals[0] === undefined) throw new UsageError(`export needs a spec file: tessera export <file.tess> --to ${to} [--fragment <name>] [--out <file>]`);
+        if (values.out === '') throw new UsageError('--out needs a file name');
+        return runHamiltonianExport(
+          { spec: positionals[0], to: to as HamiltonianTarget, ...(values.out !== undefined ? { out: values.out } : {}), ...(values.fragment !== undefined ? { fragment: values.fragment } : {}) },
+          io,
+        );
+      }
+      if (values.fragment !== undefined) throw new UsageError(`--fragment goes with --to ${HAMILTONIAN_TARGETS.join(' or --to ')}`);
+      if (to !== undefined && !(EXPORT_TARGETS as readonly string[]).includes(to)) throw new UsageError(`--to must be one of ${[...EXPORT_TARGETS, ...HAMILTONIAN_TARGETS].join(', ')}; got '${to}'`);
       return runExport(
         {
           ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),

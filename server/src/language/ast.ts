@@ -33,6 +33,8 @@ export interface SpecAst {
   embedding?: Located<string>;
   scan?: ScanAst;
   limits?: LimitsAst;
+  /** `accuracy <value> <unit>`, in hartree. */
+  accuracy?: Located<number>;
   /** The first statement of each singular kind, for duplicate reports. */
   readonly statements: Statement[];
 }
@@ -195,6 +197,10 @@ export interface TierAst {
   frozenCore?: Located<boolean>;
   taper?: Located<boolean>;
   layers?: Located<number>;
+  /** `accuracy <value> <unit>`, in hartree. */
+  accuracy?: Located<number> | undefined;
+  /** `steps <n>`: optimisation steps of a variational run. */
+  steps?: Located<number> | undefined;
 }
 
 export interface FragmentAst {
@@ -222,6 +228,8 @@ export interface LimitsAst {
   qubits?: Located<number>;
   /** In bytes. */
   memory?: Located<number>;
+  /** Shots per second. */
+  shotRate?: Located<number>;
 }
 
 function describeRef(ref: AtomRef): string {

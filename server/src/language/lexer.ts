@@ -48,6 +48,7 @@ function scanString(text: string, offset: number, closed: boolean): CustomPatter
 
 const isLetter = (c: number) => (c >= 65 && c <= 90) || (c >= 97 && c <= 122) || c === 95; /* A-Z a-z _ */
 const isDigit = (c: number) => c >= 48 && c <= 57;
+const isAsciiLetter = (c: number) => (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
 /** Characters a word continues with: letters, digits and `_-+*'`. */
 const isWordPart = (c: number) => isLetter(c) || isDigit(c) || c === 45 || c === 43 || c === 42 || c === 39;
 /** Characters allowed between a word's parentheses: letters, digits, `_,+*'` and space. */
@@ -55,9 +56,10 @@ const isParenPart = (c: number) => isLetter(c) || isDigit(c) || c === 44 || c ==
 
 /**
  * A word starts with a letter or `_`, or with digits directly followed by a letter, `_` or `-`
- * (6-31G), and goes on with letters, digits, `_-+*'` and parenthesised groups of those, commas and
- * spaces (6-31G(d,p), ccsd(t)). Same language as the regular expression
- * `(?:[A-Za-z_]|[0-9]+(?=[A-Za-z_\-]))(?:[A-Za-z0-9_\-+*']|\([A-Za-z0-9_,+*' ]*\))*` it replaces.
+ * (6-31G), and goes on with letters, digits, `_-+*'`, a `/` followed by a letter (the energy units
+ * kcal/mol and kJ/mol) and parenthesised groups of those, commas and spaces (6-31G(d,p), ccsd(t)).
+ * Same language as the regular expression
+ * `(?:[A-Za-z_]|[0-9]+(?=[A-Za-z_\-]))(?:[A-Za-z0-9_\-+*']|\/(?=[A-Za-z])|\([A-Za-z0-9_,+*' ]*\))*`.
  */
 function scanWord(text: string, offset: number): CustomPatternMatcherReturn | null {
   let i = offset;
@@ -72,6 +74,10 @@ function scanWord(text: string, offset: number): CustomPatternMatcherReturn | nu
     const code = text.charCodeAt(i);
     if (isWordPart(code)) {
       i++;
+      continue;
+    }
+    if (code === 47 /* / */ && isAsciiLetter(text.charCodeAt(i + 1))) {
+      i += 2;
       continue;
     }
     if (code === 40 /* ( */) {

@@ -1,5 +1,5 @@
 /** Readers for compound values such as memory sizes (`16 GiB`, `512MiB`). */
-import { MEMORY_UNITS } from '../chemistry/units';
+import { ENERGY_UNITS_IN_HARTREE, MEMORY_UNITS, type EnergyUnit } from '../chemistry/units';
 import type { Argument } from './syntax';
 import { joinSpans, type Span } from './text';
 
@@ -41,4 +41,22 @@ export function parseMemorySize(args: readonly Argument[]): MemoryReading {
     return { ok: false, message: `${amountText} ${unitText} is ${(amount * factor).toPrecision(3)} bytes, less than one byte: is the unit or the number mistyped?`, span: whole };
   }
   return { ok: true, bytes: amount * factor, span: whole };
+}
+
+export type EnergyReading = { ok: true; hartree: number; value: number; unit: EnergyUnit; span: Span } | { ok: false; message: string; span?: Span };
+
+const ENERGY_UNIT_LIST = Object.keys(ENERGY_UNITS_IN_HARTREE).join(', ');
+
+/** An energy with its unit: `1.6 mHa`, `1 kcal/mol`, `0.05 eV`. */
+export function parseEnergy(args: readonly Argument[], example: string): EnergyReading {
+  const [amount, unit, ...extra] = args;
+  if (!amount) return { ok: false, message: `Give an energy and its unit: \`${example}\` (units: ${ENERGY_UNIT_LIST}).` };
+  if (amount.kind !== 'number') return { ok: false, message: `'${amount.text}' is not a number; write \`${example}\` (units: ${ENERGY_UNIT_LIST}).`, span: amount.span };
+  if (!unit) return { ok: false, message: `Add a unit to the energy: \`${amount.text} mHa\`? (units: ${ENERGY_UNIT_LIST})`, span: amount.span };
+  if (extra.length > 0) return { ok: false, message: 'An energy is a number and a unit, nothing more.', span: joinSpans(extra[0]!.span, extra[extra.length - 1]!.span) };
+  const factor = (ENERGY_UNITS_IN_HARTREE as Readonly<Record<string, number>>)[unit.text];
+  if (factor === undefined) return { ok: false, message: `Unknown energy unit '${unit.text}'; use one of ${ENERGY_UNIT_LIST}.`, span: unit.span };
+  const value = Number(amount.text);
+  if (!Number.isFinite(value) || value <= 0) return { ok: false, message: 'The energy must be a positive number.', span: amount.span };
+  return { ok: true, hartree: value * factor, value, unit: unit.text as EnergyUnit, span: joinSpans(amount.span, unit.span) };
 }

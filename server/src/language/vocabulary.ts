@@ -51,12 +51,33 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'active', blocks: ['tier'], syntax: 'active <n>e <m>o', summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core.' },
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
+  {
+    name: 'accuracy',
+    blocks: ['top', 'tier'],
+    syntax: 'accuracy <value> mHa|Ha|kcal/mol|kJ/mol|eV',
+    summary:
+      'Target accuracy of a quantum fragment\'s energy, one standard deviation of its estimate: it sets the shots per energy evaluation, (λ/ε)², and the cost of phase estimation. At the top for every fragment, in a tier for that one (default 1.6 mHa, chemical accuracy, common practice).',
+  },
+  { name: 'steps', blocks: ['tier'], syntax: 'steps <n>', summary: 'Optimisation steps of a variational run, for its shot count: each step evaluates the energy 2 × parameters + 1 times (parameter shift). Default 100 (an assumption).' },
   { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
   { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
-  { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
+  { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB; shot-rate <n> }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
   { name: 'qubits', blocks: ['limits'], syntax: 'qubits <n>', summary: 'Largest number of qubits a quantum-tier fragment may need.' },
   { name: 'memory', blocks: ['limits'], syntax: 'memory <size> B|KiB|MiB|GiB|TiB', summary: 'Classical memory available, for example to a statevector simulator.' },
+  { name: 'shot-rate', blocks: ['limits'], syntax: 'shot-rate <shots per second>', summary: 'Shots the quantum device runs per second: turns the shots of a variational run into time (device overheads not included).' },
 ];
+
+/** Energy units of `accuracy`, for completion and hover. */
+export const ENERGY_UNIT_TERMS: readonly TermInfo[] = [
+  { name: 'mHa', summary: 'millihartree (1.6 mHa is chemical accuracy, common practice)' },
+  { name: 'Ha', summary: 'hartree' },
+  { name: 'kcal/mol', summary: 'kilocalorie per mole: 1.5936 mHa (CODATA 2018)' },
+  { name: 'kJ/mol', summary: 'kilojoule per mole: 0.38088 mHa (CODATA 2018)' },
+  { name: 'eV', summary: 'electronvolt: 36.749 mHa (CODATA 2018)' },
+];
+
+/** Optimisation steps of a variational run when the tier gives none (an assumption, said where shown). */
+export const DEFAULT_VQE_STEPS = 100;
 
 export function keywordsFor(block: BlockKind): KeywordInfo[] {
   return KEYWORDS.filter((keyword) => keyword.blocks.includes(block));

@@ -25,6 +25,7 @@ import {
   type BlockKind,
   type TermInfo,
   type TierLevel,
+  ENERGY_UNIT_TERMS,
 } from '../language/vocabulary';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
@@ -153,6 +154,8 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
       return index === 0 ? terms(SWITCH_TERMS, CompletionItemKind.EnumMember) : [];
     case 'embedding':
       return index === 0 ? terms(EMBEDDINGS, CompletionItemKind.EnumMember) : [];
+    case 'accuracy':
+      return index === 1 ? terms(ENERGY_UNIT_TERMS, CompletionItemKind.Unit) : [];
     case 'tier':
       return index === 0 ? terms(TIER_LEVELS, CompletionItemKind.EnumMember) : [];
     case 'method': {

@@ -16,7 +16,7 @@ import type { ScfReference } from '../../analysis';
 import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { computeMeanFields, type ActiveSpaceOf } from './meanField';
-import { renderHamiltonianMarkdown, renderHamiltonianText, hamiltonianJson, type HamiltonianPart } from '../../report/format/hamiltonian';
+import { renderHamiltonianMarkdown, renderHamiltonianText, hamiltonianJson, type HamiltonianPart, type MeasurementSettings } from '../../report/format/hamiltonian';
 import { CHEMICAL_ACCURACY } from '../../electronic/measurement/shots';
 import { explicitLimitNote, MAX_EXPLICIT_ORBITALS } from '../../electronic/hamiltonian/qubitHamiltonian';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
@@ -156,6 +156,28 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
   return { analysis, file, diagnostics };
 }
 
+/**
+ * What the spec says about measuring part k (0 the system, k the fragment k − 1): the target
+ * accuracy (the tier's, else the spec's, else 1.6 mHa), and for a variational quantum tier its
+ * run (parameters of the ansatz estimate, steps, scan points, shot rate).
+ */
+function measurementSettings(analysis: DocumentAnalysis, k: number): MeasurementSettings {
+  const model = analysis.model;
+  const fragment = k > 0 ? model.fragments[k - 1] : undefined;
+  const tier = fragment?.tier;
+  const epsilon = tier?.accuracy ?? (model.accuracyGiven ? model.accuracy : CHEMICAL_ACCURACY);
+  if (!fragment || tier?.level !== 'quantum') return { epsilon, method: null, vqe: null };
+  const parameters = tier.method === 'vqe' ? analysis.estimates.plan(fragment.index)?.ansatz?.parameters : undefined;
+  return {
+    epsilon,
+    method: tier.method,
+    vqe:
+      parameters === undefined
+        ? null
+        : { parameters, steps: tier.steps, stepsGiven: tier.stepsGiven, scanPoints: model.scan?.distances.length ?? 1, shotRate: model.limits.shotRate ?? null },
+  };
+}
+
 /** Why the command ends with errors because of the computed parts: failures and non-convergence count. */
 function meanFieldTrouble(parts: readonly MeanFieldPart[], hamiltonians: readonly HamiltonianPart[]): { errors: number; internal: boolean } {
   let errors = 0;
@@ -190,7 +212,6 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
   const activeSpaceOf = options.meanField ? activeSpaces(options, prepared.analysis) : undefined;
-  const epsilon = CHEMICAL_ACCURACY;
   const run = options.meanField
     ? await computeMeanFields(
         prepared.analysis,
@@ -205,7 +226,8 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
     : undefined;
   const parts = run?.parts;
   const hamiltonians = run && run.hamiltonians.length > 0 ? run.hamiltonians : undefined;
-  const hamiltonianOf = (k: number) => (hamiltonians ? { hamiltonian: hamiltonianJson(hamiltonians[k]!.result, epsilon) } : {});
+  const settings = hamiltonians ? hamiltonians.map((_, k) => measurementSettings(prepared.analysis, k)) : [];
+  const hamiltonianOf = (k: number) => (hamiltonians ? { hamiltonian: hamiltonianJson(hamiltonians[k]!.result, settings[k]!) } : {});
   if (options.format === 'json') {
     const json = parts
       ? {
@@ -218,7 +240,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   } else {
     io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
     if (parts) io.stdout(options.format === 'markdown' ? `\n${renderMeanFieldMarkdown(parts)}` : `\n${renderMeanFieldText(parts)}`);
-    if (hamiltonians) io.stdout(options.format === 'markdown' ? `\n${renderHamiltonianMarkdown(hamiltonians, epsilon)}` : `\n${renderHamiltonianText(hamiltonians, epsilon)}`);
+    if (hamiltonians) io.stdout(options.format === 'markdown' ? `\n${renderHamiltonianMarkdown(hamiltonians, settings)}` : `\n${renderHamiltonianText(hamiltonians, settings)}`);
     for (const diagnostic of prepared.diagnostics) {
       const line = diagnostic.line > 0 ? formatDiagnosticLine(diagnostic) : `${diagnostic.file}: ${diagnostic.severity} ${diagnostic.code} ${diagnostic.message}`;
       io.stderr(`${line}\n`);

@@ -35,6 +35,8 @@ export interface MeanFieldOptions extends RequestOptions {
   readonly workers?: number;
   /** Which parts get an active-space Hamiltonian, and which orbitals. */
   readonly activeSpace?: ActiveSpaceOf;
+  /** Only these parts are computed (default: all). */
+  readonly onlyParts?: (computation: PartComputation) => boolean;
 }
 
 export interface MeanFieldRun {
@@ -89,7 +91,9 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
   const store = new LateResults();
   const queue = new JobQueue(store, { workers: options.workers ?? 1, ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}) });
   queue.onEvent(progressPrinter(io));
-  const computations = specParts(analysis.model).map((part) => partComputation(analysis.model, part, options));
+  const computations = specParts(analysis.model)
+    .map((part) => partComputation(analysis.model, part, options))
+    .filter((computation) => options.onlyParts?.(computation) ?? true);
   const entries: DemandEntry[] = [];
   const hamiltonianRequests = new Map<PartComputation, HamiltonianRequest | { refusal: string } | { bound: string } | null>();
   for (const computation of computations) {

@@ -23,6 +23,7 @@
  *    and the diagonal (x = 0) part of every group contributes nothing. An estimate: a correlated
  *    state has variance in the diagonal strings too, so real budgets are larger.
  */
+import { CHEMICAL_ACCURACY_HARTREE, ENERGY_UNITS_IN_HARTREE, type EnergyUnit } from '../../chemistry/units';
 import type { QwcGroups } from '../hamiltonian/grouping';
 import type { PauliSum } from '../hamiltonian/pauli';
 import { popcount } from '../hamiltonian/pauli';
@@ -30,7 +31,7 @@ import { PauliAccumulator } from '../hamiltonian/pauliTable';
 import { oneNorm } from '../hamiltonian/summary';
 
 /** Chemical accuracy, 1.6 mHa (common practice: 1 kcal/mol ≈ 1.594 mHa). */
-export const CHEMICAL_ACCURACY = 1.6e-3;
+export const CHEMICAL_ACCURACY = CHEMICAL_ACCURACY_HARTREE;
 
 export const SHOT_CONVENTION =
   'ε is one standard deviation of the energy estimate (hartree); shots allocated optimally across what is measured (Wecker, Hastings & Troyer 2015; Rubin, Babbush & McClean 2018); the identity is not measured';
@@ -169,16 +170,10 @@ function checkAccuracy(epsilon: number): void {
   if (!(epsilon > 0) || !Number.isFinite(epsilon)) throw new RangeError(`target accuracy must be a positive energy in hartree, not ${epsilon}`);
 }
 
-/** Hartree per unit of the target-accuracy statement (CODATA 2018 conversion factors). */
-export const ENERGY_UNITS_IN_HARTREE = {
-  Ha: 1,
-  mHa: 1e-3,
-  'kcal/mol': 1 / 627.5094740631,
-  'kJ/mol': 1 / 2625.4996394799,
-  eV: 1 / 27.211386245988,
-} as const;
+/** Hartree per unit of the target-accuracy statement (CODATA 2018 conversion factors, chemistry/units.ts). */
+export { ENERGY_UNITS_IN_HARTREE };
 
-export type AccuracyUnit = keyof typeof ENERGY_UNITS_IN_HARTREE;
+export type AccuracyUnit = EnergyUnit;
 
 export function accuracyInHartree(value: number, unit: AccuracyUnit): number {
   return value * ENERGY_UNITS_IN_HARTREE[unit];

@@ -29,13 +29,16 @@ export function checkTiers(context: CheckContext): void {
       ['mapping', tierAst.mapping?.span],
       ['taper', tierAst.taper?.span],
       ['layers', tierAst.layers?.span],
+      ['accuracy', tierAst.accuracy?.span],
+      ['steps', tierAst.steps?.span],
     ] as const;
     if (tier.level !== 'quantum') {
       for (const [word, span] of quantumOnly) {
         if (span) sink.report('setting-ignored', span, `'${word}' applies to quantum-tier fragments only; this tier is ${tier.level}, so it has no effect.`);
       }
-    } else if (tier.method === 'qpe' && tierAst.ansatz) {
-      sink.report('setting-ignored', tierAst.ansatz.span, 'Phase estimation prepares no variational ansatz; the ansatz has no effect with method qpe.');
+    } else if (tier.method === 'qpe') {
+      if (tierAst.ansatz) sink.report('setting-ignored', tierAst.ansatz.span, 'Phase estimation prepares no variational ansatz; the ansatz has no effect with method qpe.');
+      if (tierAst.steps) sink.report('setting-ignored', tierAst.steps.span, 'Phase estimation has no optimisation steps; `steps` counts the steps of a variational run and has no effect with method qpe.');
     }
     if (tierAst.layers && tier.ansatz && !['k-upccgsd', 'hardware-efficient'].includes(tier.ansatz)) {
       sink.report('setting-ignored', tierAst.layers.span, `'layers' sets k of k-upccgsd or the depth of a hardware-efficient ansatz; it has no effect with ${tier.ansatz}.`);

@@ -106,5 +106,10 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
     case 'limits':
       ast.limits = readLimits(reader, statement);
       return;
+    case 'accuracy': {
+      const accuracy = reader.accuracy(statement);
+      if (accuracy) ast.accuracy = accuracy;
+      return;
+    }
   }
 }

@@ -1,4 +1,4 @@
-/** `limits { qubits <n>; memory <size> <unit> }` */
+/** `limits { qubits <n>; memory <size> <unit>; shot-rate <n> }` */
 import type { LimitsAst } from '../ast';
 import type { Statement } from '../syntax';
 import { parseMemorySize } from '../values';
@@ -23,6 +23,11 @@ export function readLimits(reader: StatementReader, statement: Statement): Limit
       const memory = parseMemorySize(inner.args);
       if (memory.ok) limits.memory = { value: memory.bytes, span: memory.span };
       else sink.report(inner.args.length === 0 ? 'missing-value' : 'invalid-value', memory.span ?? inner.keyword.span, memory.message);
+    } else if (keyword.name === 'shot-rate') {
+      const value = reader.args(inner, 1, 'shot-rate <shots per second>');
+      const rate = value ? reader.number(value[0]!, 'The shot rate (shots per second)') : undefined;
+      if (rate && rate.value <= 0) sink.report('invalid-value', rate.span, `The shot rate must be a positive number of shots per second, not ${value![0]!.text}.`);
+      else if (rate) limits.shotRate = rate;
     }
   }
   return limits;

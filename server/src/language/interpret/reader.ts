@@ -3,6 +3,7 @@
  * duplicates, and reading arguments (counts, numbers, words from a vocabulary, switches, atom
  * references) with a diagnostic for every one that does not say what the language allows.
  */
+import { parseEnergy } from '../values';
 import type { AtomRef, Located } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import { suggest } from '../suggest';
@@ -132,6 +133,14 @@ export class StatementReader {
       return undefined;
     }
     return { value, span: arg.span };
+  }
+
+  /** `accuracy <value> <unit>`: the energy in hartree, or a diagnostic that says what is wrong. */
+  accuracy(statement: Statement): Located<number> | undefined {
+    const reading = parseEnergy(statement.args, 'accuracy 1.6 mHa');
+    if (reading.ok) return { value: reading.hartree, span: reading.span };
+    this.sink.report(statement.args.length === 0 ? 'missing-value' : 'invalid-value', reading.span ?? statement.keyword.span, `The target accuracy: ${reading.message}`);
+    return undefined;
   }
 
   wholeNumber(arg: Argument, what: string, minimum: number): Located<number> | undefined {

@@ -45,6 +45,14 @@ export function readTier(reader: StatementReader, statement: Statement): TierAst
         if (value) tier.layers = reader.wholeNumber(value[0]!, 'The number of layers', 1);
         break;
       }
+      case 'accuracy':
+        tier.accuracy = reader.accuracy(inner);
+        break;
+      case 'steps': {
+        const value = reader.args(inner, 1, 'steps <n>');
+        if (value) tier.steps = reader.wholeNumber(value[0]!, 'The number of optimisation steps', 1);
+        break;
+      }
     }
   }
   return tier;

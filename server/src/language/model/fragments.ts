@@ -1,4 +1,5 @@
 /** A fragment's charge, multiplicity, tier (defaults applied) and orbital space. */
+import { DEFAULT_VQE_STEPS } from '../vocabulary';
 import type { FunctionType } from '../../chemistry/basis/shells';
 import { countOrbitalSpace, type CountedAtom } from '../../chemistry/counting';
 import type { Mapping } from '../../chemistry/qubits';
@@ -68,6 +69,9 @@ function tierModel(ast: TierAst, multiplicity: number, defaultFrozenCore: boolea
     frozenCore: ast.frozenCore?.value ?? defaultFrozenCore,
     taper: ast.taper?.value ?? false,
     layers: ast.layers?.value ?? 1,
+    accuracy: ast.accuracy?.value,
+    steps: ast.steps?.value ?? DEFAULT_VQE_STEPS,
+    stepsGiven: ast.steps !== undefined,
     ast,
   };
 }

@@ -4,6 +4,7 @@
  * counted. One module per seam: `atoms.ts` (inline atoms and includes, labels), `basis.ts`,
  * `selectors.ts`, `ownership.ts` (rest and owners), `fragments.ts` (fragments and tiers), `scan.ts`.
  */
+import { CHEMICAL_ACCURACY_HARTREE } from '../../chemistry/units';
 import { countOrbitalSpace } from '../../chemistry/counting';
 import { analyseContacts } from '../../chemistry/geometry';
 import { lowestMultiplicity } from '../../chemistry/spin';
@@ -66,7 +67,10 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
       ...(ast.limits?.qubits ? { qubits: ast.limits.qubits.value } : options.defaultQubitLimit ? { qubits: options.defaultQubitLimit } : {}),
       qubitsFromSpec: ast.limits?.qubits !== undefined,
       ...(ast.limits?.memory ? { memoryBytes: ast.limits.memory.value } : {}),
+      ...(ast.limits?.shotRate ? { shotRate: ast.limits.shotRate.value } : {}),
     },
+    accuracy: ast.accuracy?.value ?? CHEMICAL_ACCURACY_HARTREE,
+    accuracyGiven: ast.accuracy !== undefined,
     system,
     contacts,
     includes,

@@ -35,6 +35,11 @@ export interface TierModel {
   readonly frozenCore: boolean;
   readonly taper: boolean;
   readonly layers: number;
+  /** The tier's own target accuracy (hartree), when it gives one; else the spec's applies. */
+  readonly accuracy: number | undefined;
+  /** Optimisation steps of a variational run (DEFAULT_VQE_STEPS unless given). */
+  readonly steps: number;
+  readonly stepsGiven: boolean;
   readonly ast: TierAst;
 }
 
@@ -102,7 +107,10 @@ export interface SpecModel {
   readonly embedding: string;
   readonly scan: ScanModel | undefined;
   /** `qubitsFromSpec` is false when the qubit limit is the caller's default (the spec sets none). */
-  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number };
+  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number; readonly shotRate?: number };
+  /** Target accuracy of quantum fragments' energies (hartree): the spec's `accuracy`, else 1.6 mHa (chemical accuracy, common practice). */
+  readonly accuracy: number;
+  readonly accuracyGiven: boolean;
   readonly system: OrbitalSpace;
   readonly contacts: ContactAnalysis;
   /** Absolute paths of files read for this spec. */

@@ -5,6 +5,7 @@
  * budgets and the phase-estimation cost are estimates built on them, and the output says which.
  */
 import { hamiltonianFigures, type HamiltonianOutcome } from '../../analysis';
+import { vqeRun } from '../../electronic/measurement/shots';
 import type { ActiveSpaceFigures, MappingFigures } from '../../electronic/measurement/figures';
 import { markdownText, plainText } from './escape';
 import { renderMarkdownTable, renderTextTable, type Table } from './table';
@@ -23,8 +24,20 @@ export interface HamiltonianPart {
   readonly result: PartHamiltonian;
 }
 
+/** What the spec says about measuring a part: its target accuracy, and its variational run when it has one. */
+export interface MeasurementSettings {
+  /** Target accuracy ε (hartree). */
+  readonly epsilon: number;
+  /** `vqe`, `qpe`, or null without a quantum tier (--xyz). */
+  readonly method: string | null;
+  readonly vqe: { readonly parameters: number; readonly steps: number; readonly stepsGiven: boolean; readonly scanPoints: number; readonly shotRate: number | null } | null;
+}
+
 export const HAMILTONIAN_NOTE =
   "Hamiltonian figures are computed by Tessera from the part's own restricted mean field (RHF; ROHF for open shells): strings with |c| > 1e-8 Ha counted from the explicit qubit Hamiltonian, λ and the constant summed from it. Shot budgets and the phase-estimation cost are estimates built on these figures.";
+
+export const BUDGET_NOTE =
+  'Shots: (λ/ε)² measures every string on its own with optimal allocation, an upper bound for any state (Wecker, Hastings & Troyer, PRA 92, 042303 (2015); Rubin, Babbush & McClean, NJP 20, 053020 (2018)); grouped: QWC groups with variances of the mean-field reference determinant, an estimate, low for correlated states. ε is one standard deviation of the energy. VQE run: (2 × parameters + 1) evaluations per step (parameter shift) × steps × scan points × grouped shots; time at the shot rate of `limits`, device overheads not included. QPE: qubitized phase estimation of the Pauli LCU, ⌈πλ/2ε⌉ walk steps (Babbush et al., PRX 8, 041015 (2018); Lee et al., PRX Quantum 2, 030305 (2021)), an estimate.';
 
 function mappingJson(m: MappingFigures): Record<string, unknown> {
   return {
@@ -38,8 +51,31 @@ function mappingJson(m: MappingFigures): Record<string, unknown> {
   };
 }
 
-/** The `hamiltonian` object of one part in the JSON estimate, at target accuracy ε (hartree). */
-export function hamiltonianJson(result: PartHamiltonian, epsilon: number): Record<string, unknown> | null {
+/** A variational run's evaluations, shots and time, with the bound and with the grouped estimate per evaluation. */
+function vqeJson(settings: MeasurementSettings, shots: { separateBound: number; groupedEstimate: number }): Record<string, unknown> | null {
+  const vqe = settings.vqe;
+  if (!vqe) return null;
+  const base = { parameters: vqe.parameters, steps: vqe.steps, scanPoints: vqe.scanPoints, ...(vqe.shotRate !== null ? { shotRate: vqe.shotRate } : {}) };
+  const bound = vqeRun({ ...base, shotsPerEvaluation: shots.separateBound });
+  const grouped = vqeRun({ ...base, shotsPerEvaluation: shots.groupedEstimate });
+  return {
+    source: 'estimate',
+    parameters: vqe.parameters,
+    steps: vqe.steps,
+    stepsSource: vqe.stepsGiven ? 'spec' : 'default (an assumption)',
+    scanPoints: vqe.scanPoints,
+    evaluationsPerStep: bound.evaluationsPerStep,
+    evaluations: bound.evaluations,
+    shots: { separateBound: bound.shots, groupedEstimate: grouped.shots },
+    shotRate: vqe.shotRate,
+    seconds: vqe.shotRate === null ? null : { separateBound: bound.seconds, groupedEstimate: grouped.seconds },
+    convention: bound.convention,
+  };
+}
+
+/** The `hamiltonian` object of one part in the JSON estimate, at the part's target accuracy. */
+export function hamiltonianJson(result: PartHamiltonian, settings: MeasurementSettings): Record<string, unknown> | null {
+  const epsilon = settings.epsilon;
   if (result.state === 'not-asked') return null;
   if (result.state === 'failed') return { computed: false, error: { code: result.code, message: result.message } };
   if (result.state === 'bound') return { computed: false, source: 'counted', note: result.note };
@@ -81,7 +117,8 @@ export function hamiltonianJson(result: PartHamiltonian, epsilon: number): Recor
       mapping: 'jordan-wigner',
       convention: jw.shots.convention,
     },
-    faultTolerant: { ...f.faultTolerant, references: [...f.faultTolerant.references], source: 'estimate' },
+    vqe: vqeJson(settings, jw.shots),
+    faultTolerant: { ...f.faultTolerant, references: [...f.faultTolerant.references], source: 'estimate', shown: settings.method === 'qpe' ? 'the tier\'s method' : 'for comparison' },
     mappings: { jordanWigner: mappingJson(jw), bravyiKitaev: mappingJson(f.mappings.bravyiKitaev), parity: mappingJson(f.mappings.parity) },
     conventions: f.conventions,
     seconds: outcome.seconds,
@@ -98,23 +135,35 @@ function computedFigures(result: PartHamiltonian, epsilon: number): ActiveSpaceF
   return figures.status === 'computed' ? figures : null;
 }
 
-/** One row per part that asked for a Hamiltonian. */
-export function hamiltonianTable(parts: readonly HamiltonianPart[], epsilon: number): Table {
+function duration(seconds: number | undefined): string {
+  if (seconds === undefined) return '–';
+  if (seconds < 120) return `${seconds.toPrecision(3)} s`;
+  if (seconds < 2 * 3600) return `${(seconds / 60).toPrecision(3)} min`;
+  if (seconds < 2 * 86400) return `${(seconds / 3600).toPrecision(3)} h`;
+  return `${(seconds / 86400).toPrecision(3)} days`;
+}
+
+/** One row per part that asked for a Hamiltonian (`settings` in the same order as `parts`). */
+export function hamiltonianTable(parts: readonly HamiltonianPart[], settings: readonly MeasurementSettings[]): Table {
+  const dash = ['–', '–', '–', '–', '–', '–', '–', '–', '–'];
   return {
-    title: `Active-space Hamiltonian (computed; shots at ε = ${(epsilon * 1000).toPrecision(3)} mHa, estimates)`,
-    headers: ['part', 'space', 'strings JW/BK/parity', 'λ (Ha)', 'constant (Ha)', 'QWC groups JW', 'shots (λ/ε)²', 'shots grouped', 'QPE Toffolis'],
-    numeric: [false, false, true, true, true, true, true, true, true],
+    title: 'Active-space Hamiltonian (computed) and its measurement budget (estimates)',
+    headers: ['part', 'space', 'strings JW/BK/parity', 'λ (Ha)', 'constant (Ha)', 'QWC groups JW', 'ε (mHa)', 'shots (λ/ε)²', 'shots grouped', 'VQE run shots (grouped)', 'VQE time', 'QPE Toffolis', 'QPE logical qubits'],
+    numeric: [false, false, true, true, true, true, true, true, true, true, true, true, true],
     rows: parts
+      .map((part, k) => ({ ...part, settings: settings[k]! }))
       .filter((part) => part.result.state !== 'not-asked')
-      .map(({ label, result }) => {
-        if (result.state === 'failed') return [label, '–', 'not computed', '–', '–', '–', '–', '–', '–'];
-        if (result.state === 'bound') return [label, '–', 'too large (bound)', '–', '–', '–', '–', '–', '–'];
-        if (result.state !== 'computed') return [label, '–', '–', '–', '–', '–', '–', '–', '–'];
+      .map(({ label, result, settings: setting }) => {
+        if (result.state === 'failed') return [label, '–', 'not computed', ...dash.slice(0, 10)];
+        if (result.state === 'bound') return [label, '–', 'too large (bound)', ...dash.slice(0, 10)];
+        if (result.state !== 'computed') return [label, ...dash, '–', '–', '–'];
+        const epsilon = setting.epsilon;
         const o = result.outcome;
         const space = `${o.integrals.electrons.alpha + o.integrals.electrons.beta}e${o.integrals.orbitals}o ${o.reference.toUpperCase()}`;
         const f = computedFigures(result, epsilon);
-        if (!f) return [label, space, 'too large (bound)', '–', '–', '–', '–', '–', '–'];
+        if (!f) return [label, space, 'too large (bound)', ...dash.slice(0, 10)];
         const jw = f.mappings.jordanWigner;
+        const vqe = setting.vqe ? vqeRun({ parameters: setting.vqe.parameters, steps: setting.vqe.steps, scanPoints: setting.vqe.scanPoints, shotsPerEvaluation: jw.shots.groupedEstimate, ...(setting.vqe.shotRate !== null ? { shotRate: setting.vqe.shotRate } : {}) }) : null;
         return [
           label,
           space,
@@ -122,9 +171,13 @@ export function hamiltonianTable(parts: readonly HamiltonianPart[], epsilon: num
           jw.oneNorm.toFixed(6),
           f.constant.toFixed(6),
           count(jw.groups),
+          (epsilon * 1000).toPrecision(3),
           count(jw.shots.separateBound),
           count(jw.shots.groupedEstimate),
+          vqe ? vqe.shots.toExponential(2) : '–',
+          vqe ? duration(vqe.seconds) : '–',
           f.faultTolerant.toffolis.toExponential(2),
+          String(f.faultTolerant.logicalQubits),
         ];
       }),
   };
@@ -144,17 +197,19 @@ export function hamiltonianNotes(parts: readonly HamiltonianPart[]): string[] {
   return notes;
 }
 
-export function renderHamiltonianText(parts: readonly HamiltonianPart[], epsilon: number): string {
-  return [renderTextTable(hamiltonianTable(parts, epsilon)), ...hamiltonianNotes(parts).map(plainText), HAMILTONIAN_NOTE, ''].join('\n');
+export function renderHamiltonianText(parts: readonly HamiltonianPart[], settings: readonly MeasurementSettings[]): string {
+  return [renderTextTable(hamiltonianTable(parts, settings)), ...hamiltonianNotes(parts).map(plainText), HAMILTONIAN_NOTE, BUDGET_NOTE, ''].join('\n');
 }
 
-export function renderHamiltonianMarkdown(parts: readonly HamiltonianPart[], epsilon: number, heading = '###'): string {
+export function renderHamiltonianMarkdown(parts: readonly HamiltonianPart[], settings: readonly MeasurementSettings[], heading = '###'): string {
   return [
-    renderMarkdownTable(hamiltonianTable(parts, epsilon), heading),
+    renderMarkdownTable(hamiltonianTable(parts, settings), heading),
     '',
     ...hamiltonianNotes(parts).map((note) => `- ${markdownText(note)}`),
     '',
     `_${markdownText(HAMILTONIAN_NOTE)}_`,
+    '',
+    `_${markdownText(BUDGET_NOTE)}_`,
     '',
   ].join('\n');
 }
