@@ -967,7 +967,7 @@ describe('vocabulary', () => {
 
   it('lists the keywords of the block when nothing is close', () => {
     const { diagnostic } = expectDiagnostic(water(`${ONE_FRAGMENT}\nlimits { ⟦wallclock⟧ 8 }`), 'unknown-keyword');
-    expect(diagnostic.message).toBe("Unknown keyword 'wallclock' in a limits block. Expected one of: qubits, memory.");
+    expect(diagnostic.message).toBe("Unknown keyword 'wallclock' in a limits block. Expected one of: qubits, memory, shot-rate.");
     expect(diagnostic.data).toBeUndefined();
   });
 

@@ -170,6 +170,11 @@ export interface PartComputation {
   /** MP2 after the mean field: RHF and UHF references only. */
   readonly mp2: Mp2Request | null;
   readonly mp2Key: string | null;
+  /** The active-space Hamiltonian after a restricted mean field: quantum fragments within the explicit limit. */
+  readonly hamiltonian: HamiltonianRequest | null;
+  readonly hamiltonianKey: string | null;
+  /** Why a quantum fragment keeps its counted figures (a space beyond the explicit limit); null otherwise. */
+  readonly hamiltonianNote: string | null;
 }
 
 /** Every part of a spec: the system first, then the fragments in spec order. */
@@ -213,6 +218,8 @@ export interface RequestOptions {
   readonly maxIterations?: number | null;
   /** Overrides the part's frozen-core setting for MP2. */
   readonly frozenCore?: boolean;
+  /** The part's active space for a Hamiltonian, or why it keeps the bound; none without it. */
+  readonly activeSpace?: ActiveSpaceChoice | { readonly bound: string } | null;
 }
 
 /** What computing one part would ask for (the requests are plain data: see the file comment). */
@@ -220,7 +227,9 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
   const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
   const functions = space.basisFunctions[model.basis.functions];
   const refusal = refusalOf(model, part);
-  let built: { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null } | undefined;
+  let built:
+    | { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null; hamiltonian: HamiltonianRequest | null; hamiltonianKey: string | null }
+    | undefined;
   const build = () => {
     if (built) return built;
     const inputs = partInputs(model, part);
@@ -233,7 +242,9 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
     };
     const frozenCore = options.frozenCore ?? (part.kind === 'fragment' ? (model.fragments[part.index]!.tier?.frozenCore ?? model.frozenCore) : model.frozenCore);
     const mp2: Mp2Request | null = meanField.reference === 'rohf' ? null : { kind: MP2_KIND, meanField, frozenCore };
-    built = { meanField, meanFieldKey: requestKey(meanField), mp2, mp2Key: mp2 ? requestKey(mp2) : null };
+    const space = options.activeSpace;
+    const hamiltonian: HamiltonianRequest | null = space && 'kind' in space ? { kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(meanField), space } : null;
+    built = { meanField, meanFieldKey: requestKey(meanField), mp2, mp2Key: mp2 ? requestKey(mp2) : null, hamiltonian, hamiltonianKey: hamiltonian ? requestKey(hamiltonian) : null };
     return built;
   };
   return {
@@ -253,5 +264,12 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
     get mp2Key() {
       return refusal ? null : build().mp2Key;
     },
+    get hamiltonian() {
+      return refusal ? null : build().hamiltonian;
+    },
+    get hamiltonianKey() {
+      return refusal ? null : build().hamiltonianKey;
+    },
+    hamiltonianNote: options.activeSpace && 'bound' in options.activeSpace ? options.activeSpace.bound : null,
   };
 }

@@ -9,6 +9,7 @@
  * Results that arrive later (late.ts) are read through `late`; a change there does not mutate this
  * object: whoever shows figures is told, and asks again.
  */
+import { canBuildExplicitly, explicitLimitNote } from '../electronic/hamiltonian/qubitHamiltonian';
 import { bondedGroup } from '../chemistry/scan';
 import type { SpecAst } from '../language/ast';
 import { analyze, checkName, contained, type Analysis, type AnalyzeOptions } from '../language/analyze';
@@ -28,7 +29,7 @@ import { assembleReport } from './figures/report';
 import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
-import { partComputation, type PartComputation } from './computed';
+import { partComputation, type ActiveSpaceChoice, type PartComputation } from './computed';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
@@ -146,10 +147,27 @@ export class DocumentAnalysis {
     const id = part.kind === 'system' ? 'system' : String(part.index);
     let computation = this.computations.get(id);
     if (!computation) {
-      computation = partComputation(this.model, part);
+      computation = partComputation(this.model, part, part.kind === 'fragment' ? { activeSpace: this.activeSpaceChoice(part.index) } : {});
       this.computations.set(id, computation);
     }
     return computation;
+  }
+
+  /**
+   * The active space a quantum fragment's Hamiltonian is computed in: the canonical window of its
+   * active space (electrons and orbitals of its plan) on its own restricted mean field; beyond the
+   * explicit limit the counted figures stay, with the reason; null for other fragments.
+   */
+  activeSpaceChoice(index: number): ActiveSpaceChoice | { readonly bound: string } | null {
+    const fragment = this.model.fragments[index];
+    if (fragment?.tier?.level !== 'quantum') return null;
+    const plan = this.estimates.plan(index);
+    if (!plan) return null;
+    if (plan.problem.embedding === 'dmet') {
+      return { bound: 'under embedding dmet the active space lies in the impurity (fragment and bath orbitals), whose Hamiltonian needs the embedding; Tessera computes a fragment alone, so the counted figures stand' };
+    }
+    if (!canBuildExplicitly(plan.active.orbitals)) return { bound: explicitLimitNote(plan.active.orbitals) };
+    return { kind: 'window', electrons: plan.active.electrons, orbitals: plan.active.orbitals };
   }
 
   /** The atoms a scan moves: the second atom's fragment, or its bonded group without fragments. */

@@ -78,6 +78,7 @@ export class DocumentComputations {
       present.add(computation.meanFieldKey!);
       entries.push({ request: computation.meanField!, label: computation.label, explicit });
       if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit });
+      if (computation.hamiltonian) entries.push({ request: computation.hamiltonian, label: computation.label, explicit });
     }
     // Requests whose inputs left the document lapse: an edit that restores them offers them again.
     for (const key of state.asked) if (!present.has(key)) state.asked.delete(key);

@@ -3,6 +3,7 @@
  * comes from the document's analysis (analysis/figures), with the convention behind it; a card
  * asks for its own fragment's figures only.
  */
+import { computedPauliTerms } from './hamiltonian';
 import { markdownText } from '../report/format/escape';
 import { CONVENTIONS, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
 
@@ -54,7 +55,7 @@ function pointGroupRow(fragment: FragmentFigures): string | undefined {
 }
 
 /** Rows of the cost figures a plan estimate adds (quantum and correlated tiers). */
-function planRows(fragment: FragmentFigures, limit: number | null): string[] {
+function planRows(fragment: FragmentFigures, limit: number | null, computed: { jordanWigner: number; groups: number } | null): string[] {
   const rows: string[] = [];
   const symmetryRow = pointGroupRow(fragment);
   if (symmetryRow) rows.push(symmetryRow);
@@ -69,8 +70,11 @@ function planRows(fragment: FragmentFigures, limit: number | null): string[] {
   if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
   if (fragment.qubits.tapered !== null) rows.push(`| tapered | ${fragment.qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
   if (fragment.qubitsRequired !== null) rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${fragment.qubitsRequired === fragment.qubits.tapered && fragment.qubits.tapered !== null ? ', tapered' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
-  if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${fragment.pauliTerms.jordanWigner} (identity included) |`);
-  if (fragment.measurement && fragment.tier === 'quantum') rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups |`);
+  const counted = fragment.pauliTerms ? `${fragment.pauliTerms.upperBound ? '≤ ' : ''}${fragment.pauliTerms.jordanWigner}` : null;
+  if (computed && counted !== null) rows.push(`| Pauli terms | **${computed.jordanWigner}** computed (counted bound ${counted}; identity included) |`);
+  else if (counted !== null) rows.push(`| Pauli terms | ${counted} counted (identity included) |`);
+  if (computed && fragment.tier === 'quantum') rows.push(`| measurement | ${computed.groups} qubit-wise commuting groups, computed from the strings |`);
+  else if (fragment.measurement && fragment.tier === 'quantum') rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups (counted) |`);
   if (fragment.ansatzCost) {
     const unscreened = fragment.ansatzCost.unscreened !== null && fragment.ansatzCost.unscreened !== fragment.ansatzCost.parameters ? ` (${fragment.ansatzCost.unscreened} without point-group screening)` : '';
     rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${fragment.ansatzCost.parameters} parameters${unscreened} |`);
@@ -96,7 +100,7 @@ export function fragmentCard(analysis: DocumentAnalysis, index: number): string 
     '| | |',
     '| --- | --- |',
     ...spaceRows(fragment),
-    ...planRows(fragment, analysis.model.limits.qubits ?? null),
+    ...planRows(fragment, analysis.model.limits.qubits ?? null, computedPauliTerms(analysis, index)),
     ...fragment.notes.map((note) => `| note | ${note} |`),
     '',
     `_Conventions: ${conventions.join('; ')}._`,

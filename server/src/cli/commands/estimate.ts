@@ -70,15 +70,7 @@ function activeSpaces(options: EstimateOptions, analysis: DocumentAnalysis): Act
   if (!options.spec) return undefined;
   const quantum = analysis.model.fragments.some((fragment) => fragment.tier?.level === 'quantum');
   if (!quantum) return undefined;
-  return (computation) => {
-    if (computation.part.kind !== 'fragment') return null;
-    const index = computation.part.index;
-    if (analysis.model.fragments[index]!.tier?.level !== 'quantum') return null;
-    const plan = analysis.estimates.plan(index);
-    if (!plan) return { refusal: 'the fragment has no valid active space (see the diagnostics)' };
-    if (plan.active.orbitals > MAX_EXPLICIT_ORBITALS) return { bound: explicitLimitNote(plan.active.orbitals) };
-    return { kind: 'window', electrons: plan.active.electrons, orbitals: plan.active.orbitals };
-  };
+  return (computation) => (computation.part.kind === 'fragment' ? analysis.activeSpaceChoice(computation.part.index) : null);
 }
 
 interface Prepared {
@@ -219,7 +211,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
           ...(options.reference ? { reference: options.reference } : {}),
           ...(options.maxIterations !== undefined ? { maxIterations: options.maxIterations } : {}),
           ...(options.memoryLimitMiB !== undefined ? { memoryLimitBytes: options.memoryLimitMiB * 2 ** 20 } : {}),
-          ...(activeSpaceOf ? { activeSpace: activeSpaceOf } : {}),
+          ...(activeSpaceOf ? { activeSpaces: activeSpaceOf } : {}),
         },
         io,
       )

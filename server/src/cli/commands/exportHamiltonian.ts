@@ -74,7 +74,7 @@ export async function runHamiltonianExport(options: HamiltonianExportOptions, io
   const run = await computeMeanFields(
     spec.analysis,
     {
-      activeSpace: (computation) => (computation.part.kind === 'fragment' && computation.part.index === index ? { kind: 'window', electrons, orbitals } : null),
+      activeSpaces: (computation) => (computation.part.kind === 'fragment' && computation.part.index === index ? { kind: 'window', electrons, orbitals } : null),
       onlyParts: (computation) => computation.part.kind === 'fragment' && computation.part.index === index,
     },
     io,

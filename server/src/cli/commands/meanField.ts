@@ -34,14 +34,14 @@ export interface MeanFieldOptions extends RequestOptions {
   readonly memoryLimitBytes?: number;
   readonly workers?: number;
   /** Which parts get an active-space Hamiltonian, and which orbitals. */
-  readonly activeSpace?: ActiveSpaceOf;
+  readonly activeSpaces?: ActiveSpaceOf;
   /** Only these parts are computed (default: all). */
   readonly onlyParts?: (computation: PartComputation) => boolean;
 }
 
 export interface MeanFieldRun {
   readonly parts: MeanFieldPart[];
-  /** One per part, in the order of `parts`; empty without `activeSpace`. */
+  /** One per part, in the order of `parts`; empty without `activeSpaces`. */
   readonly hamiltonians: HamiltonianPart[];
   /** True when an interrupt cancelled what was still running. */
   readonly interrupted: boolean;
@@ -100,7 +100,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     if (computation.refusal) continue;
     entries.push({ request: computation.meanField!, label: computation.label, explicit: true });
     if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit: true });
-    const space = options.activeSpace?.(computation) ?? null;
+    const space = options.activeSpaces?.(computation) ?? null;
     const request = space === null || 'refusal' in space || 'bound' in space ? space : ({ kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(computation.meanField!), space } as const);
     hamiltonianRequests.set(computation, request);
     if (request && 'kind' in request) entries.push({ request, label: computation.label, explicit: true });
@@ -115,7 +115,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     const parts: MeanFieldPart[] = [];
     const hamiltonians: HamiltonianPart[] = [];
     for (const computation of computations) {
-      if (options.activeSpace) hamiltonians.push({ label: computation.label, result: await hamiltonianOf(queue, computation, hamiltonianRequests.get(computation) ?? null, interrupted) });
+      if (options.activeSpaces) hamiltonians.push({ label: computation.label, result: await hamiltonianOf(queue, computation, hamiltonianRequests.get(computation) ?? null, interrupted) });
       if (computation.refusal) {
         parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` } });
         continue;
