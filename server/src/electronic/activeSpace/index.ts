@@ -1,0 +1,8 @@
+/** Choosing the active space of a part from its mean field (and its MP2 natural orbitals). */
+export { activeIrrepCounts, activeSpinOrbitals, ActiveSelectionError } from './selection';
+export type { ActiveOrbital, ActiveSelection, AtomicCharacter, OrbitalKind, SelectionSource } from './selection';
+export { canonicalOrbitals } from './reference';
+export type { CanonicalOrbitals, SelectionReference } from './reference';
+export { characterText, mainCharacters, shellLetter } from './character';
+export { canonicalWindow, irrepWindow } from './windows';
+export type { IrrepCount } from './windows';
