@@ -6,3 +6,8 @@ export type { CanonicalOrbitals, SelectionReference } from './reference';
 export { characterText, mainCharacters, shellLetter } from './character';
 export { canonicalWindow, irrepWindow } from './windows';
 export type { IrrepCount } from './windows';
+export { atomicProjectionSelection, DEFAULT_PROJECTION_THRESHOLD, minimalShells, REFERENCE_MINIMAL_BASIS } from './atomicProjection';
+export type { AtomicProjectionOptions, ShellTarget } from './atomicProjection';
+export { DEFAULT_OCCUPATION_WINDOW, naturalOccupationSelection } from './naturalOccupations';
+export type { NaturalOccupationOptions } from './naturalOccupations';
+export { fitToOrbitalLimit } from './fit';
