@@ -31,7 +31,7 @@ import { adaptBasis, labelOrbitals } from '../scf/symmetry/adapted';
 import { shellLetter } from './character';
 import { assembleSelection } from './describe';
 import { fitToOrbitalLimit } from './fit';
-import { canonicalOrbitals, orbitalsHolding, type SelectionReference } from './reference';
+import { canonicalOrbitals, orbitalsHolding, type CanonicalOrbitals, type SelectionReference } from './reference';
 import { ActiveSelectionError, type ActiveSelection } from './selection';
 
 /** The minimal basis the named shells are taken from. */
@@ -134,7 +134,7 @@ export function atomicProjectionSelection(reference: SelectionReference, targets
   const restVirtual = virtualSpace.values.map((_, k) => k).filter((k) => !kept.has(M + k));
 
   // The new orbitals: core | active occupied | singly occupied | active virtual | other virtual.
-  const fock = fockOperator(reference);
+  const fock = fockOperator(reference, canonical);
   const columnsOut: Float64Array[] = [];
   const energies: number[] = [];
   const occupations: number[] = [];
@@ -255,11 +255,22 @@ function expectationProjector(v: Float64Array, mixed: Float64Array, inverse: Flo
   return value;
 }
 
-/** The Fock operator the orbital energies come from: F for RHF, ½(Fα + Fβ) for ROHF (the diagonal blocks of scf/engine.ts). */
-function fockOperator(reference: SelectionReference): Float64Array {
-  const { alpha, beta } = reference.wavefunction.fock;
-  if (alpha === beta) return alpha;
-  return alpha.map((value, k) => 0.5 * (value + beta[k]!));
+/**
+ * The Fock operator in the atomic-orbital basis from the canonical orbitals: F = S C ε Cᵀ S (F C = S C ε
+ * with Cᵀ S C = 1). For ROHF this is the effective operator of scf/engine.ts, whose doubly occupied
+ * and virtual diagonal blocks are ½(Fα + Fβ), the only blocks the semicanonical step reads.
+ */
+function fockOperator(reference: SelectionReference, canonical: CanonicalOrbitals): Float64Array {
+  const N = canonical.functionCount;
+  const M = canonical.orbitalCount;
+  const SC = multiply(reference.overlap, canonical.coefficients, N, N, M, new Float64Array(N * M));
+  const out = new Float64Array(N * N);
+  for (let mu = 0; mu < N; mu++) for (let nu = 0; nu <= mu; nu++) {
+    let sum = 0;
+    for (let p = 0; p < M; p++) sum += SC[mu * M + p]! * canonical.energies[p]! * SC[nu * M + p]!;
+    out[mu * N + nu] = out[nu * N + mu] = sum;
+  }
+  return out;
 }
 
 function expectation(matrix: Float64Array, v: Float64Array, N: number): number {

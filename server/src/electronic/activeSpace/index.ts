@@ -2,7 +2,7 @@
 export { activeIrrepCounts, activeSpinOrbitals, ActiveSelectionError } from './selection';
 export type { ActiveOrbital, ActiveSelection, AtomicCharacter, OrbitalKind, SelectionSource } from './selection';
 export { canonicalOrbitals } from './reference';
-export type { CanonicalOrbitals, SelectionReference } from './reference';
+export type { CanonicalOrbitals, RestrictedWavefunction, SelectionReference } from './reference';
 export { characterText, mainCharacters, shellLetter } from './character';
 export { canonicalWindow, irrepWindow } from './windows';
 export type { IrrepCount } from './windows';

@@ -9,14 +9,26 @@
  * occupied for the frozen-core Hamiltonian to hold.
  */
 import type { MolecularBasis } from '../contracts';
-import type { ScfWavefunction } from '../scf/engine';
+import type { ScfReference } from '../scf/options';
 import { ActiveSelectionError } from './selection';
+
+/** The parts of an SCF wavefunction a selection reads (scf/engine.ts ScfWavefunction has them all). */
+export interface RestrictedWavefunction {
+  readonly reference: ScfReference;
+  /** N × M, columns ascending in energy (alpha; the same spatial orbitals for beta in RHF and ROHF). */
+  readonly coefficients: { readonly alpha: Float64Array };
+  readonly orbitalEnergies: { readonly alpha: ArrayLike<number> };
+  /** 1 or 0 per orbital and spin. */
+  readonly occupations: { readonly alpha: ArrayLike<number>; readonly beta: ArrayLike<number> };
+  readonly irreps: { readonly alpha: readonly (string | null)[] };
+  readonly electrons: { readonly alpha: number; readonly beta: number };
+}
 
 export interface SelectionReference {
   readonly basis: MolecularBasis;
   /** Atomic-orbital overlap S (N × N). */
   readonly overlap: Float64Array;
-  readonly wavefunction: ScfWavefunction;
+  readonly wavefunction: RestrictedWavefunction;
   /** Abelian point group of the orbital irreps (MeanFieldResult.pointGroup). */
   readonly pointGroup: string;
 }
@@ -27,7 +39,7 @@ export interface CanonicalOrbitals {
   readonly orbitalCount: number;
   /** N × M, columns ascending in energy. */
   readonly coefficients: Float64Array;
-  readonly energies: Float64Array;
+  readonly energies: ArrayLike<number>;
   /** 2, 1 or 0 electrons per orbital. */
   readonly occupations: Float64Array;
   readonly irreps: readonly (string | null)[];
@@ -40,6 +52,7 @@ export function canonicalOrbitals(reference: SelectionReference): CanonicalOrbit
     throw new ActiveSelectionError('An active space is chosen from restricted orbitals; this mean field is UHF (separate alpha and beta orbitals). Choose it from an ROHF mean field of the same part.');
   }
   const M = w.orbitalEnergies.alpha.length;
+  if (w.coefficients.alpha.length !== reference.basis.functionCount * M) throw new ActiveSelectionError(`The orbitals hold ${w.coefficients.alpha.length} coefficients for ${reference.basis.functionCount} functions × ${M} orbitals.`);
   const N = reference.basis.functionCount;
   const occupations = new Float64Array(M);
   for (let p = 0; p < M; p++) occupations[p] = w.occupations.alpha[p]! + w.occupations.beta[p]!;
