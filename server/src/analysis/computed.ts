@@ -8,6 +8,7 @@
  * Kinds of request, each a kind of late result:
  * - `mean-field`: the SCF of one part (RHF, UHF or ROHF), with its orbitals;
  * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`);
+ * - `dmet-bath`: a fragment's DMET bath from the system's mean field (under `embedding dmet`);
  * - `hamiltonian`: the active-space integrals and qubit Hamiltonians of a restricted (RHF or ROHF)
  *   mean field, with their computed figures (needs the mean field first).
  * A later kind follows the same pattern: a request that names the mean-field request it builds on,
@@ -26,6 +27,9 @@ export type { ScfReference };
 export const MEAN_FIELD_KIND = 'mean-field';
 export const MP2_KIND = 'mp2';
 export const HAMILTONIAN_KIND = 'hamiltonian';
+export const DMET_BATH_KIND = 'dmet-bath';
+/** Singular values above this give bath orbitals (electronic/embedding/bath.ts says why). */
+export const DEFAULT_BATH_THRESHOLD = 1e-6;
 
 export interface MeanFieldRequest {
   readonly kind: typeof MEAN_FIELD_KIND;
@@ -44,6 +48,29 @@ export interface Mp2Request {
   readonly frozenCore: boolean;
 }
 
+/** A fragment's DMET bath from the system's mean field. */
+export interface DmetBathRequest {
+  readonly kind: typeof DMET_BATH_KIND;
+  /** The whole system's mean field. */
+  readonly meanField: MeanFieldRequest;
+  /** The fragment's atoms: indices into the system's atoms (the spec's order). */
+  readonly fragmentAtoms: readonly number[];
+  /** Singular values above it give bath orbitals. */
+  readonly threshold: number;
+}
+
+
+/** Atom indices as ranges: `0-2,5`. */
+function atomRanges(atoms: readonly number[]): string {
+  const out: string[] = [];
+  for (let k = 0; k < atoms.length; ) {
+    let end = k;
+    while (end + 1 < atoms.length && atoms[end + 1] === atoms[end]! + 1) end++;
+    out.push(end > k ? `${atoms[k]}-${atoms[end]}` : `${atoms[k]}`);
+    k = end + 1;
+  }
+  return out.join(',');
+}
 /**
  * Which orbitals of the mean field form the active space:
  * - `window`: canonical orbitals in energy order, the doubly occupied ones below the window frozen,
@@ -64,12 +91,13 @@ export interface HamiltonianRequest {
   readonly space: ActiveSpaceChoice;
 }
 
-export type ComputeRequest = MeanFieldRequest | Mp2Request | HamiltonianRequest;
+export type ComputeRequest = MeanFieldRequest | Mp2Request | DmetBathRequest | HamiltonianRequest;
 
 /** The key a request's result is kept under, within its kind. */
 export function requestKey(request: ComputeRequest): string {
   if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
   if (request.kind === HAMILTONIAN_KIND) return `${spaceKey(request.space)};${requestKey(request.meanField)}`;
+  if (request.kind === DMET_BATH_KIND) return `t${request.threshold};a${atomRanges(request.fragmentAtoms)};${requestKey(request.meanField)}`;
   return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
 }
 
@@ -151,6 +179,40 @@ export function hamiltonianFigures(outcome: HamiltonianOutcome, epsilon: number)
   return outcome.figures.status === 'computed' ? figuresAtAccuracy(outcome.figures, epsilon) : outcome.figures;
 }
 
+/** One spin's Schmidt decomposition, as the bath job returns it. */
+export interface SpinBathSummary {
+  /** Singular values of the environment–fragment block of the spin's orthogonalised density, descending. */
+  readonly singularValues: readonly number[];
+  /** Singular values above the threshold. */
+  readonly bathOrbitals: number;
+  /** The counting rule min(L, M − L, Nσ, M − Nσ) on the same orbitals (chemistry/cost/dmet.ts). */
+  readonly countedBathOrbitals: number;
+  /** Electrons of the spin on fragment + bath, from the projected density. */
+  readonly impurityElectrons: number;
+  /** Fragment orbitals fully occupied (no bath partner). */
+  readonly occupiedFragmentOrbitals: number;
+  readonly idempotencyError: number;
+}
+
+/** A finished DMET bath job (electronic/embedding). */
+export interface DmetBathSummary {
+  readonly reference: ScfReference;
+  readonly orbitals: 'lowdin';
+  readonly threshold: number;
+  /** L: orthogonalised orbitals on the fragment's atoms. */
+  readonly fragmentOrbitals: number;
+  /** M: the system's orbitals (linearly independent). */
+  readonly systemOrbitals: number;
+  /** One spatial bath for both spins (RHF). */
+  readonly restricted: boolean;
+  readonly alpha: SpinBathSummary;
+  readonly beta: SpinBathSummary;
+  readonly impurityOrbitals: number;
+  readonly impurityElectrons: number;
+  readonly coreElectrons: number;
+  readonly seconds: number;
+}
+
 /**
  * One part of a spec as a candidate for computation: what it would ask for, or why it cannot. The
  * requests and keys are built when first read (a large system's key costs a pass over its atoms,
@@ -175,6 +237,9 @@ export interface PartComputation {
   readonly hamiltonianKey: string | null;
   /** Why a quantum fragment keeps its counted figures (a space beyond the explicit limit); null otherwise. */
   readonly hamiltonianNote: string | null;
+  /** A fragment's DMET bath from the system's mean field: under `embedding dmet`, when the system can be computed. */
+  readonly bath: DmetBathRequest | null;
+  readonly bathKey: string | null;
 }
 
 /** Every part of a spec: the system first, then the fragments in spec order. */
@@ -220,6 +285,8 @@ export interface RequestOptions {
   readonly frozenCore?: boolean;
   /** The part's active space for a Hamiltonian, or why it keeps the bound; none without it. */
   readonly activeSpace?: ActiveSpaceChoice | { readonly bound: string } | null;
+  /** Singular values above it give DMET bath orbitals (default DEFAULT_BATH_THRESHOLD). */
+  readonly bathThreshold?: number;
 }
 
 /** What computing one part would ask for (the requests are plain data: see the file comment). */
@@ -230,6 +297,16 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
   let built:
     | { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null; hamiltonian: HamiltonianRequest | null; hamiltonianKey: string | null }
     | undefined;
+  let bath: { request: DmetBathRequest; key: string } | null | undefined;
+  const buildBath = () => {
+    if (bath !== undefined) return bath;
+    bath = null;
+    if (part.kind !== 'fragment' || model.embedding !== 'dmet' || refusalOf(model, { kind: 'system' })) return bath;
+    const system = partComputation(model, { kind: 'system' }, { ...options, activeSpace: null }).meanField!;
+    const request: DmetBathRequest = { kind: DMET_BATH_KIND, meanField: system, fragmentAtoms: [...partAtoms(model, part)], threshold: options.bathThreshold ?? DEFAULT_BATH_THRESHOLD };
+    bath = { request, key: requestKey(request) };
+    return bath;
+  };
   const build = () => {
     if (built) return built;
     const inputs = partInputs(model, part);
@@ -271,5 +348,11 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
       return refusal ? null : build().hamiltonianKey;
     },
     hamiltonianNote: options.activeSpace && 'bound' in options.activeSpace ? options.activeSpace.bound : null,
+    get bath() {
+      return buildBath()?.request ?? null;
+    },
+    get bathKey() {
+      return buildBath()?.key ?? null;
+    },
   };
 }

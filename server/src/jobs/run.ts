@@ -9,6 +9,8 @@
  * - `mp2`: the mean-field result it builds on arrives as input; the integrals are built again
  *   (their shell-pair data and Schwarz factors; MP2 recomputes quartets batch by batch anyway)
  *   and MP2 runs on it (RHF: energy, density and natural orbitals; UHF: energy).
+ * - `dmet-bath`: the system's mean-field result arrives as input; the basis and its overlap are
+ *   built again and the fragment's bath is cut from the per-spin densities (electronic/embedding).
  * - `hamiltonian`: the restricted mean field it builds on arrives as input; the core Hamiltonian
  *   and the integral source are built again, the active space is chosen (the canonical window, or
  *   the indices given), its integrals are transformed (frozen core folded into a constant and an
@@ -16,9 +18,12 @@
  *   (electronic/hamiltonian, electronic/measurement).
  */
 import {
+  DMET_BATH_KIND,
   HAMILTONIAN_KIND,
   MP2_KIND,
   type ComputeRequest,
+  type DmetBathRequest,
+  type DmetBathSummary,
   type HamiltonianOutcome,
   type HamiltonianRequest,
   type MeanFieldOutcome,
@@ -26,11 +31,13 @@ import {
   type Mp2Request,
   type Mp2Summary,
 } from '../analysis/computed';
+import { bathSize } from '../chemistry/cost/dmet';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
 import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
 import { mp2, unrestrictedMp2 } from '../electronic/correlation';
-import { coreHamiltonian, createTwoElectronIntegrals, nuclearRepulsionEnergy } from '../electronic/integrals';
+import { dmetBath, spinDensity, type SpinBath } from '../electronic/embedding';
+import { coreHamiltonian, createTwoElectronIntegrals, nuclearRepulsionEnergy, overlapMatrix } from '../electronic/integrals';
 import { activeSpaceIntegrals, activeWindow } from '../electronic/hamiltonian';
 import { activeSpaceFigures } from '../electronic/measurement';
 import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
@@ -208,9 +215,57 @@ export function runHamiltonian(request: HamiltonianRequest, meanField: MeanField
   };
 }
 
+export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcome, context: RunContext): DmetBathSummary {
+  const start = performance.now();
+  const { result, orbitals } = meanField;
+  if (!result.converged) {
+    throw new JobInputError({ code: 'prerequisite', message: `The DMET bath needs a converged mean field of the system; it stopped after ${result.iterations} iterations without converging.` });
+  }
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'embedding' });
+  const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
+  const n = basis.functionCount;
+  const M = orbitals.orbitalCount;
+  const alpha = spinDensity(orbitals.alpha, n, M, result.occupations.alpha);
+  const beta = result.reference === 'rhf' ? alpha : spinDensity(orbitals.beta, n, M, result.occupations.beta);
+  const bath = dmetBath({
+    overlap: overlapMatrix(basis),
+    functionCenter: basis.functionCenter,
+    density: { alpha, beta },
+    electrons: result.electrons,
+    fragmentAtoms: request.fragmentAtoms,
+    threshold: request.threshold,
+    cancel: context.cancel,
+  });
+  const L = Math.min(bath.fragmentOrbitals, M);
+  const spin = (value: SpinBath, electrons: number) => ({
+    singularValues: Array.from(value.singularValues),
+    bathOrbitals: value.bathOrbitals,
+    countedBathOrbitals: bathSize(L, M, electrons),
+    impurityElectrons: value.impurityElectrons,
+    occupiedFragmentOrbitals: value.occupiedFragmentOrbitals,
+    idempotencyError: value.idempotencyError,
+  });
+  return {
+    reference: result.reference,
+    orbitals: bath.orbitals,
+    threshold: bath.threshold,
+    fragmentOrbitals: bath.fragmentOrbitals,
+    systemOrbitals: M,
+    restricted: bath.restricted,
+    alpha: spin(bath.alpha, result.electrons.alpha),
+    beta: spin(bath.beta, result.electrons.beta),
+    impurityOrbitals: bath.impurityOrbitals,
+    impurityElectrons: bath.impurityElectrons,
+    coreElectrons: bath.coreElectrons,
+    seconds: (performance.now() - start) / 1000,
+  };
+}
+
 /** Runs any request, given the results of its prerequisites (in the order `prerequisites` lists them). */
-export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | HamiltonianOutcome {
+export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | DmetBathSummary | HamiltonianOutcome {
   if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
+  if (request.kind === DMET_BATH_KIND) return runDmetBath(request, inputs[0] as MeanFieldOutcome, context);
   if (request.kind === HAMILTONIAN_KIND) return runHamiltonian(request, inputs[0] as MeanFieldOutcome, context);
   return runMeanField(request, context);
 }

@@ -33,6 +33,7 @@ import {
 import { fragmentCard } from './cards';
 import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './computed';
 import { hamiltonianSection } from './hamiltonian';
+import { bathSection } from './computedBath';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
@@ -235,8 +236,10 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
     const fragment = analysis.model.fragments.find((f) => f.ast.name?.span.start === token.node.span.start);
     if (fragment) {
       const part = { kind: 'fragment', index: fragment.index } as const;
+      const bath = bathSection(analysis, fragment.index);
       const hamiltonian = hamiltonianSection(analysis, part);
-      return markdown(`${fragmentCard(analysis, fragment.index)}\n\n---\n\n${meanFieldSection(analysis, part, policy)}${hamiltonian ? `\n\n---\n\n${hamiltonian}` : ''}`, analysis, token.node);
+      const sections = [fragmentCard(analysis, fragment.index), meanFieldSection(analysis, part, policy), ...(bath ? [bath] : []), ...(hamiltonian ? [hamiltonian] : [])];
+      return markdown(sections.join('\n\n---\n\n'), analysis, token.node);
     }
   }
   if (context.block === 'top' && keywordText === 'basis' && token.index === 0) {

@@ -5,6 +5,7 @@
  * standard error for jobs that take a while; an interrupt (Ctrl+C) cancels the running job.
  * With an active space per part (`--active`, or a quantum fragment's `active`), the active-space
  * Hamiltonian after a restricted mean field (RHF; ROHF for open shells) too.
+ * Under `embedding dmet` each fragment's bath is computed after the system's mean field.
  */
 import {
   HAMILTONIAN_KIND,
@@ -19,11 +20,14 @@ import {
   type DocumentAnalysis,
   type LateResult,
   type MeanFieldOutcome,
+  type DmetBathRequest,
+  type DmetBathSummary,
   type Mp2Summary,
   type RequestOptions,
 } from '../../analysis';
 import { JobQueue, type DemandEntry, type JobEvent } from '../../jobs';
 import type { HamiltonianPart, PartHamiltonian } from '../../report/format/hamiltonian';
+import type { PartBath } from '../../report/format/dmetBath';
 import type { MeanFieldPart, PartMeanField } from '../../report/format/meanField';
 import type { CliIo } from '../io';
 
@@ -58,7 +62,7 @@ function progressPrinter(io: CliIo): (event: JobEvent) => void {
   return (event) => {
     const id = event.job.id;
     const now = performance.now();
-    const what = `${event.job.kind === 'mp2' ? 'MP2' : event.job.kind === HAMILTONIAN_KIND ? 'Hamiltonian' : 'mean field'} of ${event.job.label}`;
+    const what = `${event.job.kind === 'mp2' ? 'MP2' : event.job.kind === 'dmet-bath' ? 'DMET bath' : event.job.kind === HAMILTONIAN_KIND ? 'Hamiltonian' : 'mean field'} of ${event.job.label}`;
     switch (event.type) {
       case 'started':
         started.set(id, now);
@@ -87,6 +91,11 @@ function failed(result: LateResult<unknown>, interrupted: boolean): { code: stri
     : { code: 'cancelled', message: 'The computation stopped without a result.' };
 }
 
+async function bathOf(queue: JobQueue, request: DmetBathRequest, interrupted: () => boolean): Promise<PartBath> {
+  const settled = await queue.whenSettled(request);
+  return settled.state === 'ready' ? { state: 'computed', summary: settled.value as DmetBathSummary } : { state: 'failed', ...failed(settled, interrupted()) };
+}
+
 export async function computeMeanFields(analysis: DocumentAnalysis, options: MeanFieldOptions, io: CliIo): Promise<MeanFieldRun> {
   const store = new LateResults();
   const queue = new JobQueue(store, { workers: options.workers ?? 1, ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}) });
@@ -105,6 +114,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     hamiltonianRequests.set(computation, request);
     if (request && 'kind' in request) entries.push({ request, label: computation.label, explicit: true });
   }
+  for (const computation of computations) if (computation.bath) entries.push({ request: computation.bath, label: computation.label, explicit: true });
   let interrupted = false;
   const stopListening = io.onInterrupt?.(() => {
     interrupted = true;
@@ -116,8 +126,9 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     const hamiltonians: HamiltonianPart[] = [];
     for (const computation of computations) {
       if (options.activeSpaces) hamiltonians.push({ label: computation.label, result: await hamiltonianOf(queue, computation, hamiltonianRequests.get(computation) ?? null, interrupted) });
+      const bath = computation.bath ? await bathOf(queue, computation.bath, () => interrupted) : undefined;
       if (computation.refusal) {
-        parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` } });
+        parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` }, ...(bath ? { bath } : {}) });
         continue;
       }
       const request = computation.meanField!;
@@ -134,7 +145,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
       } else {
         result = { state: 'failed', reference: request.reference, ...failed(settled, interrupted) };
       }
-      parts.push({ label: computation.label, result });
+      parts.push({ label: computation.label, result, ...(bath ? { bath } : {}) });
     }
     return { parts, hamiltonians, interrupted };
   } finally {
