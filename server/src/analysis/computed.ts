@@ -230,6 +230,25 @@ export interface RequestOptions {
   readonly bathOrbitals?: BathOrbitals;
 }
 
+/**
+ * The system's mean-field request that every fragment's bath builds on, made once per model and
+ * request options (not once per fragment: a spec of 10,000 fragments would otherwise key its
+ * system 10,000 times). Null when the system cannot be computed.
+ */
+const systemRequests = new WeakMap<SpecModel, Map<string, MeanFieldRequest | null>>();
+
+function systemMeanField(model: SpecModel, options: RequestOptions): MeanFieldRequest | null {
+  let perOptions = systemRequests.get(model);
+  if (!perOptions) systemRequests.set(model, (perOptions = new Map()));
+  const key = `${options.reference ?? '-'};${options.maxIterations ?? '-'}`;
+  let request = perOptions.get(key);
+  if (request === undefined) {
+    request = refusalOf(model, { kind: 'system' }) ? null : partComputation(model, { kind: 'system' }, options).meanField;
+    perOptions.set(key, request);
+  }
+  return request;
+}
+
 /** What computing one part would ask for (the requests are plain data: see the file comment). */
 export function partComputation(model: SpecModel, part: PartRef, options: RequestOptions = {}): PartComputation {
   const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
@@ -240,8 +259,9 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
   const buildBath = () => {
     if (bath !== undefined) return bath;
     bath = null;
-    if (part.kind !== 'fragment' || model.embedding !== 'dmet' || refusalOf(model, { kind: 'system' })) return bath;
-    const system = partComputation(model, { kind: 'system' }, options).meanField!;
+    if (part.kind !== 'fragment' || model.embedding !== 'dmet') return bath;
+    const system = systemMeanField(model, options);
+    if (!system) return bath;
     const request: DmetBathRequest = { kind: DMET_BATH_KIND, meanField: system, fragmentAtoms: [...partAtoms(model, part)], threshold: options.bathThreshold ?? DEFAULT_BATH_THRESHOLD, orbitals: options.bathOrbitals ?? 'lowdin' };
     bath = { request, key: requestKey(request) };
     return bath;
