@@ -23,6 +23,13 @@ export const CONVENTIONS = {
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
 } as const;
 
+/**
+ * A count that may pass 2^53: a plain number while it is exact, beyond that a BigFigure (its text
+ * to three significant digits, its exact digits when known, log10), never a number with false
+ * digits. Read them with countText and countValue (figures/space.ts).
+ */
+export type Count = number | BigFigure;
+
 /** A count or size that may exceed 2^53: its text, its exact digits when known, and log10. */
 export interface BigFigure {
   text: string;
@@ -31,9 +38,9 @@ export interface BigFigure {
 }
 
 export interface PauliFigures {
-  jordanWigner: number;
-  bravyiKitaev: number;
-  parity: number;
+  jordanWigner: Count;
+  bravyiKitaev: Count;
+  parity: Count;
   identityIncluded: true;
   upperBound: boolean;
 }
@@ -77,9 +84,9 @@ export interface FragmentFigures extends SpaceFigures {
   problem: { embedding: string; orbitals: number; electrons: number; alpha: number; beta: number; bath: { alpha: number; beta: number }; convention: string } | null;
   activeIrreps: { perIrrep: Record<string, number>; source: string } | null;
   taperingSymmetries: string[];
-  measurement: { groups: number; exact: boolean; method: string } | null;
-  ansatzCost: { kind: string; parameters: number; singles: number | null; doubles: number | null; unscreened: number | null; spinAdapted: number | null } | null;
-  circuit: { construction: string; cnots: number; rotations: number | null; depth: number | null; compactCnots: number | null } | null;
+  measurement: { groups: Count; exact: boolean; method: string } | null;
+  ansatzCost: { kind: string; parameters: Count; singles: Count | null; doubles: Count | null; unscreened: Count | null; spinAdapted: Count | null } | null;
+  circuit: { construction: string; cnots: Count; rotations: Count | null; depth: Count | null; compactCnots: Count | null } | null;
   classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
   notes: string[];
 }
@@ -115,7 +122,7 @@ export interface ScanTotals {
   /** Fragment calculations over the whole scan: points × fragments with a tier. */
   fragmentCalculations: number;
   /** Measurement groups summed over quantum fragments, times the points: circuits per energy evaluation over the scan. */
-  measurementCircuits: number;
+  measurementCircuits: Count;
   /** The largest qubit count any point needs (the same at every point). */
   peakQubits: number | null;
 }
