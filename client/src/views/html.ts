@@ -6,7 +6,7 @@
  */
 import { randomBytes } from 'node:crypto';
 
-export type ViewKind = 'structure' | 'costs';
+export type ViewKind = 'structure' | 'costs' | 'levels';
 
 export interface ViewPageOptions {
   kind: ViewKind;
@@ -117,6 +117,25 @@ main { padding: 0.4em 0.9em 1.5em; display: grid; gap: 1em; grid-template-column
 .ts-figure svg { width: 100%; height: auto; display: block; }
 `;
 
+const LEVELS_STYLE = `
+main { padding: 0.6em 0.9em 1.5em; }
+#picture { max-width: 60em; border: 1px solid var(--ts-border); border-radius: 6px; overflow: hidden; background: #fff; line-height: 0; }
+#picture svg { width: 100%; height: auto; display: block; }
+`;
+
+const LEVELS_NOTE = 'Computed Hartree–Fock orbital energies of one part, not planning estimates.';
+
+function levelsBody(): string {
+  return `<header class="ts-head">
+  <h1 id="title">Orbital levels</h1>
+  <label for="part">Part</label> <select id="part"></select>
+  <button type="button" id="export" title="Save the picture as SVG">SVG</button>
+</header>
+<div class="ts-message" id="message" hidden></div>
+<main><div id="picture" role="img" aria-label="Orbital energy levels"></div></main>
+<p class="ts-note ts-status" id="note">${escapeHtml(LEVELS_NOTE)}</p>`;
+}
+
 function structureBody(): string {
   return `<header class="ts-head">
   <h1 id="title">Structure</h1>
@@ -161,8 +180,8 @@ function costsBody(): string {
 /** The whole page of a view. */
 export function viewPage(options: ViewPageOptions): string {
   const { kind, cspSource, scriptUri, nonce, title } = options;
-  const style = BASE_STYLE + (kind === 'structure' ? STRUCTURE_STYLE : COSTS_STYLE);
-  const body = kind === 'structure' ? structureBody() : costsBody();
+  const style = BASE_STYLE + (kind === 'structure' ? STRUCTURE_STYLE : kind === 'costs' ? COSTS_STYLE : LEVELS_STYLE);
+  const body = kind === 'structure' ? structureBody() : kind === 'costs' ? costsBody() : levelsBody();
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="${escapeHtml(contentSecurityPolicy(cspSource, nonce))}">

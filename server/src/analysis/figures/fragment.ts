@@ -5,6 +5,7 @@
  * and its rows in the renderers).
  */
 import type { PlanEstimate } from '../../chemistry/estimate/plan';
+import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
 import type { Estimates } from '../estimates';
 import { approximateCount, bigFigure, exactCount, spaceFigures } from './space';
@@ -83,7 +84,7 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
   const fragment = model.fragments[index]!;
   const symbols = fragment.atoms.map((atom) => model.atoms[atom]!.element.symbol);
   const tier = fragment.tier;
-  const base = spaceFigures(fragment.space, symbols, tier ? estimates.fragmentSymmetry(index) : undefined);
+  const base = spaceFigures(fragment.space, symbols, tier ? estimates.countedSymmetry(index) : undefined);
   let figures: FragmentFigures = {
     name: fragment.name,
     tier: tier?.level ?? null,
@@ -95,6 +96,7 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
     ...base,
     problem: null,
     activeIrreps: null,
+    symmetry: tier ? symmetryFigures(estimates, index) : null,
     taperingSymmetries: [],
     measurement: null,
     ansatzCost: null,
@@ -106,6 +108,19 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
   if (!tier || !plan) return figures;
   for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan) };
   return figures;
+}
+
+function groupFigures(symmetry: OrbitalSymmetry | undefined): { pointGroup: string; fullPointGroup: string } | null {
+  return symmetry ? { pointGroup: symmetry.group, fullPointGroup: symmetry.symmetry.fullGroup } : null;
+}
+
+/** Both groups of a fragment and which one counts, by the embedding (chemistry/estimate/embeddingSymmetry.ts). */
+function symmetryFigures(estimates: Estimates, index: number): FragmentFigures['symmetry'] {
+  const { scope, reason } = estimates.symmetryScope();
+  const own = groupFigures(estimates.fragmentSymmetry(index));
+  // The stabiliser is looked for only where it counts (it needs the whole system's symmetry).
+  const inSystem = scope === 'in-system' ? (groupFigures(estimates.fragmentSymmetryInSystem(index)) ?? { pointGroup: 'C1', fullPointGroup: 'C1' }) : null;
+  return { countedIn: scope, own, inSystem, reason };
 }
 
 function circuitFigures(plan: PlanEstimate): FragmentFigures['circuit'] {

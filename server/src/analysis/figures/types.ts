@@ -21,6 +21,8 @@ export const CONVENTIONS = {
   classical: 'full-CI determinants C(n, nα)·C(n, nβ); CI vector and CCSD amplitudes at 8 bytes each; statevector 2^q × 16 bytes',
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
+  fragmentSymmetry:
+    "a fragment that sees its environment (embedding dmet or projection) is counted in the stabiliser of its atoms in the system's point group — the operations of the system that map the fragment onto itself (group theory of stabiliser subgroups); a fragment that stands alone (subtractive, none) in its own point group",
 } as const;
 
 /**
@@ -83,6 +85,17 @@ export interface FragmentFigures extends SpaceFigures {
   /** The orbital space the solver sees: a DMET impurity or the fragment's own orbitals. */
   problem: { embedding: string; orbitals: number; electrons: number; alpha: number; beta: number; bath: { alpha: number; beta: number }; convention: string } | null;
   activeIrreps: { perIrrep: Record<string, number>; source: string } | null;
+  /**
+   * The two point groups of the fragment: its own (its atoms alone) and the one it keeps inside the
+   * system (the stabiliser of its atoms in the system's group); `countedIn` says which the figures
+   * use (pointGroup, fullPointGroup and orbitalsPerIrrep above are that one's), by the embedding.
+   */
+  symmetry: {
+    countedIn: 'in-system' | 'own';
+    own: { pointGroup: string; fullPointGroup: string } | null;
+    inSystem: { pointGroup: string; fullPointGroup: string } | null;
+    reason: string;
+  } | null;
   taperingSymmetries: string[];
   measurement: { groups: Count; exact: boolean; method: string } | null;
   ansatzCost: { kind: string; parameters: Count; singles: Count | null; doubles: Count | null; unscreened: Count | null; spinAdapted: Count | null } | null;
