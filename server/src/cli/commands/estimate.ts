@@ -12,7 +12,7 @@ import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
 import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
-import type { ScfReference } from '../../analysis';
+import type { BathOrbitals, ScfReference } from '../../analysis';
 import { bathJson, renderBathMarkdown, renderBathText, type BathPart } from '../../report/format/dmetBath';
 import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
@@ -21,6 +21,7 @@ import { renderHamiltonianMarkdown, renderHamiltonianText, hamiltonianJson, type
 import { CHEMICAL_ACCURACY } from '../../electronic/measurement/shots';
 import { explicitLimitNote, MAX_EXPLICIT_ORBITALS } from '../../electronic/hamiltonian/qubitHamiltonian';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
+import { loadSpec, type SpecSettings } from '../specFile';
 
 export type EstimateFormat = 'text' | 'json' | 'markdown';
 
@@ -39,8 +40,12 @@ export interface EstimateOptions {
   reference?: ScfReference;
   maxIterations?: number;
   memoryLimitMiB?: number;
+  /** The editor's settings: default mapping and qubit limit. */
+  settings?: SpecSettings;
   /** Singular values above it give DMET bath orbitals (with --mean-field under embedding dmet). */
   bathThreshold?: number;
+  /** The fragment's orbitals for the DMET bath. */
+  bathOrbitals?: BathOrbitals;
   /** `--active Ne No` with --xyz: the canonical window of the system's restricted mean field. */
   active?: { electrons: number; orbitals: number };
 }
@@ -89,11 +94,9 @@ function readText(file: string, io: CliIo): string | undefined {
   return undefined;
 }
 
-function prepareSpec(file: string, io: CliIo): Prepared | undefined {
-  const text = readText(file, io);
-  if (text === undefined) return undefined;
-  const analysis = analyzeDocument(text, { path: path.resolve(io.cwd, file) });
-  return { analysis, file, diagnostics: analysis.diagnostics.map((d) => printable(file, analysis, d)) };
+function prepareSpec(file: string, io: CliIo, settings: SpecSettings): Prepared | undefined {
+  const spec = loadSpec(file, io, settings);
+  return spec && { analysis: spec.analysis, file, diagnostics: spec.diagnostics };
 }
 
 const BASIS_WORD = /^[A-Za-z0-9_+*'(),\- ]+$/;
@@ -123,7 +126,7 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
     lines.push(`  ${atom.symbol} ${atom.x} ${atom.y} ${atom.z}`);
   }
   lines.push('}');
-  const analysis = analyzeDocument(lines.join('\n'));
+  const analysis = analyzeDocument(lines.join('\n'), options.settings ?? {});
   const diagnostics: PrintedDiagnostic[] = xyz.problems.map((problem) => ({
     file,
     line: problem.line + 1,
@@ -212,11 +215,11 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (options.spec && (options.basis || options.charge !== undefined || options.multiplicity !== undefined || options.functions)) {
     throw new UsageError('--basis, --charge, --multiplicity and --functions go with --xyz; a spec sets them itself');
   }
-  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.bathThreshold !== undefined || options.active)) {
-    throw new UsageError('--reference, --max-iterations, --memory-limit, --bath-threshold and --active go with --mean-field');
+  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.bathThreshold !== undefined || options.bathOrbitals || options.active)) {
+    throw new UsageError('--reference, --max-iterations, --memory-limit, --bath-threshold, --bath-orbitals and --active go with --mean-field');
   }
   if (options.active && options.spec) throw new UsageError("--active goes with --xyz; in a spec each quantum fragment's `active` statement gives its active space");
-  const prepared = options.spec ? prepareSpec(options.spec, io) : prepareXyz(options, io);
+  const prepared = options.spec ? prepareSpec(options.spec, io, options.settings ?? {}) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
@@ -230,6 +233,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
           ...(options.memoryLimitMiB !== undefined ? { memoryLimitBytes: options.memoryLimitMiB * 2 ** 20 } : {}),
           ...(activeSpaceOf ? { activeSpaces: activeSpaceOf } : {}),
           ...(options.bathThreshold !== undefined ? { bathThreshold: options.bathThreshold } : {}),
+          ...(options.bathOrbitals ? { bathOrbitals: options.bathOrbitals } : {}),
         },
         io,
       )
