@@ -5,13 +5,13 @@
  * symmetry-reduced counts. Symmetry detection is the costliest step, so it follows one size
  * policy everywhere (checks and figures alike): SYMMETRY_ATOM_LIMIT.
  */
-import { frozenCoreShells } from '../chemistry/elements';
+import { elementByNumber, frozenCoreShells } from '../chemistry/elements';
 import { activeIrreps, planSymmetryOf, resolveGivenIrreps, symmetryCounts, type PlanSymmetry } from '../chemistry/estimate/activeIrreps';
 import type { PauliTermCounts } from '../chemistry/estimate/pauliTerms';
 import { estimatePlan, type PlanEstimate, type PlanInput } from '../chemistry/estimate/plan';
 import { orbitalSymmetry, type OrbitalSymmetry } from '../chemistry/symmetry';
 import type { Mapping } from '../chemistry/qubits';
-import type { SpecModel } from '../language/model';
+import type { CapModel, SpecModel } from '../language/model';
 import { InputMemo } from './memo';
 
 /**
@@ -59,7 +59,8 @@ export class Estimates {
   fragmentSymmetry(index: number): OrbitalSymmetry | undefined {
     if (!this.fragmentSymmetries.has(index)) {
       const fragment = this.model.fragments[index]!;
-      this.fragmentSymmetries.set(index, this.symmetryOf(fragment.atoms, fragment.tier?.frozenCore ?? this.model.frozenCore, false));
+      // Caps are part of the fragment the solver sees: they count in its point group.
+      this.fragmentSymmetries.set(index, this.symmetryOf(fragment.atoms, fragment.tier?.frozenCore ?? this.model.frozenCore, false, fragment.caps));
     }
     return this.fragmentSymmetries.get(index);
   }
@@ -125,15 +126,22 @@ export class Estimates {
     });
   }
 
-  private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean): OrbitalSymmetry | undefined {
-    if (!Estimates.symmetryApplies(atoms.length)) return undefined;
+  private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean, caps: readonly CapModel[] = []): OrbitalSymmetry | undefined {
+    if (!Estimates.symmetryApplies(atoms.length + caps.length)) return undefined;
     const model = this.model;
-    const numbers = atoms.map((atom) => model.atoms[atom]!.element.z);
-    const positions = new Float64Array(3 * atoms.length);
+    const numbers = [...atoms.map((atom) => model.atoms[atom]!.element.z), ...caps.map((cap) => cap.z)];
+    const positions = new Float64Array(3 * numbers.length);
     atoms.forEach((atom, k) => positions.set(model.coordinates.subarray(3 * atom, 3 * atom + 3), 3 * k));
+    caps.forEach((cap, k) => positions.set(cap.position, 3 * (atoms.length + k)));
     const basisOf = (atom: number) => model.basis.atomSets[atom];
-    const shells = atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol));
-    const coreShells = frozenCore ? atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)) : undefined;
+    const capSymbol = (cap: CapModel) => elementByNumber(cap.z)!.symbol;
+    const shells = [...atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol)), ...caps.map((cap) => cap.basis?.shellsFor(capSymbol(cap)))];
+    const coreShells = frozenCore
+      ? [
+          ...atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)),
+          ...caps.map((cap) => frozenCoreShells(cap.z, cap.basis?.ecpCoreElectrons(capSymbol(cap)) ?? 0)),
+        ]
+      : undefined;
     const functions = model.basis.functions;
     const key = JSON.stringify([withNear, functions, numbers, Array.from(positions), shells, coreShells ?? null]);
     return SYMMETRIES.get(key, () => orbitalSymmetry({ numbers, positions, shells, coreShells, functions }, withNear ? {} : { nearTolerance: 0 }));

@@ -51,6 +51,13 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'active', blocks: ['tier'], syntax: 'active <n>e <m>o', summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core.' },
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
+  {
+    name: 'caps',
+    blocks: ['top', 'fragment'],
+    syntax: 'caps hydrogen fixed|scaled  or  caps none',
+    summary:
+      'Cap every covalent bond a fragment boundary cuts with a hydrogen link atom on the kept atom\'s side (Field, Bash & Karplus 1990): `fixed` puts it at the typical X–H length of the kept atom\'s element, `scaled` at the cut bond\'s length × (r_X + r_H)/(r_X + r_Y) with covalent radii. Caps count in the fragment\'s electrons, functions, orbitals, qubits and symmetry. At the top level for every fragment; in a fragment for that one (default none).',
+  },
   { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
   { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
   { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
@@ -131,6 +138,22 @@ export const FUNCTION_TERMS: readonly TermInfo[] = [
 export const SWITCH_TERMS: readonly TermInfo[] = [
   { name: 'on', summary: 'Enabled.' },
   { name: 'off', summary: 'Disabled.' },
+];
+
+/** What `caps` takes: the cap atom, or none. */
+export const CAP_KINDS: readonly TermInfo[] = [
+  { name: 'hydrogen', summary: 'A hydrogen link atom on each cut bond.', reference: 'M. J. Field, P. A. Bash, M. Karplus, J. Comput. Chem. 11, 700 (1990)' },
+  { name: 'none', summary: 'Cut bonds are left open (the default).' },
+];
+
+/** Where a hydrogen cap sits on the cut bond X–Y (X kept, Y outside the fragment). */
+export const CAP_RULES: readonly TermInfo[] = [
+  { name: 'fixed', summary: 'At the typical X–H bond length of the kept atom\'s element (C–H 1.09, N–H 1.01, O–H 0.96, S–H 1.34 Å; common practice), else r_X + r_H from covalent radii.' },
+  {
+    name: 'scaled',
+    summary: 'At g × d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero covalent radii: a stretched bond stretches its cap in proportion.',
+    reference: 'S. Dapprich, I. Komáromi, K. S. Byun, K. Morokuma, M. J. Frisch, J. Mol. Struct. THEOCHEM 461–462, 1 (1999)',
+  },
 ];
 
 export const SCAN_KINDS: readonly TermInfo[] = [

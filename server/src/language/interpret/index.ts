@@ -15,6 +15,7 @@ import type { DiagnosticSink } from '../diagnostics';
 import type { Statement, SyntaxTree } from '../syntax';
 import { EMBEDDINGS, FUNCTION_TERMS, UNIT_TERMS, type KeywordInfo } from '../vocabulary';
 import { readBasis, readRetiredBasisBlock } from './basis';
+import { readCaps } from './caps';
 import { readFragment } from './fragment';
 import { readGeometry } from './geometry';
 import { readLimits } from './limits';
@@ -98,6 +99,11 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
     case 'embedding': {
       const args = reader.args(statement, 1, 'embedding dmet|projection|subtractive|none');
       if (args) ast.embedding = reader.term(args[0]!, EMBEDDINGS, 'embedding');
+      return;
+    }
+    case 'caps': {
+      const caps = readCaps(reader, statement);
+      if (caps) ast.caps = caps;
       return;
     }
     case 'scan':
