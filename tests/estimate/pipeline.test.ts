@@ -158,3 +158,56 @@ describe('scans', () => {
     expect(scanned.scan!.totals).toEqual({ fragmentCalculations: 10, measurementCircuits: 5 * groups, peakQubits: 8 });
   });
 });
+
+// A fragment that sees its environment keeps only the operations of the system's group that map it
+// onto itself: the stabiliser of its atoms (group theory of a group acting on sets; site symmetry,
+// Cotton 1990, from memory). One H of water keeps the molecular plane only (Cs); alone it is an
+// atom (Kh, counted in D2h).
+describe('symmetry that survives embedding', () => {
+  const waterSplit = (embedding: string) =>
+    analyzeDocument(`basis cc-pVDZ\nfrozen-core off\n${WATER}\nembedding ${embedding}\nfragment oh {\n  atoms o h1\n  tier mean-field { method rhf }\n}\nfragment h {\n  atoms h2\n  tier quantum { method vqe; taper on }\n}\n`);
+
+  it.each(['dmet', 'projection'])('under %s the H fragment is counted in Cs, its stabiliser in C2v water, and both groups are given', (embedding) => {
+    const figures = waterSplit(embedding).fragmentFigures(1);
+    expect(figures.pointGroup).toBe('Cs');
+    expect(figures.symmetry).toMatchObject({ countedIn: 'in-system', inSystem: { pointGroup: 'Cs', fullPointGroup: 'Cs' }, own: { pointGroup: 'D2h', fullPointGroup: 'Kh' } });
+    // H in cc-pVDZ: 2s1p = 5 functions (tests/fixtures/basis-counts.nwchem.json); in Cs with the
+    // plane as σ: the s and the two in-plane p are A′, the out-of-plane p is A″ (by hand).
+    expect(figures.orbitalsPerIrrep).toEqual({ "A'": 4, 'A"': 1 });
+  });
+
+  it.each(['subtractive', 'none'])('under %s the H fragment stands alone and is counted in its own group', (embedding) => {
+    const figures = waterSplit(embedding).fragmentFigures(1);
+    expect(figures.pointGroup).toBe('D2h');
+    expect(figures.symmetry).toMatchObject({ countedIn: 'own', inSystem: null, own: { pointGroup: 'D2h' } });
+  });
+
+  // The zinc sample: a C1 system. Under DMET the site keeps C1 (a subgroup of C1, by definition),
+  // so its figures are the unscreened ones of 10 orbitals: 2 × 10 − 2 = 18 tapered qubits (only the
+  // number parities; Bravyi et al. 2017), and UCCSD 5·5·2 singles + 2·C(5,2)² + 5⁴ doubles = 875
+  // (spin-orbital count, Romero et al. 2019, by hand). Alone the site is C2 (17 tapered qubits).
+  it('counts the zinc sample\'s site in C1 under DMET, not in its own C2', async () => {
+    const { readFileSync } = await import('node:fs');
+    const text = readFileSync(new URL('../../samples/zn-site-h2s-scan.tess', import.meta.url), 'utf8');
+    const dmet = analyzeDocument(text).fragmentFigures(0);
+    expect(dmet.symmetry).toMatchObject({ countedIn: 'in-system', inSystem: { pointGroup: 'C1' }, own: { pointGroup: 'C2' } });
+    expect(dmet.qubitsRequired).toBe(18);
+    expect(dmet.ansatzCost).toMatchObject({ parameters: 875, unscreened: 875 });
+    const alone = analyzeDocument(text.replace('embedding dmet', 'embedding none')).fragmentFigures(0);
+    expect(alone.pointGroup).toBe('C2');
+    expect(alone.qubitsRequired).toBe(17);
+    // Pauli terms never fewer in the subgroup than in the group (fewer selection rules; by definition).
+    expect(dmet.pauliTerms!.jordanWigner).toBeGreaterThan(alone.pauliTerms!.jordanWigner);
+  });
+
+  it('an embedded linear guest is no longer an upper-bound count: CO2 beside an ion keeps C∞v → its abelian C2v, not D∞h', () => {
+    // CO2 (C=O 1.16 Å, from memory) on the z axis with a Na+ 3 Å beyond one O (invented placement).
+    const spec = (embedding: string) => `basis def2-SVP\ncharge 1\nstructure {\n  C c 0 0 0\n  O o1 0 0 1.16\n  O o2 0 0 -1.16\n  Na na 0 0 4.16\n}\nembedding ${embedding}\nfragment guest {\n  atoms c o1 o2\n  tier quantum { method vqe; active 4e 4o }\n}\nfragment ion {\n  atoms na\n  charge 1\n  tier mean-field { method rhf }\n}\n`;
+    const embedded = analyzeDocument(spec('dmet')).fragmentFigures(0);
+    expect(embedded.symmetry).toMatchObject({ inSystem: { fullPointGroup: 'C∞v', pointGroup: 'C2v' }, own: { fullPointGroup: 'D∞h', pointGroup: 'D2h' } });
+    // Both C∞v and D∞h are non-abelian, so both counts are upper bounds, but the embedded one counts
+    // in the subgroup C2v of D2h and so allows at least as many strings (by definition).
+    const alone = analyzeDocument(spec('none')).fragmentFigures(0);
+    expect(embedded.pauliTerms!.jordanWigner).toBeGreaterThanOrEqual(alone.pauliTerms!.jordanWigner);
+  });
+});

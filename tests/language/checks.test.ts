@@ -644,7 +644,7 @@ describe('geometry checks', () => {
       'bond-cut',
     );
     expect(diagnostic.message).toBe(
-      "The boundary between 'a' and 'b' cuts 2 covalent bonds: o–h1 0.96 Å, o–h2 0.96 Å (bonded: closer than 1.2 × the sum of covalent radii). Cut bonds need capping or link atoms in the embedding.",
+      "The boundary between 'a' and 'b' cuts 2 covalent bonds: o–h1 0.96 Å, o–h2 0.96 Å (bonded: closer than 1.2 × the sum of covalent radii). Cut bonds need capping or link atoms in the embedding: `caps hydrogen fixed` (or `scaled`) adds hydrogen link atoms.",
     );
     expect(diagnostic.data).toEqual({ bonds: [[0, 1], [0, 2]] });
     expect(diagnostic.related?.map((r) => [analysis.text.slice(r.span.start, r.span.end), r.message])).toEqual([

@@ -14,9 +14,10 @@ describe('inlay hints', () => {
   it('after each fragment name: qubits for a quantum tier, orbitals and electrons otherwise', () => {
     const hints = getInlayHints(zinc);
     expect(hints.map((hint) => [hint.position, hint.label])).toEqual([
-      // site: active 10e 10o under Jordan–Wigner, 2 × 10 = 20 qubits; tapering in the fragment's own
-      // group C2 removes 3 (N_α and N_β parity and the C2 generator; Bravyi et al. 2017): 17.
-      [positionOf(zinc, 'fragment site', 13), '20 qubits · 17 tapered'],
+      // site: active 10e 10o under Jordan–Wigner, 2 × 10 = 20 qubits. Under DMET the site keeps only
+      // the operations of the C1 system that map it onto itself, C1 (group theory: a subgroup of C1),
+      // so tapering removes only N_α and N_β parity (Bravyi et al. 2017): 18.
+      [positionOf(zinc, 'fragment site', 13), '20 qubits · 18 tapered'],
       // guest, H2S in def2-SVP: S [4s3p1d] = 18, H [2s1p] = 5 each (tests/fixtures/basis-counts.nwchem.json):
       // 18 + 2 × 5 = 28 orbitals; 16 + 2 × 1 = 18 electrons.
       [positionOf(zinc, 'fragment guest', 14), '28 orbitals · 18 e⁻'],
@@ -68,7 +69,7 @@ describe('code lens', () => {
     // S 18, H 5 (× 10) (tests/fixtures/basis-counts.nwchem.json): 48 + 28 + 56 + 28 + 18 + 50 = 228.
     // Scan from 2.3 to 3.5 Å in steps of 0.2 Å: 7 points.
     expect(lens!.command).toEqual({
-      title: '20 atoms · 114 e⁻ · 228 spherical functions · 3 fragments · largest quantum fragment 17 qubits (site) · × 7 scan points',
+      title: '20 atoms · 114 e⁻ · 228 spherical functions · 3 fragments · largest quantum fragment 18 qubits (site) · × 7 scan points',
       command: 'tessera.showReport',
       arguments: [],
     });

@@ -37,7 +37,7 @@ describe('outline', () => {
       { name: 'basis def2-svp', kind: SymbolKind.Module, detail: 'def2-svp', lines: [10, 10] },
       { name: 'basis def2-tzvp', kind: SymbolKind.Module, detail: 'def2-tzvp on all Zn', lines: [11, 11] },
       { name: 'structure', kind: SymbolKind.Struct, detail: '20 atoms, ångström', lines: [13, 34] },
-      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 17 tapered', lines: [37, 48], children: [['tier quantum', SymbolKind.Method]] },
+      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 18 tapered', lines: [37, 48], children: [['tier quantum', SymbolKind.Method]] },
       { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms · 28 orbitals · 18 e⁻', lines: [51, 54], children: [['tier correlated', SymbolKind.Method]] },
       { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms · 94 orbitals · 48 e⁻', lines: [57, 61], children: [['tier mean-field', SymbolKind.Method]] },
       { name: 'embedding', kind: SymbolKind.Property, detail: 'dmet', lines: [63, 63] },

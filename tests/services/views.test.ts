@@ -23,8 +23,8 @@ describe('structure data for the view', () => {
   it('gives the demo its fragments, the cost labels of the report, the unassigned colour and the note', () => {
     const data = structureOf(zinc);
     expect(data.fragments.map((f) => [f.name, f.cost])).toEqual([
-      // site: 17 qubits needed, tapered (see the hint test); guest and frame: their orbitals.
-      ['site', '17 qubits'],
+      // site: 18 qubits needed, tapered in C1 under DMET (see the hint test); guest and frame: their orbitals.
+      ['site', '18 qubits'],
       ['guest', '28 orbitals'],
       ['frame', '94 orbitals'],
     ]);

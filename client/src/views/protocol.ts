@@ -1,5 +1,6 @@
 /**
- * The messages between the extension and its two webviews (structure view, cost panel), and the
+ * The messages between the extension and its webviews (structure view, cost panel, orbital
+ * levels), and the
  * checks each side runs on what it receives: type, shape and ranges. A message that fails a check
  * is dropped and logged, never acted on. Plain TypeScript with no editor or browser API, so the
  * extension, the webview scripts and the unit tests share it.
@@ -64,11 +65,23 @@ export interface ViewFragment {
   line: number;
 }
 
+export interface ViewCap {
+  fragment: number;
+  host: number;
+  partner: number;
+  element: string;
+  x: number;
+  y: number;
+  z: number;
+}
+
 export interface ViewStructure {
   spec: string | null;
   atoms: ViewAtom[];
   fragments: ViewFragment[];
   bonds: { i: number; j: number; cut: boolean }[];
+  /** Hydrogen caps on cut bonds: the fragment that has each, its host and partner atoms, its position (Å). */
+  caps: ViewCap[];
   scan: { first: number; second: number; distances: number[]; moving: number[] } | null;
   unassignedColour: string;
   note: string;
@@ -95,6 +108,26 @@ export type StructureViewMessage = { type: 'ready' } | { type: 'revealAtom'; ato
 
 /** Extension → cost panel. */
 export type CostsHostMessage = { type: 'costs'; title: string; data: ViewCosts } | { type: 'unavailable'; message: string };
+
+/** A part of a spec in the orbital-level view: `system` or a fragment's index. */
+export type PartId = 'system' | number;
+
+export interface ViewLevels {
+  spec: string | null;
+  /** The parts with a computed mean field (or one being computed), with their state. */
+  parts: { id: PartId; label: string; state: string }[];
+  selected: PartId | null;
+  /** The level picture (standalone SVG), or null with `message` saying why. */
+  svg: string | null;
+  message: string | null;
+  note: string;
+}
+
+/** Extension → orbital-level view. */
+export type LevelsHostMessage = { type: 'levels'; title: string; data: ViewLevels } | { type: 'unavailable'; message: string };
+
+/** Orbital-level view → extension. */
+export type LevelsViewMessage = { type: 'ready' } | { type: 'selectPart'; part: PartId } | { type: 'exportSvg' };
 
 /** Cost panel → extension. */
 export type CostsViewMessage =
@@ -158,8 +191,8 @@ function typeOf(raw: unknown): string | undefined {
 
 export function checkStructure(raw: unknown): Checked<ViewStructure> {
   if (!isRecord(raw)) return fail('structure data is not an object');
-  if (!hasKeys(raw, ['spec', 'atoms', 'fragments', 'bonds', 'scan', 'unassignedColour', 'note'])) return fail('structure data has unexpected fields');
-  const { spec, atoms, fragments, bonds, scan, unassignedColour, note } = raw;
+  if (!hasKeys(raw, ['spec', 'atoms', 'fragments', 'bonds', 'caps', 'scan', 'unassignedColour', 'note'])) return fail('structure data has unexpected fields');
+  const { spec, atoms, fragments, bonds, caps, scan, unassignedColour, note } = raw;
   if (spec !== null && !isText(spec)) return fail(textProblem('the spec name', spec, MAX_TEXT));
   if (!isText(note) || !isText(unassignedColour) || !COLOUR.test(unassignedColour)) return fail('note or unassigned colour malformed');
   if (!Array.isArray(fragments)) return fail('fragments is not a list');
@@ -188,6 +221,14 @@ export function checkStructure(raw: unknown): Checked<ViewStructure> {
   for (const bond of bonds) {
     if (!isRecord(bond) || !hasKeys(bond, ['i', 'j', 'cut']) || !isIndex(bond['i'], atoms.length) || !isIndex(bond['j'], atoms.length) || typeof bond['cut'] !== 'boolean') return fail('a bond is malformed or names a missing atom');
   }
+  if (!Array.isArray(caps)) return fail('caps is not a list');
+  if (caps.length > MAX_BONDS) return fail(`${caps.length} caps, more than the ${MAX_BONDS} the view shows`);
+  for (const cap of caps) {
+    if (!isRecord(cap) || !hasKeys(cap, ['fragment', 'host', 'partner', 'element', 'x', 'y', 'z'])) return fail('a cap has the wrong fields');
+    if (!isIndex(cap['fragment'], fragments.length) || !isIndex(cap['host'], atoms.length) || !isIndex(cap['partner'], atoms.length)) return fail('a cap names a missing fragment or atom');
+    if (!isText(cap['element'], 3) || !ELEMENT.test(cap['element'])) return fail('a cap has no element symbol');
+    if (!isFiniteNumber(cap['x']) || !isFiniteNumber(cap['y']) || !isFiniteNumber(cap['z'])) return fail('cap coordinates are not finite numbers');
+  }
   if (scan !== null) {
     if (!isRecord(scan) || !hasKeys(scan, ['first', 'second', 'distances', 'moving'])) return fail('scan has the wrong fields');
     if (!isIndex(scan['first'], atoms.length) || !isIndex(scan['second'], atoms.length)) return fail('scan atoms out of range');
@@ -208,6 +249,8 @@ const SVG_ATTRIBUTES = new Set([
   'fill', 'fill-opacity', 'opacity', 'stroke', 'stroke-width', 'stroke-dasharray', 'stroke-opacity',
   'font-family', 'font-size', 'font-weight', 'text-anchor', 'dominant-baseline',
 ]);
+/** data-* attributes carry what a drawing shows (an orbital's index, its irrep) for tests and tools. */
+const DATA_ATTRIBUTE = /^data-[a-z]+(?:-[a-z]+)*$/;
 const TAG = /<(\/?)([A-Za-z][A-Za-z0-9]*)((?:\s+[A-Za-z][A-Za-z0-9:-]*="[^"<>]*")*)\s*(\/?)>/y;
 const ATTRIBUTE = /\s+([A-Za-z][A-Za-z0-9:-]*)="([^"<>]*)"/g;
 const ENTITY = /&(?:amp|lt|gt|quot|apos|#\d{1,7}|#x[0-9a-fA-F]{1,6});/y;
@@ -230,7 +273,7 @@ export function checkSvg(svg: unknown): Checked<string> {
       const [whole, closing, name, attributes, selfClosing] = tag;
       if (!SVG_ELEMENTS.has(name!)) return fail(`element <${name}> not allowed in a chart`);
       for (const [, attribute, value] of attributes!.matchAll(ATTRIBUTE)) {
-        if (!SVG_ATTRIBUTES.has(attribute!)) return fail(`attribute '${attribute}' not allowed in a chart`);
+        if (!SVG_ATTRIBUTES.has(attribute!) && !DATA_ATTRIBUTE.test(attribute!)) return fail(`attribute '${attribute}' not allowed in a chart`);
         if (/url\s*\(|javascript:|data:/i.test(value!)) return fail(`attribute '${attribute}' refers to a resource`);
       }
       if (closing && (attributes || selfClosing)) return fail('malformed closing tag');
@@ -273,6 +316,27 @@ export function checkCosts(raw: unknown): Checked<ViewCosts> {
   return { ok: true, value: raw as unknown as ViewCosts };
 }
 
+function isPartId(value: unknown): value is PartId {
+  return value === 'system' || isIndex(value, MAX_FRAGMENTS);
+}
+
+export function checkLevels(raw: unknown): Checked<ViewLevels> {
+  if (!isRecord(raw) || !hasKeys(raw, ['spec', 'parts', 'selected', 'svg', 'message', 'note'])) return fail('level data has the wrong fields');
+  const { spec, parts, selected, svg, message, note } = raw;
+  if ((spec !== null && !isText(spec)) || !isText(note) || (message !== null && !isText(message, 4_000))) return fail('spec name, message or note is not text');
+  if (!Array.isArray(parts) || parts.length > MAX_FRAGMENTS + 1) return fail('part list malformed');
+  for (const part of parts) {
+    if (!isRecord(part) || !hasKeys(part, ['id', 'label', 'state']) || !isPartId(part['id']) || !isText(part['label'], 300) || !isText(part['state'], 40)) return fail('a part is malformed');
+  }
+  if (selected !== null && !isPartId(selected)) return fail('selected part malformed');
+  if (svg !== null) {
+    const chart = checkSvg(svg);
+    if (!chart.ok) return fail(`level picture: ${chart.reason}`);
+  }
+  if ((svg === null) === (message === null)) return fail('level data needs either a picture or a message');
+  return { ok: true, value: raw as unknown as ViewLevels };
+}
+
 // --- messages to the views (checked in the webview) -----------------------------------------
 
 export function checkStructureHostMessage(raw: unknown): Checked<StructureHostMessage> {
@@ -313,7 +377,42 @@ export function checkCostsHostMessage(raw: unknown): Checked<CostsHostMessage> {
   }
 }
 
+export function checkLevelsHostMessage(raw: unknown): Checked<LevelsHostMessage> {
+  const type = typeOf(raw);
+  const message = raw as Json;
+  switch (type) {
+    case 'levels': {
+      if (!hasKeys(message, ['type', 'title', 'data']) || !isText(message['title'])) return fail('levels message malformed');
+      const data = checkLevels(message['data']);
+      return data.ok ? { ok: true, value: { type, title: message['title'], data: data.value } } : data;
+    }
+    case 'unavailable':
+      return hasKeys(message, ['type', 'message']) && isText(message['message']) ? { ok: true, value: { type, message: message['message'] } } : fail('unavailable message malformed');
+    default:
+      return fail(`unknown message type '${String(type).slice(0, 40)}'`);
+  }
+}
+
 // --- messages from the views (checked in the extension) -------------------------------------
+
+export function checkLevelsViewMessage(raw: unknown, context: { parts: readonly PartId[] }): Checked<LevelsViewMessage> {
+  const type = typeOf(raw);
+  const message = raw as Json;
+  switch (type) {
+    case 'ready':
+      return hasKeys(message, ['type']) ? { ok: true, value: { type } } : fail('ready message malformed');
+    case 'exportSvg':
+      return hasKeys(message, ['type']) ? { ok: true, value: { type } } : fail('exportSvg message malformed');
+    case 'selectPart':
+      if (!hasKeys(message, ['type', 'part'])) return fail('selectPart message malformed');
+      return isPartId(message['part']) && context.parts.includes(message['part'])
+        ? { ok: true, value: { type, part: message['part'] } }
+        : fail(`part ${String(message['part']).slice(0, 20)} cannot be selected`);
+    default:
+      return fail(`unknown message type '${String(type).slice(0, 40)}'`);
+  }
+}
+
 
 /** What the extension knows of the structure the view shows, to check indices against. */
 export interface StructureContext {

@@ -8,8 +8,9 @@
 import { elementByNumber, frozenCoreShells } from '../chemistry/elements';
 import { activeIrreps, planSymmetryOf, resolveGivenIrreps, symmetryCounts, type PlanSymmetry } from '../chemistry/estimate/activeIrreps';
 import type { PauliTermCounts } from '../chemistry/estimate/pauliTerms';
+import { EMBEDDING_SYMMETRY, embeddingName, type SymmetryScope } from '../chemistry/estimate/embeddingSymmetry';
 import { estimatePlan, type PlanEstimate, type PlanInput } from '../chemistry/estimate/plan';
-import { orbitalSymmetry, type OrbitalSymmetry } from '../chemistry/symmetry';
+import { embeddedOrbitalSymmetry, orbitalSymmetry, type OrbitalSymmetry, type SymmetryAtoms } from '../chemistry/symmetry';
 import type { Mapping } from '../chemistry/qubits';
 import type { CapModel, SpecModel } from '../language/model';
 import { InputMemo } from './memo';
@@ -37,6 +38,7 @@ const PLANS = new InputMemo<PlanEstimate | undefined>(256);
 export class Estimates {
   private systemSymmetryCache: OrbitalSymmetry | undefined | null = null;
   private readonly fragmentSymmetries = new Map<number, OrbitalSymmetry | undefined>();
+  private readonly inSystemSymmetries = new Map<number, OrbitalSymmetry | undefined>();
   private readonly plans = new Map<number, PlanEstimate | undefined>();
   private systemCountsCache: SystemCounts | undefined;
 
@@ -65,13 +67,46 @@ export class Estimates {
     return this.fragmentSymmetries.get(index);
   }
 
+  /**
+   * The symmetry a fragment keeps inside the system: the stabiliser of its atoms in the system's
+   * point group (chemistry/symmetry/orbitalSymmetry.ts). Undefined when the system is beyond the
+   * size policy or cannot be counted per irrep; the fragment is then counted in C1.
+   */
+  fragmentSymmetryInSystem(index: number): OrbitalSymmetry | undefined {
+    if (!this.inSystemSymmetries.has(index)) {
+      const fragment = this.model.fragments[index]!;
+      const all = this.model.atoms.map((atom) => atom.index);
+      let found: OrbitalSymmetry | undefined;
+      if (fragment.atoms.length > 0 && Estimates.symmetryApplies(all.length + fragment.caps.length)) {
+        // The fragment's caps join the system and the fragment: an operation that keeps the
+        // fragment's atoms maps its cut bonds onto each other, and so its caps.
+        const atoms = this.symmetryAtoms(all, fragment.tier?.frozenCore ?? this.model.frozenCore, fragment.caps);
+        const members = [...fragment.atoms, ...fragment.caps.map((_, k) => all.length + k)];
+        const key = JSON.stringify(['in-system', atoms.key, members]);
+        found = SYMMETRIES.get(key, () => embeddedOrbitalSymmetry(atoms.atoms, members));
+      }
+      this.inSystemSymmetries.set(index, found);
+    }
+    return this.inSystemSymmetries.get(index);
+  }
+
+  /** Whether fragments are counted in their own group or in the stabiliser, by the spec's embedding. */
+  symmetryScope(): { scope: SymmetryScope; reason: string } {
+    return EMBEDDING_SYMMETRY[embeddingName(this.model.embedding)];
+  }
+
+  /** The symmetry a fragment's figures are counted in: its stabiliser in the system when embedded, else its own. */
+  countedSymmetry(index: number): OrbitalSymmetry | undefined {
+    return this.symmetryScope().scope === 'in-system' ? this.fragmentSymmetryInSystem(index) : this.fragmentSymmetry(index);
+  }
+
   /** What the plan estimate of a fragment is computed from; undefined for fragments that cannot be sized. */
   planInput(index: number): PlanInput | undefined {
     const fragment = this.model.fragments[index]!;
     const tier = fragment.tier;
     // A mean-field tier has no active space to size: its cost is the orbital count alone.
     if (!tier || tier.level === 'mean-field' || fragment.atoms.length === 0 || fragment.space.atomsWithoutBasis > 0) return undefined;
-    const symmetry = planSymmetryOf(this.fragmentSymmetry(fragment.index));
+    const symmetry = planSymmetryOf(this.countedSymmetry(fragment.index));
     const perIrrep = tier.activeIrreps && symmetry ? resolveGivenIrreps(symmetry.group, tier.activeIrreps) : undefined;
     const active = tier.active ? { ...tier.active, ...(perIrrep ? { perIrrep } : {}) } : undefined;
     return {
@@ -128,6 +163,12 @@ export class Estimates {
 
   private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean, caps: readonly CapModel[] = []): OrbitalSymmetry | undefined {
     if (!Estimates.symmetryApplies(atoms.length + caps.length)) return undefined;
+    const prepared = this.symmetryAtoms(atoms, frozenCore, caps);
+    return SYMMETRIES.get(JSON.stringify([withNear, prepared.key]), () => orbitalSymmetry(prepared.atoms, withNear ? {} : { nearTolerance: 0 }));
+  }
+
+  /** Elements, positions and shells of a set of atoms and caps (after the atoms), with a key that holds all of them. */
+  private symmetryAtoms(atoms: readonly number[], frozenCore: boolean, caps: readonly CapModel[] = []): { atoms: SymmetryAtoms; key: string } {
     const model = this.model;
     const numbers = [...atoms.map((atom) => model.atoms[atom]!.element.z), ...caps.map((cap) => cap.z)];
     const positions = new Float64Array(3 * numbers.length);
@@ -143,7 +184,7 @@ export class Estimates {
         ]
       : undefined;
     const functions = model.basis.functions;
-    const key = JSON.stringify([withNear, functions, numbers, Array.from(positions), shells, coreShells ?? null]);
-    return SYMMETRIES.get(key, () => orbitalSymmetry({ numbers, positions, shells, coreShells, functions }, withNear ? {} : { nearTolerance: 0 }));
+    const key = JSON.stringify([functions, numbers, Array.from(positions), shells, coreShells ?? null]);
+    return { atoms: { numbers, positions, shells, coreShells, functions }, key };
   }
 }

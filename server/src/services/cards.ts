@@ -39,10 +39,26 @@ function irrepText(record: Record<string, number>): string {
     .join(', ');
 }
 
+function groupText(group: { pointGroup: string; fullPointGroup: string }): string {
+  return group.fullPointGroup !== group.pointGroup ? `${group.fullPointGroup} (counted in ${group.pointGroup})` : group.pointGroup;
+}
+
+/** Both point groups of a fragment, the one its figures are counted in first. */
+function pointGroupRow(fragment: FragmentFigures): string | undefined {
+  const symmetry = fragment.symmetry;
+  if (!symmetry) return undefined;
+  const own = symmetry.own ? groupText(symmetry.own) : 'not looked for (over the size limit)';
+  if (symmetry.countedIn === 'in-system' && symmetry.inSystem) {
+    return `| point group | **${groupText(symmetry.inSystem)}** inside the system (counted); ${own} alone |`;
+  }
+  return `| point group | **${own}**, the fragment alone (counted) |`;
+}
+
 /** Rows of the cost figures a plan estimate adds (quantum and correlated tiers). */
 function planRows(fragment: FragmentFigures, limit: number | null): string[] {
   const rows: string[] = [];
-  if (fragment.pointGroup) rows.push(`| point group | ${fragment.pointGroup}${fragment.fullPointGroup && fragment.fullPointGroup !== fragment.pointGroup ? ` (full group ${fragment.fullPointGroup})` : ''}, the fragment's own |`);
+  const symmetryRow = pointGroupRow(fragment);
+  if (symmetryRow) rows.push(symmetryRow);
   if (fragment.problem) {
     const bath = fragment.problem.bath.alpha === fragment.problem.bath.beta ? `${fragment.problem.bath.alpha}` : `${fragment.problem.bath.alpha} α / ${fragment.problem.bath.beta} β`;
     rows.push(
@@ -89,6 +105,7 @@ export function fragmentCard(analysis: DocumentAnalysis, index: number): string 
   const conventions = [`electrons = ${CONVENTIONS.electrons}`, `fragment charge = ${CONVENTIONS.fragmentCharge}`, `frozen core = ${CONVENTIONS.frozenCore}`];
   if (fragment.caps) conventions.push(`caps: ${CAP_RULE_TEXT[fragment.caps.rule as CapRule] ?? fragment.caps.rule}`);
   if (fragment.problem) conventions.push(fragment.problem.convention);
+  if (fragment.symmetry) conventions.push(`point group: ${fragment.symmetry.reason}`);
   if (fragment.pauliTerms) conventions.push(`Pauli terms: ${CONVENTIONS.pauliTerms}`);
   if (fragment.qubits.tapered !== null) conventions.push(`qubits: ${CONVENTIONS.qubits}`);
   return [

@@ -16,13 +16,17 @@ export function checkActiveIrreps(context: EstimateCheckContext): void {
 function checkFragment(context: EstimateCheckContext, fragment: FragmentModel): void {
   const { sink, estimates } = context;
   const activeAst = fragment.ast.tier!.active!;
-  const symmetry = estimates.fragmentSymmetry(fragment.index);
+  const symmetry = estimates.countedSymmetry(fragment.index);
   if (!symmetry) return;
+  const inSystem = estimates.symmetryScope().scope === 'in-system';
+  const which = inSystem
+    ? `${symmetry.group}, the point group fragment '${fragment.name}' keeps inside the system (the operations of the system's group that map it onto itself; full group ${symmetry.symmetry.fullGroup})`
+    : `${symmetry.group}, the point group of fragment '${fragment.name}' (full group ${symmetry.symmetry.fullGroup})`;
   const labels = CHARACTER_TABLES[symmetry.group].irreps.map((irrep) => irrep.label);
   for (const entry of activeAst.irreps) {
     const irrep = findIrrep(symmetry.group, entry.label.value);
     if (!irrep) {
-      sink.report('active-space-invalid', entry.label.span, `'${entry.label.value}' is not an irrep of ${symmetry.group}, the point group of fragment '${fragment.name}' (full group ${symmetry.symmetry.fullGroup}); its irreps are ${labels.join(', ')}.`, { data: { kind: 'unknown-irrep' } });
+      sink.report('active-space-invalid', entry.label.span, `'${entry.label.value}' is not an irrep of ${which}; its irreps are ${labels.join(', ')}.`, { data: { kind: 'unknown-irrep' } });
       continue;
     }
     const available = symmetry.available.find((share) => share.mask === irrep.mask)?.count ?? 0;

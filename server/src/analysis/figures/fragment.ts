@@ -5,6 +5,7 @@
  * and its rows in the renderers).
  */
 import type { PlanEstimate } from '../../chemistry/estimate/plan';
+import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
 import type { Estimates } from '../estimates';
 import { bigFigure, spaceFigures } from './space';
@@ -79,7 +80,7 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
   // The formula is the part the solver sees: the fragment's atoms and its caps.
   const symbols = [...fragment.atoms.map((atom) => model.atoms[atom]!.element.symbol), ...fragment.caps.map(() => CAP_SYMBOL)];
   const tier = fragment.tier;
-  const base = spaceFigures(fragment.space, symbols, tier ? estimates.fragmentSymmetry(index) : undefined);
+  const base = spaceFigures(fragment.space, symbols, tier ? estimates.countedSymmetry(index) : undefined);
   let figures: FragmentFigures = {
     name: fragment.name,
     tier: tier?.level ?? null,
@@ -93,6 +94,7 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
     caps: capFigures(fragment),
     problem: null,
     activeIrreps: null,
+    symmetry: tier ? symmetryFigures(estimates, index) : null,
     taperingSymmetries: [],
     measurement: null,
     ansatzCost: null,
@@ -115,6 +117,19 @@ function capFigures(fragment: FragmentModel): CapFigures | null {
     count: fragment.caps.length,
     list: fragment.caps.map((cap) => ({ host: cap.host + 1, partner: cap.partner + 1, element: CAP_SYMBOL, length: cap.length, position: [cap.position[0], cap.position[1], cap.position[2]] })),
   };
+}
+
+function groupFigures(symmetry: OrbitalSymmetry | undefined): { pointGroup: string; fullPointGroup: string } | null {
+  return symmetry ? { pointGroup: symmetry.group, fullPointGroup: symmetry.symmetry.fullGroup } : null;
+}
+
+/** Both groups of a fragment and which one counts, by the embedding (chemistry/estimate/embeddingSymmetry.ts). */
+function symmetryFigures(estimates: Estimates, index: number): FragmentFigures['symmetry'] {
+  const { scope, reason } = estimates.symmetryScope();
+  const own = groupFigures(estimates.fragmentSymmetry(index));
+  // The stabiliser is looked for only where it counts (it needs the whole system's symmetry).
+  const inSystem = scope === 'in-system' ? (groupFigures(estimates.fragmentSymmetryInSystem(index)) ?? { pointGroup: 'C1', fullPointGroup: 'C1' }) : null;
+  return { countedIn: scope, own, inSystem, reason };
 }
 
 function circuitFigures(plan: PlanEstimate): FragmentFigures['circuit'] {

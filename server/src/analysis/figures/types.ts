@@ -22,6 +22,8 @@ export const CONVENTIONS = {
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
   caps: 'cut covalent bonds capped with hydrogen link atoms on the kept atom\'s side when the spec says `caps hydrogen fixed|scaled` (Field, Bash & Karplus 1990): fixed at the typical X–H length of the element (common practice), or scaled g · d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero radii (Dapprich et al. 1999); caps count in the fragment\'s formula, electrons, functions, orbitals, qubits and point group, not in its atom count',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
+  fragmentSymmetry:
+    "a fragment that sees its environment (embedding dmet or projection) is counted in the stabiliser of its atoms in the system's point group — the operations of the system that map the fragment onto itself (group theory of stabiliser subgroups); a fragment that stands alone (subtractive, none) in its own point group",
 } as const;
 
 /** A count or size that may exceed 2^53: its text, its exact digits when known, and log10. */
@@ -79,6 +81,17 @@ export interface FragmentFigures extends SpaceFigures {
   /** The orbital space the solver sees: a DMET impurity or the fragment's own orbitals. */
   problem: { embedding: string; orbitals: number; electrons: number; alpha: number; beta: number; bath: { alpha: number; beta: number }; convention: string } | null;
   activeIrreps: { perIrrep: Record<string, number>; source: string } | null;
+  /**
+   * The two point groups of the fragment: its own (its atoms alone) and the one it keeps inside the
+   * system (the stabiliser of its atoms in the system's group); `countedIn` says which the figures
+   * use (pointGroup, fullPointGroup and orbitalsPerIrrep above are that one's), by the embedding.
+   */
+  symmetry: {
+    countedIn: 'in-system' | 'own';
+    own: { pointGroup: string; fullPointGroup: string } | null;
+    inSystem: { pointGroup: string; fullPointGroup: string } | null;
+    reason: string;
+  } | null;
   taperingSymmetries: string[];
   measurement: { groups: number; exact: boolean; method: string } | null;
   ansatzCost: { kind: string; parameters: number; singles: number | null; doubles: number | null; unscreened: number | null; spinAdapted: number | null } | null;

@@ -102,6 +102,14 @@ export interface SymmetryOptions {
   readonly tolerance?: number;
   /** Å; default 0.1; 0 (or anything ≤ tolerance) turns the near-symmetry search off. */
   readonly nearTolerance?: number;
+  /**
+   * Labels that must be preserved, one per atom (default: the atomic numbers): an operation counts
+   * only when it maps every atom onto one with the same label. Labelling the atoms of a subset
+   * apart from the rest gives the operations that map the subset onto itself (its stabiliser).
+   */
+  readonly species?: ArrayLike<number>;
+  /** Masses for the centre and the inertia tensor, one per atom (default: standard atomic weights). */
+  readonly masses?: ArrayLike<number>;
 }
 
 interface Detection {
@@ -232,7 +240,7 @@ function withoutSymmetry(count: number, coordinates: ArrayLike<number>, masses: 
 export function detectSymmetry(atomicNumbers: ArrayLike<number>, coordinates: ArrayLike<number>, options: SymmetryOptions = {}): SymmetryResult {
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
   const count = atomicNumbers.length;
-  const masses = massesOf(Int32Array.from(atomicNumbers));
+  const masses = options.masses ? Float64Array.from(options.masses) : massesOf(Int32Array.from(atomicNumbers));
   for (let i = 0; i < count; i++) {
     if (!coordinatesInRange(coordinates, i)) return withoutSymmetry(count, coordinates, masses, tolerance);
   }
@@ -247,8 +255,8 @@ function searchSymmetry(atomicNumbers: ArrayLike<number>, coordinates: ArrayLike
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
   const nearTolerance = options.nearTolerance ?? DEFAULT_NEAR_TOLERANCE;
   const count = atomicNumbers.length;
-  const numbers = Int32Array.from(atomicNumbers);
-  const masses = massesOf(numbers);
+  const numbers = Int32Array.from(options.species ?? atomicNumbers);
+  const masses = options.masses ? Float64Array.from(options.masses) : massesOf(Int32Array.from(atomicNumbers));
   const origin = centreOfMass(coordinates, masses);
   const local = centred(coordinates, origin);
   const detection = detectAt(local, numbers, masses, tolerance);

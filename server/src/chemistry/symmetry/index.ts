@@ -11,5 +11,5 @@ export type { AbelianGroupName, CharacterTable, Irrep, OperationName } from './c
 export { fragmentOrbitalIrreps, orbitalIrreps, rotationCharacter, shellCharacter, sphericalShellCharacter } from './orbitalIrreps';
 export type { FragmentIrreps, IrrepCount, IrrepSymmetry, OrbitalIrreps } from './orbitalIrreps';
 export { groupName, groupOrder } from './pointGroups';
-export { orbitalSymmetry, type OrbitalSymmetry, type SymmetryAtoms } from './orbitalSymmetry';
+export { embeddedOrbitalSymmetry, orbitalSymmetry, type OrbitalSymmetry, type SymmetryAtoms } from './orbitalSymmetry';
 export type { GroupFamily, PointGroupId } from './pointGroups';

@@ -14,7 +14,7 @@ import { placeCap, CAP_ELEMENT_Z, type CapRule } from '../../chemistry/capping';
 import type { AtomPair } from '../../chemistry/geometry';
 import type { CapsAst, SpecAst } from '../ast';
 import { BASIS_RANK } from './basis';
-import type { AtomModel, BasisModel, CapModel } from './types';
+import type { AtomModel, BasisModel, CapModel, SpecModel } from './types';
 
 /** The rule a fragment follows: its own line, else the spec's, else none (undefined). */
 export function capRuleOf(fragmentCaps: CapsAst | undefined, specCaps: CapsAst | undefined): CapRule | undefined {
@@ -93,4 +93,16 @@ export function fragmentCaps(
     }
   }
   return caps;
+}
+
+/**
+ * The caps of a fragment of a built model at other coordinates of the same atoms (a scan point):
+ * the same cut bonds, rule and basis, placed again. Empty for a fragment that caps nothing.
+ */
+export function fragmentCapsAt(model: SpecModel, index: number, coordinates: Float64Array): CapModel[] {
+  const fragment = model.fragments[index]!;
+  if (!fragment.capRule || fragment.caps.length === 0) return [];
+  const neighbours = new BondNeighbours(model.atoms.length, model.contacts.bonds);
+  const stamp = new Int32Array(model.atoms.length).fill(-1);
+  return fragmentCaps(fragment.capRule, fragment.atoms, model.atoms, coordinates, neighbours, fragment.caps[0]!.basis, stamp, 0);
 }

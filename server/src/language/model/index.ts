@@ -20,6 +20,7 @@ import type { ModelOptions, SpecModel } from './types';
 
 export type { AtomModel, AtomReference, BasisModel, CapModel, BasisOverrideModel, FragmentModel, ModelOptions, ScanModel, SpecModel, TierModel } from './types';
 export { BASIS_RANK, BASIS_RANK_NAMES } from './basis';
+export { fragmentCapsAt } from './caps';
 export { claimsOf } from './ownership';
 export { MAX_SCAN_POINTS, scanPointCount } from './scan';
 export { SelectorResolver, type Selection } from './selectors';

@@ -18,12 +18,16 @@
  *
  * What QCSchema has no field for (the basis, the tiers, the embedding, cut bonds) sits under
  * `extras.tessera`, the place the schema leaves for a producer's own data.
+ *
+ * A fragment that caps its cut bonds (`caps hydrogen …`) lists its hydrogen caps after its own
+ * atoms, with the label `cap`; `extras.tessera.caps` says which bond each one caps (`spec_atom_numbers`
+ * covers the fragment's own atoms only). The system and scan-point molecules carry no caps.
  */
 import { scanFrames } from '../../chemistry/scan';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import { elementBySymbol } from '../../chemistry/elements';
 import { basisFigures, type DocumentAnalysis } from '../../analysis';
-import type { TierModel } from '../../language/model';
+import type { CapModel, TierModel } from '../../language/model';
 import type { StructureData } from '../structure';
 import { coordinatesOf } from './xyz';
 
@@ -71,6 +75,23 @@ export interface TesseraExtras {
   fragment_index?: number;
   tier?: TierExtras | null;
   scan_point?: { point: number; points: number; distance_angstrom: number };
+  /** The fragment's hydrogen caps, after its atoms: the bond each caps (spec numbers `#n`), rule, X–H length. */
+  caps?: CapExtras[];
+}
+
+export interface CapExtras {
+  host_atom: number;
+  partner_atom: number;
+  rule: string;
+  length_angstrom: number;
+}
+
+/** Label of a cap atom in exported molecules. */
+export const CAP_LABEL = 'cap';
+
+/** The caps of a fragment as extras (spec atom numbers are 1-based). */
+export function capExtras(caps: readonly CapModel[]): CapExtras[] {
+  return caps.map((cap) => ({ host_atom: cap.host + 1, partner_atom: cap.partner + 1, rule: cap.rule, length_angstrom: cap.length }));
 }
 
 export interface QcMolecule {
@@ -210,34 +231,41 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
     .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   const system = systemMolecule(options.title, coordinates, { cut_bonds: cutBonds }, 'system');
 
-  const fragments = model.fragments.map((fragment, index): QcMolecule => ({
-    schema_name: 'qcschema_molecule',
-    schema_version: 2,
-    name: `${options.title}/${fragment.name}`,
-    comment: `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
-    symbols: symbolsOf(fragment.atoms),
-    geometry: geometryOf(coordinates, fragment.atoms),
-    atomic_numbers: numbersOf(fragment.atoms),
-    atom_labels: labelsOf(fragment.atoms),
-    molecular_charge: fragment.charge,
-    molecular_multiplicity: fragment.multiplicity,
-    fix_com: true,
-    fix_orientation: true,
-    provenance,
-    extras: {
-      tessera: {
-        spec: options.title,
-        part: 'fragment',
-        spec_atom_numbers: fragment.atoms.map((atom) => atom + 1),
-        basis,
-        atom_basis: basisOf(fragment.atoms),
-        frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
-        fragment: fragment.name,
-        fragment_index: index,
-        tier: tiers[index]!,
+  const fragments = model.fragments.map((fragment, index): QcMolecule => {
+    const caps = fragment.caps;
+    const capped = caps.length > 0;
+    return {
+      schema_name: 'qcschema_molecule',
+      schema_version: 2,
+      name: `${options.title}/${fragment.name}`,
+      comment: capped
+        ? `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, then ${caps.length} hydrogen cap${caps.length === 1 ? '' : 's'} on its cut bonds (${fragment.capRule} placement).`
+        : `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
+      symbols: [...symbolsOf(fragment.atoms), ...caps.map(() => 'H')],
+      geometry: [...geometryOf(coordinates, fragment.atoms), ...caps.flatMap((cap) => cap.position.map(toBohr))],
+      atomic_numbers: [...numbersOf(fragment.atoms), ...caps.map((cap) => cap.z)],
+      atom_labels: [...labelsOf(fragment.atoms), ...caps.map(() => CAP_LABEL)],
+      molecular_charge: fragment.charge,
+      molecular_multiplicity: fragment.multiplicity,
+      fix_com: true,
+      fix_orientation: true,
+      provenance,
+      extras: {
+        tessera: {
+          spec: options.title,
+          part: 'fragment',
+          spec_atom_numbers: fragment.atoms.map((atom) => atom + 1),
+          basis,
+          atom_basis: [...basisOf(fragment.atoms), ...caps.map((cap) => cap.basis?.displayName ?? null)],
+          frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
+          fragment: fragment.name,
+          fragment_index: index,
+          tier: tiers[index]!,
+          ...(capped ? { caps: capExtras(caps) } : {}),
+        },
       },
-    },
-  }));
+    };
+  });
 
   let scan: QcSchemaExport['scan'] = null;
   if (data.scan) {

@@ -19,9 +19,16 @@ function rowsFor(report: EstimateReport): { name: string; figures: SpaceFigures;
   ];
 }
 
-function groupText(figures: SpaceFigures): string {
+function oneGroup(counted: string, full: string | null): string {
+  return full && full !== counted ? `${counted} (${full})` : counted;
+}
+
+/** The group counted in; for an embedded fragment also its own group, alone. */
+function groupText(figures: SpaceFigures, fragment?: FragmentFigures): string {
   if (!figures.pointGroup) return dash;
-  return figures.fullPointGroup && figures.fullPointGroup !== figures.pointGroup ? `${figures.pointGroup} (${figures.fullPointGroup})` : figures.pointGroup;
+  const counted = oneGroup(figures.pointGroup, figures.fullPointGroup);
+  const own = fragment?.symmetry?.countedIn === 'in-system' ? fragment.symmetry.own : null;
+  return own ? `${counted} in system; alone ${oneGroup(own.pointGroup, own.fullPointGroup)}` : counted;
 }
 
 function problemText(fragment: FragmentFigures | undefined): string {
@@ -46,7 +53,7 @@ export function estimateTables(report: EstimateReport): Table[] {
       figures.formula || dash,
       figures.charge > 0 ? `+${figures.charge}` : String(figures.charge),
       String(figures.multiplicity),
-      groupText(figures),
+      groupText(figures, fragment),
     ]),
   };
   const orbitals: Table = {
@@ -121,6 +128,7 @@ export function conventionLines(report: EstimateReport): string[] {
     `frozen core: ${c.frozenCore}`,
     `active space: ${c.activeSpace}`,
     `point group: ${c.pointGroup}`,
+    `fragment symmetry: ${c.fragmentSymmetry}`,
     ...(dmet ? [`embedding: ${dmet.replace(/^DMET impurity: [^;]*; /, 'DMET impurity: ')}`] : []),
     `qubits: ${c.qubits}`,
     `Pauli terms: ${c.pauliTerms}`,
@@ -129,6 +137,7 @@ export function conventionLines(report: EstimateReport): string[] {
     `circuit: ${c.circuit}`,
     `classical: ${c.classical}`,
     `fragment charge: ${c.fragmentCharge}`,
+    `caps: ${c.caps}`,
   ];
 }
 
