@@ -80,7 +80,7 @@ describe('language server over stdio', () => {
     expect(labels).not.toContain('vqe');
     const keywords = await client.request<CompletionList>('textDocument/completion', { textDocument: { uri: demoUri }, position: positionOf(demoText, '  charge +2', 0, 2) });
     // Keywords of a fragment block, less the ones this fragment already has (atoms, tier).
-    expect(keywords.items.map((item) => item.label).sort()).toEqual(['charge', 'multiplicity']);
+    expect(keywords.items.map((item) => item.label).sort()).toEqual(['caps', 'charge', 'multiplicity']);
   });
 
   it('renames an atom label at its definition and every use', async () => {

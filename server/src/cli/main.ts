@@ -34,7 +34,7 @@ Usage:
         --reference rhf|uhf|rohf   default: a tier's method, else rhf for singlets, uhf otherwise
         --max-iterations N         SCF iterations (default 100)
         --memory-limit MiB         refuse parts whose estimated need exceeds it (default 2048)
-  tessera export <file.tess> --to xyz|qcschema [--out <file>]
+  tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]
       The geometry for other programs; standard output unless --out. A spec with errors is not
       exported (exit 1, the diagnostics on standard error).
       xyz: ångström, element symbols only (no labels); one frame per scan point when the spec
@@ -44,7 +44,13 @@ Usage:
         distances_angstrom, molecules: [...] } } whose system, fragments[] and scan.molecules[]
         are QCSchema molecules (schema_version 2, geometry in bohr). Atoms are grouped by
         fragment, as QCSchema fragments need; extras.tessera.spec_atom_numbers gives each atom's
-        #n in the spec, and extras.tessera holds the basis, tiers and embedding.
+        #n in the spec, and extras.tessera holds the basis, tiers and embedding. A fragment
+        that caps cut bonds lists its hydrogen caps after its atoms.
+      qcschema-input: one JSON object { format: "tessera-qcschema-input-export",
+        format_version: 1, spec, manifest: [...], skipped: [...], records: [...] } with a
+        QCSchema input record (driver energy, model { method, basis }, keywords, molecule) per
+        fragment with a tier, and per fragment and scan point when the spec scans; the molecule
+        is the fragment with its caps; a per-atom basis is written as a QCSchema basis set.
   tessera report <file.tess> [--format markdown|html|csv] [--out <file>]
       The resource report as a document (default markdown): every figure of the system and each
       fragment, the conventions, the problems with their lines and the scan totals. html is one

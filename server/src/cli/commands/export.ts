@@ -7,13 +7,14 @@
  */
 import { safeJsonStringify } from '../../language/printable';
 import { buildQcSchemaExport } from '../../report/export/qcschema';
+import { buildQcInputExport, InputExportError } from '../../report/export/qcschemaInput';
 import { renderXyz } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
 import { exitCode, EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput } from '../specFile';
 import { VERSION } from '../version';
 
-export const EXPORT_TARGETS = ['xyz', 'qcschema'] as const;
+export const EXPORT_TARGETS = ['xyz', 'qcschema', 'qcschema-input'] as const;
 export type ExportTarget = (typeof EXPORT_TARGETS)[number];
 
 export interface ExportOptions {
@@ -23,8 +24,8 @@ export interface ExportOptions {
 }
 
 export async function runExport(options: ExportOptions, io: CliIo): Promise<number> {
-  if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema [--out <file>]');
-  if (!options.to) throw new UsageError('export needs --to xyz or --to qcschema');
+  if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]');
+  if (!options.to) throw new UsageError('export needs --to xyz, --to qcschema or --to qcschema-input');
   if (options.out === '') throw new UsageError('--out needs a file name');
   const spec = loadSpec(options.spec, io);
   if (!spec) return EXIT_USAGE;
@@ -41,9 +42,11 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
     text =
       options.to === 'xyz'
         ? renderXyz(data, { title, version: VERSION })
-        : `${safeJsonStringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`;
+        : options.to === 'qcschema'
+          ? `${safeJsonStringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`
+          : `${safeJsonStringify(buildQcInputExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`;
   } catch (error) {
-    if (!(error instanceof RangeError)) throw error;
+    if (!(error instanceof RangeError) && !(error instanceof InputExportError)) throw error;
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);
     return EXIT_ERRORS;
   }

@@ -138,7 +138,7 @@ export interface QcSchemaExportOptions {
   readonly routine?: string;
 }
 
-function tierExtras(tier: TierModel | undefined): TierExtras | null {
+export function tierExtras(tier: TierModel | undefined): TierExtras | null {
   if (!tier) return null;
   return {
     level: tier.level,
@@ -231,41 +231,8 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
     .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   const system = systemMolecule(options.title, coordinates, { cut_bonds: cutBonds }, 'system');
 
-  const fragments = model.fragments.map((fragment, index): QcMolecule => {
-    const caps = fragment.caps;
-    const capped = caps.length > 0;
-    return {
-      schema_name: 'qcschema_molecule',
-      schema_version: 2,
-      name: `${options.title}/${fragment.name}`,
-      comment: capped
-        ? `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, then ${caps.length} hydrogen cap${caps.length === 1 ? '' : 's'} on its cut bonds (${fragment.capRule} placement).`
-        : `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
-      symbols: [...symbolsOf(fragment.atoms), ...caps.map(() => 'H')],
-      geometry: [...geometryOf(coordinates, fragment.atoms), ...caps.flatMap((cap) => cap.position.map(toBohr))],
-      atomic_numbers: [...numbersOf(fragment.atoms), ...caps.map((cap) => cap.z)],
-      atom_labels: [...labelsOf(fragment.atoms), ...caps.map(() => CAP_LABEL)],
-      molecular_charge: fragment.charge,
-      molecular_multiplicity: fragment.multiplicity,
-      fix_com: true,
-      fix_orientation: true,
-      provenance,
-      extras: {
-        tessera: {
-          spec: options.title,
-          part: 'fragment',
-          spec_atom_numbers: fragment.atoms.map((atom) => atom + 1),
-          basis,
-          atom_basis: [...basisOf(fragment.atoms), ...caps.map((cap) => cap.basis?.displayName ?? null)],
-          frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
-          fragment: fragment.name,
-          fragment_index: index,
-          tier: tiers[index]!,
-          ...(capped ? { caps: capExtras(caps) } : {}),
-        },
-      },
-    };
-  });
+  const context: FragmentMoleculeContext = { analysis, data, title: options.title, provenance, basis };
+  const fragments = model.fragments.map((fragment, index) => fragmentMolecule(context, index, coordinates, fragment.caps));
 
   let scan: QcSchemaExport['scan'] = null;
   if (data.scan) {
@@ -282,4 +249,57 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
   }
 
   return { format: QCSCHEMA_EXPORT_FORMAT, format_version: QCSCHEMA_EXPORT_VERSION, spec: options.title, system, fragments, scan };
+}
+
+/** What every fragment molecule of one export shares. */
+export interface FragmentMoleculeContext {
+  readonly analysis: DocumentAnalysis;
+  readonly data: StructureData;
+  readonly title: string;
+  readonly provenance: QcProvenance;
+  readonly basis: BasisExtras;
+}
+
+/**
+ * One fragment as a QCSchema molecule at the given coordinates of the spec's atoms (ångström):
+ * its atoms in spec order, then its caps (placed for those coordinates), geometry in bohr.
+ */
+export function fragmentMolecule(context: FragmentMoleculeContext, index: number, coordinates: Float64Array, caps: readonly CapModel[], extras: Partial<TesseraExtras> = {}, name?: string): QcMolecule {
+  const { analysis, data, title } = context;
+  const model = analysis.model;
+  const fragment = model.fragments[index]!;
+  const atoms = fragment.atoms;
+  const capped = caps.length > 0;
+  return {
+    schema_name: 'qcschema_molecule',
+    schema_version: 2,
+    name: name ?? `${title}/${fragment.name}`,
+    comment: capped
+      ? `Fragment '${fragment.name}' of '${title}': its atoms as placed in the system, then ${caps.length} hydrogen cap${caps.length === 1 ? '' : 's'} on its cut bonds (${fragment.capRule} placement).`
+      : `Fragment '${fragment.name}' of '${title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
+    symbols: [...atoms.map((atom) => data.atoms[atom]!.element), ...caps.map(() => 'H')],
+    geometry: [...atoms.flatMap((atom) => [0, 1, 2].map((k) => toBohr(coordinates[3 * atom + k]!))), ...caps.flatMap((cap) => cap.position.map(toBohr))],
+    atomic_numbers: [...atoms.map((atom) => elementBySymbol(data.atoms[atom]!.element)?.z ?? 0), ...caps.map((cap) => cap.z)],
+    atom_labels: [...atoms.map((atom) => data.atoms[atom]!.label ?? ''), ...caps.map(() => CAP_LABEL)],
+    molecular_charge: fragment.charge,
+    molecular_multiplicity: fragment.multiplicity,
+    fix_com: true,
+    fix_orientation: true,
+    provenance: context.provenance,
+    extras: {
+      tessera: {
+        spec: title,
+        part: 'fragment',
+        spec_atom_numbers: atoms.map((atom) => atom + 1),
+        basis: context.basis,
+        atom_basis: [...atoms.map((atom) => model.basis.atomSets[atom]?.displayName ?? null), ...caps.map((cap) => cap.basis?.displayName ?? null)],
+        frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
+        fragment: fragment.name,
+        fragment_index: index,
+        tier: tierExtras(fragment.tier),
+        ...(capped ? { caps: capExtras(caps) } : {}),
+        ...extras,
+      },
+    },
+  };
 }
