@@ -107,8 +107,8 @@ async function exportQc(file: string): Promise<QcExport> {
 }
 
 describe('the sample list', () => {
-  it('has the nine clean samples and the mistakes', () => {
-    expect(cleanSamples()).toHaveLength(9);
+  it('has the ten clean samples and the mistakes', () => {
+    expect(cleanSamples()).toHaveLength(10);
     expect(allSamples()).toContain('samples/mistakes.tess');
   });
 });
@@ -267,6 +267,7 @@ describe('tessera export --to qcschema', () => {
       'samples/molecules/water-pair-overrides.tess': { system: [0, 1], fragments: { donor: [0, 1], acceptor: [0, 1] } },
       // Two capped methyl groups: CH3 + H, 10 electrons each, singlets.
       'samples/launch/ethane-capped-methyls.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
+      'samples/launch/ethane-plan-variants.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
     };
     expect(Object.keys(expected).sort()).toEqual(cleanSamples());
     for (const [file, want] of Object.entries(expected)) {
@@ -398,9 +399,11 @@ describe('tessera export: errors, files and usage', () => {
 
   it('the help names export, report and their options', async () => {
     const help = (await run(['--help'])).stdout;
-    expect(help).toContain('tessera export <file.tess> --to xyz|qcschema [--out <file>]');
+    expect(help).toContain('tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]');
     expect(help).toContain('tessera report <file.tess> [--format markdown|html|csv] [--out <file>]');
     expect(help).toContain('tessera-qcschema-export');
+    expect(help).toContain('tessera-qcschema-input-export');
+    expect(help).toContain('tessera compare <file.tess> [<file2.tess>] [--format markdown|html|csv] [--out <file>]');
   });
 
   it('the built executable exports (npm run build first)', () => {

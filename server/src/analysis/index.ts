@@ -34,3 +34,5 @@ export { TIER_SECTIONS, type FigureSection } from './figures/fragment';
 export { GROWTH_MAX_ORBITALS, type GrowthPoint } from './figures/growth';
 export { AnalysisHost, type AnalysisSettings, type DocumentSource, type OpenDocument } from './host';
 export { basisFigures } from './figures/report';
+export { BEST_PLAN_RULE, comparePlans, planSummary, specPlans, type PlanComparison, type PlanSummary } from './figures/compare';
+export type { VariantAnalysis } from './variants';

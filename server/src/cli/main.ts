@@ -8,6 +8,7 @@ import { escapeForTerminal } from '../language/printable';
 import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
+import { COMPARE_FORMATS, runCompare, type CompareFormat } from './commands/compare';
 import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
 import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
@@ -57,6 +58,12 @@ Usage:
       standalone page with the plots inline as SVG; csv has one row per part, columns spec, then
       the figures' keys in the JSON estimate (part, name, tier, ..., qubits.jordanWigner, ...),
       then note. Written even when the spec has errors (exit 1).
+  tessera compare <file.tess> [<file2.tess>] [--format markdown|html|csv] [--out <file>]
+      Plans side by side: the spec and each of its variants (variant <name> { ... }), or two
+      specs with theirs. Qubits needed, Pauli terms, measurement groups, ansatz parameters, CNOTs,
+      classical memory and time (planning estimates); the inputs that differ marked, the best
+      plan under the limits named. html adds a bar chart; csv has one row per plan. Written even
+      when a plan has errors (exit 1).
   tessera lsp --stdio
       The language server, for editors other than VS Code.
 
@@ -182,6 +189,26 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         io,
       );
     }
+    case 'compare': {
+      const { values, positionals } = parseArgs({
+        args: rest,
+        allowPositionals: true,
+        strict: true,
+        options: { format: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+      });
+      if (values.help) {
+        io.stdout(USAGE);
+        return EXIT_OK;
+      }
+      return runCompare(
+        {
+          specs: positionals,
+          format: formatOption<CompareFormat>(values.format, COMPARE_FORMATS, 'markdown'),
+          ...(values.out !== undefined ? { out: values.out } : {}),
+        },
+        io,
+      );
+    }
     case 'report': {
       const { values, positionals } = parseArgs({
         args: rest,
@@ -213,7 +240,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       return new Promise<number>(() => undefined);
     }
     default:
-      throw new UsageError(`unknown command '${command}'; the commands are check, estimate, export, report and lsp`);
+      throw new UsageError(`unknown command '${command}'; the commands are check, estimate, export, report, compare and lsp`);
   }
 }
 

@@ -35,8 +35,15 @@ export interface SpecAst {
   caps?: CapsAst;
   scan?: ScanAst;
   limits?: LimitsAst;
+  /** `variant <name> { … }` blocks, in order (their insides are read as specs of their own, language/variants.ts). */
+  variants: VariantAst[];
   /** The first statement of each singular kind, for duplicate reports. */
   readonly statements: Statement[];
+}
+
+export interface VariantAst {
+  readonly statement: Statement;
+  readonly name?: Located<string>;
 }
 
 export interface BasisAst {

@@ -24,7 +24,7 @@ import { readScan } from './scan';
 
 export function interpret(tree: SyntaxTree, sink: DiagnosticSink): SpecAst {
   const reader = new StatementReader(sink);
-  const ast: SpecAst = { fragments: [], basisOverrides: [], statements: tree.statements };
+  const ast: SpecAst = { fragments: [], basisOverrides: [], variants: [], statements: tree.statements };
   for (const statement of tree.statements) {
     if (readRetiredStatement(reader, ast, statement)) continue;
     const keyword = reader.keyword(statement, 'top');
@@ -66,6 +66,10 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
   }
   if (keyword.name === 'basis') {
     readBasis(reader, ast, statement);
+    return;
+  }
+  if (keyword.name === 'variant') {
+    readVariant(reader, ast, statement);
     return;
   }
   if (keyword.name === 'structure') {
@@ -113,4 +117,15 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
       ast.limits = readLimits(reader, statement);
       return;
   }
+}
+
+/** `variant <name> { … }`: the name, unique among variants; the block is read as its own spec later. */
+function readVariant(reader: StatementReader, ast: SpecAst, statement: Statement): void {
+  const args = reader.args(statement, 1, 'variant <name> { … }');
+  const name = args ? { value: args[0]!.text, span: args[0]!.span } : undefined;
+  if (!statement.block) reader.sink.report('missing-value', statement.span, `'variant' needs a block of the statements that differ: \`variant ${name?.value ?? '<name>'} { fragment <name> { tier quantum { active 4e 4o } } }\`.`);
+  if (name && ast.variants.some((variant) => variant.name?.value === name.value)) {
+    reader.sink.report('duplicate-variant', name.span, `A variant named '${name.value}' is already declared; give each variant its own name.`);
+  }
+  ast.variants.push({ statement, ...(name ? { name } : {}) });
 }
