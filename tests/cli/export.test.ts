@@ -107,8 +107,8 @@ async function exportQc(file: string): Promise<QcExport> {
 }
 
 describe('the sample list', () => {
-  it('has the ten clean samples and the mistakes', () => {
-    expect(cleanSamples()).toHaveLength(10);
+  it('has the eleven clean samples and the mistakes', () => {
+    expect(cleanSamples()).toHaveLength(11);
     expect(allSamples()).toContain('samples/mistakes.tess');
   });
 });
@@ -268,6 +268,7 @@ describe('tessera export --to qcschema', () => {
       // Two capped methyl groups: CH3 + H, 10 electrons each, singlets.
       'samples/launch/ethane-capped-methyls.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
       'samples/launch/ethane-plan-variants.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
+      'samples/launch/ethane-shared-structure.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
     };
     expect(Object.keys(expected).sort()).toEqual(cleanSamples());
     for (const [file, want] of Object.entries(expected)) {
