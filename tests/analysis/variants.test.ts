@@ -65,6 +65,13 @@ describe('the text of a variant', () => {
     expect(analysis.counts().errors).toBe(1);
   });
 
+  it('does not keep the previous version alive through the options its variants reuse', () => {
+    const first = analyzeDocument(BASE);
+    const second = analyzeDocument(`${BASE}variant a { embedding dmet }\n`, { previous: first });
+    expect('previous' in second.options).toBe(false);
+    expect(second.variants()[0]!.analysis.model.embedding).toBe('dmet');
+  });
+
   it('keeps a variant block open across the top-level statements it holds', () => {
     const analysis = analyzeDocument(`${BASE}variant two {\n  fragment w {\n    tier quantum { taper on }\n  }\n  embedding dmet\n}\n`);
     expect(analysis.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);

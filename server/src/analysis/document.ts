@@ -58,12 +58,16 @@ export class DocumentAnalysis {
   private moving: number[] | undefined;
   private readonly computations = new Map<string, PartComputation>();
 
-  /** The options the document was analysed with; its variants are analysed with the same. */
-  readonly options: AnalysisOptions;
+  /**
+   * The options the document was analysed with, less the previous version (kept, it would hold
+   * every earlier version alive); its variants are analysed with the same.
+   */
+  readonly options: Omit<AnalysisOptions, 'previous'>;
   private variantList: VariantAnalysis[] | undefined;
 
   constructor(analysis: Analysis, late: LateResults = new LateResults(), options: AnalysisOptions = {}) {
-    this.options = options;
+    const { previous: _previous, ...kept } = options;
+    this.options = kept;
     this.text = analysis.text;
     this.path = analysis.path;
     this.lines = analysis.lines;
@@ -102,7 +106,7 @@ export class DocumentAnalysis {
 
   /** The spec's plan variants, each analysed as a spec of its own (analysis/variants.ts). */
   variants(): VariantAnalysis[] {
-    if (!this.variantList) this.variantList = analyseVariants(this, (text) => analyzeDocument(text, { ...this.options, previous: undefined }, this.late));
+    if (!this.variantList) this.variantList = analyseVariants(this, (text) => analyzeDocument(text, this.options, this.late));
     return this.variantList;
   }
 
