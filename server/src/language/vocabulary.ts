@@ -59,7 +59,7 @@ export const KEYWORDS: readonly KeywordInfo[] = [
       'Cap every covalent bond a fragment boundary cuts with a hydrogen link atom on the kept atom\'s side (Field, Bash & Karplus 1990): `fixed` puts it at the typical X–H length of the kept atom\'s element, `scaled` at the cut bond\'s length × (r_X + r_H)/(r_X + r_Y) with covalent radii. Caps count in the fragment\'s electrons, functions, orbitals, qubits and symmetry. At the top level for every fragment; in a fragment for that one (default none).',
   },
   { name: 'embedding', blocks: ['top', 'variant'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
-  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
+  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  … points <n>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
   { name: 'limits', blocks: ['top', 'variant'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
   {
     name: 'variant',
@@ -198,4 +198,9 @@ export function methodsForTier(tier: TierLevel): (TermInfo & { readonly tier: Ti
 
 export function findTerm(terms: readonly TermInfo[], name: string): TermInfo | undefined {
   return terms.find((term) => term.name === name);
+}
+
+/** The words of a term list as usage strings write them: `a|b|c`. */
+export function choices(terms: readonly TermInfo[]): string {
+  return terms.map((term) => term.name).join('|');
 }

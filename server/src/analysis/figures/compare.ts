@@ -17,7 +17,8 @@
  */
 import { computeCost } from '../computeCost';
 import type { DocumentAnalysis } from '../document';
-import type { FragmentFigures } from './types';
+import { countValue } from './space';
+import type { Count, FragmentFigures } from './types';
 
 export interface PlanSummary {
   /** `spec` or `spec / variant`. */
@@ -56,8 +57,9 @@ export const BEST_PLAN_RULE = 'among plans without errors whose qubits and memor
 
 const CI_METHODS = new Set(['fci', 'casci', 'casscf']);
 
-function sumOf(values: readonly (number | null)[]): number | null {
-  const known = values.filter((value): value is number => value !== null);
+/** A sum of counts as a double (beyond 2^53 an approximation, like every plotted count). */
+function sumOf(values: readonly (Count | null)[]): number | null {
+  const known = values.filter((value): value is Count => value !== null).map(countValue);
   return known.length === 0 ? null : known.reduce((a, b) => a + b, 0);
 }
 

@@ -6,12 +6,12 @@
  * diagnostics go to standard error and the exit code is 1, so that no half-checked geometry leaves.
  */
 import { safeJsonStringify } from '../../language/printable';
-import { buildQcSchemaExport } from '../../report/export/qcschema';
+import { qcSchemaExportParts, qcSchemaJsonChunks } from '../../report/export/qcschema';
 import { buildQcInputExport, InputExportError } from '../../report/export/qcschemaInput';
-import { renderXyz } from '../../report/export/xyz';
+import { xyzChunks } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
 import { exitCode, EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput } from '../specFile';
+import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput, type SpecSettings } from '../specFile';
 import { VERSION } from '../version';
 
 export const EXPORT_TARGETS = ['xyz', 'qcschema', 'qcschema-input'] as const;
@@ -21,13 +21,15 @@ export interface ExportOptions {
   spec?: string;
   to?: ExportTarget;
   out?: string;
+  /** The editor's settings: default mapping and qubit limit. */
+  settings?: SpecSettings;
 }
 
 export async function runExport(options: ExportOptions, io: CliIo): Promise<number> {
   if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]');
   if (!options.to) throw new UsageError('export needs --to xyz, --to qcschema or --to qcschema-input');
   if (options.out === '') throw new UsageError('--out needs a file name');
-  const spec = loadSpec(options.spec, io);
+  const spec = loadSpec(options.spec, io, options.settings);
   if (!spec) return EXIT_USAGE;
   checkOutPath(options.out, spec, io);
   printDiagnostics(spec, io);
@@ -37,18 +39,19 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
   }
   const data = structureData(spec.analysis);
   const title = specTitle(spec);
-  let text: string;
+  // Streamed: one scan point at a time, so that any scan the language accepts is written in bounded memory.
+  let chunks: Iterable<string>;
   try {
-    text =
+    chunks =
       options.to === 'xyz'
-        ? renderXyz(data, { title, version: VERSION })
+        ? xyzChunks(data, { title, version: VERSION })
         : options.to === 'qcschema'
-          ? `${safeJsonStringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`
-          : `${safeJsonStringify(buildQcInputExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`;
+          ? qcSchemaJsonChunks(qcSchemaExportParts(spec.analysis, data, { title, version: VERSION }))
+          : [`${safeJsonStringify(buildQcInputExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`];
   } catch (error) {
     if (!(error instanceof RangeError) && !(error instanceof InputExportError)) throw error;
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);
     return EXIT_ERRORS;
   }
-  return (await writeOutput(text, options.out, spec, io)) ? EXIT_OK : EXIT_USAGE;
+  return (await writeOutput(chunks, options.out, spec, io)) ? EXIT_OK : EXIT_USAGE;
 }
