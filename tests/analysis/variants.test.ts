@@ -65,6 +65,23 @@ describe('the text of a variant', () => {
     expect(analysis.counts().errors).toBe(1);
   });
 
+  it('takes another cut when a variant gives fragments other atoms', () => {
+    const pair = `basis sto-3g\n${WATER.replace('\n}', '\n  O  p    5.000000   0.000000   0.000000\n  H  g1   5.000000   0.756950   0.585882\n  H  g2   5.000000  -0.756950   0.585882\n}')}
+fragment a { atoms o h1 h2; tier mean-field { method rhf } }
+fragment b { atoms p g1 g2; tier mean-field { method rhf } }
+variant proton-moved {
+  fragment a { atoms o h1; charge -1 }
+  fragment b { atoms h2 p g1 g2; charge +1 }
+}
+`;
+    const analysis = analyzeDocument(pair);
+    const cut = analysis.variants()[0]!.analysis;
+    // Hydroxide: 8 + 1 + 1 = 10 electrons; H3O+ across the gap: 1 + 8 + 1 + 1 − 1 = 10.
+    expect([cut.fragmentFigures(0).electrons, cut.fragmentFigures(1).electrons]).toEqual([10, 10]);
+    expect([cut.fragmentFigures(0).formula, cut.fragmentFigures(1).formula]).toEqual(['HO', 'H3O']);
+    expect(comparePlans(specPlans(analysis, 'pair')).differingInputs).toEqual(['fragment a: atoms', 'fragment b: atoms']);
+  });
+
   it('does not keep the previous version alive through the options its variants reuse', () => {
     const first = analyzeDocument(BASE);
     const second = analyzeDocument(`${BASE}variant a { embedding dmet }\n`, { previous: first });
