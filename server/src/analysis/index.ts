@@ -8,6 +8,7 @@ export { analyzeDocument, DocumentAnalysis, ESTIMATE_CHECKS, type AnalysisOption
 export { Estimates, SYMMETRY_ATOM_LIMIT } from './estimates';
 export { fragmentInputKey, inputKey, partAtoms, partInputs, partLabel, type PartAtom, type PartInputs, type PartRef } from './inputKey';
 export {
+  ACTIVE_SPACE_KIND,
   defaultReference,
   MEAN_FIELD_KIND,
   MP2_KIND,
@@ -16,6 +17,9 @@ export {
   requestKey,
   samePart,
   specParts,
+  type ActiveSpaceChoice,
+  type ActiveSpaceOutcome,
+  type ActiveSpaceRequest,
   type ComputeRequest,
   type MeanFieldOutcome,
   type MeanFieldRequest,

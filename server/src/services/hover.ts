@@ -14,6 +14,7 @@ import { describeTarget } from '../language/ast';
 import { claimsOf, type AtomModel } from '../language/model';
 import type { Argument, Statement } from '../language/syntax';
 import {
+  ACTIVE_CHOICES,
   ANSATZE,
   BASIS_PRECEDENCE,
   BASIS_TARGET_WORDS,
@@ -179,6 +180,7 @@ const VALUE_TERMS: Readonly<Record<string, { terms: readonly TermInfo[]; kind: s
   taper: { terms: SWITCH_TERMS, kind: 'switch' },
   scan: { terms: SCAN_KINDS, kind: 'scan coordinate' },
   atoms: { terms: SELECTOR_WORDS, kind: 'selector' },
+  active: { terms: ACTIVE_CHOICES, kind: 'active-space suggestion' },
 };
 
 /** Binary search of the inline atom whose line holds the offset. */

@@ -43,7 +43,13 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const radii = new Float64Array(atoms.list.map((atom) => atom.element.covalentRadius ?? 1.5));
   const contacts = analyseContacts(coordinates, radii, options.previousContacts);
 
-  const fragments = ast.fragments.map((fragmentAst, index) => buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options));
+  const qubitLimit = ast.limits?.qubits?.value ?? options.defaultQubitLimit;
+  const atomicNumbers = atoms.list.map((atom) => atom.element.z);
+  const fragments = ast.fragments.map((fragmentAst, index) => {
+    const choice = fragmentAst.tier?.active?.choice;
+    const choiceAtoms = choice?.kind === 'shells' ? choice.groups.map((group) => resolver.resolve(group.selectors).atoms) : [];
+    return buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options, { choiceAtoms, qubitLimit, atomicNumbers });
+  });
 
   return {
     name: ast.name?.value,
