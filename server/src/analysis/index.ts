@@ -9,7 +9,9 @@ export { Estimates, SYMMETRY_ATOM_LIMIT } from './estimates';
 export { fragmentInputKey, inputKey, partAtoms, partInputs, partLabel, type PartAtom, type PartInputs, type PartRef } from './inputKey';
 export {
   ACTIVE_SPACE_KIND,
+  DEFAULT_BATH_THRESHOLD,
   defaultReference,
+  DMET_BATH_KIND,
   MEAN_FIELD_KIND,
   MP2_KIND,
   partComputation,
@@ -21,6 +23,8 @@ export {
   type ActiveSpaceOutcome,
   type ActiveSpaceRequest,
   type ComputeRequest,
+  type DmetBathRequest,
+  type DmetBathSummary,
   type MeanFieldOutcome,
   type MeanFieldRequest,
   type Mp2Request,
@@ -29,6 +33,7 @@ export {
   type PartComputation,
   type RequestOptions,
   type ScfReference,
+  type SpinBathSummary,
 } from './computed';
 export { computeCost, costText, DEFAULT_MEMORY_LIMIT_BYTES, formatDuration, formatMemory, type ComputeCost } from './computeCost';
 export { LateResults, type LateResult, type LateResultChange } from './late';

@@ -29,5 +29,7 @@ export function progressText(progress: JobProgress): string {
       return 'choosing the active orbitals';
     case 'mp2':
       return progress.total ? `MP2: ${progress.done ?? 0} of ${progress.total} occupied orbitals` : 'MP2';
+    case 'embedding':
+      return 'Schmidt decomposition of the system mean field';
   }
 }

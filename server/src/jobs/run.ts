@@ -11,16 +11,32 @@
  *   and MP2 runs on it (RHF: energy, density and natural orbitals; UHF: energy).
  * - `active-space`: the restricted mean field (and for natural occupations the MP2 result) arrive
  *   as inputs; the basis and overlap are built again and electronic/activeSpace chooses the orbitals.
+  * - `dmet-bath`: the system's mean-field result arrives as input; the basis and its overlap are
+ *   built again and the fragment's bath is cut from the per-spin densities (electronic/embedding).
  */
-import { ACTIVE_SPACE_KIND, MP2_KIND, type ActiveSpaceOutcome, type ActiveSpaceRequest, type ComputeRequest, type MeanFieldOutcome, type MeanFieldRequest, type Mp2Request, type Mp2Summary } from '../analysis/computed';
+import {
+  ACTIVE_SPACE_KIND,
+  DMET_BATH_KIND,
+  MP2_KIND,
+  type ActiveSpaceOutcome,
+  type ActiveSpaceRequest,
+  type ComputeRequest,
+  type DmetBathRequest,
+  type DmetBathSummary,
+  type MeanFieldOutcome,
+  type MeanFieldRequest,
+  type Mp2Request,
+  type Mp2Summary,
+} from '../analysis/computed';
+import { bathSize } from '../chemistry/cost/dmet';
 import { atomicProjectionSelection, canonicalWindow, irrepWindow, naturalOccupationSelection, type ActiveSelection, type SelectionReference } from '../electronic/activeSpace';
 import { naturalOrbitalIrreps, type Mp2Outcome } from '../electronic/correlation';
-import { overlapMatrix } from '../electronic/integrals';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
 import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
 import { mp2, unrestrictedMp2 } from '../electronic/correlation';
-import { createTwoElectronIntegrals } from '../electronic/integrals';
+import { dmetBath, spinDensity, type SpinBath } from '../electronic/embedding';
+import { createTwoElectronIntegrals, overlapMatrix } from '../electronic/integrals';
 import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
 import type { JobFailure, JobProgress } from './protocol';
 
@@ -190,9 +206,57 @@ export function runActiveSpace(request: ActiveSpaceRequest, meanField: MeanField
   return { ...selection, seconds: (performance.now() - start) / 1000 };
 }
 
+export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcome, context: RunContext): DmetBathSummary {
+  const start = performance.now();
+  const { result, orbitals } = meanField;
+  if (!result.converged) {
+    throw new JobInputError({ code: 'prerequisite', message: `The DMET bath needs a converged mean field of the system; it stopped after ${result.iterations} iterations without converging.` });
+  }
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'embedding' });
+  const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
+  const n = basis.functionCount;
+  const M = orbitals.orbitalCount;
+  const alpha = spinDensity(orbitals.alpha, n, M, result.occupations.alpha);
+  const beta = result.reference === 'rhf' ? alpha : spinDensity(orbitals.beta, n, M, result.occupations.beta);
+  const bath = dmetBath({
+    overlap: overlapMatrix(basis),
+    functionCenter: basis.functionCenter,
+    density: { alpha, beta },
+    electrons: result.electrons,
+    fragmentAtoms: request.fragmentAtoms,
+    threshold: request.threshold,
+    cancel: context.cancel,
+  });
+  const L = Math.min(bath.fragmentOrbitals, M);
+  const spin = (value: SpinBath, electrons: number) => ({
+    singularValues: Array.from(value.singularValues),
+    bathOrbitals: value.bathOrbitals,
+    countedBathOrbitals: bathSize(L, M, electrons),
+    impurityElectrons: value.impurityElectrons,
+    occupiedFragmentOrbitals: value.occupiedFragmentOrbitals,
+    idempotencyError: value.idempotencyError,
+  });
+  return {
+    reference: result.reference,
+    orbitals: bath.orbitals,
+    threshold: bath.threshold,
+    fragmentOrbitals: bath.fragmentOrbitals,
+    systemOrbitals: M,
+    restricted: bath.restricted,
+    alpha: spin(bath.alpha, result.electrons.alpha),
+    beta: spin(bath.beta, result.electrons.beta),
+    impurityOrbitals: bath.impurityOrbitals,
+    impurityElectrons: bath.impurityElectrons,
+    coreElectrons: bath.coreElectrons,
+    seconds: (performance.now() - start) / 1000,
+  };
+}
+
 /** Runs any request, given the results of its prerequisites (in the order `prerequisites` lists them). */
-export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | ActiveSpaceOutcome {
+export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | DmetBathSummary | ActiveSpaceOutcome {
   if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
+  if (request.kind === DMET_BATH_KIND) return runDmetBath(request, inputs[0] as MeanFieldOutcome, context);
   if (request.kind === ACTIVE_SPACE_KIND) return runActiveSpace(request, inputs[0] as MeanFieldOutcome, (inputs[1] as Mp2Summary | undefined) ?? null, context);
   return runMeanField(request, context);
 }
