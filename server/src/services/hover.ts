@@ -34,6 +34,7 @@ import {
 import { fragmentCard } from './cards';
 import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './computed';
 import { bathSection } from './computedBath';
+import { activeSpaceSection } from './computedActive';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
@@ -200,6 +201,12 @@ function atomAtLine(analysis: DocumentAnalysis, offset: number): number | undefi
   return undefined;
 }
 
+/** The computed (or counted) active space under the `active` keyword of a fragment's tier. */
+function activeLineCard(analysis: DocumentAnalysis, statement: { readonly span: { readonly start: number } }): string | undefined {
+  const fragment = analysis.model.fragments.find((f) => f.ast.tier?.active && f.ast.tier.active.span.start === statement.span.start);
+  return fragment ? (activeSpaceSection(analysis, fragment.index) ?? undefined) : undefined;
+}
+
 /** The atom a token refers to: a label or #index in a selector or scan, or an atom line. */
 export function atomAt(analysis: DocumentAnalysis, context: CursorContext): number | undefined {
   const token = context.token;
@@ -226,7 +233,7 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
     const keyword = findKeyword(keywordText, context.block);
     if (keyword) {
       const unit = keyword.name === 'structure' || keyword.name === 'scan' ? `\n\nLength unit of this spec: ${unitName(analysis)}.` : '';
-      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : undefined;
+      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : keyword.name === 'active' ? activeLineCard(analysis, statement) : undefined;
       return markdown(`**${keyword.name}**\n\n${keyword.summary}\n\n\`${keyword.syntax}\`${unit}${line ? `\n\n${line}` : ''}`, analysis, token.node);
     }
     const retired = context.block === 'top' ? RETIRED_SPELLINGS.find((entry) => entry.name === keywordText || (entry.name === 'basis block' && keywordText === 'basis')) : undefined;
