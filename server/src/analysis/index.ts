@@ -22,6 +22,7 @@ export {
   type ActiveSpaceChoice,
   type ActiveSpaceOutcome,
   type ActiveSpaceRequest,
+  type BathOrbitals,
   type ComputeRequest,
   type DmetBathRequest,
   type DmetBathSummary,
