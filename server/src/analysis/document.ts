@@ -30,7 +30,7 @@ import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
 import { analyseVariants, reportVariantProblems, type VariantAnalysis } from './variants';
-import { partComputation, type ActiveSpaceChoice, type PartComputation } from './computed';
+import { partComputation, type HamiltonianSpace, type PartComputation } from './computed';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
@@ -178,7 +178,7 @@ export class DocumentAnalysis {
    * active space (electrons and orbitals of its plan) on its own restricted mean field; beyond the
    * explicit limit the counted figures stay, with the reason; null for other fragments.
    */
-  activeSpaceChoice(index: number): ActiveSpaceChoice | { readonly bound: string } | null {
+  activeSpaceChoice(index: number): HamiltonianSpace | { readonly bound: string } | null {
     const fragment = this.model.fragments[index];
     if (fragment?.tier?.level !== 'quantum') return null;
     const plan = this.estimates.plan(index);

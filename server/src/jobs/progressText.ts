@@ -27,6 +27,8 @@ export function progressText(progress: JobProgress): string {
     }
     case 'hamiltonian':
       return 'active-space integrals and qubit Hamiltonians';
+    case 'active-space':
+      return 'choosing the active orbitals';
     case 'mp2':
       return progress.total ? `MP2: ${progress.done ?? 0} of ${progress.total} occupied orbitals` : 'MP2';
     case 'embedding':

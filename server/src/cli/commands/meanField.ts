@@ -12,7 +12,7 @@ import {
   LateResults,
   partComputation,
   restrictedMeanField,
-  type ActiveSpaceChoice,
+  type HamiltonianSpace,
   type HamiltonianOutcome,
   type HamiltonianRequest,
   type PartComputation,
@@ -32,7 +32,7 @@ import type { MeanFieldPart, PartMeanField } from '../../report/format/meanField
 import type { CliIo } from '../io';
 
 /** A part's active space, or why it gets no Hamiltonian (null: none asked for). */
-export type ActiveSpaceOf = (computation: PartComputation) => ActiveSpaceChoice | { readonly refusal: string } | { readonly bound: string } | null;
+export type ActiveSpaceOf = (computation: PartComputation) => HamiltonianSpace | { readonly refusal: string } | { readonly bound: string } | null;
 
 export interface MeanFieldOptions extends RequestOptions {
   readonly memoryLimitBytes?: number;
