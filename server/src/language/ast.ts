@@ -222,6 +222,8 @@ export interface LimitsAst {
   qubits?: Located<number>;
   /** In bytes. */
   memory?: Located<number>;
+  /** Floating-point operations per second. */
+  rate?: Located<number>;
 }
 
 function describeRef(ref: AtomRef): string {

@@ -102,7 +102,7 @@ export interface SpecModel {
   readonly embedding: string;
   readonly scan: ScanModel | undefined;
   /** `qubitsFromSpec` is false when the qubit limit is the caller's default (the spec sets none). */
-  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number };
+  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number; readonly flopsPerSecond?: number };
   readonly system: OrbitalSpace;
   readonly contacts: ContactAnalysis;
   /** Absolute paths of files read for this spec. */
