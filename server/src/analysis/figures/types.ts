@@ -19,6 +19,9 @@ export const CONVENTIONS = {
   ansatz: 'UCCSD: spin-conserving spin-orbital excitations screened by the point group (Romero et al. 2019); k-UpCCGSD: k × 3n(n−1)/2 (Lee et al. 2019); hardware-efficient: q(3d+2) Euler angles (Kandala et al. 2017)',
   circuit: 'one Trotter step of UCCSD under Jordan–Wigner in interleaved spin order: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020',
   classical: 'full-CI determinants C(n, nα)·C(n, nβ); CI vector and CCSD amplitudes at 8 bytes each; statevector 2^q × 16 bytes',
+  tiers: 'qubit, Pauli-term, measurement, ansatz and circuit figures belong to quantum tiers only; correlated and mean-field tiers get their solver cost instead',
+  solverCost:
+    'formal scaling, floating-point operations (a multiply–add counts two) and memory of the method on the fragment: Hartree–Fock and Kohn–Sham on its basis functions, correlated methods on the active space of its problem (DMET impurity or own orbitals); leading terms with stated prefactors, 20 iterations assumed for iterative methods; time at `limits { rate }` or 100 Gflops (an assumption)',
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
   fragmentSymmetry:
@@ -57,8 +60,14 @@ export interface SpaceFigures {
   occupied: number | null;
   virtual: number | null;
   frozenCore: { orbitals: number; electrons: number };
-  active: { electrons: number; orbitals: number; alpha: number | null; beta: number | null; source: string };
-  qubits: { jordanWigner: number; bravyiKitaev: number; parity: number; tapered: number | null };
+  /** The active space; null for a mean-field tier, which has none. */
+  active: { electrons: number; orbitals: number; alpha: number | null; beta: number | null; source: string } | null;
+  /**
+   * Qubits of the active space under each mapping: a quantum tier's register. Null for the
+   * correlated and mean-field tiers (no qubits there); for the system a hypothetical figure (see
+   * SystemFigures.qubitsScope).
+   */
+  qubits: { jordanWigner: number; bravyiKitaev: number; parity: number; tapered: number | null } | null;
   /** The abelian group used for counting (D2h or a subgroup), and the full Schoenflies group. */
   pointGroup: string | null;
   fullPointGroup: string | null;
@@ -94,10 +103,36 @@ export interface FragmentFigures extends SpaceFigures {
   ansatzCost: { kind: string; parameters: number; singles: number | null; doubles: number | null; unscreened: number | null; spinAdapted: number | null } | null;
   circuit: { construction: string; cnots: number; rotations: number | null; depth: number | null; compactCnots: number | null } | null;
   classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
+  /** What decides a classical tier's feasibility: scaling, operations, memory and time of its method. */
+  solverCost: SolverCostFigures | null;
   notes: string[];
 }
 
-export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null };
+export interface SolverCostFigures {
+  method: string;
+  /** Formal scaling and the leading term. */
+  scaling: string;
+  /** What the method is applied to. */
+  on: 'active-space' | 'dmet-impurity' | 'fragment';
+  basisFunctions: number;
+  orbitals: number;
+  occupied: number;
+  virtual: number;
+  determinants: BigFigure | null;
+  /** Floating-point operations of the whole solve (assumed iterations included). */
+  operations: BigFigure;
+  operationsPerIteration: BigFigure | null;
+  iterations: number | null;
+  memoryBytes: BigFigure;
+  time: { seconds: number | null; log10Seconds: number; text: string; flopsPerSecond: number; rateFrom: 'limits' | 'default' };
+  formula: string;
+  references: string[];
+}
+
+/** What the system row's qubit, Pauli-term and tapering figures describe. */
+export const SYSTEM_QUBITS_SCOPE = 'hypothetical: the whole system on one quantum tier, every orbital outside the frozen core active';
+
+export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null; qubitsScope: typeof SYSTEM_QUBITS_SCOPE };
 
 export interface BasisOverrideFigure {
   basis: string;
@@ -119,7 +154,7 @@ export interface EstimateReport {
   system: SystemFigures;
   fragments: FragmentFigures[];
   scan: { points: number; distances: number[]; totals: ScanTotals } | null;
-  limits: { qubits: number | null; memoryBytes: number | null };
+  limits: { qubits: number | null; memoryBytes: number | null; flopsPerSecond: number; flopsFrom: 'limits' | 'default' };
   diagnostics: { errors: number; warnings: number };
 }
 

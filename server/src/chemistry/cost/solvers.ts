@@ -71,7 +71,7 @@ export interface SolverSpace {
 export interface SolverCost {
   readonly method: string;
   readonly family: SolverFamily;
-  /** The formal scaling and its leading term, for example `N⁶: o²v⁴ per iteration`. */
+  /** The formal scaling, a colon, and its leading term: `N⁶: o²v⁴ per iteration`. */
   readonly scaling: string;
   /** The sizes the formulas use. */
   readonly sizes: { readonly N: number; readonly n: number; readonly o: number; readonly v: number; readonly determinants: Magnitude | null };
@@ -184,7 +184,7 @@ export function solverCost(method: string, space: SolverSpace): SolverCost | und
       return {
         method,
         family: info.family,
-        scaling: `N⁴ per iteration (every two-electron integral)${info.family === 'kohn-sham' ? ', plus G·N² on the grid' : ''}`,
+        scaling: `N⁴: every unique two-electron integral per iteration${info.family === 'kohn-sham' ? ', plus G·N² on the grid' : ''}`,
         sizes,
         operationsPerIteration: exactMagnitude(perIteration),
         iterations: ASSUMED_ITERATIONS,
@@ -237,7 +237,7 @@ export function solverCost(method: string, space: SolverSpace): SolverCost | und
       return {
         method,
         family: 'configuration-interaction',
-        scaling: macro ? 'exponential in the active space: D determinants × their couplings per σ, plus n·N⁴ per macro-iteration' : 'exponential in the active space: D determinants × their couplings per σ',
+        scaling: macro ? 'exponential: D determinants × their couplings per σ, plus n·N⁴ per macro-iteration' : 'exponential: D determinants × their couplings per σ',
         sizes,
         operationsPerIteration: perIteration,
         iterations: ASSUMED_ITERATIONS,

@@ -55,9 +55,7 @@ export interface ActiveFigures {
   readonly irrepsSource: 'given' | 'proportional' | 'none';
 }
 
-export interface PlanEstimate {
-  readonly problem: EmbeddedSizes;
-  readonly active: ActiveFigures;
+export interface QuantumPlan {
   readonly qubits: {
     readonly jordanWigner: number;
     readonly bravyiKitaev: number;
@@ -71,7 +69,15 @@ export interface PlanEstimate {
   readonly measurement: MeasurementEstimate;
   readonly ansatz: AnsatzFigures | null;
   readonly circuit: { readonly standard: CircuitCost; readonly compact: CircuitCost | null } | null;
-  readonly classical: { readonly determinants: DeterminantCount; readonly ciVectorBytes: Magnitude; readonly ccsd: AmplitudeCount; readonly statevectorBytes: Magnitude | null };
+  readonly statevectorBytes: Magnitude;
+}
+
+export interface PlanEstimate {
+  readonly problem: EmbeddedSizes;
+  readonly active: ActiveFigures;
+  /** The register, Hamiltonian, measurement, ansatz and circuit of a quantum tier; null for the classical tiers. */
+  readonly quantum: QuantumPlan | null;
+  readonly classical: { readonly determinants: DeterminantCount; readonly ciVectorBytes: Magnitude; readonly ccsd: AmplitudeCount };
   /** Problems that prevent an estimate (an active space larger than the problem, an invalid spin). */
   readonly notes: readonly string[];
 }
@@ -222,9 +228,26 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const beta = (electrons - unpaired) / 2;
 
   const irreps = irrepsOf(input, orbitals);
-  const orbitalIrreps = irreps.orbitalIrreps;
   const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps: irreps.irreps, irrepsSource: irreps.source };
+  if (!irreps.perOrbital) {
+    notes.push(
+      `an active space of more than ${PER_ORBITAL_LIMIT.toLocaleString('en-US')} orbitals is counted without point-group symmetry (tapering, Pauli terms, UCCSD screening)${input.ansatz === 'uccsd' && input.tier === 'quantum' && input.method === 'vqe' ? ', and its UCCSD circuit cost is not estimated' : ''}`,
+    );
+  }
+  const determinants = fciDeterminantCount(orbitals, alpha, beta);
+  return {
+    problem,
+    active,
+    quantum: input.tier === 'quantum' ? quantumPlan(input, active, irreps) : null,
+    classical: { determinants, ciVectorBytes: ciVectorBytes(determinants.determinants), ccsd: ccsdAmplitudeCount(orbitals, alpha, beta) },
+    notes,
+  };
+}
 
+/** Register, Hamiltonian, measurement, ansatz and circuit of a quantum tier's active space. */
+function quantumPlan(input: PlanInput, active: ActiveFigures, irreps: ActiveIrreps): QuantumPlan {
+  const { orbitals, alpha, beta } = active;
+  const orbitalIrreps = irreps.orbitalIrreps;
   const counts = qubitCounts(orbitals);
   const { tapering, pauli } = symmetryCounts(irreps, { alpha, beta });
   const required = requiredQubits(input, counts, tapering.tapered);
@@ -232,20 +255,12 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const qubitsForCircuits = required ?? counts.jordanWigner;
 
   const layout = { orbitals, alpha, beta, order: 'interleaved' as const, irreps: orbitalIrreps };
-  let circuit: PlanEstimate['circuit'] = null;
-  if (input.tier === 'quantum' && input.method === 'vqe') {
+  let circuit: QuantumPlan['circuit'] = null;
+  if (input.method === 'vqe') {
     if (input.ansatz === 'uccsd' && irreps.perOrbital) circuit = { standard: uccsdPauliRotationCircuit(layout), compact: uccsdFermionicExcitationCircuit(layout) };
     else if (input.ansatz === 'hardware-efficient') circuit = { standard: hardwareEfficientCircuit(qubitsForCircuits, input.layers), compact: null };
   }
-  if (!irreps.perOrbital) {
-    notes.push(
-      `an active space of more than ${PER_ORBITAL_LIMIT.toLocaleString('en-US')} orbitals is counted without point-group symmetry (tapering, Pauli terms, UCCSD screening)${input.ansatz === 'uccsd' && circuit === null && input.tier === 'quantum' ? ', and its UCCSD circuit cost is not estimated' : ''}`,
-    );
-  }
-  const determinants = fciDeterminantCount(orbitals, alpha, beta);
   return {
-    problem,
-    active,
     qubits: {
       ...counts,
       tapered: tapering.tapered,
@@ -265,12 +280,6 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
     measurement: measurementFor(irreps, pauli.jordanWigner),
     ansatz: ansatzFigures(input, active, irreps, qubitsForCircuits),
     circuit,
-    classical: {
-      determinants,
-      ciVectorBytes: ciVectorBytes(determinants.determinants),
-      ccsd: ccsdAmplitudeCount(orbitals, alpha, beta),
-      statevectorBytes: input.tier === 'quantum' ? statevectorBytes(qubitsForCircuits) : null,
-    },
-    notes,
+    statevectorBytes: statevectorBytes(qubitsForCircuits),
   };
 }

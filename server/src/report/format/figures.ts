@@ -80,6 +80,17 @@ export const FIGURE_COLUMNS: readonly FigureColumn[] = [
   { key: 'classical.ccsdAmplitudes.log10', label: 'CCSD amplitudes, log10' },
   { key: 'classical.statevectorBytes.exact', label: 'statevector bytes' },
   { key: 'classical.statevectorBytes.log10', label: 'statevector bytes, log10' },
+  { key: 'solverCost.method', label: 'classical solver (costed)' },
+  { key: 'solverCost.scaling', label: 'classical solver scaling' },
+  { key: 'solverCost.on', label: 'classical solver applied to' },
+  { key: 'solverCost.occupied', label: 'classical solver occupied orbitals' },
+  { key: 'solverCost.virtual', label: 'classical solver virtual orbitals' },
+  { key: 'solverCost.operations.exact', label: 'classical solver operations' },
+  { key: 'solverCost.operations.log10', label: 'classical solver operations, log10' },
+  { key: 'solverCost.memoryBytes.exact', label: 'classical solver memory bytes' },
+  { key: 'solverCost.memoryBytes.log10', label: 'classical solver memory bytes, log10' },
+  { key: 'solverCost.time.seconds', label: 'classical solver time, seconds' },
+  { key: 'solverCost.time.flopsPerSecond', label: 'rate the time is taken at, flop/s' },
 ];
 
 export type FigureValue = string | number | boolean | null;
