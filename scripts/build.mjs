@@ -1,4 +1,4 @@
-// Bundles the command line, the language server, the VS Code client and the benchmark with esbuild.
+// Bundles the command line, the language server, the jobs' worker, the VS Code client and the benchmark with esbuild.
 // Run by `npm ci` (the `prepare` script) so that `npx tessera` works right after installing.
 import { build } from 'esbuild';
 import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -11,7 +11,7 @@ const { version } = JSON.parse(readFileSync(path.join(root, 'package.json'), 'ut
 
 /**
  * Builds the bundles into `outdir` (default dist/). `production` minifies and drops source maps;
- * `only` limits the build to the named bundles (cli, server, client, webview, bench). The webview
+ * `only` limits the build to the named bundles (cli, server, worker, client, webview, bench). The webview
  * scripts are browser bundles (the 3D viewer included) with the licences of what they bundle.
  */
 export async function buildBundles({ outdir = path.join(root, 'dist'), production = false, only } = {}) {
@@ -30,9 +30,11 @@ export async function buildBundles({ outdir = path.join(root, 'dist'), productio
   const entries = [
     { name: 'cli', entryPoints: ['server/src/cli/bin.ts'], outfile: path.join(outdir, 'cli.js') },
     { name: 'server', entryPoints: ['server/src/lsp/main.ts'], outfile: path.join(outdir, 'server.js') },
+    // The jobs' worker thread (server/src/jobs/worker.ts), started by the server and the command line.
+    { name: 'worker', entryPoints: ['server/src/jobs/worker.ts'], outfile: path.join(outdir, 'worker.js') },
     { name: 'client', entryPoints: ['client/src/extension.ts'], outfile: path.join(outdir, 'client', 'extension.js'), external: ['vscode'] },
     { name: 'bench', entryPoints: ['bench/main.ts'], outfile: path.join(outdir, 'bench.js') },
-    ...['structure', 'costs'].map((view) => ({
+    ...['structure', 'costs', 'levels'].map((view) => ({
       name: 'webview',
       entryPoints: [`client/webview/${view}.ts`],
       outfile: path.join(outdir, 'webview', `${view}.js`),
@@ -43,7 +45,7 @@ export async function buildBundles({ outdir = path.join(root, 'dist'), productio
   ].filter((entry) => existsSync(path.join(root, entry.entryPoints[0])) && (!only || only.includes(entry.name)));
   await Promise.all(entries.map(({ name, ...entry }) => build({ ...common, ...entry })));
   if (entries.some((entry) => entry.name === 'webview')) writeNotices(path.join(outdir, 'webview', 'third-party-notices.txt'));
-  if (entries.some((entry) => ['cli', 'server', 'bench'].includes(entry.name))) writeBasisData(path.join(outdir, BASIS_DATA_FOLDER));
+  if (entries.some((entry) => ['cli', 'server', 'worker', 'bench'].includes(entry.name))) writeBasisData(path.join(outdir, BASIS_DATA_FOLDER));
 }
 
 /** Where the exponent files live in the sources, and the folder next to the bundles that gets them. */

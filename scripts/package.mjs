@@ -19,7 +19,7 @@ for (const item of ['package.json', 'LICENSE', 'CHANGELOG.md', 'language-configu
   cpSync(path.join(root, item), path.join(stage, item), { recursive: true });
 }
 cpSync(path.join(root, 'client', 'README.md'), path.join(stage, 'README.md'));
-await buildBundles({ outdir: path.join(stage, 'dist'), production: true, only: ['server', 'client', 'webview'] });
+await buildBundles({ outdir: path.join(stage, 'dist'), production: true, only: ['server', 'worker', 'client', 'webview'] });
 const vsce = path.join(root, 'node_modules', '.bin', 'vsce');
 execFileSync(vsce, ['package', '--no-dependencies', '--out', out], { cwd: stage, stdio: ['ignore', 'inherit', 'inherit'] });
 const bytes = statSync(out).size;

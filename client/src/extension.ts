@@ -1,12 +1,13 @@
 /**
  * The VS Code extension: starts the Tessera language server, shows the largest fragment's qubit
- * count in the status bar, and opens the resource report, the structure view and the cost plots
- * beside the editor. No analysis here: every figure comes from the language server.
+ * count in the status bar, and opens the resource report, the structure view, the cost plots and
+ * the orbital levels of computed parts beside the editor. No analysis here: every figure comes
+ * from the language server.
  */
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
-import { makeNonce } from './views/html';
-import { CostsPanel, StructurePanel, type ViewHost } from './views/panels';
+import { makeNonce, reportPageHtml } from './views/html';
+import { CostsPanel, LevelsPanel, StructurePanel, type ViewHost } from './views/panels';
 
 let client: LanguageClient | undefined;
 let statusItem: vscode.StatusBarItem | undefined;
@@ -14,6 +15,7 @@ let reportPanel: vscode.WebviewPanel | undefined;
 let reportUri: string | undefined;
 let structurePanel: StructurePanel | undefined;
 let costsPanel: CostsPanel | undefined;
+let levelsPanel: LevelsPanel | undefined;
 
 interface Summary {
   largestQubits: number | null;
@@ -29,6 +31,8 @@ function settingsSnapshot(): Record<string, unknown> {
     qubitLimit: config.get('qubitLimit'),
     inlayHints: { enabled: config.get('inlayHints.enabled') },
     codeLens: { enabled: config.get('codeLens.enabled') },
+    meanField: { autoFunctionLimit: config.get('meanField.autoFunctionLimit') },
+    jobs: { workers: config.get('jobs.workers'), memoryLimit: config.get('jobs.memoryLimit') },
   };
 }
 
@@ -60,22 +64,6 @@ async function refreshStatus(): Promise<void> {
   }
 }
 
-function webviewHtml(webview: vscode.Webview, body: string): string {
-  const nonce = makeNonce();
-  return `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src ${webview.cspSource} 'nonce-${nonce}'; img-src ${webview.cspSource} data:;">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<style nonce="${nonce}">
-body { font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); color: var(--vscode-foreground); padding: 0 1.5em; }
-table { border-collapse: collapse; margin: 0.5em 0 1.2em; }
-th, td { border: 1px solid var(--vscode-panel-border, #8884); padding: 0.2em 0.6em; }
-td { font-variant-numeric: tabular-nums; }
-blockquote { border-left: 3px solid var(--vscode-textLink-foreground); margin: 0.5em 0; padding-left: 0.8em; }
-code { font-family: var(--vscode-editor-font-family); }
-</style></head><body>${body}</body></html>`;
-}
-
 /** The active spec, or else the one a view last showed (when the view itself has the focus). */
 function specForView(lastUri: string | undefined): vscode.TextDocument | undefined {
   return activeSpec() ?? (lastUri ? vscode.workspace.textDocuments.find((d) => d.uri.toString() === lastUri) : undefined);
@@ -99,6 +87,21 @@ function showCosts(): void {
   costsPanel.show(document);
 }
 
+/**
+ * The orbital-level view; from a code lens with the spec's URI and the part (`system` or a
+ * fragment's index), from the palette for the active spec.
+ */
+function showLevels(uri?: unknown, part?: unknown): void {
+  const fromLens = typeof uri === 'string' ? vscode.workspace.textDocuments.find((d) => d.uri.toString() === uri) : undefined;
+  const document = fromLens ?? specForView(levelsPanel?.visibleUri);
+  if (!document || !levelsPanel) {
+    void vscode.window.showInformationMessage('Tessera: open a .tess spec to see its orbital levels.');
+    return;
+  }
+  const id = part === 'system' || (Number.isInteger(part) && (part as number) >= 0) ? (part as 'system' | number) : null;
+  levelsPanel.showPart(document, id);
+}
+
 /** Shows the report; `reveal` false only refreshes an open one, leaving its group's tabs alone. */
 async function showReport(reveal = true): Promise<void> {
   const document = activeSpec() ?? (reportUri ? vscode.workspace.textDocuments.find((d) => d.uri.toString() === reportUri) : undefined);
@@ -117,7 +120,7 @@ async function showReport(reveal = true): Promise<void> {
     });
   }
   reportPanel.title = `Report: ${document.uri.path.split('/').pop() ?? 'spec'}`;
-  reportPanel.webview.html = webviewHtml(reportPanel.webview, html);
+  reportPanel.webview.html = reportPageHtml(reportPanel.webview.cspSource, makeNonce(), html);
   if (reveal) reportPanel.reveal(vscode.ViewColumn.Beside, true);
 }
 
@@ -141,7 +144,8 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   };
   structurePanel = new StructurePanel(viewHost);
   costsPanel = new CostsPanel(viewHost);
-  const panels = [structurePanel, costsPanel];
+  levelsPanel = new LevelsPanel(viewHost);
+  const panels = [structurePanel, costsPanel, levelsPanel];
 
   statusItem = vscode.window.createStatusBarItem('tessera.qubits', vscode.StatusBarAlignment.Right, 100);
   statusItem.name = 'Tessera qubits';
@@ -152,6 +156,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     vscode.commands.registerCommand('tessera.showReport', () => showReport()),
     vscode.commands.registerCommand('tessera.showStructure', showStructure),
     vscode.commands.registerCommand('tessera.showCosts', showCosts),
+    vscode.commands.registerCommand('tessera.showLevels', showLevels),
     vscode.commands.registerCommand('tessera.restartServer', async () => {
       await client?.restart();
       await refreshStatus();
@@ -176,7 +181,11 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     }),
   );
   await client.start();
-  context.subscriptions.push(client.onNotification('tessera/settingsChanged', () => void refreshStatus()));
+  context.subscriptions.push(
+    client.onNotification('tessera/settingsChanged', () => void refreshStatus()),
+    // A computed result arrived (or a job was cancelled or failed): the level view shows it.
+    client.onNotification('tessera/computedChanged', () => levelsPanel?.computedChanged()),
+  );
   await refreshStatus();
 }
 

@@ -75,11 +75,12 @@ def real_harmonics(lmax, theta, phi):
     return out
 
 
-def projection_block(basis, atoms, ecp_atom, p, q, radial_points=1200, polar=128, azimuthal=256):
-    """Cartesian block <p|U_ECP(ecp_atom)|q> (unit-norm components) by product quadrature."""
+def projection_block(basis, atoms, ecp_atom, p, q, radial_points=1200, polar=128, azimuthal=256, extra_channels=()):
+    """Cartesian block <p|U_ECP(ecp_atom)|q> (unit-norm components) by product quadrature;
+    `extra_channels` ([l, powers, exponents, coefficients]) are added to the element's potential."""
     shells = molecule_shells(basis, atoms)
     centre = np.array(atoms[ecp_atom][1:], dtype=float)
-    channels = load_element(basis, atoms[ecp_atom][0])["ecp"]["channels"]
+    channels = load_element(basis, atoms[ecp_atom][0])["ecp"]["channels"] + [list(channel) for channel in extra_channels]
     zeta_min = min(min(channel[2]) for channel in channels)
     r_max = math.sqrt(80.0 / zeta_min)
     xg, wg = leggauss(20)

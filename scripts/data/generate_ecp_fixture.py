@@ -170,13 +170,21 @@ def integral_cases():
     ]
 
 
+# Semi-local channels beyond def2 (projectors f and g, powers r^-2, r^-1, r^0), invented, added to
+# iodine's potential to check what def2 data never exercises.
+EXTRA_CHANNELS = [[3, [2, 1], [2.5, 1.2], [4.0, -1.5]], [4, [0, 2], [3.0, 1.7], [2.0, 0.8]]]
+
+
 def independent_cases():
-    """(name, atoms, basis, ECP atom, [(method, p, q)] or "all"): cartesian blocks."""
+    """(name, atoms, basis, ECP atom, [(method, p, q)] or "all", extra channels): cartesian blocks."""
     return [
         ("iodine monofluoride, off the origin", tilted(IF, OFF), "def2-qzvp", 0,
-         [("projection", 37, 37), ("projection", 37, 34), ("projection", 38, 31), ("projection", 38, 35)]),
-        ("xenon difluoride, off the origin", tilted(XEF2, OFF), "def2-svp", 0, [("s-shell", 16, 16), ("s-shell", 22, 22)]),
-        ("gold hydride, off the origin", tilted(AUH, OFF), "def2-svp", 0, "all"),
+         [("projection", 37, 37), ("projection", 37, 34), ("projection", 38, 31), ("projection", 38, 35)], []),
+        ("xenon difluoride, off the origin", tilted(XEF2, OFF), "def2-svp", 0, [("s-shell", 16, 16), ("s-shell", 22, 22)], []),
+        ("gold hydride, off the origin", tilted(AUH, OFF), "def2-svp", 0, "all", []),
+        ("hydrogen iodide with f and g channels added, off the origin", tilted(HI, OFF), "def2-svp", 0,
+         [("projection", p, q) for p, q in [(0, 0), (4, 0), (8, 8), (8, 4), (10, 0), (10, 8), (12, 8), (12, 12), (11, 9), (12, 4)]],
+         EXTRA_CHANNELS),
     ]
 
 
@@ -251,7 +259,7 @@ def write_independent(path):
                 for block in case["blocks"]:
                     previous[(case["name"], case["basis"], json.dumps(case["geometry"]), tuple(block["shells"]), block["method"])] = block["values"]
     entries = []
-    for name, atoms, basis, ecp_atom, blocks in independent_cases():
+    for name, atoms, basis, ecp_atom, blocks, extra in independent_cases():
         if blocks == "all":
             count = len(ecp_reference.molecule_shells(basis, atoms))
             blocks = [("projection", p, q) for p in range(count) for q in range(p + 1)]
@@ -261,12 +269,15 @@ def write_independent(path):
             if key in previous:
                 block = previous[key]
             elif method == "projection":
-                block = ecp_reference.projection_block(basis, atoms, ecp_atom, p, q, **PROJECTION_GRID)
+                block = ecp_reference.projection_block(basis, atoms, ecp_atom, p, q, extra_channels=extra, **PROJECTION_GRID)
             else:
                 assert p == q
                 block = ecp_reference.s_shell_diagonal(basis, atoms, ecp_atom, p)
             values.append({"shells": [p, q], "method": method, "values": block})
-        entries.append({"name": name, "basis": basis, "kind": "cartesian", "ecpAtom": ecp_atom, "geometry": geometry(atoms), "blocks": values})
+        entry = {"name": name, "basis": basis, "kind": "cartesian", "ecpAtom": ecp_atom, "geometry": geometry(atoms), "blocks": values}
+        if extra:
+            entry["extraChannels"] = extra
+        entries.append(entry)
         print("%-42s %-9s %d blocks" % (name, basis, len(values)), file=sys.stderr)
         fixture = {
             "origin": {

@@ -1,10 +1,9 @@
 /** The `tessera` command line: exit codes, output formats, the JSON shape, unreadable files. */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../server/src/cli/main';
+import { tempFiles } from '../support/tempFolders';
 
 const root = path.resolve(__dirname, '..', '..');
 
@@ -15,10 +14,9 @@ async function run(args: string[], cwd = root): Promise<{ code: number; stdout: 
   return { code, stdout, stderr };
 }
 
+/** A temporary folder with these files, removed after the test (tests/support/tempFolders.ts). */
 function scratch(files: Record<string, string>): string {
-  const folder = mkdtempSync(path.join(tmpdir(), 'tessera-cli-'));
-  for (const [name, text] of Object.entries(files)) writeFileSync(path.join(folder, name), text);
-  return folder;
+  return tempFiles(files, 'tessera-cli-');
 }
 
 // Water, experimental geometry (Hoy & Bunker 1979: r(OH) 0.9572 Å, HOH 104.52°), placed as in tests/fixtures/water.ts.

@@ -1,8 +1,8 @@
 /** Runs the command line in-process and lists the samples, for the CLI and report tests. */
-import { mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readdirSync } from 'node:fs';
 import * as path from 'node:path';
 import { runCli } from '../../server/src/cli/main';
+import { tempFiles } from '../support/tempFolders';
 
 export const root = path.resolve(__dirname, '..', '..');
 
@@ -19,11 +19,9 @@ export async function run(args: string[], cwd = root): Promise<RunResult> {
   return { code, stdout, stderr };
 }
 
-/** A fresh folder holding the given files. */
+/** A fresh folder holding the given files, removed after the test (tests/support/tempFolders.ts). */
 export function scratch(files: Record<string, string>): string {
-  const folder = mkdtempSync(path.join(tmpdir(), 'tessera-cli-'));
-  for (const [name, text] of Object.entries(files)) writeFileSync(path.join(folder, name), text);
-  return folder;
+  return tempFiles(files, 'tessera-cli-');
 }
 
 /** Every sample spec, relative to the repository root, sorted. */

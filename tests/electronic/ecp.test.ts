@@ -52,6 +52,8 @@ interface IndependentCase {
   ecpAtom: number;
   geometry: Atom[];
   blocks: { shells: [number, number]; method: string; values: number[][] }[];
+  /** Channels [l, powers, exponents, coefficients] added to the ECP atom's potential (beyond def2). */
+  extraChannels?: [number, number[], number[], number[]][];
 }
 
 const FIXTURES = join(__dirname, '..', 'fixtures');
@@ -206,9 +208,31 @@ describe('ECP blocks against independent quadrature (tests/fixtures/ecp-integral
     expect(INDEPENDENT.some((c) => c.geometry.some((atom) => atom.symbol === 'Au') && c.blocks.length === 120)).toBe(true);
   });
 
+  it('include semi-local f and g projectors and powers r^-2, r^-1 that def2 data never has', () => {
+    const extra = INDEPENDENT.flatMap((c) => c.extraChannels ?? []);
+    expect(extra.map((channel) => channel[0]).sort()).toEqual([3, 4]); // fixture: EXTRA_CHANNELS of the generator
+    expect(new Set(extra.flatMap((channel) => channel[1]))).toEqual(new Set([0, 1, 2])); // fixture
+  });
+
   describe.each(INDEPENDENT.map((c) => [`${c.name}, ${c.basis}`, c] as const))('%s', (_title, c) => {
     it('agrees to 1e-10 in every listed cartesian block', () => {
-      const basis = basisOf(c.geometry, c.basis, 'cartesian');
+      const plain = basisOf(c.geometry, c.basis, 'cartesian');
+      const basis: MolecularBasis = !c.extraChannels
+        ? plain
+        : {
+            ...plain,
+            ecps: plain.ecps.map((ecp) =>
+              ecp.center !== c.ecpAtom
+                ? ecp
+                : {
+                    ...ecp,
+                    channels: [
+                      ...ecp.channels,
+                      ...c.extraChannels!.map(([l, powers, exponents, coefficients]) => ({ l, powers: Int32Array.from(powers), exponents: Float64Array.from(exponents), coefficients: Float64Array.from(coefficients) })),
+                    ],
+                  },
+            ),
+          };
       const engine = new EcpIntegrals(basis);
       let worst = 0;
       let where = '';

@@ -4,7 +4,7 @@
  * and the planning-estimate note.
  */
 import { describe, expect, it } from 'vitest';
-import { contentSecurityPolicy, makeNonce, viewPage, type ViewKind } from '../../client/src/views/html';
+import { contentSecurityPolicy, makeNonce, reportPageHtml, viewPage, type ViewKind } from '../../client/src/views/html';
 
 const CSP_SOURCE = 'https://file+.vscode-resource.vscode-cdn.net';
 const NONCE = 'bm9uY2UtZm9yLXRoZS10ZXN0';
@@ -34,6 +34,19 @@ describe('the content-security policy', () => {
     expect(policy.get('style-src')).toEqual([CSP_SOURCE, `'nonce-${NONCE}'`]);
     expect(policy.get('img-src')).toEqual([CSP_SOURCE, 'data:', 'blob:']);
     expect([...policy.keys()].sort()).toEqual(['default-src', 'img-src', 'script-src', 'style-src']);
+  });
+});
+
+describe('the report panel', () => {
+  it('runs no script at all: nothing by default, styles by nonce, images from the extension', () => {
+    const html = reportPageHtml(CSP_SOURCE, NONCE, '<h1>Report</h1>');
+    const policy = policyOf(html);
+    expect(policy.get('default-src')).toEqual(["'none'"]);
+    expect(policy.get('script-src')).toBeUndefined();
+    expect(policy.get('style-src')).toEqual([CSP_SOURCE, `'nonce-${NONCE}'`]);
+    expect(policy.get('img-src')).toEqual([CSP_SOURCE, 'data:']);
+    expect(html).not.toMatch(/<script/i);
+    expect(html).toContain('<h1>Report</h1>');
   });
 });
 

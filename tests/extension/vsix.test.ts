@@ -57,7 +57,9 @@ describe('the .vsix package', () => {
         'extension/changelog.md',
         'extension/dist/client/extension.js',
         'extension/dist/server.js',
+        'extension/dist/worker.js',
         'extension/dist/webview/costs.js',
+        'extension/dist/webview/levels.js',
         'extension/dist/webview/structure.js',
         'extension/dist/webview/third-party-notices.txt',
         'extension/grammar/tessera.tmLanguage.json',
@@ -87,9 +89,18 @@ describe('the .vsix package', () => {
     for (const grammar of packaged.contributes.grammars) expect(has(grammar.path)).toBe(true);
     for (const snippet of packaged.contributes.snippets) expect(has(snippet.path)).toBe(true);
     const commands = packaged.contributes.commands.map((c: { command: string }) => c.command);
-    expect(commands).toEqual(expect.arrayContaining(['tessera.showReport', 'tessera.showStructure', 'tessera.showCosts', 'tessera.restartServer']));
+    expect(commands).toEqual(expect.arrayContaining(['tessera.showReport', 'tessera.showStructure', 'tessera.showCosts', 'tessera.showLevels', 'tessera.restartServer']));
     expect(Object.keys(packaged.contributes.configuration.properties)).toEqual(
-      expect.arrayContaining(['tessera.defaultMapping', 'tessera.qubitLimit', 'tessera.inlayHints.enabled', 'tessera.codeLens.enabled', 'tessera.trace.server']),
+      expect.arrayContaining([
+        'tessera.defaultMapping',
+        'tessera.qubitLimit',
+        'tessera.inlayHints.enabled',
+        'tessera.codeLens.enabled',
+        'tessera.meanField.autoFunctionLimit',
+        'tessera.jobs.workers',
+        'tessera.jobs.memoryLimit',
+        'tessera.trace.server',
+      ]),
     );
     const xml = files.get('extension.vsixmanifest')!.toString('utf8');
     expect(xml).toContain(`Version="${manifest.version}"`);
@@ -106,11 +117,16 @@ describe('the .vsix package', () => {
     // The extension holds no analysis: the parser (chevrotain) and the basis-set data stay in the server.
     expect(server).toMatch(/chevrotain/i);
     expect(server).toMatch(/def2-svp/i);
-    for (const bundle of ['extension/dist/client/extension.js', 'extension/dist/webview/structure.js', 'extension/dist/webview/costs.js']) {
+    // The worker runs the engine and nothing of the language: it is started by the server, not the client.
+    const worker = files.get('extension/dist/worker.js')!.toString('utf8');
+    expect(worker).not.toMatch(/chevrotain/i);
+    expect(worker).not.toMatch(/require\(["']vscode/);
+    expect(server).toMatch(/worker\.js/);
+    for (const bundle of ['extension/dist/client/extension.js', 'extension/dist/webview/structure.js', 'extension/dist/webview/costs.js', 'extension/dist/webview/levels.js']) {
       expect(files.get(bundle)!.toString('utf8')).not.toMatch(/chevrotain|def2-svp/i);
     }
     // The webview scripts are self-contained browser bundles, and the viewer's licence ships with them.
-    for (const view of ['structure', 'costs']) expect(files.get(`extension/dist/webview/${view}.js`)!.toString('utf8')).not.toMatch(/\brequire\(["']/);
+    for (const view of ['structure', 'costs', 'levels']) expect(files.get(`extension/dist/webview/${view}.js`)!.toString('utf8')).not.toMatch(/\brequire\(["']/);
     const notices = files.get('extension/dist/webview/third-party-notices.txt')!.toString('utf8');
     expect(notices).toContain('3dmol');
     expect(notices).toContain('University of Pittsburgh');

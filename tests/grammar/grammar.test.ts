@@ -1,9 +1,9 @@
 /** The TextMate grammar against its scope assertions, with vscode-tmgrammar-test (npm). */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { tempFolder } from '../support/tempFolders';
 
 const root = path.resolve(__dirname, '..', '..');
 const grammar = path.join(root, 'grammar', 'tessera.tmLanguage.json');
@@ -23,7 +23,7 @@ describe('TextMate grammar', () => {
 
   it('fails on a wrong assertion, so the assertions are really checked', () => {
     const wrong = readFileSync(path.join(root, 'tests', 'grammar', 'spec.test.tess'), 'utf8').replace('#         ^^^^^^^^^ constant.language.tessera', '#         ^^^^^^^^^ keyword.control.tessera');
-    const file = path.join(mkdtempSync(path.join(tmpdir(), 'tessera-grammar-')), 'wrong.test.tess');
+    const file = path.join(tempFolder('tessera-grammar-'), 'wrong.test.tess');
     writeFileSync(file, wrong);
     const result = runCases([file]);
     expect(result.status).not.toBe(0);

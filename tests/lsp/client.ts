@@ -20,6 +20,8 @@ export interface TestClient {
   readonly process: ChildProcess;
   /** Resolves with the next diagnostics published for a URI (optionally for a given version). */
   diagnostics(uri: string, version?: number): Promise<Diagnostic[]>;
+  /** Resolves with the next diagnostics published for a URI that satisfy `wanted` (skipping others, such as a publish already on its way). */
+  diagnosticsWhere(uri: string, wanted: (diagnostics: Diagnostic[]) => boolean): Promise<Diagnostic[]>;
   open(uri: string, text: string, version?: number): void;
   change(uri: string, version: number, changes: unknown[]): void;
   request<R>(method: string, params: unknown): Promise<R>;
@@ -28,18 +30,18 @@ export interface TestClient {
   readonly serverRequests: string[];
 }
 
-export async function startServer(options: { settings?: Record<string, unknown>; capabilities?: Record<string, unknown> } = {}): Promise<TestClient> {
-  const child = spawn(process.execPath, [path.join(ROOT, 'dist', 'server.js'), '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
+export async function startServer(options: { settings?: Record<string, unknown>; capabilities?: Record<string, unknown>; nodeArgs?: readonly string[] } = {}): Promise<TestClient> {
+  const child = spawn(process.execPath, [...(options.nodeArgs ?? []), path.join(ROOT, 'dist', 'server.js'), '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
   const connection = createMessageConnection(new StreamMessageReader(child.stdout!), new StreamMessageWriter(child.stdin!));
   const published = new Map<string, PublishDiagnosticsParams[]>();
-  const waiters: { uri: string; version?: number; resolve: (d: Diagnostic[]) => void }[] = [];
+  const waiters: { uri: string; version?: number; wanted?: (d: Diagnostic[]) => boolean; resolve: (d: Diagnostic[]) => void }[] = [];
   const serverRequests: string[] = [];
   connection.onNotification('textDocument/publishDiagnostics', (params: PublishDiagnosticsParams) => {
     const list = published.get(params.uri) ?? [];
     list.push(params);
     published.set(params.uri, list);
     for (const waiter of [...waiters]) {
-      if (waiter.uri === params.uri && (waiter.version === undefined || waiter.version === params.version)) {
+      if (waiter.uri === params.uri && (waiter.version === undefined || waiter.version === params.version) && (!waiter.wanted || waiter.wanted(params.diagnostics))) {
         waiters.splice(waiters.indexOf(waiter), 1);
         waiter.resolve(params.diagnostics);
       }
@@ -71,6 +73,9 @@ export async function startServer(options: { settings?: Record<string, unknown>;
     serverRequests,
     diagnostics(uri, version) {
       return new Promise((resolve) => waiters.push({ uri, ...(version !== undefined ? { version } : {}), resolve }));
+    },
+    diagnosticsWhere(uri, wanted) {
+      return new Promise((resolve) => waiters.push({ uri, wanted, resolve }));
     },
     open(uri, text, version = 1) {
       void connection.sendNotification('textDocument/didOpen', { textDocument: { uri, languageId: 'tessera', version, text } });

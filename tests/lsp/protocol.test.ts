@@ -1,10 +1,10 @@
 /** Protocol tests: the bundled server, started as a child process, driven over stdio like an editor. */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import * as path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CodeAction, CompletionList, DocumentSymbol, Hover, MarkupContent, TextEdit, WorkspaceEdit } from 'vscode-languageserver-types';
+import { tempFolder } from '../support/tempFolders';
 import { ROOT, startServer, type TestClient } from './client';
 
 const demoPath = path.join(ROOT, 'samples', 'zn-site-h2s-scan.tess');
@@ -158,8 +158,40 @@ describe('language server over stdio', () => {
     expect(report.markdown).toContain('# Resource report: zn-site-h2s-approach');
   });
 
+  it('answers the status-bar summary: the largest quantum fragment, the errors and the limit', async () => {
+    // The demo's quantum fragment 'site' needs 18 qubits after tapering in the stabiliser of its
+    // atoms (its code lens above); the spec sets `limits { qubits 24 }` and has no errors.
+    const summary = await client.request<{ largestQubits: number | null; fragment: string | null; errors: number; limit: number | null }>('tessera/summary', { uri: demoUri });
+    expect(summary).toEqual({ largestQubits: 18, fragment: 'site', errors: 0, limit: 24 });
+    const mistakes = await client.request<{ errors: number }>('tessera/summary', { uri: mistakesUri });
+    const published = (await client.request<unknown>('tessera/summary', { uri: 'untitled:not-open.tess' })) as null;
+    expect(mistakes.errors).toBeGreaterThan(5);
+    expect(published).toBeNull();
+  });
+
+  it('sends semantic tokens as a small delta after a one-line edit', async () => {
+    const uri = 'untitled:tokens.tess';
+    const text = demoText;
+    const opened = client.diagnostics(uri);
+    client.open(uri, text);
+    await opened;
+    const full = await client.request<{ resultId: string; data: number[] }>('textDocument/semanticTokens/full', { textDocument: { uri } });
+    expect(full.resultId).toBeTruthy();
+    const at = positionOf(text, 'embedding dmet', 0, 'embedding dmet'.length);
+    const changed = client.diagnostics(uri, 2);
+    client.change(uri, 2, [{ range: { start: at, end: at }, text: '  # a note' }]);
+    await changed;
+    const delta = await client.request<{ resultId: string; edits: { start: number; deleteCount: number; data: number[] }[] }>('textDocument/semanticTokens/full/delta', { textDocument: { uri }, previousResultId: full.resultId });
+    expect(delta.edits.length).toBe(1);
+    expect(delta.edits[0]!.data.length).toBeLessThanOrEqual(15);
+    const next = [...full.data];
+    next.splice(delta.edits[0]!.start, delta.edits[0]!.deleteCount, ...delta.edits[0]!.data);
+    const fresh = await client.request<{ data: number[] }>('textDocument/semanticTokens/full', { textDocument: { uri } });
+    expect(next).toEqual(fresh.data);
+  });
+
   it('re-checks a spec when its included XYZ file changes', async () => {
-    const folder = mkdtempSync(path.join(tmpdir(), 'tessera-lsp-'));
+    const folder = tempFolder('tessera-lsp-');
     const xyz = path.join(folder, 'mol.xyz');
     writeFileSync(xyz, '2\nH2\nH 0 0 0\nH 0 0 0.74\n');
     const specUri = pathToFileURL(path.join(folder, 'mol.tess')).toString();
@@ -167,7 +199,9 @@ describe('language server over stdio', () => {
     client.open(specUri, 'basis sto-3g\nstructure from "mol.xyz"\n');
     expect(await pending).toEqual([]);
     writeFileSync(xyz, '2\nH2\nH 0 0 0\nH 0 0 0.1\n');
-    const after = client.diagnostics(specUri);
+    // A publish of the old state may still be on its way (a settings change re-publishes every
+    // spec): wait for the one that has read the new file.
+    const after = client.diagnosticsWhere(specUri, (diagnostics) => diagnostics.length > 0);
     await client.connection.sendNotification('workspace/didChangeWatchedFiles', { changes: [{ uri: pathToFileURL(xyz).toString(), type: 2 }] });
     expect((await after).map((d) => d.code)).toContain('atoms-too-close');
   });

@@ -129,3 +129,15 @@ describe('carriage returns alone end lines', () => {
   });
 });
 
+
+describe('an included file held by the editor', () => {
+  it('beyond 8 MiB is refused like one on disk', () => {
+    const files = {
+      readFile: () => ({ ok: true as const, text: `3\nbig\n${'# padding\n'.repeat(900_000)}` }),
+      realPath: (file: string) => file,
+    };
+    const analysis = analyze('basis sto-3g\nstructure from "big.xyz"\n', { path: '/work/specs/s.tess', files });
+    const unreadable = analysis.diagnostics.find((d) => d.code === 'include-unreadable')!;
+    expect(unreadable.message).toContain('it has 9,000,006 characters; Tessera reads files of at most 8.00 MiB');
+  });
+});

@@ -1,11 +1,12 @@
 /**
  * The HTML page of each webview: a strict content-security policy with a fresh nonce, the page's
- * skeleton and styles, and one script from the extension's own folder. The extension and the
+ * skeleton and styles, and (for the structure and cost views) one script from the extension's own
+ * folder; the report panel's page is here too. The extension and the
  * headless-browser test use this same function; the script fills the page from messages.
  */
 import { randomBytes } from 'node:crypto';
 
-export type ViewKind = 'structure' | 'costs';
+export type ViewKind = 'structure' | 'costs' | 'levels';
 
 export interface ViewPageOptions {
   kind: ViewKind;
@@ -35,6 +36,25 @@ export function contentSecurityPolicy(cspSource: string, nonce: string): string 
     `style-src ${cspSource} 'nonce-${nonce}'`,
     `img-src ${cspSource} data: blob:`,
   ].join('; ');
+}
+
+/**
+ * The report panel: Markdown already rendered to HTML by the extension, no script at all; styles
+ * only from its nonce'd block, images from the extension's folder and data: URLs.
+ */
+export function reportPageHtml(cspSource: string, nonce: string, body: string): string {
+  return `<!DOCTYPE html>
+<html lang="en"><head><meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src ${cspSource} 'nonce-${nonce}'; img-src ${cspSource} data:;">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<style nonce="${nonce}">
+body { font-family: var(--vscode-font-family); font-size: var(--vscode-font-size); color: var(--vscode-foreground); padding: 0 1.5em; }
+table { border-collapse: collapse; margin: 0.5em 0 1.2em; }
+th, td { border: 1px solid var(--vscode-panel-border, #8884); padding: 0.2em 0.6em; }
+td { font-variant-numeric: tabular-nums; }
+blockquote { border-left: 3px solid var(--vscode-textLink-foreground); margin: 0.5em 0; padding-left: 0.8em; }
+code { font-family: var(--vscode-editor-font-family); }
+</style></head><body>${body}</body></html>`;
 }
 
 function escapeHtml(text: string): string {
@@ -97,6 +117,25 @@ main { padding: 0.4em 0.9em 1.5em; display: grid; gap: 1em; grid-template-column
 .ts-figure svg { width: 100%; height: auto; display: block; }
 `;
 
+const LEVELS_STYLE = `
+main { padding: 0.6em 0.9em 1.5em; }
+#picture { max-width: 60em; border: 1px solid var(--ts-border); border-radius: 6px; overflow: hidden; background: #fff; line-height: 0; }
+#picture svg { width: 100%; height: auto; display: block; }
+`;
+
+const LEVELS_NOTE = 'Computed Hartree–Fock orbital energies of one part, not planning estimates.';
+
+function levelsBody(): string {
+  return `<header class="ts-head">
+  <h1 id="title">Orbital levels</h1>
+  <label for="part">Part</label> <select id="part"></select>
+  <button type="button" id="export" title="Save the picture as SVG">SVG</button>
+</header>
+<div class="ts-message" id="message" hidden></div>
+<main><div id="picture" role="img" aria-label="Orbital energy levels"></div></main>
+<p class="ts-note ts-status" id="note">${escapeHtml(LEVELS_NOTE)}</p>`;
+}
+
 function structureBody(): string {
   return `<header class="ts-head">
   <h1 id="title">Structure</h1>
@@ -141,8 +180,8 @@ function costsBody(): string {
 /** The whole page of a view. */
 export function viewPage(options: ViewPageOptions): string {
   const { kind, cspSource, scriptUri, nonce, title } = options;
-  const style = BASE_STYLE + (kind === 'structure' ? STRUCTURE_STYLE : COSTS_STYLE);
-  const body = kind === 'structure' ? structureBody() : costsBody();
+  const style = BASE_STYLE + (kind === 'structure' ? STRUCTURE_STYLE : kind === 'costs' ? COSTS_STYLE : LEVELS_STYLE);
+  const body = kind === 'structure' ? structureBody() : kind === 'costs' ? costsBody() : levelsBody();
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="${escapeHtml(contentSecurityPolicy(cspSource, nonce))}">

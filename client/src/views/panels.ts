@@ -1,7 +1,7 @@
 /**
- * The structure view and the cost panel on the extension side: webview panels beside the spec that
- * ask the language server for their data (`tessera/structure`, `tessera/costs`,
- * `tessera/viewTarget`), follow the spec as it is edited, and act on the views' messages once
+ * The structure view, the cost panel and the orbital-level view on the extension side: webview
+ * panels beside the spec that ask the language server for their data (`tessera/structure`,
+ * `tessera/costs`, `tessera/viewTarget`, `tessera/levels`), follow the spec as it is edited, and act on the views' messages once
  * they pass their checks (protocol.ts). No analysis here.
  */
 import * as vscode from 'vscode';
@@ -9,11 +9,16 @@ import { makeNonce, viewPage, type ViewKind } from './html';
 import {
   checkCosts,
   checkCostsViewMessage,
+  checkLevels,
+  checkLevelsViewMessage,
   checkStructure,
   checkStructureViewMessage,
   decodePngDataUrl,
   unavailableReason,
   type CostsHostMessage,
+  type LevelsHostMessage,
+  type PartId,
+  type ViewLevels,
   type PlotName,
   type StructureHostMessage,
   type ViewCosts,
@@ -309,6 +314,86 @@ export class CostsPanel extends SpecPanel<CostsHostMessage> {
   }
 
   protected unavailable(message: string): CostsHostMessage {
+    return { type: 'unavailable', message };
+  }
+}
+
+export class LevelsPanel extends SpecPanel<LevelsHostMessage> {
+  private data: ViewLevels | undefined;
+  private selected: PartId | null = null;
+
+  constructor(host: ViewHost) {
+    super(host, 'levels', 'tessera.levels', 'Orbital levels');
+  }
+
+  /** Opens the view on a spec, showing one part (from a code lens) or the first with a result. */
+  showPart(document: vscode.TextDocument, part: PartId | null): void {
+    if (part !== null) this.selected = part;
+    this.show(document);
+  }
+
+  /** A result arrived or a job moved on: ask again. */
+  computedChanged(): void {
+    if (this.panel) void this.refresh();
+  }
+
+  async refresh(): Promise<void> {
+    const answer = await this.ask<unknown>('tessera/levels', { part: this.selected });
+    if (!answer) return;
+    if (answer.result === null) {
+      this.data = undefined;
+      this.post(this.unavailable('The language server has no analysis of this spec; open it in an editor.'));
+      return;
+    }
+    const checked = checkLevels(answer.result);
+    if (!checked.ok) {
+      this.host.log(`[views] level data refused: ${checked.reason}`);
+      return;
+    }
+    this.data = checked.value;
+    this.selected = checked.value.selected;
+    this.post({ type: 'levels', title: this.title(), data: checked.value });
+  }
+
+  protected receive(raw: unknown): void {
+    const checked = checkLevelsViewMessage(raw, { parts: this.data?.parts.map((part) => part.id) ?? [] });
+    if (!checked.ok) return this.ignored(checked.reason);
+    const message = checked.value;
+    switch (message.type) {
+      case 'ready':
+        void this.refresh();
+        break;
+      case 'selectPart':
+        this.selected = message.part;
+        void this.refresh();
+        break;
+      case 'exportSvg':
+        if (this.data?.svg) void this.save(this.data.svg);
+        break;
+    }
+  }
+
+  private async save(svg: string): Promise<void> {
+    const uri = this.uri ? vscode.Uri.parse(this.uri) : undefined;
+    const stem = fileName(this.uri ?? 'spec').replace(/\.tess$/, '');
+    const part = this.selected === null ? 'levels' : this.selected === 'system' ? 'system-levels' : `fragment-${this.selected + 1}-levels`;
+    const folder = uri?.scheme === 'file' ? vscode.Uri.joinPath(uri, '..') : vscode.workspace.workspaceFolders?.[0]?.uri;
+    const target = await vscode.window.showSaveDialog({
+      ...(folder ? { defaultUri: vscode.Uri.joinPath(folder, `${stem}-${part}.svg`) } : {}),
+      filters: { 'SVG image': ['svg'] },
+      saveLabel: 'Export',
+      title: 'Export the orbital levels as SVG (computed)',
+    });
+    if (!target) return;
+    try {
+      await vscode.workspace.fs.writeFile(target, new TextEncoder().encode(svg));
+      void vscode.window.showInformationMessage(`Tessera: saved ${vscode.workspace.asRelativePath(target)}`);
+    } catch (error) {
+      void vscode.window.showErrorMessage(`Tessera: could not save ${target.fsPath}: ${(error as Error).message}`);
+    }
+  }
+
+  protected unavailable(message: string): LevelsHostMessage {
     return { type: 'unavailable', message };
   }
 }

@@ -1,5 +1,6 @@
 /**
- * The messages between the extension and its two webviews (structure view, cost panel), and the
+ * The messages between the extension and its webviews (structure view, cost panel, orbital
+ * levels), and the
  * checks each side runs on what it receives: type, shape and ranges. A message that fails a check
  * is dropped and logged, never acted on. Plain TypeScript with no editor or browser API, so the
  * extension, the webview scripts and the unit tests share it.
@@ -95,6 +96,26 @@ export type StructureViewMessage = { type: 'ready' } | { type: 'revealAtom'; ato
 
 /** Extension → cost panel. */
 export type CostsHostMessage = { type: 'costs'; title: string; data: ViewCosts } | { type: 'unavailable'; message: string };
+
+/** A part of a spec in the orbital-level view: `system` or a fragment's index. */
+export type PartId = 'system' | number;
+
+export interface ViewLevels {
+  spec: string | null;
+  /** The parts with a computed mean field (or one being computed), with their state. */
+  parts: { id: PartId; label: string; state: string }[];
+  selected: PartId | null;
+  /** The level picture (standalone SVG), or null with `message` saying why. */
+  svg: string | null;
+  message: string | null;
+  note: string;
+}
+
+/** Extension → orbital-level view. */
+export type LevelsHostMessage = { type: 'levels'; title: string; data: ViewLevels } | { type: 'unavailable'; message: string };
+
+/** Orbital-level view → extension. */
+export type LevelsViewMessage = { type: 'ready' } | { type: 'selectPart'; part: PartId } | { type: 'exportSvg' };
 
 /** Cost panel → extension. */
 export type CostsViewMessage =
@@ -208,6 +229,8 @@ const SVG_ATTRIBUTES = new Set([
   'fill', 'fill-opacity', 'opacity', 'stroke', 'stroke-width', 'stroke-dasharray', 'stroke-opacity',
   'font-family', 'font-size', 'font-weight', 'text-anchor', 'dominant-baseline',
 ]);
+/** data-* attributes carry what a drawing shows (an orbital's index, its irrep) for tests and tools. */
+const DATA_ATTRIBUTE = /^data-[a-z]+(?:-[a-z]+)*$/;
 const TAG = /<(\/?)([A-Za-z][A-Za-z0-9]*)((?:\s+[A-Za-z][A-Za-z0-9:-]*="[^"<>]*")*)\s*(\/?)>/y;
 const ATTRIBUTE = /\s+([A-Za-z][A-Za-z0-9:-]*)="([^"<>]*)"/g;
 const ENTITY = /&(?:amp|lt|gt|quot|apos|#\d{1,7}|#x[0-9a-fA-F]{1,6});/y;
@@ -230,7 +253,7 @@ export function checkSvg(svg: unknown): Checked<string> {
       const [whole, closing, name, attributes, selfClosing] = tag;
       if (!SVG_ELEMENTS.has(name!)) return fail(`element <${name}> not allowed in a chart`);
       for (const [, attribute, value] of attributes!.matchAll(ATTRIBUTE)) {
-        if (!SVG_ATTRIBUTES.has(attribute!)) return fail(`attribute '${attribute}' not allowed in a chart`);
+        if (!SVG_ATTRIBUTES.has(attribute!) && !DATA_ATTRIBUTE.test(attribute!)) return fail(`attribute '${attribute}' not allowed in a chart`);
         if (/url\s*\(|javascript:|data:/i.test(value!)) return fail(`attribute '${attribute}' refers to a resource`);
       }
       if (closing && (attributes || selfClosing)) return fail('malformed closing tag');
@@ -273,6 +296,27 @@ export function checkCosts(raw: unknown): Checked<ViewCosts> {
   return { ok: true, value: raw as unknown as ViewCosts };
 }
 
+function isPartId(value: unknown): value is PartId {
+  return value === 'system' || isIndex(value, MAX_FRAGMENTS);
+}
+
+export function checkLevels(raw: unknown): Checked<ViewLevels> {
+  if (!isRecord(raw) || !hasKeys(raw, ['spec', 'parts', 'selected', 'svg', 'message', 'note'])) return fail('level data has the wrong fields');
+  const { spec, parts, selected, svg, message, note } = raw;
+  if ((spec !== null && !isText(spec)) || !isText(note) || (message !== null && !isText(message, 4_000))) return fail('spec name, message or note is not text');
+  if (!Array.isArray(parts) || parts.length > MAX_FRAGMENTS + 1) return fail('part list malformed');
+  for (const part of parts) {
+    if (!isRecord(part) || !hasKeys(part, ['id', 'label', 'state']) || !isPartId(part['id']) || !isText(part['label'], 300) || !isText(part['state'], 40)) return fail('a part is malformed');
+  }
+  if (selected !== null && !isPartId(selected)) return fail('selected part malformed');
+  if (svg !== null) {
+    const chart = checkSvg(svg);
+    if (!chart.ok) return fail(`level picture: ${chart.reason}`);
+  }
+  if ((svg === null) === (message === null)) return fail('level data needs either a picture or a message');
+  return { ok: true, value: raw as unknown as ViewLevels };
+}
+
 // --- messages to the views (checked in the webview) -----------------------------------------
 
 export function checkStructureHostMessage(raw: unknown): Checked<StructureHostMessage> {
@@ -313,7 +357,42 @@ export function checkCostsHostMessage(raw: unknown): Checked<CostsHostMessage> {
   }
 }
 
+export function checkLevelsHostMessage(raw: unknown): Checked<LevelsHostMessage> {
+  const type = typeOf(raw);
+  const message = raw as Json;
+  switch (type) {
+    case 'levels': {
+      if (!hasKeys(message, ['type', 'title', 'data']) || !isText(message['title'])) return fail('levels message malformed');
+      const data = checkLevels(message['data']);
+      return data.ok ? { ok: true, value: { type, title: message['title'], data: data.value } } : data;
+    }
+    case 'unavailable':
+      return hasKeys(message, ['type', 'message']) && isText(message['message']) ? { ok: true, value: { type, message: message['message'] } } : fail('unavailable message malformed');
+    default:
+      return fail(`unknown message type '${String(type).slice(0, 40)}'`);
+  }
+}
+
 // --- messages from the views (checked in the extension) -------------------------------------
+
+export function checkLevelsViewMessage(raw: unknown, context: { parts: readonly PartId[] }): Checked<LevelsViewMessage> {
+  const type = typeOf(raw);
+  const message = raw as Json;
+  switch (type) {
+    case 'ready':
+      return hasKeys(message, ['type']) ? { ok: true, value: { type } } : fail('ready message malformed');
+    case 'exportSvg':
+      return hasKeys(message, ['type']) ? { ok: true, value: { type } } : fail('exportSvg message malformed');
+    case 'selectPart':
+      if (!hasKeys(message, ['type', 'part'])) return fail('selectPart message malformed');
+      return isPartId(message['part']) && context.parts.includes(message['part'])
+        ? { ok: true, value: { type, part: message['part'] } }
+        : fail(`part ${String(message['part']).slice(0, 20)} cannot be selected`);
+    default:
+      return fail(`unknown message type '${String(type).slice(0, 40)}'`);
+  }
+}
+
 
 /** What the extension knows of the structure the view shows, to check indices against. */
 export interface StructureContext {

@@ -28,6 +28,8 @@ import { assembleReport } from './figures/report';
 import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
+import { partComputation, type PartComputation } from './computed';
+import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
 export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkLimits];
@@ -53,6 +55,7 @@ export class DocumentAnalysis {
   private whole: EstimateReport | undefined;
   private readonly growths = new Map<string, GrowthPoint[]>();
   private moving: number[] | undefined;
+  private readonly computations = new Map<string, PartComputation>();
 
   constructor(analysis: Analysis, late: LateResults = new LateResults()) {
     this.text = analysis.text;
@@ -133,6 +136,20 @@ export class DocumentAnalysis {
       this.growths.set(key, points);
     }
     return points;
+  }
+
+  /**
+   * What computing a part (its mean field, MP2 after it) would ask for, or why it cannot be
+   * computed; the results themselves arrive later, in `late`, under the keys given here.
+   */
+  computation(part: PartRef): PartComputation {
+    const id = part.kind === 'system' ? 'system' : String(part.index);
+    let computation = this.computations.get(id);
+    if (!computation) {
+      computation = partComputation(this.model, part);
+      this.computations.set(id, computation);
+    }
+    return computation;
   }
 
   /** The atoms a scan moves: the second atom's fragment, or its bonded group without fragments. */

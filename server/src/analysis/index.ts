@@ -6,7 +6,27 @@
  */
 export { analyzeDocument, DocumentAnalysis, ESTIMATE_CHECKS, type AnalysisOptions } from './document';
 export { Estimates, SYMMETRY_ATOM_LIMIT } from './estimates';
-export { fragmentInputKey } from './inputKey';
+export { fragmentInputKey, inputKey, partAtoms, partInputs, partLabel, type PartAtom, type PartInputs, type PartRef } from './inputKey';
+export {
+  defaultReference,
+  MEAN_FIELD_KIND,
+  MP2_KIND,
+  partComputation,
+  prerequisites,
+  requestKey,
+  samePart,
+  specParts,
+  type ComputeRequest,
+  type MeanFieldOutcome,
+  type MeanFieldRequest,
+  type Mp2Request,
+  type Mp2Summary,
+  type OrbitalArrays,
+  type PartComputation,
+  type RequestOptions,
+  type ScfReference,
+} from './computed';
+export { computeCost, costText, DEFAULT_MEMORY_LIMIT_BYTES, formatDuration, formatMemory, type ComputeCost } from './computeCost';
 export { LateResults, type LateResult, type LateResultChange } from './late';
 export { CONVENTIONS, PLANNING_NOTE, SYSTEM_QUBITS_SCOPE } from './figures/types';
 export type { BigFigure, EstimateReport, FragmentFigures, PauliFigures, ScanTotals, SolverCostFigures, SpaceFigures, SystemFigures } from './figures/types';

@@ -10,6 +10,8 @@ export const EXIT_USAGE = 2;
  * could not finish); in a batch the other files were still checked.
  */
 export const EXIT_INTERNAL = 3;
+/** An interrupt (Ctrl+C) cancelled a computation before it finished (128 + SIGINT, as shells report it). */
+export const EXIT_INTERRUPTED = 130;
 
 /** One exit code for a run: the most serious of what happened (3, then 2, then 1, else 0). */
 export function exitCode(outcome: { internal?: boolean; usage?: boolean; errors?: boolean }): number {
@@ -22,6 +24,11 @@ export interface CliIo {
   stdout(text: string): void;
   stderr(text: string): void;
   cwd: string;
+  /**
+   * Calls `handler` on an interrupt (Ctrl+C) while a long computation runs; returns what removes
+   * it again. Only computations ask for it, so that an interrupt ends every other command as usual.
+   */
+  onInterrupt?(handler: () => void): () => void;
 }
 
 export class UsageError extends Error {}

@@ -1,7 +1,8 @@
 /**
- * The `tessera` command line. Exit codes: 0 no errors, 1 errors found in a spec or input,
- * 2 bad usage or a file that cannot be read or written, 3 Tessera itself failed (a bug) on some
- * file; in a batch every other file is still checked.
+ * The `tessera` command line. Exit codes: 0 no errors, 1 errors found in a spec or input (or a
+ * mean field that could not be computed or did not converge), 2 bad usage or a file that cannot
+ * be read or written, 3 Tessera itself failed (a bug) on some file, 130 an interrupt cancelled a
+ * computation; in a batch every other file is still checked.
  */
 import { escapeForTerminal } from '../language/printable';
 import { parseArgs } from 'node:util';
@@ -18,11 +19,21 @@ export const USAGE = `tessera ${VERSION}: plan fragment-based hybrid quantum-cla
 Usage:
   tessera check <file.tess>... [--format text|json]
       Check specs; prints file:line:col: severity code message.
-  tessera estimate <file.tess> [--format text|json|markdown]
+  tessera estimate <file.tess> [--format text|json|markdown] [--mean-field]
       Electrons, basis functions, orbitals and qubits for the system and each fragment.
   tessera estimate --xyz <file.xyz> --basis <name> [--charge N] [--multiplicity M]
                    [--functions spherical|cartesian] [--frozen-core] [--format text|json|markdown]
+                   [--mean-field]
       The same for a plain XYZ file (ångström), without a spec.
+      --mean-field also computes the Hartree–Fock mean field of the system and each fragment
+      (and MP2 after RHF and UHF; all electrons unless frozen core is on: a spec's default, or
+      --frozen-core with --xyz), in a worker thread, with a progress line on standard error
+      for long jobs; JSON: meanField { reference, energy, nuclearRepulsion, converged,
+      iterations, orbitalEnergies.alpha/beta, occupations, homo, lumo, gap, irreps, charges,
+      mp2.correlationEnergy, mp2.naturalOccupations, ... } under system and each fragment.
+        --reference rhf|uhf|rohf   default: a tier's method, else rhf for singlets, uhf otherwise
+        --max-iterations N         SCF iterations (default 100)
+        --memory-limit MiB         refuse parts whose estimated need exceeds it (default 2048)
   tessera export <file.tess> --to xyz|qcschema [--out <file>]
       The geometry for other programs; standard output unless --out. A spec with errors is not
       exported (exit 1, the diagnostics on standard error).
@@ -47,9 +58,11 @@ Options:
   -h, --help       this text
   -v, --version    the version
 
-Exit codes: 0 no errors; 1 errors found; 2 bad usage, or a file that cannot be read or
-written; 3 Tessera itself failed on a file (a bug; the other files of a batch are still checked).
-All figures are planning estimates, not results of a calculation.
+Exit codes: 0 no errors; 1 errors found, or a mean field refused, failed or not converged;
+2 bad usage, or a file that cannot be read or written; 3 Tessera itself failed on a file (a bug;
+the other files of a batch are still checked); 130 interrupted (Ctrl+C) during --mean-field.
+All figures are planning estimates, not results of a calculation, except the mean-field results,
+which are computed and say so.
 `;
 
 function formatOption<T extends string>(value: string | undefined, allowed: readonly T[], fallback: T): T {
@@ -97,6 +110,10 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           multiplicity: { type: 'string' },
           functions: { type: 'string' },
           'frozen-core': { type: 'boolean' },
+          'mean-field': { type: 'boolean' },
+          reference: { type: 'string' },
+          'max-iterations': { type: 'string' },
+          'memory-limit': { type: 'string' },
           help: { type: 'boolean', short: 'h' },
         },
       });
@@ -112,6 +129,12 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       const multiplicity = integerOption('multiplicity', values.multiplicity);
       if (multiplicity !== undefined && multiplicity < 1) throw new UsageError('--multiplicity is 2S+1, at least 1');
       const charge = integerOption('charge', values.charge);
+      const reference = values.reference;
+      if (reference !== undefined && reference !== 'rhf' && reference !== 'uhf' && reference !== 'rohf') throw new UsageError(`--reference must be rhf, uhf or rohf; got '${reference}'`);
+      const maxIterations = integerOption('max-iterations', values['max-iterations']);
+      if (maxIterations !== undefined && maxIterations < 1) throw new UsageError('--max-iterations must be at least 1');
+      const memoryLimit = integerOption('memory-limit', values['memory-limit']);
+      if (memoryLimit !== undefined && memoryLimit < 1) throw new UsageError('--memory-limit is in MiB, at least 1');
       return runEstimate(
         {
           ...(positionals[0] ? { spec: positionals[0] } : {}),
@@ -121,6 +144,10 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(multiplicity !== undefined ? { multiplicity } : {}),
           ...(functions ? { functions } : {}),
           frozenCore: values['frozen-core'] ?? false,
+          ...(values['mean-field'] ? { meanField: true } : {}),
+          ...(reference ? { reference } : {}),
+          ...(maxIterations !== undefined ? { maxIterations } : {}),
+          ...(memoryLimit !== undefined ? { memoryLimitMiB: memoryLimit } : {}),
           format: formatOption<EstimateFormat>(values.format, ['text', 'json', 'markdown'], 'text'),
         },
         io,
@@ -206,6 +233,15 @@ export function main(): void {
     stdout: (text) => process.stdout.write(text),
     stderr: (text) => process.stderr.write(text),
     cwd: process.cwd(),
+    onInterrupt: (handler) => {
+      // The first Ctrl+C cancels the computation (and prints what it was doing); a second one ends the process.
+      const once = () => {
+        process.removeListener('SIGINT', once);
+        handler();
+      };
+      process.on('SIGINT', once);
+      return () => process.removeListener('SIGINT', once);
+    },
   };
   void runCli(process.argv.slice(2), io).then((code) => {
     process.exitCode = code;

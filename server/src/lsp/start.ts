@@ -21,6 +21,7 @@ import { TextDocument } from 'vscode-languageserver-textdocument';
 import { MAPPINGS, type Mapping } from '../chemistry/qubits';
 import * as service from '../services';
 import { AnalysisHost, type AnalysisSettings } from '../analysis';
+import { DEFAULT_COMPUTE_SETTINGS, readComputeSettings, ServerComputations, type ComputeEditorSettings } from './computations';
 import { CoalescingScheduler, pathToUri, uriToPath } from './documents';
 import { FailureReporter } from './guard';
 import { openServerConnection } from './transport';
@@ -47,9 +48,13 @@ export interface EditorSettings {
   qubitLimit: number | null;
   inlayHints: boolean;
   codeLens: boolean;
+  compute: ComputeEditorSettings;
 }
 
-const DEFAULT_SETTINGS: EditorSettings = { defaultMapping: 'jordan-wigner', qubitLimit: null, inlayHints: true, codeLens: true };
+const DEFAULT_SETTINGS: EditorSettings = { defaultMapping: 'jordan-wigner', qubitLimit: null, inlayHints: true, codeLens: true, compute: DEFAULT_COMPUTE_SETTINGS };
+
+/** While jobs report progress, code lenses (which show it) are refreshed at most this often. */
+const PROGRESS_LENS_INTERVAL_MS = 1000;
 
 function readSettings(raw: unknown): EditorSettings {
   const section = (raw ?? {}) as Record<string, unknown>;
@@ -62,6 +67,7 @@ function readSettings(raw: unknown): EditorSettings {
     qubitLimit: typeof limit === 'number' && Number.isInteger(limit) && limit > 0 ? limit : null,
     inlayHints: typeof inlay === 'boolean' ? inlay : true,
     codeLens: typeof lens === 'boolean' ? lens : true,
+    compute: readComputeSettings(section),
   };
 }
 
@@ -87,6 +93,8 @@ export function startLanguageServer(connection: Connection = openServerConnectio
   process.on('unhandledRejection', (error) => failures.report('the language server', undefined, undefined, error));
 
   const analysisOf = (uri: string) => cache.get(uri);
+  // Long computations (mean field, MP2) run in worker threads; their results arrive in cache.late.
+  const computations = new ServerComputations(connection, cache, settings.compute, (what, error) => failures.report(what, undefined, undefined, error));
 
   /** Analyses the document's current version, whatever was scheduled, and sends its diagnostics. */
   const publish = (uri: string) => {
@@ -104,6 +112,9 @@ export function startLanguageServer(connection: Connection = openServerConnectio
       diagnostics = [failures.diagnosticFor(error)];
     }
     void connection.sendDiagnostics({ uri, version, diagnostics });
+    // What the version wants computed, after its diagnostics are on their way.
+    const analysed = cache.isCurrent(uri) ? cache.get(uri) : undefined;
+    if (analysed) setImmediate(() => computations.analysed(uri, analysed));
   };
   const documentOf = (params: unknown) => {
     const uri = (params as { textDocument?: { uri?: unknown }; uri?: unknown } | null)?.textDocument?.uri ?? (params as { uri?: unknown } | null)?.uri;
@@ -112,12 +123,28 @@ export function startLanguageServer(connection: Connection = openServerConnectio
   };
   const schedulePublish = (uri: string) => scheduler.schedule(uri, () => publish(uri), (documents.get(uri)?.getText().length ?? 0) / CHARACTERS_PER_MS);
 
-  // Results that arrive later change figures: diagnostics are sent again, and editors that can
-  // are asked to fetch hints and lenses again.
-  cache.late.onDidChange(() => {
+  // Results that arrive later change figures: diagnostics are sent again, editors that can are
+  // asked to fetch hints and lenses again, and the views are told. Progress of a running job
+  // (pending) only changes the lenses that show it, refreshed at most once a second.
+  let lastLensRefresh = 0;
+  let lensTimer: ReturnType<typeof setTimeout> | undefined;
+  const refreshLenses = () => {
+    lastLensRefresh = performance.now();
+    if (canRefreshLenses) void connection.sendRequest('workspace/codeLens/refresh').catch(() => undefined);
+  };
+  cache.late.onDidChange((change) => {
+    if (change.state === 'pending') {
+      if (lensTimer) return;
+      lensTimer = setTimeout(() => {
+        lensTimer = undefined;
+        refreshLenses();
+      }, Math.max(0, PROGRESS_LENS_INTERVAL_MS - (performance.now() - lastLensRefresh)));
+      return;
+    }
     for (const document of documents.all()) schedulePublish(document.uri);
     if (canRefreshHints) void connection.languages.inlayHint.refresh().catch(() => undefined);
-    if (canRefreshLenses) void connection.sendRequest('workspace/codeLens/refresh').catch(() => undefined);
+    refreshLenses();
+    void connection.sendNotification('tessera/computedChanged', { kind: change.kind, state: change.state });
   });
 
   const applySettings = (next: EditorSettings) => {
@@ -125,6 +152,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     settings = next;
     // Settings are sent again on every change of any setting; unchanged ones keep the analyses.
     if (unchanged) return;
+    computations.configure(next.compute);
     const analysisSettings: AnalysisSettings = { defaultMapping: next.defaultMapping, ...(next.qubitLimit ? { defaultQubitLimit: next.qubitLimit } : {}) };
     cache.configure(analysisSettings);
     for (const document of documents.all()) schedulePublish(document.uri);
@@ -148,6 +176,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     canRefreshLenses = capabilities.workspace?.codeLens?.refreshSupport === true;
     const initial = (params.initializationOptions as { settings?: unknown } | undefined)?.settings;
     if (initial) settings = readSettings(initial);
+    computations.configure(settings.compute);
     cache.configure({ defaultMapping: settings.defaultMapping, ...(settings.qubitLimit ? { defaultQubitLimit: settings.qubitLimit } : {}) });
     return {
       capabilities: {
@@ -168,6 +197,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
         codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] },
         inlayHintProvider: true,
         codeLensProvider: { resolveProvider: false },
+        executeCommandProvider: { commands: [service.COMPUTE_COMMAND, service.STOP_COMMAND] },
       },
       serverInfo: { name: 'tessera', version: typeof TESSERA_VERSION === 'string' ? TESSERA_VERSION : '0.0.0-dev' },
     };
@@ -216,6 +246,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     scheduler.forget(event.document.uri);
     sentTokens.delete(event.document.uri);
     cache.remove(event.document.uri);
+    computations.closed(event.document.uri);
     void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
   });
 
@@ -225,7 +256,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
       return analysis ? handler(analysis, params) : empty;
     });
 
-  connection.onHover(onDocument('hover', (analysis, params) => service.doHover(analysis, params.position), null));
+  connection.onHover(onDocument('hover', (analysis, params) => service.doHover(analysis, params.position, computations.policy(params.textDocument.uri)), null));
   connection.onCompletion(onDocument('completion', (analysis, params) => service.doComplete(analysis, params.position), { isIncomplete: false, items: [] }));
   connection.onDefinition(onDocument('go to definition', (analysis, params) => service.findDefinition(analysis, params.textDocument.uri, params.position), null));
   connection.onReferences(onDocument('find references', (analysis, params) => service.findReferences(analysis, params.textDocument.uri, params.position, params.context.includeDeclaration), []));
@@ -287,7 +318,25 @@ export function startLanguageServer(connection: Connection = openServerConnectio
   connection.onDocumentRangeFormatting(onDocument('range formatting', (analysis, params) => service.format(analysis.text, params.range, { indent: params.options.tabSize }), []));
   connection.onCodeAction(onDocument('code actions', (analysis, params) => service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), []));
   connection.languages.inlayHint.on(onDocument('inlay hints', (analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), []));
-  connection.onCodeLens(onDocument('code lens', (analysis) => (settings.codeLens ? service.getCodeLenses(analysis) : []), []));
+  connection.onCodeLens(
+    onDocument('code lens', (analysis, params) => {
+      if (!settings.codeLens) return [];
+      const uri = params.textDocument.uri;
+      return [...service.getCodeLenses(analysis), ...service.computeLenses(analysis, uri, computations.policy(uri))];
+    }, []),
+  );
+  connection.onExecuteCommand(
+    failures.guard('the command', () => ({}), (params: { command: string; arguments?: unknown[] }) => {
+      const outcome = computations.execute(params.command, params.arguments ?? []);
+      if (!outcome.ok) void connection.window.showWarningMessage(`Tessera: ${outcome.message}`);
+      return outcome;
+    }),
+  );
+  connection.onRequest('tessera/levels', failures.guard('the orbital-level view', documentOf, (params: unknown) => {
+    const uri = (params as { uri?: unknown } | null)?.uri;
+    return typeof uri === 'string' ? computations.levels(uri, (params as { part?: unknown }).part) : null;
+  }));
+  connection.onShutdown(() => computations.dispose());
 
   connection.onRequest('tessera/report', failures.guard('the resource report', documentOf, (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);

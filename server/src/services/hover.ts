@@ -31,6 +31,7 @@ import {
   type TermInfo,
 } from '../language/vocabulary';
 import { fragmentCard } from './cards';
+import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './computed';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
@@ -206,7 +207,8 @@ export function atomAt(analysis: DocumentAnalysis, context: CursorContext): numb
   return undefined;
 }
 
-export function doHover(analysis: DocumentAnalysis, position: Position): Hover | null {
+/** `policy`: which parts the server computes by itself (for the fragment card's computed section). */
+export function doHover(analysis: DocumentAnalysis, position: Position, policy: ComputePolicy = NO_COMPUTE_POLICY): Hover | null {
   const offset = toOffset(analysis, position);
   const context = locate(analysis.text, analysis.tree.statements, offset);
   const token = context.token;
@@ -230,7 +232,10 @@ export function doHover(analysis: DocumentAnalysis, position: Position): Hover |
 
   if (context.block === 'top' && keywordText === 'fragment' && token.index === 0) {
     const fragment = analysis.model.fragments.find((f) => f.ast.name?.span.start === token.node.span.start);
-    if (fragment) return markdown(fragmentCard(analysis, fragment.index), analysis, token.node);
+    if (fragment) {
+      const part = { kind: 'fragment', index: fragment.index } as const;
+      return markdown(`${fragmentCard(analysis, fragment.index)}\n\n---\n\n${meanFieldSection(analysis, part, policy)}`, analysis, token.node);
+    }
   }
   if (context.block === 'top' && keywordText === 'basis' && token.index === 0) {
     const basis = findBasisSet(token.node.text);

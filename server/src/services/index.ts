@@ -15,3 +15,20 @@ export { findDocumentSymbols, findWorkspaceSymbols } from './symbols';
 export { fragmentCard } from './cards';
 export { reportMarkdown } from './report';
 export { costPlots, costsAnswer, growthFragments, structureAnswer, structureOf, viewTargetAt, VIEW_LIMITS, type CostPlots, type StructureView, type ViewUnavailable } from './views';
+export {
+  computeLenses,
+  COMPUTE_COMMAND,
+  COMPUTED_NOTE,
+  LEVELS_COMMAND,
+  levelsView,
+  meanFieldSection,
+  meanFieldState,
+  NO_COMPUTE_POLICY,
+  partArgument,
+  partFromArgument,
+  partLenses,
+  STOP_COMMAND,
+  type ComputePolicy,
+  type LevelsView,
+  type MeanFieldState,
+} from './computed';

@@ -98,12 +98,14 @@ describe('qubit-wise commuting groups', () => {
     }
   });
 
-  // By construction: 10 orbitals are 20 qubits (2n, Jordan–Wigner), 440 groups as enumerated for the
-  // fit above; beyond 20 qubits the estimate is the fitted ratio by definition.
-  it('measurementGroups is explicit up to 20 qubits and an estimate beyond', () => {
-    const small = measurementGroups(symmetryPattern(roundRobin(10, 3)));
-    expect(small).toMatchObject({ qubits: 20, exact: true });
-    expect(small.groups).toBe(440); // table in measurement.ts
+  // By construction: 7 orbitals are 14 qubits (2n, Jordan–Wigner), 153 groups as enumerated for the
+  // fit above; beyond 14 qubits the estimate is the fitted ratio by definition.
+  it('measurementGroups is explicit up to 14 qubits and an estimate beyond', () => {
+    expect(EXPLICIT_GROUPING_QUBITS).toBe(14);
+    const small = measurementGroups(symmetryPattern(roundRobin(7, 3)));
+    expect(small).toMatchObject({ qubits: 14, exact: true });
+    expect(small.groups).toBe(153); // table in measurement.ts
+    expect(measurementGroups(symmetryPattern(roundRobin(8, 3))).exact).toBe(false);
     const large = measurementGroups(symmetryPattern(roundRobin(50, 3)));
     expect(large.exact).toBe(false);
     expect(large.qubits).toBeGreaterThan(EXPLICIT_GROUPING_QUBITS);

@@ -23,7 +23,7 @@ import type { Magnitude } from '../cost/magnitude';
 import type { OrbitalSpace } from '../counting';
 import { mappingKey, qubitCounts, type Mapping } from '../qubits';
 import { symmetryPattern } from './integralPattern';
-import { measurementGroups, estimateQubitWiseGroups, type MeasurementEstimate } from './measurement';
+import { EXPLICIT_GROUPING_QUBITS, estimatedGroupsMethod, estimateQubitWiseGroups, measurementGroups, type MeasurementEstimate } from './measurement';
 import { activeIrreps, PER_ORBITAL_LIMIT, symmetryCounts, taperingOf, type ActiveIrreps, type IrrepShare, type PlanSymmetry } from './activeIrreps';
 
 export type { IrrepShare, PlanSymmetry } from './activeIrreps';
@@ -87,8 +87,6 @@ export type AnsatzFigures =
   | { readonly kind: 'k-upccgsd'; readonly parameters: number; readonly layers: number; readonly description: string }
   | { readonly kind: 'hardware-efficient'; readonly parameters: number; readonly layers: number; readonly description: string };
 
-/** Above this many qubits the measurement groups are estimated instead of coloured explicitly. */
-export const EXPLICIT_GROUPING_LIMIT = 14;
 
 function problemSizes(input: PlanInput): EmbeddedSizes | undefined {
   const { fragment, system } = input;
@@ -148,9 +146,7 @@ const measurementCache = new Map<string, MeasurementEstimate>();
 function measurementFor(irreps: ActiveIrreps, terms: number): MeasurementEstimate {
   const qubits = 2 * irreps.orbitals;
   const orbitalIrreps = irreps.orbitalIrreps;
-  if (qubits > EXPLICIT_GROUPING_LIMIT) {
-    return { qubits, terms, groups: estimateQubitWiseGroups(terms), exact: false, method: 'estimate: 0.21 × (terms − 1), fitted to explicit greedy groupings of 8–20 qubits' };
-  }
+  if (qubits > EXPLICIT_GROUPING_QUBITS) return { qubits, terms, groups: estimateQubitWiseGroups(terms), exact: false, method: estimatedGroupsMethod() };
   const key = orbitalIrreps.join(',');
   let found = measurementCache.get(key);
   if (!found) {

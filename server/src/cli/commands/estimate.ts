@@ -1,6 +1,7 @@
 /**
  * `tessera estimate <spec>` and `tessera estimate --xyz <file> --basis <name> ...`: the counts for
- * the system and each fragment, as a table, Markdown or JSON.
+ * the system and each fragment, as a table, Markdown or JSON; with `--mean-field` also their
+ * computed mean fields (meanField.ts), under `meanField` in the JSON and in a table of their own.
  */
 import { safeJsonStringify } from '../../language/printable';
 import * as path from 'node:path';
@@ -9,7 +10,10 @@ import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
 import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
-import { exitCode, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import type { ScfReference } from '../../analysis';
+import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
+import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { computeMeanFields } from './meanField';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
 
 export type EstimateFormat = 'text' | 'json' | 'markdown';
@@ -23,6 +27,12 @@ export interface EstimateOptions {
   functions?: 'spherical' | 'cartesian';
   frozenCore: boolean;
   format: EstimateFormat;
+  /** Compute the mean field (and MP2) of the system and each fragment. */
+  meanField?: boolean;
+  /** Default: the spec's (a tier's `method rhf|uhf|rohf`), else rhf for singlets and uhf otherwise. */
+  reference?: ScfReference;
+  maxIterations?: number;
+  memoryLimitMiB?: number;
 }
 
 interface Prepared {
@@ -100,25 +110,68 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
   return { analysis, file, diagnostics };
 }
 
-export function runEstimate(options: EstimateOptions, io: CliIo): number {
+/** Why the command ends with errors because of the computed parts: failures and non-convergence count. */
+function meanFieldTrouble(parts: readonly MeanFieldPart[]): { errors: number; internal: boolean } {
+  let errors = 0;
+  let internal = false;
+  for (const { result } of parts) {
+    if (result.state === 'failed') {
+      errors++;
+      if (result.code === 'internal' || result.code === 'worker') internal = true;
+    } else if (!result.outcome.result.converged) errors++;
+  }
+  return { errors, internal };
+}
+
+export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<number> {
   if (options.spec && options.xyz) throw new UsageError('give either a spec file or --xyz <file>, not both');
   if (!options.spec && !options.xyz) throw new UsageError('estimate needs a spec file, or --xyz <file> --basis <name>');
   if (options.spec && (options.basis || options.charge !== undefined || options.multiplicity !== undefined || options.functions)) {
     throw new UsageError('--basis, --charge, --multiplicity and --functions go with --xyz; a spec sets them itself');
   }
+  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined)) {
+    throw new UsageError('--reference, --max-iterations and --memory-limit go with --mean-field');
+  }
   const prepared = options.spec ? prepareSpec(options.spec, io) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
+  const run = options.meanField
+    ? await computeMeanFields(
+        prepared.analysis,
+        {
+          ...(options.reference ? { reference: options.reference } : {}),
+          ...(options.maxIterations !== undefined ? { maxIterations: options.maxIterations } : {}),
+          ...(options.memoryLimitMiB !== undefined ? { memoryLimitBytes: options.memoryLimitMiB * 2 ** 20 } : {}),
+        },
+        io,
+      )
+    : undefined;
+  const parts = run?.parts;
   if (options.format === 'json') {
-    io.stdout(`${safeJsonStringify({ ...report, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, 2)}\n`);
+    const json = parts
+      ? { ...report, system: { ...report.system, meanField: meanFieldJson(parts[0]!.result) }, fragments: report.fragments.map((fragment, k) => ({ ...fragment, meanField: meanFieldJson(parts[k + 1]!.result) })) }
+      : report;
+    io.stdout(`${safeJsonStringify({ ...json, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, 2)}\n`);
   } else {
     io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
+    if (parts) io.stdout(options.format === 'markdown' ? `\n${renderMeanFieldMarkdown(parts)}` : `\n${renderMeanFieldText(parts)}`);
     for (const diagnostic of prepared.diagnostics) {
       const line = diagnostic.line > 0 ? formatDiagnosticLine(diagnostic) : `${diagnostic.file}: ${diagnostic.severity} ${diagnostic.code} ${diagnostic.message}`;
       io.stderr(`${line}\n`);
     }
   }
   if (errors > 0 && options.format !== 'json') io.stderr(`tessera: ${errors} error${errors === 1 ? '' : 's'}: the figures above may be incomplete.\n`);
-  return exitCode({ internal: prepared.diagnostics.some((d) => d.code === 'internal-error'), errors: errors > 0 });
+  const trouble = parts ? meanFieldTrouble(parts) : { errors: 0, internal: false };
+  if (trouble.errors > 0) {
+    for (const { label, result } of parts!) {
+      if (result.state === 'failed') io.stderr(`tessera: ${label}: mean field not computed: ${result.message}\n`);
+      else if (!result.outcome.result.converged) io.stderr(`tessera: ${label}: the SCF did not converge in ${result.outcome.result.iterations} iterations (last energy ${result.outcome.result.energy.toFixed(6)} Ha, not a result)\n`);
+    }
+  }
+  if (run?.interrupted) {
+    io.stderr('tessera: interrupted: the computations still running were cancelled.\n');
+    return EXIT_INTERRUPTED;
+  }
+  return exitCode({ internal: trouble.internal || prepared.diagnostics.some((d) => d.code === 'internal-error'), errors: errors > 0 || trouble.errors > 0 });
 }

@@ -10,7 +10,7 @@ export type { AtomIntegrals, ScfOptions, ScfProblem, ScfProgress, ScfReference }
 export { lowdinCharges, mullikenCharges, mullikenSpinPopulations, sumPerFragment } from './population';
 export type { MeanFieldResult } from './result';
 export { buildScfProblem, computeMeanField } from './meanField';
-export type { MeanFieldInput } from './meanField';
+export type { MeanFieldInput, ProblemOptions } from './meanField';
 export { runScf } from './run';
 export type { ScfOutcome } from './run';
 export type { OrbitalBlock, OrbitalSpace } from './space';

@@ -23,8 +23,13 @@ export interface MeanFieldInput {
   readonly multiplicity: number;
 }
 
+export interface ProblemOptions {
+  /** Memory for stored two-electron integrals (createTwoElectronIntegrals; default 512 MiB, 0: direct). */
+  readonly storageLimitBytes?: number;
+}
+
 /** The integrals of a system, ready for runScf (and for correlation methods after it). */
-export function buildScfProblem(input: MeanFieldInput): ScfProblem {
+export function buildScfProblem(input: MeanFieldInput, options: ProblemOptions = {}): ScfProblem {
   const basis = buildMolecularBasis(input.atoms, input.basis, input.kind);
   checkNuclei(basis.centers);
   const names = typeof input.basis === 'string' ? input.atoms.map(() => input.basis as string) : input.basis;
@@ -37,7 +42,7 @@ export function buildScfProblem(input: MeanFieldInput): ScfProblem {
     basis,
     overlap: overlapMatrix(basis),
     coreHamiltonian: coreHamiltonian(basis),
-    eri: createTwoElectronIntegrals(basis),
+    eri: createTwoElectronIntegrals(basis, options.storageLimitBytes !== undefined ? { storageLimitBytes: options.storageLimitBytes } : {}),
     charge: input.charge,
     multiplicity: input.multiplicity,
     atomIntegrals,
@@ -45,8 +50,8 @@ export function buildScfProblem(input: MeanFieldInput): ScfProblem {
 }
 
 /** Builds the integrals and runs the SCF. */
-export function computeMeanField(input: MeanFieldInput, options: ScfOptions = {}): ScfOutcome & { readonly problem: ScfProblem } {
+export function computeMeanField(input: MeanFieldInput, options: ScfOptions & ProblemOptions = {}): ScfOutcome & { readonly problem: ScfProblem } {
   throwIfCancelled(options.cancel);
-  const problem = buildScfProblem(input);
+  const problem = buildScfProblem(input, options);
   return { ...runScf(problem, options), problem };
 }

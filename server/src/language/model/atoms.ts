@@ -7,7 +7,7 @@ import { toAngstrom, type LengthUnit } from '../../chemistry/units';
 import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import { resolveInclude } from '../files';
-import { MAX_ATOMS, SUPPORTED_SIZE } from '../limits';
+import { byteSize, MAX_ATOMS, MAX_FILE_BYTES, SUPPORTED_SIZE } from '../limits';
 import { parseXyz } from '../xyz';
 import type { AtomModel, ModelOptions } from './types';
 
@@ -59,6 +59,11 @@ function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>
   const read = options.files.readFile(resolved.path);
   if (!read.ok) {
     sink.report('include-unreadable', include.span, `Cannot read "${include.value}" (${resolved.path}): ${read.reason}.`);
+    return none;
+  }
+  // Files on disk are capped when read (files.ts); text an editor holds is capped here, the same way.
+  if (read.text.length > MAX_FILE_BYTES) {
+    sink.report('include-unreadable', include.span, `Cannot read "${include.value}" (${resolved.path}): it has ${read.text.length.toLocaleString('en-US')} characters; Tessera reads files of at most ${byteSize(MAX_FILE_BYTES)}, the supported spec size.`);
     return none;
   }
   const declared = Number(read.text.slice(0, read.text.search(/\r?\n|$/)).trim());

@@ -3,7 +3,7 @@ import { elementBySymbol } from '../../chemistry/elements';
 import { toAngstrom, type LengthUnit } from '../../chemistry/units';
 import type { AtomRef, SelectorAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
-import { suggest } from '../suggest';
+import { SuggestionIndex } from '../suggest';
 import type { AtomModel, AtomReference } from './types';
 
 export interface Selection {
@@ -31,6 +31,7 @@ export function atomsCloserThan(coordinates: Float64Array, centre: number, radiu
 
 export class SelectorResolver {
   readonly references: AtomReference[] = [];
+  private labelIndex: SuggestionIndex | undefined;
 
   constructor(
     private readonly atoms: readonly AtomModel[],
@@ -55,7 +56,9 @@ export class SelectorResolver {
     }
     const found = this.labels.get(ref.name);
     if (found !== undefined) return found;
-    const suggestion = suggest(ref.name, this.labels.keys());
+    // One index over the labels for every unknown name of this analysis, built on the first.
+    this.labelIndex ??= new SuggestionIndex(this.labels.keys());
+    const suggestion = this.labelIndex.suggest(ref.name);
     const element = elementBySymbol(ref.name);
     const hint = suggestion ? ` Did you mean '${suggestion}'?` : element ? ` To select every ${element.symbol} atom, write 'all ${element.symbol}'.` : '';
     this.sink.report('unknown-atom', ref.span, `No atom is labelled '${ref.name}'.${hint}`, suggestion ? { data: { replacement: suggestion } } : {});

@@ -75,7 +75,6 @@ function oneDimension(table: Float64Array, dim: number, la: number, lb: number, 
 /**
  * Adds Σ_k d_k ⟨a_c| exp(−ζ_k |r − C|²) |b_c'⟩ over the cartesian components of shells a and b
  * (each with the radial normalisation of x^l, as Shell.coefficients) into out[c·ncart(b) + c'].
- * `scale` multiplies everything (1 normally).
  */
 export function addLocalGaussianPair(a: Shell, b: Shell, cx: number, cy: number, cz: number, terms: GaussianTerms, w: LocalWorkspace, out: Float64Array): void {
   const la = a.l;

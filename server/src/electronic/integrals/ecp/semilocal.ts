@@ -53,6 +53,11 @@ const TAIL_WIDTHS = 8;
  */
 const RELATIVE_TOLERANCE = 1e-10;
 const FOUR_PI_SQUARED = 16 * Math.PI * Math.PI;
+/**
+ * A primitive whose exp(−α(r − a)²) is below e^−75 (3e-33) at a point is left out there: with
+ * normalised coefficients below 1e6 its share of any integrand value is under 1e-26.
+ */
+const PRIMITIVE_CUTOFF = 75;
 
 /** The angular factors X of one shell about one ECP centre, for every channel. */
 export class ShellProjection {
@@ -139,6 +144,12 @@ class RadialIntegrand implements VectorIntegrand {
   lambdaA = 0;
   lambdaB = 0;
   nCount = 0;
+  /**
+   * Highest λ of shell A (and λ' of B) per channel: l_A + l, or for a shell on the centre 0 (only
+   * K_0(0) is non-zero) when l ≤ l_A and −1 (no projection at all) when l > l_A.
+   */
+  readonly topA: Int32Array;
+  readonly topB: Int32Array;
   /** Stride of λ and λ' in `slots`. */
   readonly lambdaStride: number;
   /** First slot of each (channel, λ, λ'): slots[(h · stride + λ) · stride + λ']. */
@@ -147,7 +158,6 @@ class RadialIntegrand implements VectorIntegrand {
   readonly gB: Float64Array;
   readonly bessel: Float64Array;
   readonly rPowers: Float64Array;
-  readonly potential: Float64Array;
 
   constructor(
     readonly channels: readonly SemilocalChannel[],
@@ -155,12 +165,13 @@ class RadialIntegrand implements VectorIntegrand {
     nMax: number,
   ) {
     this.lambdaStride = lambdaMax + 1;
+    this.topA = new Int32Array(channels.length);
+    this.topB = new Int32Array(channels.length);
     this.slots = new Int32Array(channels.length * this.lambdaStride * this.lambdaStride);
     this.gA = new Float64Array(lambdaMax + 1);
     this.gB = new Float64Array(lambdaMax + 1);
     this.bessel = new Float64Array(lambdaMax + 1);
     this.rPowers = new Float64Array(2 * nMax + 1);
-    this.potential = new Float64Array(channels.length);
   }
 
   /** Sets the pair; returns the vector dimension. */
@@ -176,10 +187,15 @@ class RadialIntegrand implements VectorIntegrand {
     this.nCount = a.l + b.l + 1;
     const stride = this.lambdaStride;
     let slot = 0;
+    const top = (shellL: number, l: number, distance: number): number => (distance > 0 ? shellL + l : l <= shellL ? 0 : -1);
     this.channels.forEach((channel, h) => {
       const l = channel.l;
-      for (let lambda = 0; lambda <= a.l + l; lambda++) {
-        for (let mu = 0; mu <= b.l + l; mu++) {
+      const topA = top(a.l, l, distanceA);
+      const topB = top(b.l, l, distanceB);
+      this.topA[h] = topA;
+      this.topB[h] = topB;
+      for (let lambda = 0; lambda <= topA; lambda++) {
+        for (let mu = 0; mu <= topB; mu++) {
           this.slots[(h * stride + lambda) * stride + mu] = slot;
           const first = Math.abs(l - lambda) + Math.abs(l - mu);
           if (first < this.nCount) slot += ((this.nCount - 1 - first) >> 1) + 1;
@@ -196,7 +212,7 @@ class RadialIntegrand implements VectorIntegrand {
     for (let p = 0; p < shell.exponents.length; p++) {
       const alpha = shell.exponents[p]!;
       const exponent = alpha * d * d;
-      if (exponent > 700) continue;
+      if (exponent > PRIMITIVE_CUTOFF) continue;
       const weight = shell.coefficients[p]! * Math.exp(-exponent);
       if (distance === 0) {
         g[0]! += weight; // K_0(0) = 1, K_λ(0) = 0 for λ > 0
@@ -220,6 +236,7 @@ class RadialIntegrand implements VectorIntegrand {
     const gB = this.gB;
     for (let h = 0; h < this.channels.length; h++) {
       const channel = this.channels[h]!;
+      if (this.topA[h]! < 0 || this.topB[h]! < 0) continue;
       let u = 0;
       for (let k = 0; k < channel.exponents.length; k++) {
         const power = channel.powers[k]! - 2;
@@ -227,8 +244,8 @@ class RadialIntegrand implements VectorIntegrand {
         u += power === 0 ? term : term * r ** power;
       }
       const l = channel.l;
-      const la = this.a.l + l;
-      const lb = this.b.l + l;
+      const la = this.topA[h]!;
+      const lb = this.topB[h]!;
       let slot = offset + this.slots[h * stride * stride]!;
       for (let lambda = 0; lambda <= la; lambda++) {
         const ga = u * gA[lambda]!;
@@ -405,6 +422,9 @@ export class SemilocalEngine {
       const mCount = 2 * l + 1;
       const lambdaCountA = a.l + l + 1;
       const lambdaCountB = b.l + l + 1;
+      const topA = this.integrand.topA[h]!;
+      const topB = this.integrand.topB[h]!;
+      if (topA < 0 || topB < 0) continue;
       const xa = pa.factors[h]!;
       const xb = pb.factors[h]!;
       // T[cb][m][λ][N] = Σ_(λ',N') X_B[cb][m][λ'][N'] R[λ][λ'][N+N']
@@ -414,11 +434,11 @@ export class SemilocalEngine {
         for (let m = 0; m < mCount; m++) {
           const xbBase = (cb * mCount + m) * lambdaCountB;
           const tBase = (cb * mCount + m) * lambdaCountA;
-          for (let mu = 0; mu < lambdaCountB; mu++) {
+          for (let mu = 0; mu <= topB; mu++) {
             for (let nb2 = 0; nb2 < nCountB; nb2++) {
               const xv = xb[(xbBase + mu) * nCountB + nb2]!;
               if (xv === 0) continue;
-              for (let lambda = 0; lambda < lambdaCountA; lambda++) {
+              for (let lambda = 0; lambda <= topA; lambda++) {
                 const firstA = Math.abs(l - lambda);
                 const first = firstA + Math.abs(l - mu);
                 const rBase = slots[(h * stride + lambda) * stride + mu]! - (first >> 1);

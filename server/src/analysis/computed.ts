@@ -1,0 +1,197 @@
+/**
+ * What the analysis asks to have computed for a part of a spec, under which key the result is
+ * kept (late.ts), and the shapes the results arrive in. The jobs layer (server/src/jobs) runs the
+ * requests in worker threads and writes the results; hover, lenses, views and the command line
+ * read them here. A request is plain data, the same in the editor and on the command line, so
+ * both compute the same thing.
+ *
+ * Kinds of request, each a kind of late result:
+ * - `mean-field`: the SCF of one part (RHF, UHF or ROHF), with its orbitals;
+ * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`).
+ * A later kind (the active-space Hamiltonian) follows the same pattern: a request that names the
+ * mean-field request it builds on, receives that result's orbitals, and is keyed by both.
+ */
+import type { MeanFieldResult } from '../electronic/scf/result';
+import type { ScfReference } from '../electronic/scf/options';
+import type { SpecModel } from '../language/model';
+import { COORDINATE_LIMIT } from '../chemistry/geometry';
+import { inputKey, partAtoms, partInputs, partLabel, type PartInputs, type PartRef } from './inputKey';
+
+export type { ScfReference };
+
+export const MEAN_FIELD_KIND = 'mean-field';
+export const MP2_KIND = 'mp2';
+
+export interface MeanFieldRequest {
+  readonly kind: typeof MEAN_FIELD_KIND;
+  readonly inputs: PartInputs;
+  readonly reference: ScfReference;
+  /** Fock builds allowed (null: the engine's default, 100). */
+  readonly maxIterations: number | null;
+  /** Basis functions of the part (follows from the inputs; for cost estimates, not in the key). */
+  readonly functions: number;
+}
+
+export interface Mp2Request {
+  readonly kind: typeof MP2_KIND;
+  readonly meanField: MeanFieldRequest;
+  /** Noble-gas cores kept uncorrelated (the part's frozen-core setting). */
+  readonly frozenCore: boolean;
+}
+
+export type ComputeRequest = MeanFieldRequest | Mp2Request;
+
+/** The key a request's result is kept under, within its kind. */
+export function requestKey(request: ComputeRequest): string {
+  if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
+  return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
+}
+
+/** Requests whose results a request needs before it can run. */
+export function prerequisites(request: ComputeRequest): ComputeRequest[] {
+  return request.kind === MP2_KIND ? [request.meanField] : [];
+}
+
+/** rhf for singlets, uhf otherwise (a tier's `method rhf|uhf|rohf` chooses instead). */
+export function defaultReference(multiplicity: number): ScfReference {
+  return multiplicity === 1 ? 'rhf' : 'uhf';
+}
+
+/** Orbitals passed on to the requests that build on a mean field (typed arrays, not JSON). */
+export interface OrbitalArrays {
+  readonly functionCount: number;
+  readonly orbitalCount: number;
+  /** C[μ·M + p] per spin (β the same array as α for RHF and ROHF). */
+  readonly alpha: Float64Array;
+  readonly beta: Float64Array;
+}
+
+/** A finished mean-field job. */
+export interface MeanFieldOutcome {
+  readonly result: MeanFieldResult;
+  readonly orbitals: OrbitalArrays;
+  /** Wall time of the job in its worker, seconds. */
+  readonly seconds: number;
+}
+
+/** A finished MP2 job. */
+export interface Mp2Summary {
+  readonly reference: ScfReference;
+  readonly correlationEnergy: number;
+  /** Mean-field energy + correlation energy. */
+  readonly totalEnergy: number;
+  readonly oppositeSpin: number;
+  readonly sameSpin: number;
+  /** Orbitals left uncorrelated. */
+  readonly frozenOrbitals: number;
+  /** Natural occupation numbers of the unrelaxed MP2 density, descending (RHF only; null for UHF). */
+  readonly naturalOccupations: readonly number[] | null;
+  /** The natural orbitals in the basis functions (n×M, columns as naturalOccupations), for later requests. */
+  readonly naturalOrbitals: Float64Array | null;
+  readonly seconds: number;
+}
+
+/**
+ * One part of a spec as a candidate for computation: what it would ask for, or why it cannot. The
+ * requests and keys are built when first read (a large system's key costs a pass over its atoms,
+ * and parts beyond the memory limit never need one).
+ */
+export interface PartComputation {
+  readonly part: PartRef;
+  /** `system` or `fragment <name>`. */
+  readonly label: string;
+  /** Basis functions of the spec's function type. */
+  readonly functions: number;
+  /** Why the part cannot be computed at all; null when it can. */
+  readonly refusal: string | null;
+  /** Null when refused. */
+  readonly meanField: MeanFieldRequest | null;
+  readonly meanFieldKey: string | null;
+  /** MP2 after the mean field: RHF and UHF references only. */
+  readonly mp2: Mp2Request | null;
+  readonly mp2Key: string | null;
+}
+
+/** Every part of a spec: the system first, then the fragments in spec order. */
+export function specParts(model: SpecModel): PartRef[] {
+  return [{ kind: 'system' }, ...model.fragments.map((fragment) => ({ kind: 'fragment' as const, index: fragment.index }))];
+}
+
+export function samePart(a: PartRef, b: PartRef): boolean {
+  return a.kind === b.kind && (a.kind === 'system' || a.index === (b as { index: number }).index);
+}
+
+function refusalOf(model: SpecModel, part: PartRef): string | null {
+  const atoms = partAtoms(model, part);
+  const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
+  if (atoms.length === 0) return 'it has no atoms';
+  if (!model.basis.main && model.basis.overrides.length === 0) return 'the spec chooses no basis set';
+  const c = model.coordinates;
+  for (const atom of atoms) {
+    const symbol = model.atoms[atom]!.element.symbol;
+    const set = model.basis.atomSets[atom];
+    if (!set) return `atom #${atom + 1} (${symbol}) has no basis set: the spec's basis name is not in the library`;
+    if (!set.shellsFor(symbol)) return `${set.displayName} does not define ${symbol} (atom #${atom + 1})`;
+    for (let axis = 0; axis < 3; axis++) {
+      const value = c[3 * atom + axis]!;
+      if (!Number.isFinite(value) || Math.abs(value) > COORDINATE_LIMIT) return `atom #${atom + 1} (${symbol}) has a coordinate beyond ±${COORDINATE_LIMIT} Å`;
+    }
+  }
+  if (!space.spin) return `charge ${space.charge} and multiplicity ${space.multiplicity} do not fit its ${space.electrons} electrons`;
+  return null;
+}
+
+/** The reference a part asks for: its tier's mean-field method when it names one, else the default. */
+function referenceOf(model: SpecModel, part: PartRef, multiplicity: number): ScfReference {
+  const method = part.kind === 'fragment' ? model.fragments[part.index]!.tier?.method : undefined;
+  return method === 'rhf' || method === 'uhf' || method === 'rohf' ? method : defaultReference(multiplicity);
+}
+
+export interface RequestOptions {
+  /** Overrides the reference the spec implies. */
+  readonly reference?: ScfReference;
+  readonly maxIterations?: number | null;
+  /** Overrides the part's frozen-core setting for MP2. */
+  readonly frozenCore?: boolean;
+}
+
+/** What computing one part would ask for (the requests are plain data: see the file comment). */
+export function partComputation(model: SpecModel, part: PartRef, options: RequestOptions = {}): PartComputation {
+  const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
+  const functions = space.basisFunctions[model.basis.functions];
+  const refusal = refusalOf(model, part);
+  let built: { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null } | undefined;
+  const build = () => {
+    if (built) return built;
+    const inputs = partInputs(model, part);
+    const meanField: MeanFieldRequest = {
+      kind: MEAN_FIELD_KIND,
+      inputs,
+      reference: options.reference ?? referenceOf(model, part, inputs.multiplicity),
+      maxIterations: options.maxIterations ?? null,
+      functions,
+    };
+    const frozenCore = options.frozenCore ?? (part.kind === 'fragment' ? (model.fragments[part.index]!.tier?.frozenCore ?? model.frozenCore) : model.frozenCore);
+    const mp2: Mp2Request | null = meanField.reference === 'rohf' ? null : { kind: MP2_KIND, meanField, frozenCore };
+    built = { meanField, meanFieldKey: requestKey(meanField), mp2, mp2Key: mp2 ? requestKey(mp2) : null };
+    return built;
+  };
+  return {
+    part,
+    label: partLabel(model, part),
+    functions,
+    refusal,
+    get meanField() {
+      return refusal ? null : build().meanField;
+    },
+    get meanFieldKey() {
+      return refusal ? null : build().meanFieldKey;
+    },
+    get mp2() {
+      return refusal ? null : build().mp2;
+    },
+    get mp2Key() {
+      return refusal ? null : build().mp2Key;
+    },
+  };
+}

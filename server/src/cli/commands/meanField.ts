@@ -1,0 +1,117 @@
+/**
+ * `tessera estimate … --mean-field`: the mean field (and MP2 after it for RHF and UHF) of the
+ * system and every fragment, computed through the jobs layer exactly as the editor computes it:
+ * the same requests (analysis/computed.ts), the same queue and worker thread. Progress goes to
+ * standard error for jobs that take a while; an interrupt (Ctrl+C) cancels the running job.
+ */
+import {
+  LateResults,
+  partComputation,
+  specParts,
+  type DocumentAnalysis,
+  type LateResult,
+  type MeanFieldOutcome,
+  type Mp2Summary,
+  type RequestOptions,
+} from '../../analysis';
+import { JobQueue, type DemandEntry, type JobEvent } from '../../jobs';
+import type { MeanFieldPart, PartMeanField } from '../../report/format/meanField';
+import type { CliIo } from '../io';
+
+export interface MeanFieldOptions extends RequestOptions {
+  readonly memoryLimitBytes?: number;
+  readonly workers?: number;
+}
+
+export interface MeanFieldRun {
+  readonly parts: MeanFieldPart[];
+  /** True when an interrupt cancelled what was still running. */
+  readonly interrupted: boolean;
+}
+
+/** A job must run this long before its progress is printed. */
+const QUIET_MS = 2000;
+/** Then at most one progress line per job this often. */
+const PROGRESS_EVERY_MS = 2000;
+
+function progressPrinter(io: CliIo): (event: JobEvent) => void {
+  const started = new Map<number, number>();
+  const printed = new Map<number, number>();
+  return (event) => {
+    const id = event.job.id;
+    const now = performance.now();
+    const what = `${event.job.kind === 'mp2' ? 'MP2' : 'mean field'} of ${event.job.label}`;
+    switch (event.type) {
+      case 'started':
+        started.set(id, now);
+        return;
+      case 'progress': {
+        const since = now - (started.get(id) ?? now);
+        if (since < QUIET_MS || now - (printed.get(id) ?? 0) < PROGRESS_EVERY_MS) return;
+        printed.set(id, now);
+        io.stderr(`tessera: ${what}: ${event.text} (${(since / 1000).toFixed(0)} s)\n`);
+        return;
+      }
+      case 'done':
+        if (printed.has(id)) io.stderr(`tessera: ${what}: done in ${((now - (started.get(id) ?? now)) / 1000).toFixed(1)} s\n`);
+        return;
+      case 'failed':
+      case 'cancelled':
+        return;
+    }
+  };
+}
+
+function failed(result: LateResult<unknown>, interrupted: boolean): { code: string; message: string } {
+  if (result.state === 'failed') return { code: String(result.data?.['code'] ?? 'failed'), message: result.message };
+  return interrupted
+    ? { code: 'cancelled', message: 'The computation was interrupted before it finished; nothing was computed for this part.' }
+    : { code: 'cancelled', message: 'The computation stopped without a result.' };
+}
+
+export async function computeMeanFields(analysis: DocumentAnalysis, options: MeanFieldOptions, io: CliIo): Promise<MeanFieldRun> {
+  const store = new LateResults();
+  const queue = new JobQueue(store, { workers: options.workers ?? 1, ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}) });
+  queue.onEvent(progressPrinter(io));
+  const computations = specParts(analysis.model).map((part) => partComputation(analysis.model, part, options));
+  const entries: DemandEntry[] = [];
+  for (const computation of computations) {
+    if (computation.refusal) continue;
+    entries.push({ request: computation.meanField!, label: computation.label, explicit: true });
+    if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit: true });
+  }
+  let interrupted = false;
+  const stopListening = io.onInterrupt?.(() => {
+    interrupted = true;
+    void queue.dispose();
+  });
+  try {
+    queue.setDemand('cli', entries);
+    const parts: MeanFieldPart[] = [];
+    for (const computation of computations) {
+      if (computation.refusal) {
+        parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` } });
+        continue;
+      }
+      const request = computation.meanField!;
+      const settled = await queue.whenSettled(request);
+      let result: PartMeanField;
+      if (settled.state === 'ready') {
+        const outcome = settled.value as MeanFieldOutcome;
+        let mp2: Mp2Summary | { error: string } | null = null;
+        if (computation.mp2 && outcome.result.converged) {
+          const after = await queue.whenSettled(computation.mp2);
+          mp2 = after.state === 'ready' ? (after.value as Mp2Summary) : { error: failed(after, interrupted).message };
+        }
+        result = { state: 'computed', outcome, mp2 };
+      } else {
+        result = { state: 'failed', reference: request.reference, ...failed(settled, interrupted) };
+      }
+      parts.push({ label: computation.label, result });
+    }
+    return { parts, interrupted };
+  } finally {
+    stopListening?.();
+    await queue.dispose();
+  }
+}

@@ -1,0 +1,145 @@
+/**
+ * Runs one request to its result, synchronously: what a worker thread does with each job (and
+ * what tests call directly). Pure apart from reading basis data: the same request gives the same
+ * result in the editor's worker and on the command line.
+ *
+ * - `mean-field`: the part's atoms (ångström in the request) go to bohr, the basis and integrals
+ *   are built, and the SCF runs (electronic/scf); the plain-data summary and the orbital
+ *   coefficients come back.
+ * - `mp2`: the mean-field result it builds on arrives as input; the integrals are built again
+ *   (their shell-pair data and Schwarz factors; MP2 recomputes quartets batch by batch anyway)
+ *   and MP2 runs on it (RHF: energy, density and natural orbitals; UHF: energy).
+ */
+import { MP2_KIND, type ComputeRequest, type MeanFieldOutcome, type MeanFieldRequest, type Mp2Request, type Mp2Summary } from '../analysis/computed';
+import { BOHR_IN_ANGSTROM } from '../chemistry/units';
+import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
+import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
+import { mp2, unrestrictedMp2 } from '../electronic/correlation';
+import { createTwoElectronIntegrals } from '../electronic/integrals';
+import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
+import type { JobFailure, JobProgress } from './protocol';
+
+export interface RunContext {
+  readonly cancel: CancelToken;
+  readonly onProgress: (progress: JobProgress) => void;
+  /** Memory for stored two-electron integrals. */
+  readonly storageLimitBytes: number;
+}
+
+/** A refusal found before any integral, with the atoms it is about. */
+export class JobInputError extends Error {
+  constructor(readonly failure: JobFailure) {
+    super(failure.message);
+    this.name = 'JobInputError';
+  }
+}
+
+function atomsInBohr(request: MeanFieldRequest): BasisAtom[] {
+  return request.inputs.atoms.map((atom) => ({ symbol: atom.symbol, x: atom.x / BOHR_IN_ANGSTROM, y: atom.y / BOHR_IN_ANGSTROM, z: atom.z / BOHR_IN_ANGSTROM }));
+}
+
+function basisNames(request: MeanFieldRequest): string[] {
+  return request.inputs.basis.map((name, k) => {
+    if (name === null) throw new JobInputError({ code: 'basis', message: `Atom ${k + 1} of the part (${request.inputs.atoms[k]!.symbol}) has no basis set.`, atoms: [k] });
+    return name;
+  });
+}
+
+/**
+ * Nuclei closer than the engine accepts, named by their place in the part (the engine's own check,
+ * checkNuclei, says the same without saying which atoms of the spec they are).
+ */
+function checkDistances(atoms: readonly BasisAtom[]): void {
+  for (let a = 0; a < atoms.length; a++) {
+    for (let b = 0; b < a; b++) {
+      const distance = Math.hypot(atoms[a]!.x - atoms[b]!.x, atoms[a]!.y - atoms[b]!.y, atoms[a]!.z - atoms[b]!.z);
+      if (!(distance >= MINIMUM_NUCLEAR_DISTANCE)) {
+        throw new JobInputError({
+          code: 'input',
+          message:
+            `Atoms ${b + 1} (${atoms[b]!.symbol}) and ${a + 1} (${atoms[a]!.symbol}) of the part are ${(distance * BOHR_IN_ANGSTROM).toFixed(3)} Å apart; ` +
+            `a mean-field calculation needs every pair at least ${(MINIMUM_NUCLEAR_DISTANCE * BOHR_IN_ANGSTROM).toFixed(2)} Å apart.`,
+          atoms: [b, a],
+        });
+      }
+    }
+  }
+}
+
+export function runMeanField(request: MeanFieldRequest, context: RunContext): MeanFieldOutcome {
+  const start = performance.now();
+  throwIfCancelled(context.cancel);
+  const atoms = atomsInBohr(request);
+  checkDistances(atoms);
+  context.onProgress({ phase: 'integrals' });
+  const problem = buildScfProblem({ atoms, basis: basisNames(request), kind: request.inputs.functions, charge: request.inputs.charge, multiplicity: request.inputs.multiplicity }, { storageLimitBytes: context.storageLimitBytes });
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'guess' });
+  const outcome = runScf(problem, {
+    reference: request.reference,
+    ...(request.maxIterations !== null ? { maxIterations: request.maxIterations } : {}),
+    cancel: context.cancel,
+    onProgress: (progress) =>
+      context.onProgress({ phase: 'scf', iteration: progress.iteration, energy: progress.energy, energyChange: Number.isNaN(progress.energyChange) ? null : progress.energyChange }),
+  });
+  const { coefficients } = outcome.wavefunction;
+  return {
+    result: outcome.result,
+    orbitals: { functionCount: problem.basis.functionCount, orbitalCount: outcome.result.orbitalCount, alpha: coefficients.alpha, beta: coefficients.beta },
+    seconds: (performance.now() - start) / 1000,
+  };
+}
+
+/** The parts of an SCF wavefunction MP2 reads, rebuilt from a mean-field result. */
+function wavefunctionOf(meanField: MeanFieldOutcome): ScfWavefunction {
+  const { result, orbitals } = meanField;
+  return {
+    reference: result.reference,
+    coefficients: { alpha: orbitals.alpha, beta: orbitals.beta },
+    orbitalEnergies: { alpha: Float64Array.from(result.orbitalEnergies.alpha), beta: Float64Array.from(result.orbitalEnergies.beta) },
+    occupations: { alpha: Float64Array.from(result.occupations.alpha), beta: Float64Array.from(result.occupations.beta) },
+    electrons: result.electrons,
+    energy: result.energy,
+  } as unknown as ScfWavefunction;
+}
+
+export function runMp2(request: Mp2Request, meanField: MeanFieldOutcome, context: RunContext): Mp2Summary {
+  const start = performance.now();
+  if (!meanField.result.converged) {
+    throw new JobInputError({ code: 'prerequisite', message: `MP2 needs a converged mean field; it stopped after ${meanField.result.iterations} iterations without converging.` });
+  }
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'integrals' });
+  const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
+  const eri = createTwoElectronIntegrals(basis, { storageLimitBytes: 0 });
+  const wavefunction = wavefunctionOf(meanField);
+  const options = {
+    frozenCore: request.frozenCore,
+    cancel: context.cancel,
+    onProgress: (progress: { done: number; total: number }) => context.onProgress({ phase: 'mp2', done: progress.done, total: progress.total }),
+  };
+  context.onProgress({ phase: 'mp2', done: 0, total: wavefunction.electrons.alpha });
+  if (wavefunction.reference === 'uhf') {
+    const result = unrestrictedMp2(wavefunction, eri, options);
+    return { reference: 'uhf', correlationEnergy: result.correlationEnergy, totalEnergy: result.totalEnergy, oppositeSpin: result.oppositeSpin, sameSpin: result.sameSpin, frozenOrbitals: result.frozenCore, naturalOccupations: null, naturalOrbitals: null, seconds: (performance.now() - start) / 1000 };
+  }
+  const outcome = mp2(wavefunction, eri, options);
+  const result = outcome.result;
+  return {
+    reference: wavefunction.reference,
+    correlationEnergy: result.correlationEnergy,
+    totalEnergy: result.totalEnergy,
+    oppositeSpin: result.oppositeSpin,
+    sameSpin: result.sameSpin,
+    frozenOrbitals: result.frozenCore,
+    naturalOccupations: result.naturalOccupations,
+    naturalOrbitals: outcome.naturalOrbitals,
+    seconds: (performance.now() - start) / 1000,
+  };
+}
+
+/** Runs any request, given the results of its prerequisites (in the order `prerequisites` lists them). */
+export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary {
+  if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
+  return runMeanField(request, context);
+}
