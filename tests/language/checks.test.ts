@@ -866,7 +866,7 @@ describe('tiers', () => {
   it('names the tier a method belongs to and the methods of this tier', () => {
     const cases: [string, string, string][] = [
       ['quantum', 'ccsd', "'ccsd' is a correlated-tier method, but this tier is quantum. Methods of the quantum tier: vqe, qpe."],
-      ['mean-field', 'fci', "'fci' is a correlated-tier method, but this tier is mean-field. Methods of the mean-field tier: rhf, rohf, uhf."],
+      ['mean-field', 'fci', "'fci' is a correlated-tier method, but this tier is mean-field. Methods of the mean-field tier: rhf, rohf, uhf, pbe, pbe0, b3lyp, tpss."],
       ['correlated', 'rhf', "'rhf' is a mean-field-tier method, but this tier is correlated. Methods of the correlated tier: mp2, ccsd, ccsd(t), casci, casscf, fci."],
     ];
     for (const [level, method, message] of cases) {
@@ -967,7 +967,7 @@ describe('vocabulary', () => {
 
   it('lists the keywords of the block when nothing is close', () => {
     const { diagnostic } = expectDiagnostic(water(`${ONE_FRAGMENT}\nlimits { ⟦wallclock⟧ 8 }`), 'unknown-keyword');
-    expect(diagnostic.message).toBe("Unknown keyword 'wallclock' in a limits block. Expected one of: qubits, memory.");
+    expect(diagnostic.message).toBe("Unknown keyword 'wallclock' in a limits block. Expected one of: qubits, memory, rate.");
     expect(diagnostic.data).toBeUndefined();
   });
 
@@ -992,7 +992,7 @@ describe('vocabulary', () => {
       [water(ONE_FRAGMENT, 'functions ⟦cartesain⟧'), 'unknown-value', "Unknown function type 'cartesain'. Did you mean 'cartesian'? Expected one of: spherical, cartesian."],
       [water('fragment w { atoms rest; tier quantum { ansatz ⟦hardware-eficient⟧ } }'), 'unknown-ansatz', "Unknown ansatz 'hardware-eficient'. Did you mean 'hardware-efficient'? Expected one of: uccsd, k-upccgsd, hardware-efficient."],
       [water('fragment w { atoms rest; tier quantum { mapping ⟦jw⟧ } }'), 'unknown-mapping', "Unknown mapping 'jw'. Expected one of: jordan-wigner, bravyi-kitaev, parity."],
-      [water('fragment w { atoms rest; tier quantum { method ⟦VQE2⟧ } }'), 'unknown-method', "Unknown method 'VQE2'. Did you mean 'vqe'? Expected one of: rhf, rohf, uhf, mp2, ccsd, ccsd(t), casci, casscf, fci, vqe, qpe."],
+      [water('fragment w { atoms rest; tier quantum { method ⟦VQE2⟧ } }'), 'unknown-method', "Unknown method 'VQE2'. Did you mean 'vqe'? Expected one of: rhf, rohf, uhf, pbe, pbe0, b3lyp, tpss, mp2, ccsd, ccsd(t), casci, casscf, fci, vqe, qpe."],
     ];
     for (const [text, code, message] of cases) {
       expect(expectDiagnostic(text, code).diagnostic.message).toBe(message);

@@ -89,7 +89,7 @@ function haloText(x: number, y: number, size: number, fill: string, anchor: stri
  * bars and their labels (which carry a halo), so it never strikes through a number.
  */
 export function qubitsChartSvg(report: EstimateReport): string {
-  const title = 'Qubits per quantum fragment (planning estimate)';
+  const title = 'Qubits per fragment (planning estimate)';
   const fragments = report.fragments.filter((fragment) => fragment.tier === 'quantum' && fragment.qubits !== null);
   if (fragments.length === 0) return emptyChart(title, 'No quantum-tier fragment to size: classical tiers need no qubits.');
   const series = ['Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered'];
