@@ -60,10 +60,10 @@ describe('a correlated tier', () => {
 
   it('leaves it out of the qubit table and gives it a row of the solver table', () => {
     const tables = estimateTables(report);
-    const qubits = tables.find((table) => table.title.startsWith('Qubits and Hamiltonian'))!;
+    const qubits = tables.find((table) => table.title?.startsWith('Qubits and Hamiltonian'))!;
     expect(qubits.title).toContain('hypothetical');
     expect(qubits.rows.map((row) => row[0])).toEqual(['system (hypothetical)']);
-    const solvers = tables.find((table) => table.title.startsWith('Classical solvers'))!;
+    const solvers = tables.find((table) => table.title?.startsWith('Classical solvers'))!;
     expect(solvers.title).toBe('Classical solvers (time at 2 Gflops)');
     expect(solvers.rows[0]!.slice(0, 2)).toEqual(['w', 'ccsd(t)']);
   });
