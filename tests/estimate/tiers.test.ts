@@ -47,7 +47,7 @@ describe('a correlated tier', () => {
     expect(cost.operations.exact).toBe(String(20 * 4608 + 2048));
   });
 
-  it('takes the time at the rate of the limits block', () => {
+  it('takes the time at the rate of the limits block (2 Gflops as written, by construction; 100 Gflops assumed otherwise, by definition)', () => {
     const cost = fragment.solverCost!;
     expect(cost.time.flopsPerSecond).toBe(2e9);
     expect(cost.time.rateFrom).toBe('limits');
@@ -64,14 +64,14 @@ describe('a correlated tier', () => {
     expect(qubits.title).toContain('hypothetical');
     expect(qubits.rows.map((row) => row[0])).toEqual(['system (hypothetical)']);
     const solvers = tables.find((table) => table.title?.startsWith('Classical solvers'))!;
-    expect(solvers.title).toBe('Classical solvers (time at 2 Gflops)');
+    expect(solvers.title).toBe('Classical solvers (time at 2 Gflops)'); // the rate written, by construction
     expect(solvers.rows[0]!.slice(0, 2)).toEqual(['w', 'ccsd(t)']);
   });
 });
 
 describe('a mean-field tier', () => {
   const fragment = analyzeDocument(water('tier mean-field { method rhf }')).report().fragments[0]!;
-  it('has no active space and no qubits, and the N⁴ cost of Hartree–Fock on its 7 basis functions', () => {
+  it('has no active space and no qubits, and the N⁴ cost of Hartree–Fock on its 7 basis functions (Hehre, Stewart & Pople 1969)', () => {
     expect(fragment.active).toBeNull();
     expect(fragment.qubits).toBeNull();
     expect(fragment.solverCost).toMatchObject({ method: 'rhf', on: 'fragment', basisFunctions: 7, occupied: 5, virtual: 2 });

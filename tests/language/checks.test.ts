@@ -274,7 +274,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     trigger: water(ONE_FRAGMENT, 'multiplicity ⟦2⟧'),
     // A triplet water is allowed: 10 electrons, 2 unpaired, 8 paired.
     nearMiss: water('fragment w { atoms rest; multiplicity 3; tier mean-field { method rohf } }', 'multiplicity 3'),
-    message: ['Multiplicity 2 needs an odd number of electrons, but the system has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicity is 1.'],
+    message: ['Multiplicity 2 needs an odd number of electrons, but the system has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicities are 1 or 3.'],
   },
   'multiplicity-too-high': {
     trigger: water('fragment w { atoms rest; charge +8; multiplicity 3; tier mean-field { method rohf } }', 'charge +8\nmultiplicity ⟦5⟧'),
@@ -286,6 +286,12 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     // +10 leaves no electrons at all, which is allowed.
     nearMiss: water('fragment w { atoms rest; charge +10; tier mean-field { } }', 'charge +10'),
     message: ['Charge +11 leaves the system with -1 electrons (nuclear charge 10, charge +11): fewer than zero.'],
+  },
+  // Angular-momentum addition: two singlets couple only to S = 0.
+  'spin-coupling': {
+    trigger: `multiplicity ⟦3⟧\nbasis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS}\n`,
+    nearMiss: `multiplicity 3\nbasis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS.replace('atoms o h1 h2;', 'atoms o h1 h2; multiplicity 3;')}\n`,
+    message: ["couple only to multiplicity 1, not to the system's 3", "'a' singlet, S = 0 (default)"],
   },
   'fragment-charge-sum': {
     trigger: water(SPLIT_WATER.replace('charge +1', 'charge 0'), 'charge ⟦0⟧'),
@@ -433,9 +439,9 @@ describe('charge and multiplicity', () => {
   it('checks the multiplicity of each fragment against its own electron count', () => {
     const { diagnostic } = expectDiagnostic(water('fragment w { atoms rest; multiplicity ⟦2⟧; tier mean-field { method rohf } }'), 'multiplicity-parity');
     expect(diagnostic.message).toBe(
-      "Multiplicity 2 needs an odd number of electrons, but fragment 'w' has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicity is 1.",
+      "Multiplicity 2 needs an odd number of electrons, but fragment 'w' has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicities are 1 or 3.",
     );
-    expect(diagnostic.data).toEqual({ multiplicity: 1 });
+    expect(diagnostic.data).toEqual({ multiplicity: 1, multiplicities: [1, 3] });
   });
 
   it('reports a fragment multiplicity above its electron count, with the highest possible one', () => {

@@ -79,6 +79,7 @@ export const DIAGNOSTIC_CODES = {
   'multiplicity-too-high': { severity: 'error', title: 'More unpaired electrons than electrons' },
   'negative-electrons': { severity: 'error', title: 'A charge that leaves fewer than zero electrons' },
   'fragment-charge-sum': { severity: 'error', title: 'Fragment charges that do not add up to the total charge' },
+  'spin-coupling': { severity: 'warning', title: 'Fragment spins that cannot couple to the system\'s multiplicity (angular-momentum addition)' },
   // Fragments
   'duplicate-fragment': { severity: 'error', title: 'Two fragments with the same name' },
   'unknown-atom': { severity: 'error', title: 'A selector naming an atom that does not exist' },

@@ -225,8 +225,10 @@ export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnost
     if (diagnostic.source !== undefined && diagnostic.source !== 'tessera') continue;
     const data = (diagnostic.data ?? {}) as Record<string, unknown>;
     const code = (data['code'] as string | undefined) ?? String(diagnostic.code ?? '');
-    if ((code === 'multiplicity-parity' || code === 'multiplicity-too-high') && typeof data['multiplicity'] === 'number') {
-      actions.push(quickFix(`Set the multiplicity to ${data['multiplicity']}`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: String(data['multiplicity']) }]), true));
+    if ((code === 'multiplicity-parity' || code === 'multiplicity-too-high' || code === 'spin-coupling') && typeof data['multiplicity'] === 'number') {
+      // Every valid value near the one written (both neighbours of a wrong parity), the first preferred.
+      const values = Array.isArray(data['multiplicities']) ? (data['multiplicities'] as unknown[]).filter((value): value is number => typeof value === 'number') : [data['multiplicity']];
+      values.forEach((value, i) => actions.push(quickFix(`Set the multiplicity to ${value}`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: String(value) }]), i === 0)));
     } else if (typeof data['replacement'] === 'string') {
       actions.push(quickFix(`Replace with '${data['replacement']}'`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: data['replacement'] }]), true));
     } else if (code === 'atoms-unassigned' && Array.isArray(data['atoms'])) {
