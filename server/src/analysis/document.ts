@@ -17,6 +17,7 @@ import { DiagnosticSink, finishDiagnostics } from '../language/diagnostics';
 import type { SpecModel } from '../language/model';
 import type { SyntaxTree } from '../language/syntax';
 import type { LineIndex } from '../language/text';
+import { checkImpurityActiveSpaces } from './checks/impurity';
 import { checkActiveIrreps } from './checks/activeIrreps';
 import type { EstimateCheck } from './checks/context';
 import { checkLimits } from './checks/limits';
@@ -32,7 +33,7 @@ import { partComputation, type PartComputation } from './computed';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
-export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkLimits];
+export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkImpurityActiveSpaces, checkLimits];
 
 export type AnalysisOptions = AnalyzeOptions;
 

@@ -103,6 +103,23 @@ function problemSizes(input: PlanInput): EmbeddedSizes | undefined {
   });
 }
 
+/**
+ * Unpaired electrons (nα − nβ) of what the solver treats, one rule for the problem, its active
+ * space and its determinant counts. Under DMET the impurity's electrons come from the system's
+ * determinant (dmet.ts: per spin, bath plus fully occupied fragment orbitals), so its spin is the
+ * impurity's nα − nβ, not the fragment's own multiplicity; otherwise the fragment is solved with
+ * its own electrons and multiplicity.
+ */
+export function problemUnpaired(input: PlanInput, problem: EmbeddedSizes): number {
+  return problem.embedding === 'dmet' ? Math.abs(problem.alpha - problem.beta) : input.fragment.multiplicity - 1;
+}
+
+/** The DMET impurity sizes the solver sees, or undefined without DMET or a valid spin. */
+export function impurityOf(input: PlanInput): EmbeddedSizes | undefined {
+  const problem = problemSizes(input);
+  return problem?.embedding === 'dmet' ? problem : undefined;
+}
+
 function ansatzFigures(input: PlanInput, active: ActiveFigures, irreps: ActiveIrreps, qubits: number): AnsatzFigures | null {
   if (input.tier !== 'quantum' || input.method !== 'vqe' || !input.ansatz) return null;
   const { orbitals, alpha, beta } = active;
@@ -183,7 +200,7 @@ export function qubitsFor(input: PlanInput, orbitals: number, alpha: number, bet
 export function fitActiveSpace(input: PlanInput, limit: number): { electrons: number; orbitals: number; qubits: number } | undefined {
   const problem = problemSizes(input);
   if (!problem || !input.mapping) return undefined;
-  const unpaired = input.fragment.multiplicity - 1;
+  const unpaired = problemUnpaired(input, problem);
   const wanted = input.active?.electrons ?? problem.electrons;
   const fits = (electrons: number, orbitals: number) =>
     electrons >= unpaired && electrons <= problem.electrons && (electrons - unpaired) % 2 === 0 && (electrons + unpaired) / 2 <= orbitals;
@@ -211,7 +228,12 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const problem = problemSizes(input);
   if (!problem) return undefined;
   const notes: string[] = [];
-  const unpaired = input.fragment.multiplicity - 1;
+  const unpaired = problemUnpaired(input, problem);
+  if (problem.embedding === 'dmet' && unpaired !== input.fragment.multiplicity - 1) {
+    notes.push(
+      `under DMET the impurity's spin comes from the system's mean field (${problem.alpha}α / ${problem.beta}β, ${unpaired} unpaired), not from the fragment's multiplicity ${input.fragment.multiplicity}; its active space and determinants follow the impurity`,
+    );
+  }
   let electrons = problem.electrons;
   let orbitals = problem.orbitals;
   if (input.active) {
