@@ -369,6 +369,13 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMissAllows: ['bond-cut'],
     message: ['The scan goes from 1.5 to 0.9, so the step must be negative; it is 0.1.'],
   },
+  // 3.0 − 4 × 0.25 = 2.0; one more step gives 1.75, past 1.8 (arithmetic, by construction).
+  'scan-end-missed': {
+    trigger: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 3.0 to ⟦1.8⟧ step -0.25\n'),
+    nearMiss: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 3.0 to 1.75 step -0.25\n'),
+    nearMissAllows: ['bond-cut'],
+    message: ['Going from 3 in steps of -0.25 stops at 2, not at 1.8: the next step would pass it (1.75).'],
+  },
   'spec-too-large': {
     // One character beyond the supported 8 MiB, and a spec of exactly 8 MiB (water padded with a comment).
     trigger: `⟦⟧${padTo(water(ONE_FRAGMENT), 8 * 1024 * 1024 + 1)}`,

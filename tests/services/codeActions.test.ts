@@ -91,6 +91,15 @@ describe('multiplicity', () => {
   });
 });
 
+describe('scan end', () => {
+  it('offers the two ends a step of -0.25 from 3.0 lands on near 1.8: 2 and 1.75 (arithmetic, by construction)', () => {
+    const text = `basis sto-3g\n${WATER}fragment a { atoms o h1; charge -1; tier mean-field { method rhf } }\nfragment b { atoms h2; charge +1; tier mean-field { method rhf } }\nscan distance o h2 from 3.0 to 1.8 step -0.25\n`;
+    const offered = fixes(text, 'scan-end-missed');
+    expect(offered.map((fix) => fix.action.title)).toEqual(['Change the end to 2', 'Change the end to 1.75']);
+    for (const fix of offered) expectFixed(fix, 'scan-end-missed');
+  });
+});
+
 describe('replacement spelling', () => {
   const cases: { name: string; text: string; code: DiagnosticCode; title: string; expected: string }[] = [
     { name: 'a keyword', text: `bassis sto-3g\n${WATER}${MEAN_FIELD}`, code: 'unknown-keyword', title: "Replace with 'basis'", expected: 'basis sto-3g\n' },

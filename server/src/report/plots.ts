@@ -172,9 +172,10 @@ export function scanChartSvg(report: EstimateReport): string {
   const perPointCalculations = scan.totals.fragmentCalculations / scan.points;
   const perPointCircuits = scan.totals.measurementCircuits / scan.points;
   const f = frame();
-  const low = scan.distances.reduce((least, d) => Math.min(least, d), Infinity);
-  const span = scan.distances.reduce((most, d) => Math.max(most, d), -Infinity) - low || 1;
-  const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - low)) / span;
+  // Scan order left to right: the first distance at the left edge, also for a descending scan.
+  const first = scan.distances[0]!;
+  const span = scan.distances[scan.distances.length - 1]! - first || 1;
+  const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - first)) / span;
   const ticks = niceTicks(Math.max(scan.totals.measurementCircuits, 1));
   const yTop = ticks[ticks.length - 1]!;
   const toY = (value: number) => f.y0 - ((f.y0 - f.y1) * value) / yTop;

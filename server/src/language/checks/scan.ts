@@ -30,6 +30,17 @@ export function checkScan(context: CheckContext): void {
       sink.report('invalid-scan', scan.step.span, `Going from ${from} to ${to} in steps of ${step} gives ${count}; at most ${MAX_SCAN_POINTS.toLocaleString('en-US')} are accepted. Is the step mistyped?`);
       return;
     }
+    // The last point the step reaches, against the end written (rounded as the model rounds).
+    const last = Number((from + (points - 1) * step).toFixed(10));
+    if (Math.abs(last - to) > 1e-9 * Math.max(1, Math.abs(to))) {
+      const next = Number((last + step).toFixed(10));
+      sink.report(
+        'scan-end-missed',
+        scan.to.span,
+        `Going from ${from} in steps of ${step} stops at ${last}, not at ${to}: the next step would pass it (${next}). Change the end to ${last} or ${next}, or the step so that it divides ${Number((to - from).toFixed(10))}.`,
+        { data: { ends: [last, next] } },
+      );
+    }
   } else if (scan.points && scan.points.value > MAX_SCAN_POINTS) {
     sink.report('invalid-scan', scan.points.span, `${scan.points.value.toLocaleString('en-US')} scan points asked for; at most ${MAX_SCAN_POINTS.toLocaleString('en-US')} are accepted.`);
     return;
