@@ -363,6 +363,12 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     message: ['statevector of 8 qubits', 'needs 4.00 KiB', 'the memory limit is 3.91 KiB'],
   },
   // Scan
+  // O–O bonded below 1.2 × (0.66 + 0.66) = 1.58 Å (Cordero et al. 2008 radii; the bond rule of the structure).
+  'scan-bond-change': {
+    trigger: `basis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS}\n⟦scan⟧ distance o p from 5 to 1.5 step -0.5\n`,
+    nearMiss: `basis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS}\nscan distance o p from 5 to 2 step -0.5\n`,
+    message: ["At 1.5 a bond p–o forms between fragments 'b' and 'a' (1.50 Å"],
+  },
   'invalid-scan': {
     trigger: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 1.5 to 0.9 step ⟦0.1⟧\n'),
     nearMiss: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 1.5 to 0.9 step -0.1\n'),
@@ -777,7 +783,7 @@ describe('scans', () => {
     ['scan distance o h2 from 1 to 1e308 step ⟦1e-300⟧', 'Going from 1 to 1e+308 in steps of 1e-300 gives more points than can be counted ((1e+308 − 1) / 1e-300 overflows); at most 10,000 are accepted. Is the step mistyped?'],
     ['scan distance o h2 from 0.9 to 1.5 points ⟦10001⟧', '10,001 scan points asked for; at most 10,000 are accepted.'],
     ['scan distance h2 ⟦#3⟧ from 0.9 to 1.5 points 4', 'The scan needs two different atoms.'],
-    ['⟦scan⟧ distance o h1 from 0.9 to 1.5 points 4', "Both scanned atoms are in fragment 'a'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments."],
+    ['⟦scan⟧ distance o h1 from 0.9 to 1.5 points 4', "Both scanned atoms are in fragment 'a'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments, or name the atoms that move: `moving h1 …`."],
     ['scan distance o h2 from ⟦0.3⟧ to 1.5 step 0.3', 'The scan reaches 0.300 Å, closer than 0.5 Å.'],
   ];
   for (const [line, message] of invalid) {
@@ -786,6 +792,18 @@ describe('scans', () => {
       expect(diagnostic.message).toBe(message);
     });
   }
+
+  it('plans a stretch inside one fragment when the moving atoms are named (an O–H stretch of water; common practice)', () => {
+    const analysis = analyzeMarked(water(SPLIT_WATER, '', 'basis sto-3g') + 'scan distance o h1 from 0.9 to 1.5 step 0.2 moving h1\n');
+    expect(analysis.diagnostics.filter((d) => d.code === 'invalid-scan')).toEqual([]);
+    expect(analysis.model.scan?.moving).toEqual([1]); // h1 is atom #2 (by construction)
+  });
+
+  it('asks the moving atoms to hold the second scanned atom and not the first (by construction)', () => {
+    const base = water(SPLIT_WATER, '', 'basis sto-3g');
+    expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h2⟧\n', 'invalid-scan').diagnostic.message).toContain('must include the second scanned atom');
+    expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h1 o⟧\n', 'invalid-scan').diagnostic.message).toContain('must not include the first scanned atom');
+  });
 
   it('converts a scan in bohr to ångström and checks the clash distance there', () => {
     // 0.8 bohr = 0.423 Å: too close; 1.0 bohr = 0.529 Å is not.

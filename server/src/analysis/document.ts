@@ -153,7 +153,7 @@ export class DocumentAnalysis {
     return computation;
   }
 
-  /** The atoms a scan moves: the second atom's fragment, or its bonded group without fragments. */
+  /** The atoms a scan moves: those its `moving` clause names, else the second atom's fragment, or its bonded group without fragments. */
   scanMovingAtoms(): number[] {
     if (!this.moving) {
       const model = this.model;
@@ -161,7 +161,7 @@ export class DocumentAnalysis {
       if (!scan) this.moving = [];
       else {
         const owner = model.owner[scan.second] ?? -1;
-        this.moving = owner >= 0 ? [...model.fragments[owner]!.atoms] : bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
+        this.moving = scan.moving ? [...scan.moving] : owner >= 0 ? [...model.fragments[owner]!.atoms] : bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
       }
     }
     return this.moving;

@@ -215,6 +215,8 @@ export interface ScanAst {
   readonly to?: Located<number>;
   readonly step?: Located<number>;
   readonly points?: Located<number>;
+  /** `moving <atom> …`: the atoms that move with the second one, when given. */
+  readonly moving?: { readonly atoms: readonly AtomRef[]; readonly span: Span };
 }
 
 export interface LimitsAst {
@@ -226,7 +228,7 @@ export interface LimitsAst {
   rate?: Located<number>;
 }
 
-function describeRef(ref: AtomRef): string {
+export function describeRef(ref: AtomRef): string {
   return ref.kind === 'index' ? `#${ref.index}` : ref.name;
 }
 

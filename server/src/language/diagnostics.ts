@@ -94,6 +94,7 @@ export const DIAGNOSTIC_CODES = {
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  'scan-bond-change': { severity: 'warning', title: 'A scan point where a bond forms between two fragments' },
   'scan-end-missed': { severity: 'warning', title: 'A scan step that does not land on the end of the range' },
   // Spellings the language no longer uses
   'retired-spelling': { severity: 'error', title: 'An old spelling (`geometry`, `units`, the braced basis block, `within … of`); the quick fix rewrites it' },

@@ -78,6 +78,8 @@ export interface ScanModel {
   readonly second: number;
   /** Distances in ångström, one per point. */
   readonly distances: number[];
+  /** The atoms `moving` names (sorted, unique), when the spec gives them. */
+  readonly moving?: readonly number[];
 }
 
 export interface SpecModel {
