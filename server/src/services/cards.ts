@@ -76,21 +76,21 @@ function quantumRows(fragment: FragmentFigures, limit: number | null): string[] 
   const qubits = fragment.qubits;
   if (fragment.qubitsRequired !== null) {
     const tapered = qubits !== null && fragment.qubitsRequired === qubits.tapered && qubits.tapered !== null;
-    rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${tapered ? ', tapered' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
+    rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${tapered ? ', tapered' : ''}${fragment.method === 'qpe' ? ', the system register only (the phase register and ancillas of the QPE scheme not counted)' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
   }
   if (qubits?.tapered !== null && qubits?.tapered !== undefined) rows.push(`| tapered | ${qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
   rows.push(...problemRow(fragment), ...activeRow(fragment));
   if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
   if (qubits) rows.push(`| qubits | Jordan–Wigner ${qubits.jordanWigner} · Bravyi–Kitaev ${qubits.bravyiKitaev} · parity ${qubits.parity} |`);
   if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${fragment.pauliTerms.jordanWigner} (identity included) |`);
-  if (fragment.measurement) rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups |`);
+  if (fragment.measurement) rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups (${fragment.measurement.exact ? 'greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum' : 'extrapolated from explicit groupings'}) |`);
   if (fragment.ansatzCost) {
     const unscreened = fragment.ansatzCost.unscreened !== null && fragment.ansatzCost.unscreened !== fragment.ansatzCost.parameters ? ` (${fragment.ansatzCost.unscreened} without point-group screening)` : '';
     rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${fragment.ansatzCost.parameters} parameters${unscreened} |`);
   }
-  if (fragment.circuit) rows.push(`| circuit | ${fragment.circuit.cnots} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${fragment.circuit.compactCnots} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${fragment.circuit.depth}` : ''} |`);
+  if (fragment.circuit) rows.push(`| circuit | ${fragment.circuit.cnots} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${fragment.circuit.compactCnots} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${fragment.circuit.depth} (serial upper estimate)` : ''} — ${fragment.circuit.construction === 'hardware-efficient' ? `on the ${fragment.qubitsRequired ?? fragment.qubits?.jordanWigner} qubits needed` : `untapered Jordan–Wigner on ${fragment.qubits?.jordanWigner} qubits, interleaved order`} |`);
   if (fragment.classical) {
-    rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes |`);
+    rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes (${fragment.classical.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted, closed shell' : 'spin orbitals'}) |`);
     if (fragment.classical.statevectorBytes) rows.push(`| statevector | ${fragment.classical.statevectorBytes.text} |`);
   }
   return rows;
@@ -114,7 +114,7 @@ function classicalRows(fragment: FragmentFigures): string[] {
     rows.push(`| scaling | ${cost.scaling} |`);
   }
   rows.push(...problemRow(fragment), ...activeRow(fragment));
-  if (fragment.classical) rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes |`);
+  if (fragment.classical) rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes (${fragment.classical.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted, closed shell' : 'spin orbitals'}) |`);
   return rows;
 }
 

@@ -69,6 +69,7 @@ const SECTIONS = {
       determinants: bigFigure(plan.classical.determinants.determinants),
       ciVectorBytes: bigFigure(plan.classical.ciVectorBytes, true),
       ccsdAmplitudes: bigFigure(plan.classical.ccsd.amplitudes),
+      ccsdAmplitudesConvention: plan.classical.ccsd.convention,
       statevectorBytes: plan.quantum ? bigFigure(plan.quantum.statevectorBytes, true) : null,
     },
   })),

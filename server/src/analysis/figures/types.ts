@@ -15,9 +15,9 @@ export const CONVENTIONS = {
     'as given; otherwise every orbital of the problem the solver sees outside the frozen core (the DMET impurity under `embedding dmet`, else the fragment\'s own orbitals); irreps of the active orbitals as given per irrep, else in proportion to the orbitals of each irrep (an assumption)',
   qubits: 'Jordan–Wigner and Bravyi–Kitaev: 2n for n active spatial orbitals; parity with the two-qubit reduction: 2n − 2; tapered: 2n − rank over GF(2) of the Z2 symmetries (N_α and N_β parity, point-group generators acting on the active orbitals; Bravyi et al. 2017, Setia et al. 2020)',
   pauliTerms: 'distinct Pauli strings of the qubit Hamiltonian, identity included, for generic real integrals allowed by the abelian point group; the same under Jordan–Wigner, Bravyi–Kitaev and unreduced parity (Clifford-related); an upper bound when the full point group is non-abelian',
-  measurement: 'qubit-wise commuting groups from a largest-degree-first greedy colouring of the explicit strings up to 14 qubits, else 0.21 × (terms − 1), an estimate',
+  measurement: 'qubit-wise commuting groups from a largest-degree-first greedy colouring (a heuristic, not the minimum) of the explicit Jordan–Wigner strings in block spin-orbital order (all α, then all β; the order changes the count) up to 14 qubits; beyond, 0.21 × (terms − 1), extrapolated from explicit groupings of 8–20 qubits',
   ansatz: 'UCCSD: spin-conserving spin-orbital excitations screened by the point group (Romero et al. 2019); k-UpCCGSD: k × 3n(n−1)/2 (Lee et al. 2019); hardware-efficient: q(3d+2) Euler angles (Kandala et al. 2017)',
-  circuit: 'one Trotter step of UCCSD under Jordan–Wigner in interleaved spin order: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020',
+  circuit: 'one Trotter step of UCCSD on the untapered Jordan–Wigner register (2 qubits per active orbital, interleaved spin order), whatever the fragment\'s mapping: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020; depth a serial upper estimate (no gates run in parallel); hardware-efficient circuits on the qubits needed',
   classical: 'full-CI determinants C(n, nα)·C(n, nβ); CI vector and CCSD amplitudes at 8 bytes each; statevector 2^q × 16 bytes',
   tiers: 'qubit, Pauli-term, measurement, ansatz and circuit figures belong to quantum tiers only; correlated and mean-field tiers get their solver cost instead',
   solverCost:
@@ -102,7 +102,14 @@ export interface FragmentFigures extends SpaceFigures {
   measurement: { groups: number; exact: boolean; method: string } | null;
   ansatzCost: { kind: string; parameters: number; singles: number | null; doubles: number | null; unscreened: number | null; spinAdapted: number | null } | null;
   circuit: { construction: string; cnots: number; rotations: number | null; depth: number | null; compactCnots: number | null } | null;
-  classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
+  classical: {
+    determinants: BigFigure;
+    ciVectorBytes: BigFigure;
+    ccsdAmplitudes: BigFigure;
+    /** How the amplitudes are counted: spin-adapted for a closed shell, spin orbitals for an open one. */
+    ccsdAmplitudesConvention: 'closed-shell' | 'spin-orbital';
+    statevectorBytes: BigFigure | null;
+  } | null;
   /** What decides a classical tier's feasibility: scaling, operations, memory and time of its method. */
   solverCost: SolverCostFigures | null;
   notes: string[];

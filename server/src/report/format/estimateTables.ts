@@ -137,7 +137,7 @@ export function estimateTables(report: EstimateReport): Table[] {
       title: 'Classical size of the active space',
       headers: ['part', 'full-CI determinants', 'CI vector', 'CCSD amplitudes'],
       numeric: [false, true, true, true],
-      rows: classical.map((fragment) => [fragment.name, fragment.classical!.determinants.text, fragment.classical!.ciVectorBytes.text, fragment.classical!.ccsdAmplitudes.text]),
+      rows: classical.map((fragment) => [fragment.name, fragment.classical!.determinants.text, fragment.classical!.ciVectorBytes.text, `${fragment.classical!.ccsdAmplitudes.text} (${fragment.classical!.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted' : 'spin orbitals'})`]),
     });
   }
   return tables;
@@ -185,7 +185,7 @@ export function headerLines(report: EstimateReport): string[] {
     const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: ${totals.fragmentCalculations} fragment calculations, ${totals.measurementCircuits} measurement circuits per energy evaluation in all${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}; per-point figures below`
+        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${totals.measurementCircuits / report.scan.points} measurement circuits per energy evaluation (counted at the structure's geometry; the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
         : 'scan: no valid points',
     );
   }
