@@ -5,7 +5,7 @@
  */
 import { formatRate } from '../chemistry/cost/format';
 import { markdownText } from '../report/format/escape';
-import { CONVENTIONS, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SolverCostFigures, type SpaceFigures } from '../analysis';
+import { CONVENTIONS, countText, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SolverCostFigures, type SpaceFigures } from '../analysis';
 
 function signed(value: number): string {
   return value > 0 ? `+${value}` : String(value);
@@ -82,13 +82,20 @@ function quantumRows(fragment: FragmentFigures, limit: number | null): string[] 
   rows.push(...problemRow(fragment), ...activeRow(fragment));
   if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
   if (qubits) rows.push(`| qubits | Jordan–Wigner ${qubits.jordanWigner} · Bravyi–Kitaev ${qubits.bravyiKitaev} · parity ${qubits.parity} |`);
-  if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${fragment.pauliTerms.jordanWigner} (identity included) |`);
-  if (fragment.measurement) rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups (${fragment.measurement.exact ? 'greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum' : 'extrapolated from explicit groupings'}) |`);
-  if (fragment.ansatzCost) {
-    const unscreened = fragment.ansatzCost.unscreened !== null && fragment.ansatzCost.unscreened !== fragment.ansatzCost.parameters ? ` (${fragment.ansatzCost.unscreened} without point-group screening)` : '';
-    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${fragment.ansatzCost.parameters} parameters${unscreened} |`);
+  if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${countText(fragment.pauliTerms.jordanWigner)} (identity included) |`);
+  if (fragment.measurement) {
+    const groups = countText(fragment.measurement.groups);
+    const how = fragment.measurement.exact ? 'greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum' : 'extrapolated from explicit groupings';
+    rows.push(`| measurement | ${fragment.measurement.exact || groups.startsWith('≈') ? '' : '≈ '}${groups} qubit-wise commuting groups (${how}) |`);
   }
-  if (fragment.circuit) rows.push(`| circuit | ${fragment.circuit.cnots} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${fragment.circuit.compactCnots} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${fragment.circuit.depth} (serial upper estimate)` : ''} — ${fragment.circuit.construction === 'hardware-efficient' ? `on the ${fragment.qubitsRequired ?? fragment.qubits?.jordanWigner} qubits needed` : `untapered Jordan–Wigner on ${fragment.qubits?.jordanWigner} qubits, interleaved order`} |`);
+  if (fragment.ansatzCost) {
+    const unscreened = fragment.ansatzCost.unscreened !== null && countText(fragment.ansatzCost.unscreened) !== countText(fragment.ansatzCost.parameters) ? ` (${countText(fragment.ansatzCost.unscreened)} without point-group screening)` : '';
+    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${countText(fragment.ansatzCost.parameters)} parameters${unscreened} |`);
+  }
+  if (fragment.circuit) {
+    const register = fragment.circuit.construction === 'hardware-efficient' ? `on the ${fragment.qubitsRequired ?? fragment.qubits?.jordanWigner} qubits needed` : `untapered Jordan–Wigner on ${fragment.qubits?.jordanWigner} qubits, interleaved order`;
+    rows.push(`| circuit | ${countText(fragment.circuit.cnots)} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${countText(fragment.circuit.compactCnots)} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${countText(fragment.circuit.depth)} (serial upper estimate)` : ''} — ${register} |`);
+  }
   if (fragment.classical) {
     rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes (${fragment.classical.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted, closed shell' : 'spin orbitals'}) |`);
     if (fragment.classical.statevectorBytes) rows.push(`| statevector | ${fragment.classical.statevectorBytes.text} |`);

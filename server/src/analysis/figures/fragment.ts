@@ -11,7 +11,7 @@ import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
 import type { Estimates } from '../estimates';
 import { solverCostFigures } from './solver';
-import { bigFigure, spaceFigures } from './space';
+import { approximateCount, bigFigure, exactCount, spaceFigures } from './space';
 import type { FragmentFigures } from './types';
 
 /** Fills one group of keys from the plan (undefined when the fragment has none). */
@@ -59,9 +59,15 @@ const SECTIONS = {
     taperingSymmetries: [...quantum.qubits.taperingSymmetries],
   })),
   pauliTerms: fromQuantum((_figures, quantum) => ({
-    pauliTerms: { jordanWigner: quantum.pauliTerms.jordanWigner, bravyiKitaev: quantum.pauliTerms.bravyiKitaev, parity: quantum.pauliTerms.parity, identityIncluded: true, upperBound: quantum.pauliTerms.upperBound },
+    pauliTerms: {
+      jordanWigner: exactCount(quantum.pauliTerms.exact.full),
+      bravyiKitaev: exactCount(quantum.pauliTerms.exact.full),
+      parity: exactCount(quantum.pauliTerms.exact.parity),
+      identityIncluded: true,
+      upperBound: quantum.pauliTerms.upperBound,
+    },
   })),
-  measurement: fromQuantum((_figures, quantum) => ({ measurement: { groups: quantum.measurement.groups, exact: quantum.measurement.exact, method: quantum.measurement.method } })),
+  measurement: fromQuantum((_figures, quantum) => ({ measurement: { groups: approximateCount(quantum.measurement.groups), exact: quantum.measurement.exact, method: quantum.measurement.method } })),
   ansatz: fromQuantum((_figures, quantum) => ({ ansatzCost: ansatzFigures(quantum) })),
   circuit: fromQuantum((_figures, quantum) => ({ circuit: circuitFigures(quantum) })),
   classical: fromPlan((_figures, plan) => ({
@@ -141,7 +147,8 @@ function circuitFigures(plan: QuantumPlan): FragmentFigures['circuit'] {
   const circuit = plan.circuit;
   if (!circuit) return null;
   const standard = circuit.standard;
-  return { construction: standard.construction, cnots: standard.cnots, rotations: standard.rotations ?? null, depth: standard.depth ?? null, compactCnots: circuit.compact?.cnots ?? null };
+  const optional = (value: number | undefined) => (value === undefined ? null : approximateCount(value));
+  return { construction: standard.construction, cnots: approximateCount(standard.cnots), rotations: optional(standard.rotations), depth: optional(standard.depth), compactCnots: optional(circuit.compact?.cnots) };
 }
 
 function ansatzFigures(plan: QuantumPlan): FragmentFigures['ansatzCost'] {
@@ -150,12 +157,12 @@ function ansatzFigures(plan: QuantumPlan): FragmentFigures['ansatzCost'] {
   if (ansatz.kind === 'uccsd') {
     return {
       kind: 'uccsd',
-      parameters: ansatz.parameters,
-      singles: ansatz.spinOrbitalScreened.singles,
-      doubles: ansatz.spinOrbitalScreened.doubles,
-      unscreened: ansatz.spinOrbital.total,
-      spinAdapted: ansatz.spinAdaptedScreened?.total ?? null,
+      parameters: approximateCount(ansatz.parameters),
+      singles: approximateCount(ansatz.spinOrbitalScreened.singles),
+      doubles: approximateCount(ansatz.spinOrbitalScreened.doubles),
+      unscreened: approximateCount(ansatz.spinOrbital.total),
+      spinAdapted: ansatz.spinAdaptedScreened ? approximateCount(ansatz.spinAdaptedScreened.total) : null,
     };
   }
-  return { kind: ansatz.kind, parameters: ansatz.parameters, singles: null, doubles: null, unscreened: null, spinAdapted: null };
+  return { kind: ansatz.kind, parameters: approximateCount(ansatz.parameters), singles: null, doubles: null, unscreened: null, spinAdapted: null };
 }
