@@ -25,7 +25,7 @@ describe('one active-irreps rule for every figure', () => {
     const analysis = analyzeDocument(spec);
     const card = analysis.fragmentFigures(0);
     const point = analysis.growth(0).find((p) => p.orbitals === card.active!.orbitals)!;
-    expect(card.activeIrreps).toEqual({ perIrrep: { A1: 4 }, source: 'given' });
+    expect(card.activeIrreps).toEqual({ perIrrep: { A1: 4 }, source: 'given', occupation: 'assumed' });
     expect(point.tapered).toBe(card.qubits!.tapered);
     expect(point.pauliTerms).toBe(card.pauliTerms!.jordanWigner);
     // All four in the totally symmetric irrep: only the two number parities taper, and the terms

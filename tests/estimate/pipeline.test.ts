@@ -113,7 +113,7 @@ describe('active spaces per irrep', () => {
   const spec = (active: string) => `basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; mapping jordan-wigner; taper on; active ${active} }\n}\n`;
   it('uses the irreps as given', () => {
     const given = report(spec('4e A1=2 B1=1 B2=1'));
-    expect(given.fragments[0]!.activeIrreps).toEqual({ perIrrep: { A1: 2, B1: 1, B2: 1 }, source: 'given' });
+    expect(given.fragments[0]!.activeIrreps).toEqual({ perIrrep: { A1: 2, B1: 1, B2: 1 }, source: 'given', occupation: 'assumed' });
     expect(given.fragments[0]!.active!.orbitals).toBe(4);
   });
 

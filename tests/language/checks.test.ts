@@ -1052,7 +1052,7 @@ describe('values', () => {
       [water(ONE_FRAGMENT, '', '⟦basis⟧'), 'Name the basis set: `basis cc-pVDZ`, or `basis def2-TZVP on all Zn` for some atoms.'],
       [water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G ⟦on⟧'), 'Say which atoms take 3-21G: `on all Zn`, `on zn n1..n4`, `on #3` or `on fragment guest`.'],
       [water('fragment w { ⟦atoms⟧; tier mean-field { } }'), 'List the atoms: labels, #indices, ranges like n1..n4, `all H`, `closer-than 3.0 to zn` or `rest`.'],
-      [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`.'],
+      [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2` (with the reference occupation: `occupied A1=2 B2=1 open B1=1`).'],
       [water('fragment w { atoms rest; tier quantum { ⟦method⟧ } }'), "'method' needs a value: write `method <name>`."],
       [water(`${ONE_FRAGMENT}\nlimits { ⟦memory⟧ }`), 'Give the memory with a unit: `memory 16 GiB` (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB).'],
       [`basis sto-3g\nstructure ⟦from⟧\n${ONE_FRAGMENT}\n`, 'Name the XYZ file to read: `structure from "file.xyz"`.'],
@@ -1079,7 +1079,7 @@ describe('values', () => {
     const cases: [string, string][] = [
       [water(ONE_FRAGMENT, 'multiplicity ⟦triplet⟧'), "The multiplicity must be a number, not 'triplet'."],
       [water('fragment w { atoms rest; tier quantum { layers ⟦0⟧ } }'), "The number of layers must be a whole number of at least 1; '0' is not."],
-      [water('fragment w { atoms rest; tier quantum { active ⟦4⟧ 4o; active 4e 4o } }'), "Mark what the number counts: '4e' for electrons or '4o' for orbitals (active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`)."],
+      [water('fragment w { atoms rest; tier quantum { active ⟦4⟧ 4o; active 4e 4o } }'), "Mark what the number counts: '4e' for electrons or '4o' for orbitals (active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2` (with the reference occupation: `occupied A1=2 B2=1 open B1=1`))."],
       [water(`${ONE_FRAGMENT}\nlimits { qubits ⟦2.5⟧ }`), "The qubit limit must be a whole number of at least 1; '2.5' is not."],
       [water(`${ONE_FRAGMENT}\nlimits { memory 16 ⟦XB⟧ }`), "Unknown memory unit 'XB'; use one of B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB."],
       [water(`${ONE_FRAGMENT}\nlimits { memory ⟦16⟧ }`), 'Add a unit to the memory size: 16 GiB? (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB)'],

@@ -182,6 +182,9 @@ export interface ActiveSpaceAst {
   readonly orbitals?: Located<number>;
   /** Orbitals per irrep of the fragment's point group, when given (`A1=3 B2=1`). */
   readonly irreps: readonly ActiveIrrepAst[];
+  /** The reference occupation, when given: doubly occupied (`occupied A1=2`) and singly occupied (`open B1=1`) orbitals per irrep. */
+  readonly occupied?: readonly ActiveIrrepAst[];
+  readonly open?: readonly ActiveIrrepAst[];
   readonly span: Span;
 }
 

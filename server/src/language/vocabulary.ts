@@ -48,7 +48,12 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'method', blocks: ['tier'], syntax: 'method <name>', summary: 'The electronic-structure method of the tier.' },
   { name: 'ansatz', blocks: ['tier'], syntax: 'ansatz uccsd|k-upccgsd|hardware-efficient', summary: 'The trial state of a variational quantum algorithm.' },
   { name: 'mapping', blocks: ['tier'], syntax: 'mapping jordan-wigner|bravyi-kitaev|parity', summary: 'How fermionic spin orbitals are encoded on qubits.' },
-  { name: 'active', blocks: ['tier'], syntax: 'active <n>e <m>o', summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core.' },
+  {
+    name: 'active',
+    blocks: ['tier'],
+    syntax: 'active <n>e <m>o  or  active <n>e <irrep>=<k> …, then optionally occupied <irrep>=<k> … open <irrep>=<k> …',
+    summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core; per irrep of the point group, with the reference occupation (doubly occupied and open-shell orbitals per irrep) when you know it, else it is assumed.',
+  },
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
   { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },

@@ -80,7 +80,10 @@ function quantumRows(fragment: FragmentFigures, limit: number | null): string[] 
   }
   if (qubits?.tapered !== null && qubits?.tapered !== undefined) rows.push(`| tapered | ${qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
   rows.push(...problemRow(fragment), ...activeRow(fragment));
-  if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
+  if (fragment.activeIrreps) {
+    const reference = fragment.activeIrreps.occupation === 'given' ? 'reference occupation as given' : 'reference occupation assumed (the orbitals of each irrep spread evenly, the lowest filled; give `occupied A1=2 …` to set it)';
+    rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}); ${reference} |`);
+  }
   if (qubits) rows.push(`| qubits | Jordan–Wigner ${qubits.jordanWigner} · Bravyi–Kitaev ${qubits.bravyiKitaev} · parity ${qubits.parity} |`);
   if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${countText(fragment.pauliTerms.jordanWigner)} (identity included) |`);
   if (fragment.measurement) {

@@ -51,7 +51,7 @@ const SECTIONS = {
     activeIrreps:
       plan.active.irrepsSource === 'none'
         ? null
-        : { perIrrep: Object.fromEntries(plan.active.irreps.filter((share) => share.count > 0).map((share) => [share.label, share.count])), source: plan.active.irrepsSource },
+        : { perIrrep: Object.fromEntries(plan.active.irreps.filter((share) => share.count > 0).map((share) => [share.label, share.count])), source: plan.active.irrepsSource, occupation: plan.active.occupation },
   })),
   qubits: fromQuantum((_figures, quantum) => ({
     qubits: { jordanWigner: quantum.qubits.jordanWigner, bravyiKitaev: quantum.qubits.bravyiKitaev, parity: quantum.qubits.parity, tapered: quantum.qubits.tapered },

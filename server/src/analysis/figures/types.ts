@@ -93,7 +93,12 @@ export interface FragmentFigures extends SpaceFigures {
   atomIndices: number[];
   /** The orbital space the solver sees: a DMET impurity or the fragment's own orbitals. */
   problem: { embedding: string; orbitals: number; electrons: number; alpha: number; beta: number; bath: { alpha: number; beta: number }; convention: string } | null;
-  activeIrreps: { perIrrep: Record<string, number>; source: string } | null;
+  /**
+   * Active orbitals per irrep and where they come from; `occupation` says where the reference
+   * determinant's irreps come from: `given` (`occupied …`), or `assumed` (orbitals of each irrep
+   * spread evenly, the lowest filled).
+   */
+  activeIrreps: { perIrrep: Record<string, number>; source: string; occupation: 'given' | 'assumed' } | null;
   /**
    * The two point groups of the fragment: its own (its atoms alone) and the one it keeps inside the
    * system (the stabiliser of its atoms in the system's group); `countedIn` says which the figures

@@ -24,7 +24,7 @@ import type { OrbitalSpace } from '../counting';
 import { mappingKey, qubitCounts, type Mapping } from '../qubits';
 import { symmetryPattern } from './integralPattern';
 import { EXPLICIT_GROUPING_QUBITS, estimatedGroupsMethod, estimateQubitWiseGroups, measurementGroups, type MeasurementEstimate } from './measurement';
-import { activeIrreps, PER_ORBITAL_LIMIT, symmetryCounts, taperingOf, type ActiveIrreps, type IrrepShare, type PlanSymmetry } from './activeIrreps';
+import { activeIrreps, PER_ORBITAL_LIMIT, symmetryCounts, taperingOf, type ActiveIrreps, type GivenOccupation, type IrrepShare, type PlanSymmetry } from './activeIrreps';
 
 export type { IrrepShare, PlanSymmetry } from './activeIrreps';
 export { apportion, spreadIrreps } from './activeIrreps';
@@ -40,7 +40,7 @@ export interface PlanInput {
   readonly taper: boolean;
   readonly layers: number;
   /** The active space as written: totals, and per irrep when given. */
-  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[] };
+  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation };
   readonly symmetry?: PlanSymmetry;
 }
 
@@ -53,6 +53,8 @@ export interface ActiveFigures {
   /** Orbitals per irrep of the active space, and whether that split was given or assumed. */
   readonly irreps: readonly IrrepShare[];
   readonly irrepsSource: 'given' | 'proportional' | 'none';
+  /** Where the reference determinant's irreps come from (activeIrreps.ts). */
+  readonly occupation: 'given' | 'assumed';
 }
 
 export interface QuantumPlan {
@@ -255,7 +257,7 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const beta = (electrons - unpaired) / 2;
 
   const irreps = irrepsOf(input, orbitals);
-  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps: irreps.irreps, irrepsSource: irreps.source };
+  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps: irreps.irreps, irrepsSource: irreps.source, occupation: irreps.occupation };
   if (!irreps.perOrbital) {
     notes.push(
       `an active space of more than ${PER_ORBITAL_LIMIT.toLocaleString('en-US')} orbitals is counted without point-group symmetry (tapering, Pauli terms, UCCSD screening)${input.ansatz === 'uccsd' && input.tier === 'quantum' && input.method === 'vqe' ? ', and its UCCSD circuit cost is not estimated' : ''}`,

@@ -32,6 +32,8 @@ export interface TierModel {
   readonly active: { readonly electrons: number; readonly orbitals: number } | undefined;
   /** Active orbitals per irrep label, when the spec gives them. */
   readonly activeIrreps: readonly { readonly label: string; readonly count: number }[] | undefined;
+  /** The reference occupation per irrep when the spec gives it: doubly and singly occupied orbitals. */
+  readonly activeOccupation: { readonly doubly: readonly { readonly label: string; readonly count: number }[]; readonly singly: readonly { readonly label: string; readonly count: number }[] } | undefined;
   readonly frozenCore: boolean;
   readonly taper: boolean;
   readonly layers: number;
