@@ -4,30 +4,32 @@
  * computed beside the bath counted by the planning rule, and the impurity's electrons.
  */
 import { DMET_BATH_KIND, MEAN_FIELD_KIND, type DmetBathSummary, type DocumentAnalysis, type MeanFieldOutcome } from '../analysis';
-import { electronsText, perSpin, singularValuesText } from '../report/format/dmetBath';
+import { electronsText, orbitalsText, perSpin, singularValuesText } from '../report/format/dmetBath';
 
 export const BATH_HOVER_NOTE =
-  "Computed from the system's mean field (all electrons, Löwdin-orthogonalised atomic orbitals; Knizia & Chan 2012, Wouters et al. 2016): a result, not a planning estimate. Counted: the planning rule min(L, M − L, Nσ, M − Nσ) on the same orbitals, an upper bound reached when no fragment orbital is exactly occupied or empty.";
+  "Computed from the system's mean field (all electrons; Knizia & Chan 2012, Wouters et al. 2016): a result, not a planning estimate. Counted: the planning rule min(L, M − L, Nσ, M − Nσ) on the same orbitals, an upper bound reached when no fragment orbital is exactly occupied or empty.";
 
 function readySection(summary: DmetBathSummary): string {
   const s = summary;
   const rows = [
     `| bath orbitals | ${perSpin(s.alpha.bathOrbitals, s.beta.bathOrbitals)} | ${perSpin(s.alpha.countedBathOrbitals, s.beta.countedBathOrbitals)} |`,
     `| impurity orbitals | ${s.impurityOrbitals} (${s.fragmentOrbitals} fragment + bath) | ${s.fragmentOrbitals + Math.max(s.alpha.countedBathOrbitals, s.beta.countedBathOrbitals)} |`,
-    `| impurity electrons | ${electronsText(s.impurityElectrons)} | |`,
+    `| impurity electrons | ${electronsText(s.impurityElectrons)} (${perSpin(s.alpha.bathOrbitals + s.alpha.occupiedFragmentOrbitals, s.beta.bathOrbitals + s.beta.occupiedFragmentOrbitals)} per spin by the rule bath + fully occupied fragment orbitals) | ${s.alpha.countedImpurityElectrons + s.beta.countedImpurityElectrons} |`,
     `| core electrons (environment) | ${electronsText(s.coreElectrons)} | |`,
   ];
   const values = s.restricted
     ? [`Singular values σ: ${singularValuesText(s.alpha.singularValues, s.threshold)}.`]
     : [`Singular values σ (α): ${singularValuesText(s.alpha.singularValues, s.threshold)}.`, '', `Singular values σ (β): ${singularValuesText(s.beta.singularValues, s.threshold)}.`];
   return [
-    `**DMET bath (computed)** · from the system's ${s.reference.toUpperCase()} mean field · ${s.systemOrbitals} orbitals · bath where σ > ${s.threshold.toExponential(0)}`,
+    `**DMET bath (computed)** · from the system's ${s.reference.toUpperCase()} mean field · ${s.systemOrbitals} orbitals · fragment in ${orbitalsText(s)} · bath where σ > ${s.threshold.toExponential(0)}`,
     '',
     '| | computed | counted |',
     '| --- | --- | --- |',
     ...rows,
     '',
     ...values,
+    '',
+    "The DMET impurity in the planning figures above is counted, outside the frozen core when frozen core is on.",
     '',
     `_${BATH_HOVER_NOTE}_`,
   ].join('\n');

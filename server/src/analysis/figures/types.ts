@@ -23,6 +23,7 @@ export const CONVENTIONS = {
   solverCost:
     'formal scaling, floating-point operations (a multiply–add counts two) and memory of the method on the fragment: Hartree–Fock and Kohn–Sham on its basis functions, correlated methods on the active space of its problem (DMET impurity or own orbitals); leading terms with stated prefactors, 20 iterations assumed for iterative methods; time at `limits { rate }` or 100 Gflops (an assumption)',
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
+  caps: 'cut covalent bonds capped with hydrogen link atoms on the kept atom\'s side when the spec says `caps hydrogen fixed|scaled` (Field, Bash & Karplus 1990): fixed at the typical X–H length of the element (common practice), or scaled g · d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero radii (Dapprich et al. 1999); caps count in the fragment\'s formula, electrons, functions, orbitals, qubits and point group, not in its atom count',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
   fragmentSymmetry:
     "a fragment that sees its environment (embedding dmet or projection) is counted in the stabiliser of its atoms in the system's point group — the operations of the system that map the fragment onto itself (group theory of stabiliser subgroups); a fragment that stands alone (subtractive, none) in its own point group",
@@ -88,6 +89,8 @@ export interface FragmentFigures extends SpaceFigures {
   method: string | null;
   ansatz: string | null;
   mapping: string | null;
+  /** Hydrogen caps on the bonds the fragment boundary cuts; null when the fragment caps none. */
+  caps: CapFigures | null;
   /** Qubits under the fragment's mapping, tapered with `taper on` (quantum tier only). */
   qubitsRequired: number | null;
   atomIndices: number[];
@@ -126,6 +129,15 @@ export interface FragmentFigures extends SpaceFigures {
   solverCost: SolverCostFigures | null;
   notes: string[];
 }
+
+export interface CapFigures {
+  /** `fixed` or `scaled` (chemistry/capping.ts). */
+  rule: string;
+  count: number;
+  /** Each cap: the kept atom and its partner as `#n` numbers of the spec, the X–H length (Å) and the position (Å). */
+  list: { host: number; partner: number; element: string; length: number; position: [number, number, number] }[];
+}
+
 
 export interface SolverCostFigures {
   method: string;
