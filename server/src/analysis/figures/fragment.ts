@@ -131,6 +131,15 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
   if (!tier) return figures;
   const plan = tier.level === 'mean-field' ? undefined : estimates.plan(index);
   for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan, estimates, index) };
+  if (tier.activeSource === 'estimated' && tier.activeChoice && figures.active) {
+    // Counted for a suggestion before its orbitals exist: a planning estimate, and the figures say so.
+    const how = tier.activeChoice.kind === 'shells' ? 'the named shells of the free atoms (aufbau)' : 'the minimal-basis valence space';
+    figures = {
+      ...figures,
+      active: { ...figures.active, source: `estimated-${tier.activeChoice.kind}` },
+      notes: [...figures.notes, `Active space ${tier.active!.electrons}e ${tier.active!.orbitals}o counted from ${how} until the ${tier.activeChoice.kind === 'shells' ? 'projected' : 'MP2 natural'} orbitals are computed (a planning estimate).`],
+    };
+  }
   return figures;
 }
 
