@@ -12,7 +12,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { BOHR_IN_ANGSTROM } from '../server/src/chemistry/units';
 import type { FunctionKind } from '../server/src/electronic/contracts';
@@ -56,6 +56,8 @@ function input(atoms: Atom[], basis: string, kind: FunctionKind): MeanFieldInput
 
 interface Run {
   readonly seconds: number;
+  /** Processor time of this process (user + system): on a shared machine, the figure the load does not stretch. */
+  readonly cpuSeconds: number;
   /** Of which: basis, one-electron integrals and shell-pair data. */
   readonly setupSeconds: number;
   /** Of which: the J/K builds of the SCF iterations. */
@@ -71,6 +73,7 @@ interface Run {
 function ours(system: MeanFieldInput, report?: (line: string) => void): Run {
   let peak = process.memoryUsage().rss;
   const start = performance.now();
+  const cpuStart = process.cpuUsage();
   const problem = buildScfProblem(system);
   const setupSeconds = (performance.now() - start) / 1000;
   let jk = 0;
@@ -97,7 +100,8 @@ function ours(system: MeanFieldInput, report?: (line: string) => void): Run {
     },
   });
   const seconds = (performance.now() - start) / 1000;
-  return { seconds, setupSeconds, jkSeconds: jk / 1000, jkBuilds, energy: result.energy, iterations: result.iterations, functions: result.functionCount, peakRssMiB: peak / 2 ** 20, converged: result.converged };
+  const cpu = process.cpuUsage(cpuStart);
+  return { seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6, setupSeconds, jkSeconds: jk / 1000, jkBuilds, energy: result.energy, iterations: result.iterations, functions: result.functionCount, peakRssMiB: peak / 2 ** 20, converged: result.converged };
 }
 
 /** psi4's SCF (integrals included) timed inside psi4, one thread; undefined when psi4 is absent. */
@@ -136,8 +140,10 @@ export function benchScf(options: { large?: boolean } = {}): string[] {
   const lines = [
     '## Mean field (basis, integrals, SCF)',
     '',
-    '| system | functions | iterations | Tessera | of which setup / J,K builds | psi4 (pk, 1 thread) | ratio | peak RSS |',
-    '| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |',
+    `Load average at the start: ${loadavg().map((value) => value.toFixed(1)).join(', ')} (2 cores shared; wall times stretch with the load, processor times much less).`,
+    '',
+    '| system | functions | iterations | Tessera | processor time | of which setup / J,K builds | psi4 (pk, 1 thread) | ratio | peak RSS |',
+    '| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |',
   ];
   const cases: { name: string; atoms: Atom[]; basis: string; kind: FunctionKind; anchor: boolean }[] = [
     { name: 'water, cc-pVDZ', atoms: WATER, basis: 'cc-pvdz', kind: 'spherical', anchor: true },
@@ -156,7 +162,7 @@ export function benchScf(options: { large?: boolean } = {}): string[] {
     const anchor = entry.anchor ? psi4Seconds(entry.atoms, entry.basis, entry.kind === 'spherical') : undefined;
     const ratio = anchor ? (run.seconds / anchor.seconds).toFixed(2) : '—';
     const psi4 = anchor ? `${anchor.seconds.toFixed(2)} s` : entry.anchor ? 'psi4 not installed' : '—';
-    const row = `| ${entry.name} | ${run.functions} | ${run.iterations}${run.converged ? '' : ' (not converged)'} | ${run.seconds.toFixed(2)} s | ${run.setupSeconds.toFixed(2)} s / ${run.jkSeconds.toFixed(2)} s (${run.jkBuilds}) | ${psi4} | ${ratio} | ${run.peakRssMiB.toFixed(0)} MiB |`;
+    const row = `| ${entry.name} | ${run.functions} | ${run.iterations}${run.converged ? '' : ' (not converged)'} | ${run.seconds.toFixed(2)} s | ${run.cpuSeconds.toFixed(2)} s | ${run.setupSeconds.toFixed(2)} s / ${run.jkSeconds.toFixed(2)} s (${run.jkBuilds}) | ${psi4} | ${ratio} | ${run.peakRssMiB.toFixed(0)} MiB |`;
     console.error(row);
     lines.push(row);
   }
