@@ -3,9 +3,10 @@
  * matrices built straight from the integrals for several densities at once.
  *
  * Screening: |(PQ|RS)| ≤ Q_PQ Q_RS with Q_PQ = √max|(pq|pq)| (Cauchy–Schwarz; M. Häser and
- * R. Ahlrichs, J. Comput. Chem. 10, 104 (1989)); a quartet is skipped when that bound times the
- * largest density element it multiplies stays below the threshold. Pairs are visited in decreasing
- * Q so that a whole row of quartets ends at the first one below the bound.
+ * R. Ahlrichs, J. Comput. Chem. 10, 104 (1989)); a quartet's Coulomb part is skipped when that
+ * bound times the largest density element it multiplies (D_PQ, D_RS) stays below the threshold,
+ * its exchange part likewise (D_PR, D_PS, D_QR, D_QS), and the quartet when both are. Pairs are
+ * visited in decreasing Q so that a whole row of quartets ends at the first one below the bound.
  *
  * Permutational symmetry: each unique quartet (8-fold) is computed once and its contributions to
  * J and K are added with its degeneracy, then J and K are symmetrised (the scheme of the libint
@@ -279,12 +280,14 @@ function prepareBuild(basis: MolecularBasis, densities: readonly Float64Array[],
   return { blockMax, densityMax };
 }
 
-/** The largest density element a quartet's J and K contributions multiply. */
-function densityBound(blockMax: Float64Array, nShells: number, P: number, Q: number, R: number, S: number, wantJ: boolean, wantK: boolean): number {
-  let dm = 0;
-  if (wantJ) dm = Math.max(blockMax[P * nShells + Q]!, blockMax[R * nShells + S]!);
-  if (wantK) dm = Math.max(dm, blockMax[P * nShells + R]!, blockMax[P * nShells + S]!, blockMax[Q * nShells + R]!, blockMax[Q * nShells + S]!);
-  return dm;
+/** The largest density element a quartet's Coulomb contributions multiply (D_PQ, D_RS). */
+function coulombDensityBound(blockMax: Float64Array, nShells: number, P: number, Q: number, R: number, S: number): number {
+  return Math.max(blockMax[P * nShells + Q]!, blockMax[R * nShells + S]!);
+}
+
+/** The largest density element a quartet's exchange contributions multiply (D_PR, D_PS, D_QR, D_QS). */
+function exchangeDensityBound(blockMax: Float64Array, nShells: number, P: number, Q: number, R: number, S: number): number {
+  return Math.max(blockMax[P * nShells + R]!, blockMax[P * nShells + S]!, blockMax[Q * nShells + R]!, blockMax[Q * nShells + S]!);
 }
 
 /**
@@ -339,13 +342,16 @@ function buildPass(
       if (bound < visitBound) break;
       const R = pairs.pairFirst[rs]!;
       const S = pairs.pairSecond[rs]!;
-      const needed = bound * densityBound(blockMax, nShells, P, Q, R, S, wantJ, wantK) >= threshold;
+      // Coulomb and exchange are screened each by the density they multiply.
+      const neededJ = wantJ && bound * coulombDensityBound(blockMax, nShells, P, Q, R, S) >= threshold;
+      const neededK = wantK && bound * exchangeDensityBound(blockMax, nShells, P, Q, R, S) >= threshold;
+      const needed = neededJ || neededK;
       const keep = stored !== null && bound >= STORED_QUARTET_BOUND && workPQ * workPerValue[rs]! >= cutoff;
       if (keep && !filling) {
         if (needed) {
           // Stored in the engine's layout; the engine's orientation depends on the pairs only.
           engine.orient(pq, rs);
-          scatter(basis, engine.a, engine.b, engine.c, engine.d, stored, offset, densities, J, K);
+          scatter(basis, engine.a, engine.b, engine.c, engine.d, stored, offset, densities, neededJ ? J : null, neededK ? K : null);
           read++;
           used++;
           if (read % 1024 === 0) throwIfCancelled(cancel);
@@ -363,7 +369,7 @@ function buildPass(
         offset += size;
       }
       if (needed) {
-        scatter(basis, engine.a, engine.b, engine.c, engine.d, engine.result, 0, densities, J, K);
+        scatter(basis, engine.a, engine.b, engine.c, engine.d, engine.result, 0, densities, neededJ ? J : null, neededK ? K : null);
         used++;
       }
       if (computed % CANCEL_CHECK_INTERVAL === 0) throwIfCancelled(cancel);
