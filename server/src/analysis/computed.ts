@@ -7,7 +7,8 @@
  *
  * Kinds of request, each a kind of late result:
  * - `mean-field`: the SCF of one part (RHF, UHF or ROHF), with its orbitals;
- * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`).
+ * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`);
+ * - `dmet-bath`: a fragment's DMET bath from the system's mean field (under `embedding dmet`).
  * A later kind (the active-space Hamiltonian) follows the same pattern: a request that names the
  * mean-field request it builds on, receives that result's orbitals, and is keyed by both.
  */
@@ -21,6 +22,9 @@ export type { ScfReference };
 
 export const MEAN_FIELD_KIND = 'mean-field';
 export const MP2_KIND = 'mp2';
+export const DMET_BATH_KIND = 'dmet-bath';
+/** Singular values above this give bath orbitals (electronic/embedding/bath.ts says why). */
+export const DEFAULT_BATH_THRESHOLD = 1e-6;
 
 export interface MeanFieldRequest {
   readonly kind: typeof MEAN_FIELD_KIND;
@@ -39,17 +43,41 @@ export interface Mp2Request {
   readonly frozenCore: boolean;
 }
 
-export type ComputeRequest = MeanFieldRequest | Mp2Request;
+/** A fragment's DMET bath from the system's mean field. */
+export interface DmetBathRequest {
+  readonly kind: typeof DMET_BATH_KIND;
+  /** The whole system's mean field. */
+  readonly meanField: MeanFieldRequest;
+  /** The fragment's atoms: indices into the system's atoms (the spec's order). */
+  readonly fragmentAtoms: readonly number[];
+  /** Singular values above it give bath orbitals. */
+  readonly threshold: number;
+}
+
+export type ComputeRequest = MeanFieldRequest | Mp2Request | DmetBathRequest;
+
+/** Atom indices as ranges: `0-2,5`. */
+function atomRanges(atoms: readonly number[]): string {
+  const out: string[] = [];
+  for (let k = 0; k < atoms.length; ) {
+    let end = k;
+    while (end + 1 < atoms.length && atoms[end + 1] === atoms[end]! + 1) end++;
+    out.push(end > k ? `${atoms[k]}-${atoms[end]}` : `${atoms[k]}`);
+    k = end + 1;
+  }
+  return out.join(',');
+}
 
 /** The key a request's result is kept under, within its kind. */
 export function requestKey(request: ComputeRequest): string {
   if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
+  if (request.kind === DMET_BATH_KIND) return `t${request.threshold};a${atomRanges(request.fragmentAtoms)};${requestKey(request.meanField)}`;
   return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
 }
 
 /** Requests whose results a request needs before it can run. */
 export function prerequisites(request: ComputeRequest): ComputeRequest[] {
-  return request.kind === MP2_KIND ? [request.meanField] : [];
+  return request.kind === MEAN_FIELD_KIND ? [] : [request.meanField];
 }
 
 /** rhf for singlets, uhf otherwise (a tier's `method rhf|uhf|rohf` chooses instead). */
@@ -91,6 +119,40 @@ export interface Mp2Summary {
   readonly seconds: number;
 }
 
+/** One spin's Schmidt decomposition, as the bath job returns it. */
+export interface SpinBathSummary {
+  /** Singular values of the environment–fragment block of the spin's orthogonalised density, descending. */
+  readonly singularValues: readonly number[];
+  /** Singular values above the threshold. */
+  readonly bathOrbitals: number;
+  /** The counting rule min(L, M − L, Nσ, M − Nσ) on the same orbitals (chemistry/cost/dmet.ts). */
+  readonly countedBathOrbitals: number;
+  /** Electrons of the spin on fragment + bath, from the projected density. */
+  readonly impurityElectrons: number;
+  /** Fragment orbitals fully occupied (no bath partner). */
+  readonly occupiedFragmentOrbitals: number;
+  readonly idempotencyError: number;
+}
+
+/** A finished DMET bath job (electronic/embedding). */
+export interface DmetBathSummary {
+  readonly reference: ScfReference;
+  readonly orbitals: 'lowdin';
+  readonly threshold: number;
+  /** L: orthogonalised orbitals on the fragment's atoms. */
+  readonly fragmentOrbitals: number;
+  /** M: the system's orbitals (linearly independent). */
+  readonly systemOrbitals: number;
+  /** One spatial bath for both spins (RHF). */
+  readonly restricted: boolean;
+  readonly alpha: SpinBathSummary;
+  readonly beta: SpinBathSummary;
+  readonly impurityOrbitals: number;
+  readonly impurityElectrons: number;
+  readonly coreElectrons: number;
+  readonly seconds: number;
+}
+
 /**
  * One part of a spec as a candidate for computation: what it would ask for, or why it cannot. The
  * requests and keys are built when first read (a large system's key costs a pass over its atoms,
@@ -110,6 +172,9 @@ export interface PartComputation {
   /** MP2 after the mean field: RHF and UHF references only. */
   readonly mp2: Mp2Request | null;
   readonly mp2Key: string | null;
+  /** A fragment's DMET bath from the system's mean field: under `embedding dmet`, when the system can be computed. */
+  readonly bath: DmetBathRequest | null;
+  readonly bathKey: string | null;
 }
 
 /** Every part of a spec: the system first, then the fragments in spec order. */
@@ -153,6 +218,8 @@ export interface RequestOptions {
   readonly maxIterations?: number | null;
   /** Overrides the part's frozen-core setting for MP2. */
   readonly frozenCore?: boolean;
+  /** Singular values above it give DMET bath orbitals (default DEFAULT_BATH_THRESHOLD). */
+  readonly bathThreshold?: number;
 }
 
 /** What computing one part would ask for (the requests are plain data: see the file comment). */
@@ -161,6 +228,16 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
   const functions = space.basisFunctions[model.basis.functions];
   const refusal = refusalOf(model, part);
   let built: { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null } | undefined;
+  let bath: { request: DmetBathRequest; key: string } | null | undefined;
+  const buildBath = () => {
+    if (bath !== undefined) return bath;
+    bath = null;
+    if (part.kind !== 'fragment' || model.embedding !== 'dmet' || refusalOf(model, { kind: 'system' })) return bath;
+    const system = partComputation(model, { kind: 'system' }, options).meanField!;
+    const request: DmetBathRequest = { kind: DMET_BATH_KIND, meanField: system, fragmentAtoms: [...partAtoms(model, part)], threshold: options.bathThreshold ?? DEFAULT_BATH_THRESHOLD };
+    bath = { request, key: requestKey(request) };
+    return bath;
+  };
   const build = () => {
     if (built) return built;
     const inputs = partInputs(model, part);
@@ -192,6 +269,12 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
     },
     get mp2Key() {
       return refusal ? null : build().mp2Key;
+    },
+    get bath() {
+      return buildBath()?.request ?? null;
+    },
+    get bathKey() {
+      return buildBath()?.key ?? null;
     },
   };
 }

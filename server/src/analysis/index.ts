@@ -8,7 +8,9 @@ export { analyzeDocument, DocumentAnalysis, ESTIMATE_CHECKS, type AnalysisOption
 export { Estimates, SYMMETRY_ATOM_LIMIT } from './estimates';
 export { fragmentInputKey, inputKey, partAtoms, partInputs, partLabel, type PartAtom, type PartInputs, type PartRef } from './inputKey';
 export {
+  DEFAULT_BATH_THRESHOLD,
   defaultReference,
+  DMET_BATH_KIND,
   MEAN_FIELD_KIND,
   MP2_KIND,
   partComputation,
@@ -17,6 +19,8 @@ export {
   samePart,
   specParts,
   type ComputeRequest,
+  type DmetBathRequest,
+  type DmetBathSummary,
   type MeanFieldOutcome,
   type MeanFieldRequest,
   type Mp2Request,
@@ -25,6 +29,7 @@ export {
   type PartComputation,
   type RequestOptions,
   type ScfReference,
+  type SpinBathSummary,
 } from './computed';
 export { computeCost, costText, DEFAULT_MEMORY_LIMIT_BYTES, formatDuration, formatMemory, type ComputeCost } from './computeCost';
 export { LateResults, type LateResult, type LateResultChange } from './late';

@@ -34,6 +34,11 @@ Usage:
         --reference rhf|uhf|rohf   default: a tier's method, else rhf for singlets, uhf otherwise
         --max-iterations N         SCF iterations (default 100)
         --memory-limit MiB         refuse parts whose estimated need exceeds it (default 2048)
+        --bath-threshold X         under embedding dmet: singular values above X give bath
+                                   orbitals (default 1e-6)
+      Under embedding dmet each fragment also gets its DMET bath computed from the system's
+      mean field (JSON: dmetBath { bath.computed, bath.counted, singularValues,
+      impurity.electrons, coreElectrons, ... } under each fragment).
   tessera export <file.tess> --to xyz|qcschema [--out <file>]
       The geometry for other programs; standard output unless --out. A spec with errors is not
       exported (exit 1, the diagnostics on standard error).
@@ -114,6 +119,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           reference: { type: 'string' },
           'max-iterations': { type: 'string' },
           'memory-limit': { type: 'string' },
+          'bath-threshold': { type: 'string' },
           help: { type: 'boolean', short: 'h' },
         },
       });
@@ -135,6 +141,10 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       if (maxIterations !== undefined && maxIterations < 1) throw new UsageError('--max-iterations must be at least 1');
       const memoryLimit = integerOption('memory-limit', values['memory-limit']);
       if (memoryLimit !== undefined && memoryLimit < 1) throw new UsageError('--memory-limit is in MiB, at least 1');
+      const bathThreshold = values['bath-threshold'] === undefined ? undefined : Number(values['bath-threshold']);
+      if (bathThreshold !== undefined && !(bathThreshold > 0 && bathThreshold < 0.5)) {
+        throw new UsageError(`--bath-threshold must be a number between 0 and 0.5 (singular values of a spin density do not exceed 0.5); got '${values['bath-threshold']}'`);
+      }
       return runEstimate(
         {
           ...(positionals[0] ? { spec: positionals[0] } : {}),
@@ -148,6 +158,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(reference ? { reference } : {}),
           ...(maxIterations !== undefined ? { maxIterations } : {}),
           ...(memoryLimit !== undefined ? { memoryLimitMiB: memoryLimit } : {}),
+          ...(bathThreshold !== undefined ? { bathThreshold } : {}),
           format: formatOption<EstimateFormat>(values.format, ['text', 'json', 'markdown'], 'text'),
         },
         io,

@@ -3,6 +3,8 @@
  *
  * - A part (the system or a fragment) with at most `autoFunctionLimit` basis functions (default
  *   150) is computed by itself: its mean field, and MP2 after it for RHF and UHF references.
+ * - Under `embedding dmet`, whenever the system's mean field is computed, so is every fragment's
+ *   bath after it.
  * - A larger part is computed when asked for (the code lens), as long as its inputs stay the same;
  *   an edit that changes them offers it again.
  * - A part whose computation the user stopped is not started again by itself until its inputs change.
@@ -69,12 +71,16 @@ export class DocumentComputations {
     const entries: DemandEntry[] = [];
     const present = new Set<string>();
     const small = new Set<string>();
+    let systemWanted: { explicit: boolean } | null = null;
     for (const part of specParts(analysis.model)) {
       const computation = analysis.computation(part);
+      // The bath builds on the system's mean field, not the fragment's own: a fragment that cannot be computed alone still has one.
+      if (systemWanted && computation.bath) entries.push({ request: computation.bath, label: computation.label, explicit: systemWanted.explicit });
       if (computation.refusal) continue;
       if (computation.functions <= this.settings.autoFunctionLimit) small.add(computation.meanFieldKey!);
       const explicit = this.asked(uri, computation);
       if (!explicit && !this.runsByItself(uri, computation)) continue;
+      if (part.kind === 'system') systemWanted = { explicit };
       present.add(computation.meanFieldKey!);
       entries.push({ request: computation.meanField!, label: computation.label, explicit });
       if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit });

@@ -27,5 +27,7 @@ export function progressText(progress: JobProgress): string {
     }
     case 'mp2':
       return progress.total ? `MP2: ${progress.done ?? 0} of ${progress.total} occupied orbitals` : 'MP2';
+    case 'embedding':
+      return 'Schmidt decomposition of the system mean field';
   }
 }

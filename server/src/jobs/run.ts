@@ -9,13 +9,27 @@
  * - `mp2`: the mean-field result it builds on arrives as input; the integrals are built again
  *   (their shell-pair data and Schwarz factors; MP2 recomputes quartets batch by batch anyway)
  *   and MP2 runs on it (RHF: energy, density and natural orbitals; UHF: energy).
+ * - `dmet-bath`: the system's mean-field result arrives as input; the basis and its overlap are
+ *   built again and the fragment's bath is cut from the per-spin densities (electronic/embedding).
  */
-import { MP2_KIND, type ComputeRequest, type MeanFieldOutcome, type MeanFieldRequest, type Mp2Request, type Mp2Summary } from '../analysis/computed';
+import {
+  DMET_BATH_KIND,
+  MP2_KIND,
+  type ComputeRequest,
+  type DmetBathRequest,
+  type DmetBathSummary,
+  type MeanFieldOutcome,
+  type MeanFieldRequest,
+  type Mp2Request,
+  type Mp2Summary,
+} from '../analysis/computed';
+import { bathSize } from '../chemistry/cost/dmet';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
 import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
 import { mp2, unrestrictedMp2 } from '../electronic/correlation';
-import { createTwoElectronIntegrals } from '../electronic/integrals';
+import { dmetBath, spinDensity, type SpinBath } from '../electronic/embedding';
+import { createTwoElectronIntegrals, overlapMatrix } from '../electronic/integrals';
 import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
 import type { JobFailure, JobProgress } from './protocol';
 
@@ -138,8 +152,56 @@ export function runMp2(request: Mp2Request, meanField: MeanFieldOutcome, context
   };
 }
 
+export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcome, context: RunContext): DmetBathSummary {
+  const start = performance.now();
+  const { result, orbitals } = meanField;
+  if (!result.converged) {
+    throw new JobInputError({ code: 'prerequisite', message: `The DMET bath needs a converged mean field of the system; it stopped after ${result.iterations} iterations without converging.` });
+  }
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'embedding' });
+  const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
+  const n = basis.functionCount;
+  const M = orbitals.orbitalCount;
+  const alpha = spinDensity(orbitals.alpha, n, M, result.occupations.alpha);
+  const beta = result.reference === 'rhf' ? alpha : spinDensity(orbitals.beta, n, M, result.occupations.beta);
+  const bath = dmetBath({
+    overlap: overlapMatrix(basis),
+    functionCenter: basis.functionCenter,
+    density: { alpha, beta },
+    electrons: result.electrons,
+    fragmentAtoms: request.fragmentAtoms,
+    threshold: request.threshold,
+    cancel: context.cancel,
+  });
+  const L = Math.min(bath.fragmentOrbitals, M);
+  const spin = (value: SpinBath, electrons: number) => ({
+    singularValues: Array.from(value.singularValues),
+    bathOrbitals: value.bathOrbitals,
+    countedBathOrbitals: bathSize(L, M, electrons),
+    impurityElectrons: value.impurityElectrons,
+    occupiedFragmentOrbitals: value.occupiedFragmentOrbitals,
+    idempotencyError: value.idempotencyError,
+  });
+  return {
+    reference: result.reference,
+    orbitals: bath.orbitals,
+    threshold: bath.threshold,
+    fragmentOrbitals: bath.fragmentOrbitals,
+    systemOrbitals: M,
+    restricted: bath.restricted,
+    alpha: spin(bath.alpha, result.electrons.alpha),
+    beta: spin(bath.beta, result.electrons.beta),
+    impurityOrbitals: bath.impurityOrbitals,
+    impurityElectrons: bath.impurityElectrons,
+    coreElectrons: bath.coreElectrons,
+    seconds: (performance.now() - start) / 1000,
+  };
+}
+
 /** Runs any request, given the results of its prerequisites (in the order `prerequisites` lists them). */
-export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary {
+export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | DmetBathSummary {
   if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
+  if (request.kind === DMET_BATH_KIND) return runDmetBath(request, inputs[0] as MeanFieldOutcome, context);
   return runMeanField(request, context);
 }

@@ -6,7 +6,7 @@
  * (`tessera/levels`). Nothing here waits for a job.
  */
 import type { Connection, WorkDoneProgressServerReporter } from 'vscode-languageserver/node';
-import { MEAN_FIELD_KIND, MP2_KIND, requestKey, type AnalysisHost, type DocumentAnalysis } from '../analysis';
+import { DMET_BATH_KIND, MEAN_FIELD_KIND, MP2_KIND, requestKey, type AnalysisHost, type DocumentAnalysis } from '../analysis';
 import { DEFAULT_AUTO_FUNCTION_LIMIT, DocumentComputations, JobQueue, type JobEvent } from '../jobs';
 import * as service from '../services';
 
@@ -120,7 +120,7 @@ export class ServerComputations {
     try {
       switch (event.type) {
         case 'started': {
-          const what = event.job.kind === MP2_KIND ? 'MP2' : 'mean field';
+          const what = event.job.kind === MP2_KIND ? 'MP2' : event.job.kind === DMET_BATH_KIND ? 'DMET bath' : 'mean field';
           const reporter = this.connection.window.createWorkDoneProgress().then((created) => {
             created.begin(`Tessera: ${what} of ${event.job.label}`, undefined, 'starting', true);
             created.token.onCancellationRequested(() => this.stopFromEditor(event.job.request));

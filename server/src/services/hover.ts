@@ -32,6 +32,7 @@ import {
 } from '../language/vocabulary';
 import { fragmentCard } from './cards';
 import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './computed';
+import { bathSection } from './computedBath';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
@@ -234,7 +235,8 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
     const fragment = analysis.model.fragments.find((f) => f.ast.name?.span.start === token.node.span.start);
     if (fragment) {
       const part = { kind: 'fragment', index: fragment.index } as const;
-      return markdown(`${fragmentCard(analysis, fragment.index)}\n\n---\n\n${meanFieldSection(analysis, part, policy)}`, analysis, token.node);
+      const bath = bathSection(analysis, fragment.index);
+      return markdown(`${fragmentCard(analysis, fragment.index)}\n\n---\n\n${meanFieldSection(analysis, part, policy)}${bath ? `\n\n---\n\n${bath}` : ''}`, analysis, token.node);
     }
   }
   if (context.block === 'top' && keywordText === 'basis' && token.index === 0) {

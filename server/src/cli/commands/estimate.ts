@@ -11,6 +11,7 @@ import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
 import type { ScfReference } from '../../analysis';
+import { bathJson, renderBathMarkdown, renderBathText, type BathPart } from '../../report/format/dmetBath';
 import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { computeMeanFields } from './meanField';
@@ -33,6 +34,8 @@ export interface EstimateOptions {
   reference?: ScfReference;
   maxIterations?: number;
   memoryLimitMiB?: number;
+  /** Singular values above it give DMET bath orbitals (with --mean-field under embedding dmet). */
+  bathThreshold?: number;
 }
 
 interface Prepared {
@@ -110,11 +113,25 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
   return { analysis, file, diagnostics };
 }
 
+/** The fragments that have a DMET bath (computed or failed). */
+function bathParts(parts: readonly MeanFieldPart[]): BathPart[] {
+  return parts.flatMap((part) => (part.bath ? [{ label: part.label, bath: part.bath }] : []));
+}
+
+/** `dmetBath` for a fragment's JSON, when the spec uses DMET. */
+function bathJsonOf(part: MeanFieldPart): { dmetBath?: Record<string, unknown> } {
+  return part.bath ? { dmetBath: bathJson(part.bath) } : {};
+}
+
 /** Why the command ends with errors because of the computed parts: failures and non-convergence count. */
 function meanFieldTrouble(parts: readonly MeanFieldPart[]): { errors: number; internal: boolean } {
   let errors = 0;
   let internal = false;
-  for (const { result } of parts) {
+  for (const { result, bath } of parts) {
+    if (bath?.state === 'failed') {
+      errors++;
+      if (bath.code === 'internal' || bath.code === 'worker') internal = true;
+    }
     if (result.state === 'failed') {
       errors++;
       if (result.code === 'internal' || result.code === 'worker') internal = true;
@@ -129,8 +146,8 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (options.spec && (options.basis || options.charge !== undefined || options.multiplicity !== undefined || options.functions)) {
     throw new UsageError('--basis, --charge, --multiplicity and --functions go with --xyz; a spec sets them itself');
   }
-  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined)) {
-    throw new UsageError('--reference, --max-iterations and --memory-limit go with --mean-field');
+  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.bathThreshold !== undefined)) {
+    throw new UsageError('--reference, --max-iterations, --memory-limit and --bath-threshold go with --mean-field');
   }
   const prepared = options.spec ? prepareSpec(options.spec, io) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
@@ -143,6 +160,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
           ...(options.reference ? { reference: options.reference } : {}),
           ...(options.maxIterations !== undefined ? { maxIterations: options.maxIterations } : {}),
           ...(options.memoryLimitMiB !== undefined ? { memoryLimitBytes: options.memoryLimitMiB * 2 ** 20 } : {}),
+          ...(options.bathThreshold !== undefined ? { bathThreshold: options.bathThreshold } : {}),
         },
         io,
       )
@@ -150,12 +168,14 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   const parts = run?.parts;
   if (options.format === 'json') {
     const json = parts
-      ? { ...report, system: { ...report.system, meanField: meanFieldJson(parts[0]!.result) }, fragments: report.fragments.map((fragment, k) => ({ ...fragment, meanField: meanFieldJson(parts[k + 1]!.result) })) }
+      ? { ...report, system: { ...report.system, meanField: meanFieldJson(parts[0]!.result) }, fragments: report.fragments.map((fragment, k) => ({ ...fragment, meanField: meanFieldJson(parts[k + 1]!.result), ...bathJsonOf(parts[k + 1]!) })) }
       : report;
     io.stdout(`${safeJsonStringify({ ...json, diagnostics: { ...report.diagnostics, errors, items: prepared.diagnostics } }, 2)}\n`);
   } else {
     io.stdout(options.format === 'markdown' ? renderEstimateMarkdown(report, { level: 2 }) : renderEstimateText(report));
     if (parts) io.stdout(options.format === 'markdown' ? `\n${renderMeanFieldMarkdown(parts)}` : `\n${renderMeanFieldText(parts)}`);
+    const baths = parts ? bathParts(parts) : [];
+    if (baths.length > 0) io.stdout(options.format === 'markdown' ? `\n${renderBathMarkdown(baths)}` : `\n${renderBathText(baths)}`);
     for (const diagnostic of prepared.diagnostics) {
       const line = diagnostic.line > 0 ? formatDiagnosticLine(diagnostic) : `${diagnostic.file}: ${diagnostic.severity} ${diagnostic.code} ${diagnostic.message}`;
       io.stderr(`${line}\n`);
@@ -164,7 +184,8 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (errors > 0 && options.format !== 'json') io.stderr(`tessera: ${errors} error${errors === 1 ? '' : 's'}: the figures above may be incomplete.\n`);
   const trouble = parts ? meanFieldTrouble(parts) : { errors: 0, internal: false };
   if (trouble.errors > 0) {
-    for (const { label, result } of parts!) {
+    for (const { label, result, bath } of parts!) {
+      if (bath?.state === 'failed') io.stderr(`tessera: ${label}: DMET bath not computed: ${bath.message}\n`);
       if (result.state === 'failed') io.stderr(`tessera: ${label}: mean field not computed: ${result.message}\n`);
       else if (!result.outcome.result.converged) io.stderr(`tessera: ${label}: the SCF did not converge in ${result.outcome.result.iterations} iterations (last energy ${result.outcome.result.energy.toFixed(6)} Ha, not a result)\n`);
     }

@@ -3,6 +3,7 @@
  * system and every fragment, computed through the jobs layer exactly as the editor computes it:
  * the same requests (analysis/computed.ts), the same queue and worker thread. Progress goes to
  * standard error for jobs that take a while; an interrupt (Ctrl+C) cancels the running job.
+ * Under `embedding dmet` each fragment's bath is computed after the system's mean field.
  */
 import {
   LateResults,
@@ -11,10 +12,13 @@ import {
   type DocumentAnalysis,
   type LateResult,
   type MeanFieldOutcome,
+  type DmetBathRequest,
+  type DmetBathSummary,
   type Mp2Summary,
   type RequestOptions,
 } from '../../analysis';
 import { JobQueue, type DemandEntry, type JobEvent } from '../../jobs';
+import type { PartBath } from '../../report/format/dmetBath';
 import type { MeanFieldPart, PartMeanField } from '../../report/format/meanField';
 import type { CliIo } from '../io';
 
@@ -40,7 +44,7 @@ function progressPrinter(io: CliIo): (event: JobEvent) => void {
   return (event) => {
     const id = event.job.id;
     const now = performance.now();
-    const what = `${event.job.kind === 'mp2' ? 'MP2' : 'mean field'} of ${event.job.label}`;
+    const what = `${event.job.kind === 'mp2' ? 'MP2' : event.job.kind === 'dmet-bath' ? 'DMET bath' : 'mean field'} of ${event.job.label}`;
     switch (event.type) {
       case 'started':
         started.set(id, now);
@@ -69,6 +73,11 @@ function failed(result: LateResult<unknown>, interrupted: boolean): { code: stri
     : { code: 'cancelled', message: 'The computation stopped without a result.' };
 }
 
+async function bathOf(queue: JobQueue, request: DmetBathRequest, interrupted: () => boolean): Promise<PartBath> {
+  const settled = await queue.whenSettled(request);
+  return settled.state === 'ready' ? { state: 'computed', summary: settled.value as DmetBathSummary } : { state: 'failed', ...failed(settled, interrupted()) };
+}
+
 export async function computeMeanFields(analysis: DocumentAnalysis, options: MeanFieldOptions, io: CliIo): Promise<MeanFieldRun> {
   const store = new LateResults();
   const queue = new JobQueue(store, { workers: options.workers ?? 1, ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}) });
@@ -80,6 +89,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     entries.push({ request: computation.meanField!, label: computation.label, explicit: true });
     if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit: true });
   }
+  for (const computation of computations) if (computation.bath) entries.push({ request: computation.bath, label: computation.label, explicit: true });
   let interrupted = false;
   const stopListening = io.onInterrupt?.(() => {
     interrupted = true;
@@ -89,8 +99,9 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     queue.setDemand('cli', entries);
     const parts: MeanFieldPart[] = [];
     for (const computation of computations) {
+      const bath = computation.bath ? await bathOf(queue, computation.bath, () => interrupted) : undefined;
       if (computation.refusal) {
-        parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` } });
+        parts.push({ label: computation.label, result: { state: 'failed', reference: null, code: 'refused', message: `${computation.refusal}.` }, ...(bath ? { bath } : {}) });
         continue;
       }
       const request = computation.meanField!;
@@ -107,7 +118,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
       } else {
         result = { state: 'failed', reference: request.reference, ...failed(settled, interrupted) };
       }
-      parts.push({ label: computation.label, result });
+      parts.push({ label: computation.label, result, ...(bath ? { bath } : {}) });
     }
     return { parts, interrupted };
   } finally {

@@ -2,3 +2,4 @@
 export * from './dense';
 export * from './eigen';
 export * from './orthogonalize';
+export * from './singular';

@@ -4,6 +4,7 @@
  * results of a calculation, not planning estimates, and the output says so.
  */
 import type { MeanFieldOutcome, Mp2Summary, ScfReference } from '../../analysis';
+import type { PartBath } from './dmetBath';
 import { markdownText, plainText } from './escape';
 import { renderMarkdownTable, renderTextTable, type Table } from './table';
 
@@ -16,6 +17,8 @@ export interface MeanFieldPart {
   /** `system` or `fragment <name>`. */
   readonly label: string;
   readonly result: PartMeanField;
+  /** A fragment's DMET bath from the system's mean field (only under `embedding dmet`). */
+  readonly bath?: PartBath;
 }
 
 export const COMPUTED_RESULTS_NOTE =
