@@ -3,7 +3,7 @@
  * same figure wherever it is shown.
  */
 import { describe, expect, it, vi } from 'vitest';
-import { analyzeDocument, SYMMETRY_ATOM_LIMIT } from '../../server/src/analysis';
+import { analyzeDocument, countText, SYMMETRY_ATOM_LIMIT } from '../../server/src/analysis';
 import { countBySymmetry } from '../../server/src/chemistry/estimate/pauliTerms';
 import { doHover, getCodeLenses, getInlayHints } from '../../server/src/services';
 import { WATER_LINES } from '../fixtures/water';
@@ -98,5 +98,22 @@ describe('one symmetry size policy for checks and figures', () => {
     expect(report.system.pointGroup).toBeNull();
     expect(report.fragments[0]!.pointGroup).toBeNull();
     expect(report.conventions.pointGroup).toContain(`${SYMMETRY_ATOM_LIMIT} atoms`);
+  });
+});
+
+describe('figures beyond 2^53', () => {
+  it('show the magnitude and keep the exact digits, never a double with false digits', () => {
+    // 2,000 helium atoms in cc-pVDZ (5 functions each: 2s1p, Dunning 1989) are 10,000 active
+    // orbitals without frozen core; over the symmetry limit, so counted in C1: 14,999,000,250,000,001
+    // Pauli terms by the closed form (tests/chemistry/estimate/pauliTerms.test.ts).
+    const atoms = Array.from({ length: 2000 }, (_, i) => `  He ${(i % 20) * 3} ${(Math.floor(i / 20) % 10) * 3} ${Math.floor(i / 200) * 3}`);
+    const analysis = analyzeDocument(`basis cc-pVDZ\nstructure {\n${atoms.join('\n')}\n}\nfragment all { atoms rest; tier mean-field { method rhf } }\n`);
+    const report = analysis.report();
+    expect(report.system.active.orbitals).toBe(10_000);
+    const terms = report.system.pauliTerms!.jordanWigner;
+    expect(typeof terms).toBe('object');
+    expect(terms).toMatchObject({ exact: '14999000250000001', text: '1.50 × 10^16' });
+    expect(countText(terms)).toBe('1.50 × 10^16');
+    expect(JSON.stringify(report)).not.toContain('14999000250000000');
   });
 });

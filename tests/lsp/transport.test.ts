@@ -7,7 +7,7 @@ import { spawn } from 'node:child_process';
 import * as path from 'node:path';
 import { PassThrough } from 'node:stream';
 import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { ErrorCodes, type Message, type MessageWriter } from 'vscode-languageserver/node';
 import { FramedStreamReader, LifecycleGate, MAX_MESSAGE_BYTES, type Malformed } from '../../server/src/lsp/transport';
 import { ROOT } from './client';
@@ -80,6 +80,22 @@ describe('FramedStreamReader', () => {
     expect(problems.map((p) => p.code)).toEqual([ErrorCodes.InvalidRequest]);
     expect(problems[0]!.message).toContain('a message of 67,108,865 bytes is larger than the 67,108,864 bytes the server accepts');
     expect(received).toEqual([HOVER(6)]);
+  });
+
+  it('joins the chunks of a long body once, when it is whole: copying grows with the message, not its square', () => {
+    const { reader, received } = reading();
+    const big = { jsonrpc: '2.0', method: 'textDocument/didOpen', params: { text: 'x'.repeat(4 * 1024 * 1024) } };
+    const bytes = Buffer.concat([frame(big), frame(HOVER(8))]);
+    const concat = vi.spyOn(Buffer, 'concat');
+    try {
+      for (let at = 0; at < bytes.length; at += 64 * 1024) reader.receive(bytes.subarray(at, at + 64 * 1024));
+      // 65 chunks of 64 KiB: joining at every chunk would copy about 65²/2 × 64 KiB ≈ 135 MB.
+      const copied = concat.mock.calls.reduce((sum, [list]) => sum + (list as Buffer[]).reduce((bytesIn, part) => bytesIn + part.length, 0), 0);
+      expect(copied).toBeLessThan(2 * bytes.length);
+    } finally {
+      concat.mockRestore();
+    }
+    expect(received).toEqual([big, HOVER(8)]);
   });
 
   it('garbage without any header end is dropped after 8 KiB, and reading resumes', () => {

@@ -25,8 +25,13 @@ export function qubitCounts(spatialOrbitals: number): QubitCounts {
 /** The key under which per-mapping figures are stored (`jordanWigner`, `bravyiKitaev`, `parity`). */
 export type MappingKey = keyof QubitCounts;
 
+const MAPPING_KEYS: Readonly<Record<Mapping, MappingKey>> = { 'jordan-wigner': 'jordanWigner', 'bravyi-kitaev': 'bravyiKitaev', parity: 'parity' };
+
+/** Throws on a name that is not a mapping: no figure is ever filed under another mapping's key. */
 export function mappingKey(mapping: Mapping): MappingKey {
-  return mapping === 'jordan-wigner' ? 'jordanWigner' : mapping === 'bravyi-kitaev' ? 'bravyiKitaev' : 'parity';
+  const key = Object.hasOwn(MAPPING_KEYS, mapping) ? MAPPING_KEYS[mapping] : undefined;
+  if (key === undefined) throw new RangeError(`'${String(mapping)}' is not a fermion-to-qubit mapping (${MAPPINGS.join(', ')})`);
+  return key;
 }
 
 export function qubitsUnder(mapping: Mapping, spatialOrbitals: number): number {

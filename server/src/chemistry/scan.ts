@@ -15,20 +15,31 @@ export interface ScanFrame {
  * everything else stays. Throws when the two atoms coincide, since the direction is then undefined.
  */
 export function scanFrames(coordinates: Float64Array, first: number, second: number, moving: readonly number[], distances: readonly number[]): ScanFrame[] {
+  return [...eachScanFrame(coordinates, first, second, moving, distances)];
+}
+
+/**
+ * The same frames one at a time, each made when it is asked for: a scan of many points over many
+ * atoms is written out with one frame in memory (exports stream them). Throws as scanFrames does,
+ * before the first frame.
+ */
+export function eachScanFrame(coordinates: Float64Array, first: number, second: number, moving: readonly number[], distances: readonly number[]): Iterable<ScanFrame> {
   const dx = coordinates[3 * second]! - coordinates[3 * first]!;
   const dy = coordinates[3 * second + 1]! - coordinates[3 * first + 1]!;
   const dz = coordinates[3 * second + 2]! - coordinates[3 * first + 2]!;
   const current = Math.hypot(dx, dy, dz);
   if (current === 0) throw new RangeError('The two scanned atoms sit on the same point, so the scan has no direction.');
   const unit = [dx / current, dy / current, dz / current];
-  return distances.map((distance) => {
-    const frame = Float64Array.from(coordinates);
-    const shift = distance - current;
-    for (const atom of moving) {
-      for (let k = 0; k < 3; k++) frame[3 * atom + k] = coordinates[3 * atom + k]! + shift * unit[k]!;
+  return (function* frames(): Generator<ScanFrame> {
+    for (const distance of distances) {
+      const frame = Float64Array.from(coordinates);
+      const shift = distance - current;
+      for (const atom of moving) {
+        for (let k = 0; k < 3; k++) frame[3 * atom + k] = coordinates[3 * atom + k]! + shift * unit[k]!;
+      }
+      yield { distance, coordinates: frame };
     }
-    return { distance, coordinates: frame };
-  });
+  })();
 }
 
 /**

@@ -10,6 +10,11 @@ export const EXIT_USAGE = 2;
  * could not finish); in a batch the other files were still checked.
  */
 export const EXIT_INTERNAL = 3;
+/**
+ * Standard output was closed before everything was written (a pipe into `head`, for example): the
+ * command stops quietly, with the code a shell gives a process ended by SIGPIPE (128 + 13).
+ */
+export const EXIT_BROKEN_PIPE = 141;
 /** An interrupt (Ctrl+C) cancelled a computation before it finished (128 + SIGINT, as shells report it). */
 export const EXIT_INTERRUPTED = 130;
 
@@ -29,6 +34,8 @@ export interface CliIo {
    * it again. Only computations ask for it, so that an interrupt ends every other command as usual.
    */
   onInterrupt?(handler: () => void): () => void;
+  /** Resolves when standard output has taken what was written so far (streamed exports wait on it). */
+  drained?(): Promise<void>;
 }
 
 export class UsageError extends Error {}

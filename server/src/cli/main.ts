@@ -10,9 +10,11 @@ import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
 import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
 import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
-import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
+import { EXIT_BROKEN_PIPE, EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
 import { describeFailure } from './output';
 import { VERSION } from './version';
+import { MAPPINGS, type Mapping } from '../chemistry/qubits';
+import type { SpecSettings } from './specFile';
 
 export const USAGE = `tessera ${VERSION}: plan fragment-based hybrid quantum-classical calculations
 
@@ -62,10 +64,16 @@ Usage:
 Options:
   -h, --help       this text
   -v, --version    the version
+  --mapping jordan-wigner|bravyi-kitaev|parity
+                   check, estimate, export, report: the mapping of quantum tiers that name none,
+                   as the editor's tessera.defaultMapping (default jordan-wigner)
+  --qubit-limit N  check, estimate, export, report: the qubit limit of specs without
+                   limits { qubits N }, as the editor's tessera.qubitLimit (default none)
 
 Exit codes: 0 no errors; 1 errors found, or a mean field refused, failed or not converged;
 2 bad usage, or a file that cannot be read or written; 3 Tessera itself failed on a file (a bug;
-the other files of a batch are still checked); 130 interrupted (Ctrl+C) during --mean-field.
+the other files of a batch are still checked); 130 interrupted (Ctrl+C) during --mean-field;
+141 standard output closed early (for example piped into head): the command stops quietly.
 All figures are planning estimates, not results of a calculation, except the mean-field results,
 which are computed and say so.
 `;
@@ -74,6 +82,18 @@ function formatOption<T extends string>(value: string | undefined, allowed: read
   if (value === undefined) return fallback;
   if ((allowed as readonly string[]).includes(value)) return value as T;
   throw new UsageError(`--format must be one of ${allowed.join(', ')}; got '${value}'`);
+}
+
+/** `--mapping` and `--qubit-limit`, taken by every command that reads a spec. */
+const SETTING_OPTIONS = { mapping: { type: 'string' }, 'qubit-limit': { type: 'string' } } as const;
+
+/** The editor's settings from `--mapping` and `--qubit-limit` (tessera.defaultMapping, tessera.qubitLimit). */
+function settingsOption(values: { mapping?: string | undefined; 'qubit-limit'?: string | undefined }): SpecSettings {
+  const mapping = values.mapping;
+  if (mapping !== undefined && !(MAPPINGS as readonly string[]).includes(mapping)) throw new UsageError(`--mapping must be one of ${MAPPINGS.join(', ')}; got '${mapping}'`);
+  const limit = integerOption('qubit-limit', values['qubit-limit']);
+  if (limit !== undefined && limit < 1) throw new UsageError('--qubit-limit must be at least 1');
+  return { ...(mapping !== undefined ? { defaultMapping: mapping as Mapping } : {}), ...(limit !== undefined ? { defaultQubitLimit: limit } : {}) };
 }
 
 function integerOption(name: string, value: string | undefined): number | undefined {
@@ -95,12 +115,12 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
   }
   switch (command) {
     case 'check': {
-      const { values, positionals } = parseArgs({ args: rest, allowPositionals: true, strict: true, options: { format: { type: 'string' }, help: { type: 'boolean', short: 'h' } } });
+      const { values, positionals } = parseArgs({ args: rest, allowPositionals: true, strict: true, options: { format: { type: 'string' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } } });
       if (values.help) {
         io.stdout(USAGE);
         return EXIT_OK;
       }
-      return runCheck({ files: positionals, format: formatOption(values.format, ['text', 'json'] as const, 'text') }, io);
+      return runCheck({ files: positionals, format: formatOption(values.format, ['text', 'json'] as const, 'text'), settings: settingsOption(values) }, io);
     }
     case 'estimate': {
       const { values, positionals } = parseArgs({
@@ -119,6 +139,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           reference: { type: 'string' },
           'max-iterations': { type: 'string' },
           'memory-limit': { type: 'string' },
+          ...SETTING_OPTIONS,
           'bath-threshold': { type: 'string' },
           help: { type: 'boolean', short: 'h' },
         },
@@ -160,6 +181,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(memoryLimit !== undefined ? { memoryLimitMiB: memoryLimit } : {}),
           ...(bathThreshold !== undefined ? { bathThreshold } : {}),
           format: formatOption<EstimateFormat>(values.format, ['text', 'json', 'markdown'], 'text'),
+          settings: settingsOption(values),
         },
         io,
       );
@@ -169,7 +191,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         args: rest,
         allowPositionals: true,
         strict: true,
-        options: { to: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+        options: { to: { type: 'string' }, out: { type: 'string' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } },
       });
       if (values.help) {
         io.stdout(USAGE);
@@ -183,6 +205,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),
           ...(to !== undefined ? { to: to as ExportTarget } : {}),
           ...(values.out !== undefined ? { out: values.out } : {}),
+          settings: settingsOption(values),
         },
         io,
       );
@@ -192,7 +215,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         args: rest,
         allowPositionals: true,
         strict: true,
-        options: { format: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+        options: { format: { type: 'string' }, out: { type: 'string' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } },
       });
       if (values.help) {
         io.stdout(USAGE);
@@ -204,6 +227,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),
           format: formatOption<ReportFormat>(values.format, REPORT_FORMATS, 'markdown'),
           ...(values.out !== undefined ? { out: values.out } : {}),
+          settings: settingsOption(values),
         },
         io,
       );
@@ -240,8 +264,22 @@ export async function runCli(argv: string[], raw: CliIo): Promise<number> {
 
 /** Entry of the `tessera` executable. */
 export function main(): void {
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    // `tessera estimate … | head`: the reader has what it wanted; stop without a stack trace.
+    if (error.code === 'EPIPE') process.exit(EXIT_BROKEN_PIPE);
+    process.stderr.write(`tessera: cannot write to standard output: ${error.message}\n`);
+    process.exit(EXIT_USAGE);
+  });
   const io: CliIo = {
     stdout: (text) => process.stdout.write(text),
+    // After each chunk of a streamed output: wait for a full pipe to drain, and let I/O events (such
+    // as the EPIPE above) through; a closed standard output never resumes the stream.
+    drained: () =>
+      new Promise<void>((resolve) => {
+        if (process.stdout.destroyed) return;
+        if (process.stdout.writableNeedDrain) process.stdout.once('drain', () => resolve());
+        else setImmediate(resolve);
+      }),
     stderr: (text) => process.stderr.write(text),
     cwd: process.cwd(),
     onInterrupt: (handler) => {

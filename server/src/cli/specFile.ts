@@ -2,6 +2,7 @@
 import * as path from 'node:path';
 import { readTextFile } from '../language/files';
 import { analyzeDocument, type DocumentAnalysis } from '../analysis';
+import type { Mapping } from '../chemistry/qubits';
 import { UsageError, type CliIo } from './io';
 import { OutputError, resolveOutputTarget, writeOutputFile, type OutputContent, type ProtectedFile } from './outputFile';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from './output';
@@ -14,17 +15,35 @@ export interface LoadedSpec {
   readonly errors: number;
 }
 
-/** Reads and analyses a spec; prints why and returns undefined when the file cannot be read. */
-export function loadSpec(file: string, io: CliIo): LoadedSpec | undefined {
+/**
+ * The editor's settings on the command line (`--mapping`, `--qubit-limit`): the same options the
+ * language server passes for `tessera.defaultMapping` and `tessera.qubitLimit`, so that a command
+ * shows what the editor shows.
+ */
+export interface SpecSettings {
+  readonly defaultMapping?: Mapping;
+  readonly defaultQubitLimit?: number;
+}
+
+/** A spec read and analysed, or why it could not be read. */
+export type SpecReading = { readonly ok: true; readonly spec: LoadedSpec } | { readonly ok: false; readonly reason: string };
+
+/** Reads and analyses a spec with the given settings; every command reads its specs here. */
+export function readSpec(file: string, io: Pick<CliIo, 'cwd'>, settings: SpecSettings = {}): SpecReading {
   const absolute = path.resolve(io.cwd, file);
   const read = readTextFile(absolute);
-  if (!read.ok) {
-    io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
-    return undefined;
-  }
-  const analysis = analyzeDocument(read.text, { path: absolute });
+  if (!read.ok) return { ok: false, reason: `cannot read ${file}: ${read.reason}` };
+  const analysis = analyzeDocument(read.text, { path: absolute, ...settings });
   const diagnostics = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
-  return { file, absolute, analysis, diagnostics, errors: diagnostics.filter((d) => d.severity === 'error').length };
+  return { ok: true, spec: { file, absolute, analysis, diagnostics, errors: diagnostics.filter((d) => d.severity === 'error').length } };
+}
+
+/** Reads and analyses a spec; prints why and returns undefined when the file cannot be read. */
+export function loadSpec(file: string, io: CliIo, settings: SpecSettings = {}): LoadedSpec | undefined {
+  const reading = readSpec(file, io, settings);
+  if (reading.ok) return reading.spec;
+  io.stderr(`tessera: ${reading.reason}\n`);
+  return undefined;
 }
 
 /** Prints every diagnostic as `file:line:col: severity code message` on standard error. */
@@ -73,7 +92,13 @@ export async function writeOutput(content: OutputContent, out: string | undefine
   if (out === undefined) {
     if (typeof content === 'string') io.stdout(content);
     else if (content instanceof Uint8Array) io.stdout(Buffer.from(content).toString('utf8'));
-    else for await (const chunk of content) io.stdout(typeof chunk === 'string' ? chunk : Buffer.from(chunk).toString('utf8'));
+    else {
+      for await (const chunk of content) {
+        io.stdout(typeof chunk === 'string' ? chunk : Buffer.from(chunk).toString('utf8'));
+        // A reader slower than the export (a pipe, a terminal) holds it back: memory stays bounded.
+        await io.drained?.();
+      }
+    }
     return true;
   }
   try {

@@ -52,7 +52,7 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
   { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
-  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
+  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  … points <n>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
   { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
   { name: 'qubits', blocks: ['limits'], syntax: 'qubits <n>', summary: 'Largest number of qubits a quantum-tier fragment may need.' },
   { name: 'memory', blocks: ['limits'], syntax: 'memory <size> B|KiB|MiB|GiB|TiB', summary: 'Classical memory available, for example to a statevector simulator.' },
@@ -167,4 +167,9 @@ export function methodsForTier(tier: TierLevel): (TermInfo & { readonly tier: Ti
 
 export function findTerm(terms: readonly TermInfo[], name: string): TermInfo | undefined {
   return terms.find((term) => term.name === name);
+}
+
+/** The words of a term list as usage strings write them: `a|b|c`. */
+export function choices(terms: readonly TermInfo[]): string {
+  return terms.map((term) => term.name).join('|');
 }

@@ -61,6 +61,15 @@ function indexOfCaseless(haystack: Buffer, needle: Buffer, from: number): number
 
 export class FramedStreamReader extends AbstractMessageReader implements MessageReader {
   private buffer: Buffer = Buffer.alloc(0);
+  /**
+   * Chunks not yet joined to `buffer`, and their bytes: while a long body arrives they are only
+   * collected and joined once it is whole, so a message of n bytes costs O(n) copying, not O(n²)
+   * (a 50 MB document took a minute when every 64 KiB chunk copied all before it).
+   */
+  private chunks: Buffer[] = [];
+  private pending = 0;
+  /** Bytes `buffer` must hold before reading it again is worth it (the end of the body awaited). */
+  private needed = 0;
   /** Looking for the next `Content-Length` after input that could not be read; bytes skipped so far. */
   private hunting: number | undefined;
   private callback: DataCallback | undefined;
@@ -92,7 +101,13 @@ export class FramedStreamReader extends AbstractMessageReader implements Message
 
   /** Takes in bytes and hands on every complete message; public for tests. */
   receive(chunk: Buffer): void {
-    this.buffer = this.buffer.length === 0 ? chunk : Buffer.concat([this.buffer, chunk]);
+    this.chunks.push(chunk);
+    this.pending += chunk.length;
+    if (this.buffer.length + this.pending < this.needed) return;
+    this.buffer = this.buffer.length === 0 && this.chunks.length === 1 ? chunk : Buffer.concat([this.buffer, ...this.chunks]);
+    this.chunks = [];
+    this.pending = 0;
+    this.needed = 0;
     for (;;) {
       if (this.hunting !== undefined && !this.hunt()) return;
       const headerEnd = this.buffer.indexOf(HEADER_END);
@@ -113,7 +128,10 @@ export class FramedStreamReader extends AbstractMessageReader implements Message
         this.startHunting(ErrorCodes.InvalidRequest, `a message of ${length.toLocaleString('en-US')} bytes is larger than the ${MAX_MESSAGE_BYTES.toLocaleString('en-US')} bytes the server accepts`, bodyStart);
         continue;
       }
-      if (this.buffer.length < bodyStart + length) return;
+      if (this.buffer.length < bodyStart + length) {
+        this.needed = bodyStart + length;
+        return;
+      }
       const body = this.buffer.toString('utf8', bodyStart, bodyStart + length);
       this.buffer = this.buffer.subarray(bodyStart + length);
       this.deliver(body, bodyStart + length);

@@ -4,7 +4,7 @@
  * Plain SVG with presentation attributes only (no scripts, no style attributes), so that it embeds
  * in HTML reports and in a webview with a strict content-security policy.
  */
-import type { EstimateReport } from '../analysis';
+import { countValue, type EstimateReport } from '../analysis';
 import { escapeHtml } from './format/escape';
 import type { GrowthPoint } from '../analysis';
 
@@ -158,12 +158,13 @@ export function scanChartSvg(report: EstimateReport): string {
   const scan = report.scan;
   if (!scan || scan.points === 0) return emptyChart(title, 'This spec has no scan.');
   const perPointCalculations = scan.totals.fragmentCalculations / scan.points;
-  const perPointCircuits = scan.totals.measurementCircuits / scan.points;
+  const circuits = countValue(scan.totals.measurementCircuits);
+  const perPointCircuits = circuits / scan.points;
   const f = frame();
   const low = scan.distances.reduce((least, d) => Math.min(least, d), Infinity);
   const span = scan.distances.reduce((most, d) => Math.max(most, d), -Infinity) - low || 1;
   const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - low)) / span;
-  const ticks = niceTicks(Math.max(scan.totals.measurementCircuits, 1));
+  const ticks = niceTicks(Math.max(circuits, 1));
   const yTop = ticks[ticks.length - 1]!;
   const toY = (value: number) => f.y0 - ((f.y0 - f.y1) * value) / yTop;
   const cumulative = scan.distances.map((distance, k) => [toX(distance), toY((k + 1) * perPointCircuits)] as [number, number]);

@@ -4,7 +4,7 @@
  * asks for its own fragment's figures only.
  */
 import { markdownText } from '../report/format/escape';
-import { CONVENTIONS, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
+import { CONVENTIONS, countText, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
 
 function signed(value: number): string {
   return value > 0 ? `+${value}` : String(value);
@@ -69,13 +69,16 @@ function planRows(fragment: FragmentFigures, limit: number | null): string[] {
   if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
   if (fragment.qubits.tapered !== null) rows.push(`| tapered | ${fragment.qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
   if (fragment.qubitsRequired !== null) rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${fragment.qubitsRequired === fragment.qubits.tapered && fragment.qubits.tapered !== null ? ', tapered' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
-  if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${fragment.pauliTerms.jordanWigner} (identity included) |`);
-  if (fragment.measurement && fragment.tier === 'quantum') rows.push(`| measurement | ${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups} qubit-wise commuting groups |`);
-  if (fragment.ansatzCost) {
-    const unscreened = fragment.ansatzCost.unscreened !== null && fragment.ansatzCost.unscreened !== fragment.ansatzCost.parameters ? ` (${fragment.ansatzCost.unscreened} without point-group screening)` : '';
-    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${fragment.ansatzCost.parameters} parameters${unscreened} |`);
+  if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${countText(fragment.pauliTerms.jordanWigner)} (identity included) |`);
+  if (fragment.measurement && fragment.tier === 'quantum') {
+    const groups = countText(fragment.measurement.groups);
+    rows.push(`| measurement | ${fragment.measurement.exact || groups.startsWith('≈') ? '' : '≈ '}${groups} qubit-wise commuting groups |`);
   }
-  if (fragment.circuit) rows.push(`| circuit | ${fragment.circuit.cnots} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${fragment.circuit.compactCnots} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${fragment.circuit.depth}` : ''} |`);
+  if (fragment.ansatzCost) {
+    const unscreened = fragment.ansatzCost.unscreened !== null && countText(fragment.ansatzCost.unscreened) !== countText(fragment.ansatzCost.parameters) ? ` (${countText(fragment.ansatzCost.unscreened)} without point-group screening)` : '';
+    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${countText(fragment.ansatzCost.parameters)} parameters${unscreened} |`);
+  }
+  if (fragment.circuit) rows.push(`| circuit | ${countText(fragment.circuit.cnots)} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${countText(fragment.circuit.compactCnots)} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${countText(fragment.circuit.depth)}` : ''} |`);
   if (fragment.classical) {
     rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes |`);
     if (fragment.classical.statevectorBytes) rows.push(`| statevector | ${fragment.classical.statevectorBytes.text} |`);

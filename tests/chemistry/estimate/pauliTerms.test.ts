@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { explicitPattern, irrepMasks, noSymmetryPattern, symmetryPattern, type IntegralPattern } from '../../../server/src/chemistry/estimate/integralPattern';
-import { countByClasses, countBySymmetry, countPauliTerms, pauliTermsUnder } from '../../../server/src/chemistry/estimate/pauliTerms';
+import { countByClasses, countByIrrepCountsExact, countBySymmetry, countPauliTerms, pauliTermsUnder } from '../../../server/src/chemistry/estimate/pauliTerms';
 import { jordanWignerStrings } from '../../../server/src/chemistry/estimate/termClasses';
 import {
   countNonzero,
@@ -275,5 +275,16 @@ describe('two-qubit reduction of the parity mapping', () => {
     // f_4 + f_5 rather than the N_α and N parities (Seeley et al. 2012 β matrix).
     const bk = qubitHamiltonian(integralsFor(pattern, 9), 'bravyi-kitaev', 'block');
     expect(() => reduceParity(bk, 2, 2)).toThrow();
+  });
+});
+
+describe('counts beyond 2^53', () => {
+  // By construction: the closed form 1 + 2n + n(2n − 1) + 4 C(n,2)(2n − 1) + 4 C(n,2)² + 12 C(n,4) in
+  // exact integers for n = 10,000 orbitals without symmetry (checked with Python's math.comb).
+  it('are exact: n = 10,000 orbitals in C1 have 14,999,000,250,000,001 terms, not the nearest double', () => {
+    const exact = countByIrrepCountsExact([10_000, 0, 0, 0, 0, 0, 0, 0]);
+    expect(exact).toBe(14_999_000_250_000_001n);
+    expect(exact > BigInt(Number.MAX_SAFE_INTEGER)).toBe(true);
+    expect(countPauliTerms(symmetryPattern(new Uint8Array(12))).exact.full).toBe(BigInt(countBySymmetry(new Uint8Array(12))));
   });
 });

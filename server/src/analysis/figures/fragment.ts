@@ -8,7 +8,7 @@ import type { PlanEstimate } from '../../chemistry/estimate/plan';
 import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
 import type { Estimates } from '../estimates';
-import { bigFigure, spaceFigures } from './space';
+import { approximateCount, bigFigure, exactCount, spaceFigures } from './space';
 import type { FragmentFigures } from './types';
 
 /** Fills one group of keys from the plan. */
@@ -46,9 +46,15 @@ const SECTIONS = {
     taperingSymmetries: [...plan.qubits.taperingSymmetries],
   }),
   pauliTerms: (_figures, plan) => ({
-    pauliTerms: { jordanWigner: plan.pauliTerms.jordanWigner, bravyiKitaev: plan.pauliTerms.bravyiKitaev, parity: plan.pauliTerms.parity, identityIncluded: true, upperBound: plan.pauliTerms.upperBound },
+    pauliTerms: {
+      jordanWigner: exactCount(plan.pauliTerms.exact.full),
+      bravyiKitaev: exactCount(plan.pauliTerms.exact.full),
+      parity: exactCount(plan.pauliTerms.exact.parity),
+      identityIncluded: true,
+      upperBound: plan.pauliTerms.upperBound,
+    },
   }),
-  measurement: (_figures, plan) => ({ measurement: { groups: plan.measurement.groups, exact: plan.measurement.exact, method: plan.measurement.method } }),
+  measurement: (_figures, plan) => ({ measurement: { groups: approximateCount(plan.measurement.groups), exact: plan.measurement.exact, method: plan.measurement.method } }),
   ansatz: (_figures, plan) => ({ ansatzCost: ansatzFigures(plan) }),
   circuit: (_figures, plan) => ({ circuit: circuitFigures(plan) }),
   classical: (_figures, plan) => ({
@@ -121,7 +127,8 @@ function circuitFigures(plan: PlanEstimate): FragmentFigures['circuit'] {
   const circuit = plan.circuit;
   if (!circuit) return null;
   const standard = circuit.standard;
-  return { construction: standard.construction, cnots: standard.cnots, rotations: standard.rotations ?? null, depth: standard.depth ?? null, compactCnots: circuit.compact?.cnots ?? null };
+  const optional = (value: number | undefined) => (value === undefined ? null : approximateCount(value));
+  return { construction: standard.construction, cnots: approximateCount(standard.cnots), rotations: optional(standard.rotations), depth: optional(standard.depth), compactCnots: optional(circuit.compact?.cnots) };
 }
 
 function ansatzFigures(plan: PlanEstimate): FragmentFigures['ansatzCost'] {
@@ -130,12 +137,12 @@ function ansatzFigures(plan: PlanEstimate): FragmentFigures['ansatzCost'] {
   if (ansatz.kind === 'uccsd') {
     return {
       kind: 'uccsd',
-      parameters: ansatz.parameters,
-      singles: ansatz.spinOrbitalScreened.singles,
-      doubles: ansatz.spinOrbitalScreened.doubles,
-      unscreened: ansatz.spinOrbital.total,
-      spinAdapted: ansatz.spinAdaptedScreened?.total ?? null,
+      parameters: approximateCount(ansatz.parameters),
+      singles: approximateCount(ansatz.spinOrbitalScreened.singles),
+      doubles: approximateCount(ansatz.spinOrbitalScreened.doubles),
+      unscreened: approximateCount(ansatz.spinOrbital.total),
+      spinAdapted: ansatz.spinAdaptedScreened ? approximateCount(ansatz.spinAdaptedScreened.total) : null,
     };
   }
-  return { kind: ansatz.kind, parameters: ansatz.parameters, singles: null, doubles: null, unscreened: null, spinAdapted: null };
+  return { kind: ansatz.kind, parameters: approximateCount(ansatz.parameters), singles: null, doubles: null, unscreened: null, spinAdapted: null };
 }

@@ -1,6 +1,7 @@
 /** The whole estimate report of a document, assembled from the per-part figures it already holds. */
 import { describeTarget } from '../../language/ast';
 import type { Analysis } from '../../language/analyze';
+import { approximateCount, countValue } from './space';
 import { CONVENTIONS, PLANNING_NOTE, type BasisOverrideFigure, type EstimateReport, type FragmentFigures, type ScanTotals, type SystemFigures } from './types';
 
 export interface ReportParts {
@@ -12,9 +13,9 @@ export interface ReportParts {
 
 export function scanTotals(points: number, fragments: readonly FragmentFigures[]): ScanTotals {
   const withTier = fragments.filter((fragment) => fragment.tier !== null).length;
-  const groups = fragments.reduce((sum, fragment) => sum + (fragment.tier === 'quantum' ? (fragment.measurement?.groups ?? 0) : 0), 0);
+  const groups = fragments.reduce((sum, fragment) => sum + (fragment.tier === 'quantum' && fragment.measurement ? countValue(fragment.measurement.groups) : 0), 0);
   const qubits = fragments.map((fragment) => fragment.qubitsRequired).filter((value): value is number => value !== null);
-  return { fragmentCalculations: points * withTier, measurementCircuits: points * groups, peakQubits: qubits.length > 0 ? qubits.reduce((most, q) => Math.max(most, q), -Infinity) : null };
+  return { fragmentCalculations: points * withTier, measurementCircuits: approximateCount(points * groups), peakQubits: qubits.length > 0 ? qubits.reduce((most, q) => Math.max(most, q), -Infinity) : null };
 }
 
 /** The basis as the report names it: the main set, the override lines that decide atoms, the function type. */

@@ -1,6 +1,6 @@
 /** The system's figures: what every part has, with the system's point group and symmetry-reduced counts. */
 import type { Estimates } from '../estimates';
-import { spaceFigures } from './space';
+import { exactCount, spaceFigures } from './space';
 import type { SystemFigures } from './types';
 
 export function systemFigures(estimates: Estimates): SystemFigures {
@@ -13,7 +13,7 @@ export function systemFigures(estimates: Estimates): SystemFigures {
     ...base,
     qubits: { ...base.qubits, tapered: counts?.taperedQubits ?? null },
     pauliTerms: counts?.pauliTerms
-      ? { jordanWigner: counts.pauliTerms.jordanWigner, bravyiKitaev: counts.pauliTerms.bravyiKitaev, parity: counts.pauliTerms.parity, identityIncluded: true, upperBound: counts.upperBound }
+      ? { jordanWigner: exactCount(counts.pauliTerms.exact.full), bravyiKitaev: exactCount(counts.pauliTerms.exact.full), parity: exactCount(counts.pauliTerms.exact.parity), identityIncluded: true, upperBound: counts.upperBound }
       : null,
     nearSymmetry: near ? { group: near.group, within: near.within } : null,
   };

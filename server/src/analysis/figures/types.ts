@@ -25,6 +25,13 @@ export const CONVENTIONS = {
     "a fragment that sees its environment (embedding dmet or projection) is counted in the stabiliser of its atoms in the system's point group — the operations of the system that map the fragment onto itself (group theory of stabiliser subgroups); a fragment that stands alone (subtractive, none) in its own point group",
 } as const;
 
+/**
+ * A count that may pass 2^53: a plain number while it is exact, beyond that a BigFigure (its text
+ * to three significant digits, its exact digits when known, log10), never a number with false
+ * digits. Read them with countText and countValue (figures/space.ts).
+ */
+export type Count = number | BigFigure;
+
 /** A count or size that may exceed 2^53: its text, its exact digits when known, and log10. */
 export interface BigFigure {
   text: string;
@@ -33,9 +40,9 @@ export interface BigFigure {
 }
 
 export interface PauliFigures {
-  jordanWigner: number;
-  bravyiKitaev: number;
-  parity: number;
+  jordanWigner: Count;
+  bravyiKitaev: Count;
+  parity: Count;
   identityIncluded: true;
   upperBound: boolean;
 }
@@ -90,9 +97,9 @@ export interface FragmentFigures extends SpaceFigures {
     reason: string;
   } | null;
   taperingSymmetries: string[];
-  measurement: { groups: number; exact: boolean; method: string } | null;
-  ansatzCost: { kind: string; parameters: number; singles: number | null; doubles: number | null; unscreened: number | null; spinAdapted: number | null } | null;
-  circuit: { construction: string; cnots: number; rotations: number | null; depth: number | null; compactCnots: number | null } | null;
+  measurement: { groups: Count; exact: boolean; method: string } | null;
+  ansatzCost: { kind: string; parameters: Count; singles: Count | null; doubles: Count | null; unscreened: Count | null; spinAdapted: Count | null } | null;
+  circuit: { construction: string; cnots: Count; rotations: Count | null; depth: Count | null; compactCnots: Count | null } | null;
   classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
   notes: string[];
 }
@@ -128,7 +135,7 @@ export interface ScanTotals {
   /** Fragment calculations over the whole scan: points × fragments with a tier. */
   fragmentCalculations: number;
   /** Measurement groups summed over quantum fragments, times the points: circuits per energy evaluation over the scan. */
-  measurementCircuits: number;
+  measurementCircuits: Count;
   /** The largest qubit count any point needs (the same at every point). */
   peakQubits: number | null;
 }

@@ -13,7 +13,7 @@
 import { ABELIAN_GROUPS, CHARACTER_TABLES, findIrrep, type AbelianGroupName } from '../symmetry/characterTables';
 import type { OrbitalSymmetry } from '../symmetry/orbitalSymmetry';
 import { symmetryPattern } from './integralPattern';
-import { countByIrrepCounts, countPauliTerms, type ElectronCount, type PauliTermCounts } from './pauliTerms';
+import { countByIrrepCountsExact, countPauliTerms, type ElectronCount, type PauliTermCounts } from './pauliTerms';
 import { taperNumberParities, taperQubits, type TaperingResult } from './tapering';
 
 /** Orbitals of one irrep (mask as in symmetry/characterTables.ts). */
@@ -144,8 +144,9 @@ export function taperingOf(active: ActiveIrreps, electrons?: ElectronCount): Tap
 export function symmetryCounts(active: ActiveIrreps, electrons: ElectronCount): { tapering: TaperingResult; pauli: PauliTermCounts } {
   if (!active.perOrbital) {
     // n > PER_ORBITAL_LIMIT ≥ 5, so the reduced parity count equals the full one (pauliTerms.ts).
-    const full = countByIrrepCounts([active.orbitals, 0, 0, 0, 0, 0, 0, 0]);
-    const pauli: PauliTermCounts = { orbitals: active.orbitals, jordanWigner: full, bravyiKitaev: full, parityUnreduced: full, parity: full, paritySectors: [full, full, full, full] };
+    const exact = countByIrrepCountsExact([active.orbitals, 0, 0, 0, 0, 0, 0, 0]);
+    const full = Number(exact);
+    const pauli: PauliTermCounts = { orbitals: active.orbitals, jordanWigner: full, bravyiKitaev: full, parityUnreduced: full, parity: full, paritySectors: [full, full, full, full], exact: { full: exact, parity: exact } };
     return { tapering: taperNumberParities(active.orbitals, electrons), pauli };
   }
   const masks = Uint8Array.from(active.orbitalIrreps);

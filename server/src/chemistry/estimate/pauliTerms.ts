@@ -58,12 +58,18 @@ export interface PauliTermCounts {
   readonly parity: number;
   /** Reduced parity count per sector, indexed (N_α mod 2) + 2 (N_β mod 2). */
   readonly paritySectors: readonly [number, number, number, number];
+  /**
+   * The full-register and the reduced parity counts exactly: the numbers above are the nearest
+   * doubles, exact only up to 2^53 (reached near n = 10,000 orbitals without symmetry).
+   */
+  readonly exact: { readonly full: bigint; readonly parity: bigint };
 }
 
 /** All counts for an active space. Takes O(n) under the symmetry rule, O(n⁴) for explicit predicates. */
 export function countPauliTerms(pattern: IntegralPattern, electrons?: ElectronCount): PauliTermCounts {
   const n = pattern.orbitals;
-  const full = pattern.irreps !== undefined ? countBySymmetry(pattern.irreps) : countByClasses(pattern);
+  const exactFull = pattern.irreps !== undefined ? countBySymmetryExact(pattern.irreps) : BigInt(countByClasses(pattern));
+  const full = Number(exactFull);
   const sectors: [number, number, number, number] = n >= 5 ? [full, full, full, full] : reducedParitySmall(pattern);
   let parity: number;
   if (electrons !== undefined) {
@@ -72,7 +78,7 @@ export function countPauliTerms(pattern: IntegralPattern, electrons?: ElectronCo
   } else {
     parity = Math.max(...sectors);
   }
-  return { orbitals: n, jordanWigner: full, bravyiKitaev: full, parityUnreduced: full, parity, paritySectors: sectors };
+  return { orbitals: n, jordanWigner: full, bravyiKitaev: full, parityUnreduced: full, parity, paritySectors: sectors, exact: { full: exactFull, parity: n >= 5 ? exactFull : BigInt(parity) } };
 }
 
 /** The count for one mapping (the parity mapping is the reduced one, as in qubits.ts). */
@@ -110,50 +116,65 @@ export function countByClasses(pattern: IntegralPattern): number {
  * + 12 Q                               quartets: Q sets of four orbitals with product 0, 2 spins × 6.
  */
 export function countBySymmetry(irreps: ArrayLike<number>): number {
+  return Number(countBySymmetryExact(irreps));
+}
+
+/** The closed form in exact integer arithmetic. */
+export function countBySymmetryExact(irreps: ArrayLike<number>): bigint {
   const counts = new Float64Array(8);
   for (let i = 0; i < irreps.length; i++) counts[irreps[i]!]! += 1;
-  return countByIrrepCounts(counts);
+  return countByIrrepCountsExact(counts);
 }
 
 /** The same closed form from the number of orbitals of each irrep (index = mask 0–7) alone. */
 export function countByIrrepCounts(counts: ArrayLike<number>): number {
-  let n = 0;
-  for (let g = 0; g < 8; g++) n += counts[g] ?? 0;
-  if (n === 0) return 0;
-  const present: number[] = [];
-  for (let g = 0; g < 8; g++) if ((counts[g] ?? 0) > 0) present.push(g);
+  return Number(countByIrrepCountsExact(counts));
+}
 
-  let sameIrrepPairs = 0;
-  for (const g of present) sameIrrepPairs += (counts[g]! * (counts[g]! - 1)) / 2;
+/**
+ * The closed form in BigInt arithmetic: its terms grow as n⁴ and pass 2^53 near n = 10,000
+ * orbitals without symmetry, beyond which doubles would drop the last digits.
+ */
+export function countByIrrepCountsExact(counts: ArrayLike<number>): bigint {
+  const c = Array.from({ length: 8 }, (_, g) => BigInt(counts[g] ?? 0));
+  let n = 0n;
+  for (let g = 0; g < 8; g++) n += c[g]!;
+  if (n === 0n) return 0n;
+  const present: number[] = [];
+  for (let g = 0; g < 8; g++) if (c[g]! > 0n) present.push(g);
+
+  let sameIrrepPairs = 0n;
+  for (const g of present) sameIrrepPairs += (c[g]! * (c[g]! - 1n)) / 2n;
 
   // Orbital pairs a < b by product irrep.
-  const pairsByProduct = new Float64Array(8);
+  const pairsByProduct = Array.from({ length: 8 }, () => 0n);
   for (let s = 0; s < present.length; s++) {
     const g = present[s]!;
-    pairsByProduct[0]! += (counts[g]! * (counts[g]! - 1)) / 2;
+    pairsByProduct[0] = pairsByProduct[0]! + (c[g]! * (c[g]! - 1n)) / 2n;
     for (let t = s + 1; t < present.length; t++) {
       const h = present[t]!;
-      pairsByProduct[g ^ h]! += counts[g]! * counts[h]!;
+      pairsByProduct[g ^ h] = pairsByProduct[g ^ h]! + c[g]! * c[h]!;
     }
   }
-  let pairPairs = 0;
+  let pairPairs = 0n;
   for (let x = 0; x < 8; x++) pairPairs += pairsByProduct[x]! * pairsByProduct[x]!;
 
   // Four-orbital subsets with product 0: choose t orbitals of each irrep, Σt = 4, XOR of the irreps
   // taken an odd number of times = 0.
-  let ways = new Float64Array(5 * 8);
-  ways[0] = 1;
+  let ways = Array.from({ length: 5 * 8 }, () => 0n);
+  ways[0] = 1n;
   for (const g of present) {
-    const next = new Float64Array(5 * 8);
-    const c = counts[g]!;
+    const next = Array.from({ length: 5 * 8 }, () => 0n);
+    const cg = c[g]!;
     for (let size = 0; size <= 4; size++) {
       for (let x = 0; x < 8; x++) {
         const w = ways[size * 8 + x]!;
-        if (w === 0) continue;
-        let choose = 1;
-        for (let t = 0; t + size <= 4 && t <= c; t++) {
-          if (t > 0) choose = (choose * (c - t + 1)) / t;
-          next[(size + t) * 8 + (t & 1 ? x ^ g : x)]! += w * choose;
+        if (w === 0n) continue;
+        let choose = 1n;
+        for (let t = 0; t + size <= 4 && BigInt(t) <= cg; t++) {
+          if (t > 0) choose = (choose * (cg - BigInt(t) + 1n)) / BigInt(t);
+          const at = (size + t) * 8 + (t & 1 ? x ^ g : x);
+          next[at] = next[at]! + w * choose;
         }
       }
     }
@@ -161,7 +182,7 @@ export function countByIrrepCounts(counts: ArrayLike<number>): number {
   }
   const quartets = ways[4 * 8]!;
 
-  return 1 + 2 * n + n * (2 * n - 1) + 4 * sameIrrepPairs * (2 * n - 1) + 4 * pairPairs + 12 * quartets;
+  return 1n + 2n * n + n * (2n * n - 1n) + 4n * sameIrrepPairs * (2n * n - 1n) + 4n * pairPairs + 12n * quartets;
 }
 
 /**

@@ -67,7 +67,16 @@ export interface PlanEstimate {
     /** Under the fragment's mapping, tapered when `taper on`. */
     readonly required: number | null;
   };
-  readonly pauliTerms: { readonly jordanWigner: number; readonly bravyiKitaev: number; readonly parity: number; readonly identityIncluded: true; readonly upperBound: boolean; readonly convention: string };
+  readonly pauliTerms: {
+    readonly jordanWigner: number;
+    readonly bravyiKitaev: number;
+    readonly parity: number;
+    /** The counts in exact integer arithmetic (the numbers are exact up to 2^53). */
+    readonly exact: { readonly full: bigint; readonly parity: bigint };
+    readonly identityIncluded: true;
+    readonly upperBound: boolean;
+    readonly convention: string;
+  };
   readonly measurement: MeasurementEstimate;
   readonly ansatz: AnsatzFigures | null;
   readonly circuit: { readonly standard: CircuitCost; readonly compact: CircuitCost | null } | null;
@@ -254,6 +263,7 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
       jordanWigner: pauli.jordanWigner,
       bravyiKitaev: pauli.bravyiKitaev,
       parity: pauli.parity,
+      exact: pauli.exact,
       identityIncluded: true,
       upperBound,
       convention: `distinct Pauli strings, identity included, for generic real integrals allowed by ${input.symmetry?.group ?? 'C1'} selection rules${upperBound ? ` (an upper bound: the full group ${input.symmetry!.fullGroup} forbids more)` : ''}`,

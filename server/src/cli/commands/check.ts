@@ -1,14 +1,13 @@
 /** `tessera check <files…> [--format text|json]`: diagnostics for each spec. */
 import { safeJsonStringify } from '../../language/printable';
-import * as path from 'node:path';
-import { analyzeDocument } from '../../analysis';
-import { readTextFile } from '../../language/files';
 import { exitCode, UsageError, type CliIo } from '../io';
-import { describeFailure, formatDiagnosticLine, printable, summaryLine, type PrintedDiagnostic } from '../output';
+import { describeFailure, formatDiagnosticLine, summaryLine, type PrintedDiagnostic } from '../output';
+import { readSpec, type SpecSettings } from '../specFile';
 
 export interface CheckOptions {
   files: string[];
   format: 'text' | 'json';
+  settings?: SpecSettings;
 }
 
 interface FileResult {
@@ -30,18 +29,15 @@ export function runCheck(options: CheckOptions, io: CliIo): number {
   let failed = 0;
   const results: FileResult[] = [];
   for (const file of options.files) {
-    const absolute = path.resolve(io.cwd, file);
-    const read = readTextFile(absolute);
-    if (!read.ok) {
-      unreadable++;
-      results.push({ file, diagnostics: [], error: `cannot read ${file}: ${read.reason}` });
-      if (options.format === 'text') io.stderr(`tessera: cannot read ${file}: ${read.reason}\n`);
-      continue;
-    }
-    const text = read.text;
     try {
-      const analysis = analyzeDocument(text, { path: absolute });
-      const printed = analysis.diagnostics.map((diagnostic) => printable(file, analysis, diagnostic));
+      const reading = readSpec(file, io, options.settings);
+      if (!reading.ok) {
+        unreadable++;
+        results.push({ file, diagnostics: [], error: reading.reason });
+        if (options.format === 'text') io.stderr(`tessera: ${reading.reason}\n`);
+        continue;
+      }
+      const printed = reading.spec.diagnostics;
       errors += printed.filter((d) => d.severity === 'error').length;
       warnings += printed.filter((d) => d.severity === 'warning').length;
       if (printed.some((d) => d.code === 'internal-error')) failed++;

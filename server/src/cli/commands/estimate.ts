@@ -16,6 +16,7 @@ import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanF
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { computeMeanFields } from './meanField';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from '../output';
+import { loadSpec, type SpecSettings } from '../specFile';
 
 export type EstimateFormat = 'text' | 'json' | 'markdown';
 
@@ -34,6 +35,8 @@ export interface EstimateOptions {
   reference?: ScfReference;
   maxIterations?: number;
   memoryLimitMiB?: number;
+  /** The editor's settings: default mapping and qubit limit. */
+  settings?: SpecSettings;
   /** Singular values above it give DMET bath orbitals (with --mean-field under embedding dmet). */
   bathThreshold?: number;
 }
@@ -51,11 +54,9 @@ function readText(file: string, io: CliIo): string | undefined {
   return undefined;
 }
 
-function prepareSpec(file: string, io: CliIo): Prepared | undefined {
-  const text = readText(file, io);
-  if (text === undefined) return undefined;
-  const analysis = analyzeDocument(text, { path: path.resolve(io.cwd, file) });
-  return { analysis, file, diagnostics: analysis.diagnostics.map((d) => printable(file, analysis, d)) };
+function prepareSpec(file: string, io: CliIo, settings: SpecSettings): Prepared | undefined {
+  const spec = loadSpec(file, io, settings);
+  return spec && { analysis: spec.analysis, file, diagnostics: spec.diagnostics };
 }
 
 const BASIS_WORD = /^[A-Za-z0-9_+*'(),\- ]+$/;
@@ -85,7 +86,7 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
     lines.push(`  ${atom.symbol} ${atom.x} ${atom.y} ${atom.z}`);
   }
   lines.push('}');
-  const analysis = analyzeDocument(lines.join('\n'));
+  const analysis = analyzeDocument(lines.join('\n'), options.settings ?? {});
   const diagnostics: PrintedDiagnostic[] = xyz.problems.map((problem) => ({
     file,
     line: problem.line + 1,
@@ -149,7 +150,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.bathThreshold !== undefined)) {
     throw new UsageError('--reference, --max-iterations, --memory-limit and --bath-threshold go with --mean-field');
   }
-  const prepared = options.spec ? prepareSpec(options.spec, io) : prepareXyz(options, io);
+  const prepared = options.spec ? prepareSpec(options.spec, io, options.settings ?? {}) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
   const report = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;

@@ -5,12 +5,11 @@
  * in bohr (layout in report/export/qcschema.ts). A spec with errors is not exported: the
  * diagnostics go to standard error and the exit code is 1, so that no half-checked geometry leaves.
  */
-import { safeJsonStringify } from '../../language/printable';
-import { buildQcSchemaExport } from '../../report/export/qcschema';
-import { renderXyz } from '../../report/export/xyz';
+import { qcSchemaExportParts, qcSchemaJsonChunks } from '../../report/export/qcschema';
+import { xyzChunks } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
 import { exitCode, EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput } from '../specFile';
+import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput, type SpecSettings } from '../specFile';
 import { VERSION } from '../version';
 
 export const EXPORT_TARGETS = ['xyz', 'qcschema'] as const;
@@ -20,13 +19,15 @@ export interface ExportOptions {
   spec?: string;
   to?: ExportTarget;
   out?: string;
+  /** The editor's settings: default mapping and qubit limit. */
+  settings?: SpecSettings;
 }
 
 export async function runExport(options: ExportOptions, io: CliIo): Promise<number> {
   if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema [--out <file>]');
   if (!options.to) throw new UsageError('export needs --to xyz or --to qcschema');
   if (options.out === '') throw new UsageError('--out needs a file name');
-  const spec = loadSpec(options.spec, io);
+  const spec = loadSpec(options.spec, io, options.settings);
   if (!spec) return EXIT_USAGE;
   checkOutPath(options.out, spec, io);
   printDiagnostics(spec, io);
@@ -36,16 +37,14 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
   }
   const data = structureData(spec.analysis);
   const title = specTitle(spec);
-  let text: string;
+  // Streamed: one scan point at a time, so that any scan the language accepts is written in bounded memory.
+  let chunks: Iterable<string>;
   try {
-    text =
-      options.to === 'xyz'
-        ? renderXyz(data, { title, version: VERSION })
-        : `${safeJsonStringify(buildQcSchemaExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`;
+    chunks = options.to === 'xyz' ? xyzChunks(data, { title, version: VERSION }) : qcSchemaJsonChunks(qcSchemaExportParts(spec.analysis, data, { title, version: VERSION }));
   } catch (error) {
     if (!(error instanceof RangeError)) throw error;
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);
     return EXIT_ERRORS;
   }
-  return (await writeOutput(text, options.out, spec, io)) ? EXIT_OK : EXIT_USAGE;
+  return (await writeOutput(chunks, options.out, spec, io)) ? EXIT_OK : EXIT_USAGE;
 }

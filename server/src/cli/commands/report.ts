@@ -10,7 +10,7 @@ import { renderEstimateCsv } from '../../report/format/csv';
 import { renderReportHtml } from '../../report/format/html';
 import { renderEstimateMarkdown, type ProblemLine } from '../../report/format/render';
 import { exitCode, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, writeOutput } from '../specFile';
+import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, writeOutput, type SpecSettings } from '../specFile';
 import { VERSION } from '../version';
 
 export const REPORT_FORMATS = ['markdown', 'html', 'csv'] as const;
@@ -20,12 +20,14 @@ export interface ReportOptions {
   spec?: string;
   format: ReportFormat;
   out?: string;
+  /** The editor's settings: default mapping and qubit limit. */
+  settings?: SpecSettings;
 }
 
 export async function runReport(options: ReportOptions, io: CliIo): Promise<number> {
   if (!options.spec) throw new UsageError('report needs a spec file: tessera report <file.tess> [--format markdown|html|csv] [--out <file>]');
   if (options.out === '') throw new UsageError('--out needs a file name');
-  const spec = loadSpec(options.spec, io);
+  const spec = loadSpec(options.spec, io, options.settings);
   if (!spec) return EXIT_USAGE;
   checkOutPath(options.out, spec, io);
   const { analysis } = spec;

@@ -7,7 +7,7 @@ import { elementBySymbol } from '../../chemistry/elements';
 import type { BasisAst, Located, SpecAst } from '../ast';
 import type { Argument, Statement } from '../syntax';
 import { joinSpans } from '../text';
-import { FUNCTION_TERMS } from '../vocabulary';
+import { choices, FUNCTION_TERMS } from '../vocabulary';
 import { describeArgument, type StatementReader } from './reader';
 import { readBasisTargets } from './selectors';
 
@@ -58,7 +58,7 @@ export function readRetiredBasisBlock(reader: StatementReader, ast: SpecAst, sta
     reader.noBlock(inner);
     if (head.kind === 'word' && head.text === 'functions') {
       if (!reader.onceAs('top:functions', inner, 'functions')) continue;
-      const value = reader.args(inner, 1, 'functions spherical|cartesian');
+      const value = reader.args(inner, 1, `functions ${choices(FUNCTION_TERMS)}`);
       const functions = value ? reader.term<'spherical' | 'cartesian'>(value[0]!, FUNCTION_TERMS, 'function type') : undefined;
       if (functions) ast.functions = functions;
       continue;

@@ -13,7 +13,7 @@
 import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import type { Statement, SyntaxTree } from '../syntax';
-import { EMBEDDINGS, FUNCTION_TERMS, UNIT_TERMS, type KeywordInfo } from '../vocabulary';
+import { choices, EMBEDDINGS, FUNCTION_TERMS, UNIT_TERMS, type KeywordInfo } from '../vocabulary';
 import { readBasis, readRetiredBasisBlock } from './basis';
 import { readFragment } from './fragment';
 import { readGeometry } from './geometry';
@@ -39,7 +39,7 @@ function readRetiredStatement(reader: StatementReader, ast: SpecAst, statement: 
   if (head.text === 'units') {
     reader.noBlock(statement);
     if (!reader.once('top', statement)) return true;
-    const args = reader.args(statement, 1, 'structure in angstrom|bohr { … }');
+    const args = reader.args(statement, 1, `structure in ${choices(UNIT_TERMS)} { … }`);
     const unit = args ? reader.term<'angstrom' | 'bohr'>(args[0]!, UNIT_TERMS, 'length unit') : undefined;
     if (unit) ast.legacyUnits = unit;
     return true;
@@ -88,7 +88,7 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
       ast.frozenCore = reader.switchValue(statement);
       return;
     case 'functions': {
-      const value = reader.args(statement, 1, 'functions spherical|cartesian');
+      const value = reader.args(statement, 1, `functions ${choices(FUNCTION_TERMS)}`);
       if (value) {
         const functions = reader.term<'spherical' | 'cartesian'>(value[0]!, FUNCTION_TERMS, 'function type');
         if (functions) ast.functions = functions;
@@ -96,7 +96,7 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
       return;
     }
     case 'embedding': {
-      const args = reader.args(statement, 1, 'embedding dmet|projection|subtractive|none');
+      const args = reader.args(statement, 1, `embedding ${choices(EMBEDDINGS)}`);
       if (args) ast.embedding = reader.term(args[0]!, EMBEDDINGS, 'embedding');
       return;
     }

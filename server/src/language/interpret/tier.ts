@@ -2,11 +2,11 @@
 import type { ActiveIrrepAst, ActiveSpaceAst, Located, TierAst } from '../ast';
 import type { Statement } from '../syntax';
 import { joinSpans } from '../text';
-import { ANSATZE, MAPPING_TERMS, METHODS, TIER_LEVELS, type TierLevel } from '../vocabulary';
+import { ANSATZE, choices, MAPPING_TERMS, METHODS, TIER_LEVELS, type TierLevel } from '../vocabulary';
 import { describeArgument, type StatementReader } from './reader';
 
 export function readTier(reader: StatementReader, statement: Statement): TierAst {
-  const args = reader.args(statement, 1, 'tier quantum|correlated|mean-field { ... }');
+  const args = reader.args(statement, 1, `tier ${choices(TIER_LEVELS)} { ... }`);
   const level = args ? reader.term<TierLevel>(args[0]!, TIER_LEVELS, 'tier') : undefined;
   const tier: TierAst = level ? { statement, level } : { statement };
   const scope = `tier@${statement.span.start}`;
@@ -22,12 +22,12 @@ export function readTier(reader: StatementReader, statement: Statement): TierAst
         break;
       }
       case 'ansatz': {
-        const value = reader.args(inner, 1, 'ansatz uccsd|k-upccgsd|hardware-efficient');
+        const value = reader.args(inner, 1, `ansatz ${choices(ANSATZE)}`);
         if (value) tier.ansatz = reader.term(value[0]!, ANSATZE, 'ansatz', 'unknown-ansatz');
         break;
       }
       case 'mapping': {
-        const value = reader.args(inner, 1, 'mapping jordan-wigner|bravyi-kitaev|parity');
+        const value = reader.args(inner, 1, `mapping ${choices(MAPPING_TERMS)}`);
         if (value) tier.mapping = reader.term(value[0]!, MAPPING_TERMS, 'mapping', 'unknown-mapping');
         break;
       }

@@ -19,7 +19,8 @@
  * What QCSchema has no field for (the basis, the tiers, the embedding, cut bonds) sits under
  * `extras.tessera`, the place the schema leaves for a producer's own data.
  */
-import { scanFrames } from '../../chemistry/scan';
+import { eachScanFrame } from '../../chemistry/scan';
+import { safeJsonStringify } from '../../language/printable';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import { elementBySymbol } from '../../chemistry/elements';
 import { basisFigures, type DocumentAnalysis } from '../../analysis';
@@ -151,6 +152,16 @@ function toBohr(value: number): number {
 
 /** Builds the export. The spec should be free of errors: the CLI refuses to export one that is not. */
 export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureData, options: QcSchemaExportOptions): QcSchemaExport {
+  const { head, scanMolecules } = qcSchemaExportParts(analysis, data, options);
+  return head.scan ? { ...head, scan: { ...head.scan, molecules: [...scanMolecules] } } : head;
+}
+
+/**
+ * The export in two parts: everything but the scan's molecules (`scan.molecules` empty), and those
+ * molecules one at a time, each made when it is asked for, so that a scan of any length is written
+ * with one point in memory (qcSchemaJsonChunks).
+ */
+export function qcSchemaExportParts(analysis: DocumentAnalysis, data: StructureData, options: QcSchemaExportOptions): { head: QcSchemaExport; scanMolecules: Iterable<QcMolecule> } {
   const named = basisFigures(analysis);
   const { model } = analysis;
   const provenance: QcProvenance = { creator: 'Tessera', version: options.version, routine: options.routine ?? 'tessera export --to qcschema' };
@@ -240,18 +251,50 @@ export function buildQcSchemaExport(analysis: DocumentAnalysis, data: StructureD
   }));
 
   let scan: QcSchemaExport['scan'] = null;
+  let scanMolecules: Iterable<QcMolecule> = [];
   if (data.scan) {
-    const frames = scanFrames(coordinates, data.scan.first, data.scan.second, data.scan.moving, data.scan.distances);
+    const frames = eachScanFrame(coordinates, data.scan.first, data.scan.second, data.scan.moving, data.scan.distances);
+    const points = data.scan.distances.length;
     scan = {
       first_atom: position[data.scan.first]!,
       second_atom: position[data.scan.second]!,
       moving_atoms: data.scan.moving.map((atom) => position[atom]!).sort((a, b) => a - b),
       distances_angstrom: [...data.scan.distances],
-      molecules: frames.map((frame, k) =>
-        systemMolecule(`${options.title}/scan-${k + 1}`, frame.coordinates, { scan_point: { point: k + 1, points: frames.length, distance_angstrom: frame.distance } }, 'scan-point'),
-      ),
+      molecules: [],
     };
+    scanMolecules = (function* molecules(): Generator<QcMolecule> {
+      let k = 0;
+      for (const frame of frames) {
+        k++;
+        yield systemMolecule(`${options.title}/scan-${k}`, frame.coordinates, { scan_point: { point: k, points, distance_angstrom: frame.distance } }, 'scan-point');
+      }
+    })();
   }
 
-  return { format: QCSCHEMA_EXPORT_FORMAT, format_version: QCSCHEMA_EXPORT_VERSION, spec: options.title, system, fragments, scan };
+  return { head: { format: QCSCHEMA_EXPORT_FORMAT, format_version: QCSCHEMA_EXPORT_VERSION, spec: options.title, system, fragments, scan }, scanMolecules };
+}
+
+/**
+ * The export as JSON text (two-space indent, the same text as safeJsonStringify of
+ * buildQcSchemaExport), in chunks: the head, then one chunk per scan molecule, then the end.
+ */
+export function qcSchemaJsonChunks(parts: { head: QcSchemaExport; scanMolecules: Iterable<QcMolecule> }): Iterable<string> {
+  const { head, scanMolecules } = parts;
+  return (function* chunks(): Generator<string> {
+    if (!head.scan) {
+      yield `${safeJsonStringify(head, 2)}\n`;
+      return;
+    }
+    // The scan is the last key: its molecules array is written last, element by element.
+    const text = safeJsonStringify(head, 2);
+    const empty = '"molecules": []\n  }\n}';
+    if (!text.endsWith(empty)) throw new Error('The scan molecules are not the last key of the QCSchema export.');
+    yield `${text.slice(0, -empty.length)}"molecules": [`;
+    let first = true;
+    for (const molecule of scanMolecules) {
+      yield `${first ? '' : ','}\n${safeJsonStringify(molecule, 2).replace(/\n/g, '\n      ').replace(/^/, '      ')}`;
+      first = false;
+    }
+    yield first ? ']\n  }\n}\n' : '\n    ]\n  }\n}\n';
+  })();
 }

@@ -4,7 +4,7 @@
  * symbol. The comment line of each frame names the spec and, for a scan, the point and the distance.
  */
 import { plainText } from '../format/escape';
-import { scanFrames } from '../../chemistry/scan';
+import { eachScanFrame } from '../../chemistry/scan';
 import type { StructureAtom, StructureData } from '../structure';
 
 /** Decimals of every coordinate: rounding moves an atom by at most 5e-11 Å. */
@@ -57,6 +57,11 @@ export function coordinatesOf(data: StructureData): Float64Array {
  * the two scanned atoms coincide (the analysis reports that as an error first).
  */
 export function xyzFrames(data: StructureData, options: XyzExportOptions): XyzFrame[] {
+  return [...eachXyzFrame(data, options)];
+}
+
+/** The frames one at a time, each made when it is asked for (throws as xyzFrames does, at once). */
+export function eachXyzFrame(data: StructureData, options: XyzExportOptions): Iterable<XyzFrame> {
   const title = oneLine(options.title);
   const coordinates = coordinatesOf(data);
   const scan = data.scan;
@@ -65,23 +70,42 @@ export function xyzFrames(data: StructureData, options: XyzExportOptions): XyzFr
   }
   const first = atomName(data.atoms[scan.first]!);
   const second = atomName(data.atoms[scan.second]!);
-  const frames = scanFrames(coordinates, scan.first, scan.second, scan.moving, scan.distances);
-  return frames.map((frame, k) => ({
-    comment: `${title}; scan point ${k + 1} of ${frames.length}; distance ${first}-${second} ${frame.distance.toFixed(6)} angstrom; exported by Tessera ${options.version}`,
-    coordinates: frame.coordinates,
-    distance: frame.distance,
-  }));
+  const points = scan.distances.length;
+  const frames = eachScanFrame(coordinates, scan.first, scan.second, scan.moving, scan.distances);
+  return (function* named(): Generator<XyzFrame> {
+    let k = 0;
+    for (const frame of frames) {
+      yield {
+        comment: `${title}; scan point ${++k} of ${points}; distance ${first}-${second} ${frame.distance.toFixed(6)} angstrom; exported by Tessera ${options.version}`,
+        coordinates: frame.coordinates,
+        distance: frame.distance,
+      };
+    }
+  })();
+}
+
+/** One frame as XYZ text: the atom count, the comment line and one `symbol x y z` line per atom. */
+function frameText(data: StructureData, frame: XyzFrame): string {
+  const lines: string[] = [String(data.atoms.length), oneLine(frame.comment)];
+  data.atoms.forEach((atom, i) => {
+    const xyz = [0, 1, 2].map((k) => formatCoordinate(frame.coordinates[3 * i + k]!).padStart(XYZ_DECIMALS + 8));
+    lines.push(`${atom.element.padEnd(2)} ${xyz.join(' ')}`);
+  });
+  return `${lines.join('\n')}\n`;
+}
+
+/**
+ * XYZ text one frame at a time, for writing a scan of any length with one frame in memory.
+ * Throws a RangeError before the first chunk when the two scanned atoms coincide.
+ */
+export function xyzChunks(data: StructureData, options: XyzExportOptions): Iterable<string> {
+  const frames = eachXyzFrame(data, options);
+  return (function* chunks(): Generator<string> {
+    for (const frame of frames) yield frameText(data, frame);
+  })();
 }
 
 /** XYZ text: for each frame the atom count, the comment line and one `symbol x y z` line per atom. */
 export function renderXyz(data: StructureData, options: XyzExportOptions): string {
-  const lines: string[] = [];
-  for (const frame of xyzFrames(data, options)) {
-    lines.push(String(data.atoms.length), oneLine(frame.comment));
-    data.atoms.forEach((atom, i) => {
-      const xyz = [0, 1, 2].map((k) => formatCoordinate(frame.coordinates[3 * i + k]!).padStart(XYZ_DECIMALS + 8));
-      lines.push(`${atom.element.padEnd(2)} ${xyz.join(' ')}`);
-    });
-  }
-  return `${lines.join('\n')}\n`;
+  return [...xyzChunks(data, options)].join('');
 }

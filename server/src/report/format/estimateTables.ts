@@ -1,5 +1,5 @@
 /** The estimate report as tables, shared by the text and Markdown renderings. */
-import { SYMMETRY_ATOM_LIMIT, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../../analysis';
+import { countText, SYMMETRY_ATOM_LIMIT, type Count, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../../analysis';
 import type { Table } from './table';
 
 const dash = '–';
@@ -10,6 +10,16 @@ function spin(figures: SpaceFigures): string {
 
 function orNone(value: number | string | null | undefined): string {
   return value === null || value === undefined ? dash : String(value);
+}
+
+function countOrNone(value: Count | null | undefined): string {
+  return value === null || value === undefined ? dash : countText(value);
+}
+
+/** `≈ ` before an estimate, unless the text says so already (counts beyond 2^53 do). */
+function approximately(exact: boolean, count: Count): string {
+  const text = countText(count);
+  return exact || text.startsWith('≈') ? text : `≈ ${text}`;
 }
 
 function rowsFor(report: EstimateReport): { name: string; figures: SpaceFigures; fragment?: FragmentFigures }[] {
@@ -83,8 +93,8 @@ export function estimateTables(report: EstimateReport): Table[] {
       String(figures.qubits.parity),
       orNone(figures.qubits.tapered),
       fragment?.qubitsRequired !== undefined && fragment.qubitsRequired !== null ? `${fragment.qubitsRequired}` : dash,
-      figures.pauliTerms ? `${figures.pauliTerms.upperBound ? '≤ ' : ''}${figures.pauliTerms.jordanWigner}` : dash,
-      fragment?.measurement ? `${fragment.measurement.exact ? '' : '≈ '}${fragment.measurement.groups}` : dash,
+      figures.pauliTerms ? `${figures.pauliTerms.upperBound ? '≤ ' : ''}${countText(figures.pauliTerms.jordanWigner)}` : dash,
+      fragment?.measurement ? approximately(fragment.measurement.exact, fragment.measurement.groups) : dash,
     ]),
   };
   const quantum = report.fragments.filter((fragment) => fragment.tier === 'quantum' && (fragment.ansatzCost || fragment.circuit));
@@ -97,11 +107,11 @@ export function estimateTables(report: EstimateReport): Table[] {
       rows: quantum.map((fragment) => [
         fragment.name,
         orNone(fragment.ansatzCost?.kind),
-        orNone(fragment.ansatzCost?.parameters),
-        orNone(fragment.ansatzCost?.unscreened),
-        orNone(fragment.circuit?.cnots),
-        orNone(fragment.circuit?.compactCnots),
-        orNone(fragment.circuit?.depth),
+        countOrNone(fragment.ansatzCost?.parameters),
+        countOrNone(fragment.ansatzCost?.unscreened),
+        countOrNone(fragment.circuit?.cnots),
+        countOrNone(fragment.circuit?.compactCnots),
+        countOrNone(fragment.circuit?.depth),
         fragment.classical?.statevectorBytes?.text ?? dash,
       ]),
     });
@@ -158,7 +168,7 @@ export function headerLines(report: EstimateReport): string[] {
     const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: ${totals.fragmentCalculations} fragment calculations, ${totals.measurementCircuits} measurement circuits per energy evaluation in all${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}; per-point figures below`
+        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: ${totals.fragmentCalculations} fragment calculations, ${countText(totals.measurementCircuits)} measurement circuits per energy evaluation in all${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}; per-point figures below`
         : 'scan: no valid points',
     );
   }

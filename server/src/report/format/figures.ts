@@ -4,6 +4,7 @@
  * HTML reports. Values are read from the estimate report by key, never computed here.
  */
 import type { EstimateReport, FragmentFigures, SpaceFigures } from '../../analysis';
+import { countText } from '../../analysis';
 import type { Table } from './table';
 
 export interface FigureColumn {
@@ -106,6 +107,11 @@ export function figureValue(part: ReportPart, key: string): FigureValue {
   }
   if (value === undefined || value === null) return null;
   if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return value;
+  // A count beyond 2^53: its exact digits when known, else its magnitude as text.
+  if (typeof value === 'object' && 'log10' in value && 'text' in value) {
+    const count = value as unknown as { exact: string | null; text: string };
+    return count.exact ?? count.text;
+  }
   throw new TypeError(`Figure '${key}' is not a single value.`);
 }
 
@@ -140,7 +146,7 @@ export function scanTable(report: EstimateReport): Table | null {
       ['points', 'scan.points', String(scan.points)],
       ['distances (Å)', 'scan.distances', distances || '–'],
       ['fragment calculations over the scan', 'scan.totals.fragmentCalculations', String(scan.totals.fragmentCalculations)],
-      ['measurement circuits per energy evaluation, over the scan', 'scan.totals.measurementCircuits', String(scan.totals.measurementCircuits)],
+      ['measurement circuits per energy evaluation, over the scan', 'scan.totals.measurementCircuits', countText(scan.totals.measurementCircuits)],
       ['most qubits at any point', 'scan.totals.peakQubits', figureText(scan.totals.peakQubits) || '–'],
     ],
   };
