@@ -20,6 +20,9 @@ dumps the overlap S, the per-spin AO densities Da and Db, and the atom each basi
   Theory Comput. 12, 2706 (2016)); per spin they lie in [0, 1/2], sqrt(l(1 - l)) of the fragment's
   occupations l;
 * the bath: the left singular vectors with a singular value above THRESHOLD;
+* for closed shells the same in intrinsic atomic orbitals (G. Knizia, J. Chem. Theory Comput. 9,
+  4834 (2013)) built from the minimal basis MINIMAL_BASIS, written here from the paper's formulas:
+  the density A^T S1 P S1 A over the IAOs, fragment = the IAOs of the fragment's atoms;
 * the impurity's electrons of that spin, the trace of D over the fragment's orbitals and the bath,
   and the environment's (core) electrons, the rest.
 
@@ -48,6 +51,8 @@ BOHR_IN_ANGSTROM = 0.529177210903
 DEG = math.pi / 180
 # The bath threshold on singular values of the per-spin density; Tessera's default (embedding/bath.ts).
 THRESHOLD = 1e-6
+# The minimal basis the intrinsic atomic orbitals are built from (Tessera's default, embedding/iao.ts).
+MINIMAL_BASIS = "sto-3g"
 
 BODY = r'''
 spec = json.loads({spec!r})
@@ -61,10 +66,17 @@ S = np.asarray(mints.ao_overlap())
 Da = np.asarray(wfn.Da())
 Db = np.asarray(wfn.Db())
 centers = [basis.function_to_center(i) for i in range(basis.nbf())]
+# The minimal basis of the intrinsic atomic orbitals and its overlaps with the main basis.
+minimal = psi4.core.BasisSet.build(mol, "BASIS", spec["minimal"], puream=basis.has_puream())
+S2 = np.asarray(mints.ao_overlap(minimal, minimal))
+S12 = np.asarray(mints.ao_overlap(basis, minimal))
+Ca = np.asarray(wfn.Ca())[:, :wfn.nalpha()]
 # The molecule is run in c1 (see main), so wfn.Da() and wfn.Db() are in the AO basis.
 _emit({{"energy": energy, "nbf": basis.nbf(), "puream": bool(basis.has_puream()), "centers": centers,
         "overlap": S.ravel().tolist(), "alpha": Da.ravel().tolist(), "beta": Db.ravel().tolist(),
-        "nalpha": wfn.nalpha(), "nbeta": wfn.nbeta()}})
+        "nalpha": wfn.nalpha(), "nbeta": wfn.nbeta(),
+        "minimalCenters": [minimal.function_to_center(i) for i in range(minimal.nbf())],
+        "minimalOverlap": S2.ravel().tolist(), "mixedOverlap": S12.ravel().tolist(), "occupiedAlpha": Ca.ravel().tolist()}})
 '''
 
 
@@ -113,6 +125,44 @@ def bath(np, density, centers, atoms, threshold):
             "fragmentOccupations": sorted(occupations.tolist(), reverse=True)}
 
 
+def symmetric_orthonormal(np, c, s):
+    """C (C^T S C)^(-1/2): Löwdin's symmetric orthonormalisation of the columns of C in the metric S."""
+    w, v = np.linalg.eigh(c.T @ s @ c)
+    return c @ (v / np.sqrt(w)) @ v.T
+
+
+def intrinsic_atomic_orbitals(np, s1, s2, s12, occupied):
+    """Knizia, J. Chem. Theory Comput. 9, 4834 (2013), eqs. 1-2 and the appendix: the IAOs (n1 x n2)
+    A = orth[(O Ot + (1 - O)(1 - Ot)) P12], O = C C^T S1, Ot = Ct Ct^T S1, Ct = orth(P12 P21 C)."""
+    p12 = np.linalg.solve(s1, s12)
+    p21 = np.linalg.solve(s2, s12.T)
+    depolarised = symmetric_orthonormal(np, p12 @ p21 @ occupied, s1)
+    n = s1.shape[0]
+    o = occupied @ occupied.T @ s1
+    ot = depolarised @ depolarised.T @ s1
+    a = (o @ ot + (np.eye(n) - o) @ (np.eye(n) - ot)) @ p12
+    return symmetric_orthonormal(np, a, s1)
+
+
+def analyse_iao(result, fragments, threshold):
+    """The bath in intrinsic atomic orbitals (closed shells): D = A^T S1 P S1 A over the minimal basis's functions."""
+    import numpy as np
+    n = result["nbf"]
+    s1 = np.array(result["overlap"]).reshape(n, n)
+    m = len(result["minimalCenters"])
+    s2 = np.array(result["minimalOverlap"]).reshape(m, m)
+    s12 = np.array(result["mixedOverlap"]).reshape(n, m)
+    occupied = np.array(result["occupiedAlpha"]).reshape(n, -1)
+    a = intrinsic_atomic_orbitals(np, s1, s2, s12, occupied)
+    density = a.T @ s1 @ np.array(result["alpha"]).reshape(n, n) @ s1 @ a
+    out = []
+    for name, atoms in fragments.items():
+        entry = bath(np, density, result["minimalCenters"], set(atoms), threshold)
+        entry["idempotencyError"] = float(np.max(np.abs(density @ density - density)))
+        out.append({"name": name, **entry})
+    return out
+
+
 def analyse(result, fragments, threshold):
     import numpy as np
     n = result["nbf"]
@@ -124,6 +174,9 @@ def analyse(result, fragments, threshold):
     for spin in ("alpha", "beta"):
         result[spin] = (np.array(result[spin]).reshape(n, n) / np.outer(scale, scale)).ravel().tolist()
     result["overlap"] = s.ravel().tolist()
+    m = len(result["minimalCenters"])
+    result["mixedOverlap"] = (np.array(result["mixedOverlap"]).reshape(n, m) * scale[:, None]).ravel().tolist()
+    result["occupiedAlpha"] = (np.array(result["occupiedAlpha"]).reshape(n, -1) / scale[:, None]).ravel().tolist()
     w, v = np.linalg.eigh(s)
     root = (v * np.sqrt(np.maximum(w, 0))) @ v.T
     out = []
@@ -151,9 +204,10 @@ def main():
             continue
         bohr = [(s, x / BOHR_IN_ANGSTROM, y / BOHR_IN_ANGSTROM, z / BOHR_IN_ANGSTROM) for s, x, y, z in atoms]
         molecule = psi4_job.molecule_block(bohr, charge, multiplicity) + "\nsymmetry c1"
-        spec = {"molecule": molecule, "basis": basis, "reference": reference, "puream": "6-31" not in basis}
+        spec = {"molecule": molecule, "basis": basis, "reference": reference, "puream": "6-31" not in basis, "minimal": MINIMAL_BASIS}
         result = psi4_job.run(BODY.format(spec=json.dumps(spec)), "case")
         analysed = analyse(result, fragments, THRESHOLD)  # scales result's overlap and densities to unit-norm functions
+        iao = analyse_iao(result, fragments, THRESHOLD) if reference == "rhf" else None
         entry = {
             "name": name, "basis": basis, "reference": reference, "charge": charge, "multiplicity": multiplicity,
             "kind": "spherical" if result["puream"] else "cartesian",
@@ -161,6 +215,9 @@ def main():
             "energy": result["energy"], "functions": result["nbf"], "electrons": {"alpha": result["nalpha"], "beta": result["nbeta"]},
             "functionCenter": result["centers"], "threshold": THRESHOLD,
             "fragments": analysed,
+            "minimalBasis": MINIMAL_BASIS, "minimalFunctionCenter": result["minimalCenters"], "iao": iao,
+            "minimalOverlap": result["minimalOverlap"] if iao else None, "mixedOverlap": result["mixedOverlap"] if iao else None,
+            "occupiedAlpha": result["occupiedAlpha"] if iao else None,
             "overlap": result["overlap"], "densityAlpha": result["alpha"],
             "densityBeta": result["beta"] if reference != "rhf" else None,
         }
@@ -175,7 +232,9 @@ def main():
                 "overlap from MintsHelper.ao_overlap(), per-spin AO densities wfn.Da() and wfn.Db(), basis function centres "
                 "from basisset.function_to_center(), all in psi4's AO order (row-major). The bath per fragment and spin is "
                 "computed by this script with numpy: functions scaled to unit norm (the fixture's overlap and densities are scaled), Löwdin-orthogonalised density S^1/2 D S^1/2, SVD of its environment-fragment "
-                "block, bath = singular values above the threshold, impurity electrons = trace over fragment and bath.")),
+                "block, bath = singular values above the threshold, impurity electrons = trace over fragment and bath; "
+                "for RHF also in intrinsic atomic orbitals from the minimal basis (minimalOverlap, mixedOverlap = "
+                "MintsHelper.ao_overlap(main, minimal) with rows scaled, occupiedAlpha = the occupied columns of wfn.Ca(), scaled).")),
             "numpyVersion": np.__version__,
         },
         "cases": cases,

@@ -23,6 +23,7 @@ interface FixtureCase {
   geometry: { symbol: string; x: number; y: number; z: number }[];
   threshold: number;
   fragments: { name: string; atoms: number[]; alpha: { singularValues: number[]; bathOrbitals: number }; beta: { singularValues: number[]; bathOrbitals: number }; impurityElectrons: number; coreElectrons: number }[];
+  iao: { name: string; fragmentOrbitals: number; singularValues: number[]; bathOrbitals: number; impurityElectrons: number }[] | null;
 }
 
 const FIXTURE = JSON.parse(readFileSync(join(__dirname, '..', 'fixtures', 'dmet-bath.psi4.json'), 'utf8')) as { cases: FixtureCase[] };
@@ -33,8 +34,8 @@ function specOf(c: FixtureCase, embedding = 'dmet'): string {
   const atoms = c.geometry.map((atom) => `  ${atom.symbol} ${atom.x.toFixed(12)} ${atom.y.toFixed(12)} ${atom.z.toFixed(12)}`);
   const fragments = c.fragments.map((fragment, k) => {
     const selectors = fragment.atoms.map((atom) => `#${atom + 1}`).join(' ');
-    // Fragment charges are not needed for the bath (it comes from the system); the last takes the system's.
-    return `fragment f${k} {\n  atoms ${selectors}\n  charge ${k === c.fragments.length - 1 ? c.charge : 0}\n  tier mean-field { method ${c.reference === 'rhf' ? 'rhf' : 'uhf'} }\n}`;
+    // The bath comes from the system; the fragments' own charges matter for their own mean fields (Li+ is the charged one).
+    return `fragment f${k} {\n  atoms ${selectors}\n  charge ${c.name === 'lithium cation with water' && k === 0 ? 1 : 0}\n  tier mean-field { method ${c.reference === 'rhf' ? 'rhf' : 'uhf'} }\n}`;
   });
   return [`spec "${c.name}"`, `charge ${c.charge}`, `multiplicity ${c.multiplicity}`, `basis ${BASIS_NAMES[c.basis]}`, `embedding ${embedding}`, 'structure in bohr {', ...atoms, '}', ...fragments, ''].join('\n');
 }
@@ -108,4 +109,29 @@ describe('tessera estimate --mean-field: the DMET bath of each fragment (tests/f
     expect(five['fragments'][0]['dmetBath']['bath']['computed']['alpha']).toBe(5);
     expect(five['fragments'][0]['dmetBath']['threshold']).toBe(0.03);
   }, 120_000);
+
+  it('--bath-orbitals iao: the bath in intrinsic atomic orbitals (fixture, numpy from Knizia 2013 on psi4 data); refused for UHF with the way out', async () => {
+    const c = FIXTURE.cases.find((entry) => entry.name === 'lithium cation with water')!;
+    const folder = scratch({ 'li.tess': specOf(c), 'radical.tess': specOf(FIXTURE.cases.find((entry) => entry.name === 'hydroxyl radical with water')!) });
+    const { code, stdout } = await run(['estimate', 'li.tess', '--mean-field', '--format', 'json', '--bath-orbitals', 'iao'], folder);
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout) as Json;
+    c.iao!.forEach((reference, k) => {
+      const bath = json['fragments'][k]['dmetBath'] as Json;
+      expect(bath['orbitals']).toBe('iao');
+      expect(bath['minimalBasis']).toBe('STO-3G');
+      expect(bath['fragmentOrbitals']).toBe(reference.fragmentOrbitals);
+      expect(bath['bath']['computed']['alpha']).toBe(reference.bathOrbitals);
+      (bath['alpha']['singularValues'] as number[]).forEach((value, i) => expect(Math.abs(value - reference.singularValues[i]!)).toBeLessThan(1e-6));
+      expect(Math.abs(bath['impurity']['electrons'] - 2 * reference.impurityElectrons)).toBeLessThan(1e-6);
+    });
+    const refused = await run(['estimate', 'radical.tess', '--mean-field', '--format', 'json', '--bath-orbitals', 'iao'], folder);
+    expect(refused.code).toBe(1);
+    const bath = (JSON.parse(refused.stdout) as Json)['fragments'][0]['dmetBath'] as Json;
+    expect(bath['computed']).toBe(false);
+    expect(bath['error']['message']).toContain('closed-shell (RHF) mean field of the system; this one is UHF. Use Löwdin orbitals');
+    const bad = await run(['estimate', 'li.tess', '--mean-field', '--bath-orbitals', 'boys'], folder);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toContain("--bath-orbitals must be lowdin or iao; got 'boys'");
+  }, 180_000);
 });

@@ -52,7 +52,11 @@ export interface DmetBathRequest {
   readonly fragmentAtoms: readonly number[];
   /** Singular values above it give bath orbitals. */
   readonly threshold: number;
+  /** The fragment's orthogonalised orbitals: Löwdin's, or intrinsic atomic orbitals (closed shells). */
+  readonly orbitals: BathOrbitals;
 }
+
+export type BathOrbitals = 'lowdin' | 'iao';
 
 export type ComputeRequest = MeanFieldRequest | Mp2Request | DmetBathRequest;
 
@@ -71,7 +75,7 @@ function atomRanges(atoms: readonly number[]): string {
 /** The key a request's result is kept under, within its kind. */
 export function requestKey(request: ComputeRequest): string {
   if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
-  if (request.kind === DMET_BATH_KIND) return `t${request.threshold};a${atomRanges(request.fragmentAtoms)};${requestKey(request.meanField)}`;
+  if (request.kind === DMET_BATH_KIND) return `${request.orbitals};t${request.threshold};a${atomRanges(request.fragmentAtoms)};${requestKey(request.meanField)}`;
   return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
 }
 
@@ -137,9 +141,11 @@ export interface SpinBathSummary {
 /** A finished DMET bath job (electronic/embedding). */
 export interface DmetBathSummary {
   readonly reference: ScfReference;
-  readonly orbitals: 'lowdin';
+  readonly orbitals: BathOrbitals;
+  /** The minimal basis of the intrinsic atomic orbitals (null for Löwdin's). */
+  readonly minimalBasis: string | null;
   readonly threshold: number;
-  /** L: orthogonalised orbitals on the fragment's atoms. */
+  /** L: orthogonalised orbitals on the fragment's atoms (Löwdin: its basis functions; IAO: its minimal-basis functions). */
   readonly fragmentOrbitals: number;
   /** M: the system's orbitals (linearly independent). */
   readonly systemOrbitals: number;
@@ -220,6 +226,27 @@ export interface RequestOptions {
   readonly frozenCore?: boolean;
   /** Singular values above it give DMET bath orbitals (default DEFAULT_BATH_THRESHOLD). */
   readonly bathThreshold?: number;
+  /** The fragment's orbitals for the DMET bath (default lowdin). */
+  readonly bathOrbitals?: BathOrbitals;
+}
+
+/**
+ * The system's mean-field request that every fragment's bath builds on, made once per model and
+ * request options (not once per fragment: a spec of 10,000 fragments would otherwise key its
+ * system 10,000 times). Null when the system cannot be computed.
+ */
+const systemRequests = new WeakMap<SpecModel, Map<string, MeanFieldRequest | null>>();
+
+function systemMeanField(model: SpecModel, options: RequestOptions): MeanFieldRequest | null {
+  let perOptions = systemRequests.get(model);
+  if (!perOptions) systemRequests.set(model, (perOptions = new Map()));
+  const key = `${options.reference ?? '-'};${options.maxIterations ?? '-'}`;
+  let request = perOptions.get(key);
+  if (request === undefined) {
+    request = refusalOf(model, { kind: 'system' }) ? null : partComputation(model, { kind: 'system' }, options).meanField;
+    perOptions.set(key, request);
+  }
+  return request;
 }
 
 /** What computing one part would ask for (the requests are plain data: see the file comment). */
@@ -232,9 +259,10 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
   const buildBath = () => {
     if (bath !== undefined) return bath;
     bath = null;
-    if (part.kind !== 'fragment' || model.embedding !== 'dmet' || refusalOf(model, { kind: 'system' })) return bath;
-    const system = partComputation(model, { kind: 'system' }, options).meanField!;
-    const request: DmetBathRequest = { kind: DMET_BATH_KIND, meanField: system, fragmentAtoms: [...partAtoms(model, part)], threshold: options.bathThreshold ?? DEFAULT_BATH_THRESHOLD };
+    if (part.kind !== 'fragment' || model.embedding !== 'dmet') return bath;
+    const system = systemMeanField(model, options);
+    if (!system) return bath;
+    const request: DmetBathRequest = { kind: DMET_BATH_KIND, meanField: system, fragmentAtoms: [...partAtoms(model, part)], threshold: options.bathThreshold ?? DEFAULT_BATH_THRESHOLD, orbitals: options.bathOrbitals ?? 'lowdin' };
     bath = { request, key: requestKey(request) };
     return bath;
   };

@@ -18,6 +18,7 @@ export {
   requestKey,
   samePart,
   specParts,
+  type BathOrbitals,
   type ComputeRequest,
   type DmetBathRequest,
   type DmetBathSummary,

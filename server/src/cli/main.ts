@@ -38,6 +38,9 @@ Usage:
         --memory-limit MiB         refuse parts whose estimated need exceeds it (default 2048)
         --bath-threshold X         under embedding dmet: singular values above X give bath
                                    orbitals (default 1e-6)
+        --bath-orbitals lowdin|iao the fragment's orbitals for the bath: Löwdin-orthogonalised
+                                   atomic orbitals (default) or intrinsic atomic orbitals
+                                   (closed shells)
       Under embedding dmet each fragment also gets its DMET bath computed from the system's
       mean field (JSON: dmetBath { bath.computed, bath.counted, singularValues,
       impurity.electrons, coreElectrons, ... } under each fragment).
@@ -141,6 +144,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           'memory-limit': { type: 'string' },
           ...SETTING_OPTIONS,
           'bath-threshold': { type: 'string' },
+          'bath-orbitals': { type: 'string' },
           help: { type: 'boolean', short: 'h' },
         },
       });
@@ -166,6 +170,8 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       if (bathThreshold !== undefined && !(bathThreshold > 0 && bathThreshold < 0.5)) {
         throw new UsageError(`--bath-threshold must be a number between 0 and 0.5 (singular values of a spin density do not exceed 0.5); got '${values['bath-threshold']}'`);
       }
+      const bathOrbitals = values['bath-orbitals'];
+      if (bathOrbitals !== undefined && bathOrbitals !== 'lowdin' && bathOrbitals !== 'iao') throw new UsageError(`--bath-orbitals must be lowdin or iao; got '${bathOrbitals}'`);
       return runEstimate(
         {
           ...(positionals[0] ? { spec: positionals[0] } : {}),
@@ -180,6 +186,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(maxIterations !== undefined ? { maxIterations } : {}),
           ...(memoryLimit !== undefined ? { memoryLimitMiB: memoryLimit } : {}),
           ...(bathThreshold !== undefined ? { bathThreshold } : {}),
+          ...(bathOrbitals ? { bathOrbitals } : {}),
           format: formatOption<EstimateFormat>(values.format, ['text', 'json', 'markdown'], 'text'),
           settings: settingsOption(values),
         },

@@ -28,7 +28,7 @@ import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
 import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
 import { mp2, unrestrictedMp2 } from '../electronic/correlation';
-import { dmetBath, spinDensity, type SpinBath } from '../electronic/embedding';
+import { DEFAULT_MINIMAL_BASIS, dmetBath, minimalBasisOverlaps, spinDensity, type DmetBathInput, type SpinBath } from '../electronic/embedding';
 import { createTwoElectronIntegrals, overlapMatrix } from '../electronic/integrals';
 import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
 import type { JobFailure, JobProgress } from './protocol';
@@ -165,7 +165,20 @@ export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcom
   const M = orbitals.orbitalCount;
   const alpha = spinDensity(orbitals.alpha, n, M, result.occupations.alpha);
   const beta = result.reference === 'rhf' ? alpha : spinDensity(orbitals.beta, n, M, result.occupations.beta);
+  let iao: DmetBathInput['iao'];
+  if (request.orbitals === 'iao') {
+    if (result.reference !== 'rhf') {
+      throw new JobInputError({ code: 'input', message: `The bath in intrinsic atomic orbitals needs a closed-shell (RHF) mean field of the system; this one is ${result.reference.toUpperCase()}. Use Löwdin orbitals (the default) for an open-shell system.` });
+    }
+    const minimal = minimalBasisOverlaps(basis, DEFAULT_MINIMAL_BASIS);
+    const occupiedColumns = result.occupations.alpha.flatMap((value, k) => (value === 1 ? [k] : []));
+    const k = occupiedColumns.length;
+    const occupied = new Float64Array(n * k);
+    for (let i = 0; i < n; i++) occupiedColumns.forEach((column, c) => (occupied[i * k + c] = orbitals.alpha[i * M + column]!));
+    iao = { minimalOverlap: minimal.overlap, mixedOverlap: minimal.mixedOverlap, minimalFunctionCenter: minimal.functionCenter, occupied, occupiedCount: k };
+  }
   const bath = dmetBath({
+    ...(iao ? { iao } : {}),
     overlap: overlapMatrix(basis),
     functionCenter: basis.functionCenter,
     density: { alpha, beta },
@@ -186,6 +199,7 @@ export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcom
   return {
     reference: result.reference,
     orbitals: bath.orbitals,
+    minimalBasis: iao ? DEFAULT_MINIMAL_BASIS : null,
     threshold: bath.threshold,
     fragmentOrbitals: bath.fragmentOrbitals,
     systemOrbitals: M,

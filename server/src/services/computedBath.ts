@@ -4,10 +4,10 @@
  * computed beside the bath counted by the planning rule, and the impurity's electrons.
  */
 import { DMET_BATH_KIND, MEAN_FIELD_KIND, type DmetBathSummary, type DocumentAnalysis, type MeanFieldOutcome } from '../analysis';
-import { electronsText, perSpin, singularValuesText } from '../report/format/dmetBath';
+import { electronsText, orbitalsText, perSpin, singularValuesText } from '../report/format/dmetBath';
 
 export const BATH_HOVER_NOTE =
-  "Computed from the system's mean field (all electrons, Löwdin-orthogonalised atomic orbitals; Knizia & Chan 2012, Wouters et al. 2016): a result, not a planning estimate. Counted: the planning rule min(L, M − L, Nσ, M − Nσ) on the same orbitals, an upper bound reached when no fragment orbital is exactly occupied or empty.";
+  "Computed from the system's mean field (all electrons; Knizia & Chan 2012, Wouters et al. 2016): a result, not a planning estimate. Counted: the planning rule min(L, M − L, Nσ, M − Nσ) on the same orbitals, an upper bound reached when no fragment orbital is exactly occupied or empty.";
 
 function readySection(summary: DmetBathSummary): string {
   const s = summary;
@@ -21,7 +21,7 @@ function readySection(summary: DmetBathSummary): string {
     ? [`Singular values σ: ${singularValuesText(s.alpha.singularValues, s.threshold)}.`]
     : [`Singular values σ (α): ${singularValuesText(s.alpha.singularValues, s.threshold)}.`, '', `Singular values σ (β): ${singularValuesText(s.beta.singularValues, s.threshold)}.`];
   return [
-    `**DMET bath (computed)** · from the system's ${s.reference.toUpperCase()} mean field · ${s.systemOrbitals} orbitals · bath where σ > ${s.threshold.toExponential(0)}`,
+    `**DMET bath (computed)** · from the system's ${s.reference.toUpperCase()} mean field · ${s.systemOrbitals} orbitals · fragment in ${orbitalsText(s)} · bath where σ > ${s.threshold.toExponential(0)}`,
     '',
     '| | computed | counted |',
     '| --- | --- | --- |',

@@ -10,7 +10,7 @@ import { analyzeDocument, type DocumentAnalysis } from '../../analysis';
 import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
-import type { ScfReference } from '../../analysis';
+import type { BathOrbitals, ScfReference } from '../../analysis';
 import { bathJson, renderBathMarkdown, renderBathText, type BathPart } from '../../report/format/dmetBath';
 import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
@@ -39,6 +39,8 @@ export interface EstimateOptions {
   settings?: SpecSettings;
   /** Singular values above it give DMET bath orbitals (with --mean-field under embedding dmet). */
   bathThreshold?: number;
+  /** The fragment's orbitals for the DMET bath. */
+  bathOrbitals?: BathOrbitals;
 }
 
 interface Prepared {
@@ -147,8 +149,8 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (options.spec && (options.basis || options.charge !== undefined || options.multiplicity !== undefined || options.functions)) {
     throw new UsageError('--basis, --charge, --multiplicity and --functions go with --xyz; a spec sets them itself');
   }
-  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.bathThreshold !== undefined)) {
-    throw new UsageError('--reference, --max-iterations, --memory-limit and --bath-threshold go with --mean-field');
+  if (!options.meanField && (options.reference || options.maxIterations !== undefined || options.memoryLimitMiB !== undefined || options.bathThreshold !== undefined || options.bathOrbitals)) {
+    throw new UsageError('--reference, --max-iterations, --memory-limit, --bath-threshold and --bath-orbitals go with --mean-field');
   }
   const prepared = options.spec ? prepareSpec(options.spec, io, options.settings ?? {}) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
@@ -162,6 +164,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
           ...(options.maxIterations !== undefined ? { maxIterations: options.maxIterations } : {}),
           ...(options.memoryLimitMiB !== undefined ? { memoryLimitBytes: options.memoryLimitMiB * 2 ** 20 } : {}),
           ...(options.bathThreshold !== undefined ? { bathThreshold: options.bathThreshold } : {}),
+          ...(options.bathOrbitals ? { bathOrbitals: options.bathOrbitals } : {}),
         },
         io,
       )

@@ -25,11 +25,15 @@
  * converged to 1e-8 in the density, and the smallest genuine ones of small molecules in double-ζ
  * bases are near 1e-4 (tests/fixtures/dmet-bath.psi4.json), so 1e-6 sits orders of magnitude from
  * both. The threshold is a setting (`--bath-threshold` on the command line).
+ *
+ * Intrinsic atomic orbitals (iao.ts) may replace Löwdin's for closed shells: the same
+ * decomposition over the density in the IAOs, which span the occupied space exactly.
  */
 import type { CancelToken } from '../contracts';
 import { throwIfCancelled } from '../contracts';
 import { multiply, singularPairs, symmetricEigen, weightedOuterProducts } from '../linalg';
 import { overlapSquareRoot } from '../scf/population';
+import { iaoDensity, intrinsicAtomicOrbitals } from './iao';
 
 export const DEFAULT_BATH_THRESHOLD = 1e-6;
 
@@ -129,12 +133,26 @@ export interface DmetBathInput {
   readonly fragmentAtoms: readonly number[];
   readonly threshold?: number;
   readonly cancel?: CancelToken;
+  /**
+   * Cut the bath in intrinsic atomic orbitals (iao.ts) instead of Löwdin's: the minimal basis's
+   * overlaps and the occupied orbitals of the (closed-shell) determinant.
+   */
+  readonly iao?: {
+    readonly minimalOverlap: Float64Array;
+    readonly mixedOverlap: Float64Array;
+    readonly minimalFunctionCenter: ArrayLike<number>;
+    /** n × occupiedCount, row-major. */
+    readonly occupied: Float64Array;
+    readonly occupiedCount: number;
+  };
 }
 
+export type FragmentOrbitalKind = 'lowdin' | 'iao';
+
 export interface DmetBath {
-  readonly orbitals: 'lowdin';
+  readonly orbitals: FragmentOrbitalKind;
   readonly threshold: number;
-  /** Orthogonalised orbitals on the fragment's atoms (L) and on the others. */
+  /** Orthogonalised orbitals (Löwdin: one per basis function; IAO: one per minimal-basis function) on the fragment's atoms (L) and on the others. */
   readonly fragmentOrbitals: number;
   readonly environmentOrbitals: number;
   /** True when one spatial bath serves both spins (the same density for α and β). */
@@ -155,19 +173,35 @@ export function dmetBath(input: DmetBathInput): DmetBath {
   const threshold = input.threshold ?? DEFAULT_BATH_THRESHOLD;
   if (!(threshold > 0 && threshold < 0.5)) throw new RangeError(`The bath threshold must lie between 0 and 0.5 (singular values of a spin density do not exceed ½); got ${threshold}.`);
   const atoms = new Set(input.fragmentAtoms);
-  const inFragment = Array.from({ length: n }, (_, i) => atoms.has(input.functionCenter[i]!));
-  const L = inFragment.filter(Boolean).length;
-  const root = overlapSquareRoot(input.overlap, n);
-  throwIfCancelled(input.cancel);
   const restricted = input.density.alpha === input.density.beta;
-  const alpha = schmidtBath(lowdinDensity(root, input.density.alpha, n), n, inFragment, threshold, input.cancel);
-  const beta = restricted ? alpha : schmidtBath(lowdinDensity(root, input.density.beta, n), n, inFragment, threshold, input.cancel);
+  let densities: (spin: Float64Array) => Float64Array;
+  let centers: ArrayLike<number>;
+  if (input.iao) {
+    if (!restricted) {
+      throw new RangeError('Intrinsic atomic orbitals are built here for closed-shell (RHF) mean fields only: for UHF and ROHF one set of them cannot span both spins\' occupied orbitals. Use Löwdin orbitals (the default) for an open-shell system.');
+    }
+    const iao = input.iao;
+    const n2 = iao.minimalFunctionCenter.length;
+    const a = intrinsicAtomicOrbitals({ overlap: input.overlap, minimalOverlap: iao.minimalOverlap, mixedOverlap: iao.mixedOverlap, occupied: iao.occupied, n1: n, n2, occupiedCount: iao.occupiedCount });
+    densities = (spin) => iaoDensity(a, input.overlap, spin, n, n2);
+    centers = iao.minimalFunctionCenter;
+  } else {
+    const root = overlapSquareRoot(input.overlap, n);
+    densities = (spin) => lowdinDensity(root, spin, n);
+    centers = input.functionCenter;
+  }
+  throwIfCancelled(input.cancel);
+  const size = centers.length;
+  const inFragment = Array.from({ length: size }, (_, i) => atoms.has(centers[i]!));
+  const L = inFragment.filter(Boolean).length;
+  const alpha = schmidtBath(densities(input.density.alpha), size, inFragment, threshold, input.cancel);
+  const beta = restricted ? alpha : schmidtBath(densities(input.density.beta), size, inFragment, threshold, input.cancel);
   const impurityElectrons = alpha.impurityElectrons + beta.impurityElectrons;
   return {
-    orbitals: 'lowdin',
+    orbitals: input.iao ? 'iao' : 'lowdin',
     threshold,
     fragmentOrbitals: L,
-    environmentOrbitals: n - L,
+    environmentOrbitals: size - L,
     restricted,
     alpha,
     beta,

@@ -18,7 +18,12 @@ export interface BathPart {
 }
 
 export const BATH_NOTE =
-  "DMET bath computed from the system's mean field: Schmidt decomposition (singular values of the environment–fragment block) of each spin's density in Löwdin-orthogonalised atomic orbitals, all electrons, bath orbitals where a singular value exceeds the threshold (Knizia & Chan 2012; Wouters et al. 2016). Counted: the planning rule min(L, M − L, Nσ, M − Nσ) on the same orbitals, an upper bound.";
+  "DMET bath computed from the system's mean field: Schmidt decomposition (singular values of the environment–fragment block) of each spin's density in the fragment's orthogonalised orbitals (Löwdin's, or intrinsic atomic orbitals where the table says so; all electrons), bath orbitals where a singular value exceeds the threshold (Knizia & Chan 2012; Wouters et al. 2016). Counted: the planning rule min(L, M − L, Nσ, M − Nσ) on the same orbitals, an upper bound.";
+
+/** Which orthogonalised orbitals the fragment's are, in words. */
+export function orbitalsText(summary: DmetBathSummary): string {
+  return summary.orbitals === 'iao' ? `intrinsic atomic orbitals (minimal basis ${summary.minimalBasis ?? '?'}; Knizia 2013)` : 'Löwdin-orthogonalised atomic orbitals';
+}
 
 function spinJson(spin: SpinBathSummary): Record<string, unknown> {
   return {
@@ -40,6 +45,7 @@ export function bathJson(bath: PartBath): Record<string, unknown> {
     source: 'system mean field',
     reference: s.reference,
     orbitals: s.orbitals,
+    minimalBasis: s.minimalBasis,
     threshold: s.threshold,
     fragmentOrbitals: s.fragmentOrbitals,
     systemOrbitals: s.systemOrbitals,
@@ -78,13 +84,14 @@ export function singularValuesText(values: readonly number[], threshold: number,
 export function bathTable(parts: readonly BathPart[]): Table {
   return {
     title: 'DMET bath (computed from the system mean field; counted beside it)',
-    headers: ['fragment', 'fragment orbitals', 'bath computed', 'bath counted', 'impurity orbitals', 'impurity electrons', 'core electrons', 'largest σ'],
-    numeric: [false, true, true, true, true, true, true, true],
+    headers: ['fragment', 'orbitals', 'fragment orbitals', 'bath computed', 'bath counted', 'impurity orbitals', 'impurity electrons', 'core electrons', 'largest σ'],
+    numeric: [false, false, true, true, true, true, true, true, true],
     rows: parts.map(({ label, bath }) => {
-      if (bath.state === 'failed') return [label, '–', 'not computed', '–', '–', '–', '–', '–'];
+      if (bath.state === 'failed') return [label, '–', '–', 'not computed', '–', '–', '–', '–', '–'];
       const s = bath.summary;
       return [
         label,
+        s.orbitals === 'iao' ? `IAO (${s.minimalBasis ?? '?'})` : 'Löwdin',
         String(s.fragmentOrbitals),
         perSpin(s.alpha.bathOrbitals, s.beta.bathOrbitals),
         perSpin(s.alpha.countedBathOrbitals, s.beta.countedBathOrbitals),
