@@ -216,6 +216,9 @@ export interface ActiveSpaceAst {
   readonly orbitals?: Located<number>;
   /** Orbitals per irrep of the fragment's point group, when given (`A1=3 B2=1`). */
   readonly irreps: readonly ActiveIrrepAst[];
+  /** The reference occupation, when given: doubly occupied (`occupied A1=2`) and singly occupied (`open B1=1`) orbitals per irrep. */
+  readonly occupied?: readonly ActiveIrrepAst[];
+  readonly open?: readonly ActiveIrrepAst[];
   readonly span: Span;
 }
 
@@ -262,6 +265,8 @@ export interface ScanAst {
   readonly to?: Located<number>;
   readonly step?: Located<number>;
   readonly points?: Located<number>;
+  /** `moving <atom> …`: the atoms that move with the second one, when given. */
+  readonly moving?: { readonly atoms: readonly AtomRef[]; readonly span: Span };
 }
 
 export interface LimitsAst {
@@ -271,9 +276,11 @@ export interface LimitsAst {
   memory?: Located<number>;
   /** Shots per second. */
   shotRate?: Located<number>;
+  /** Floating-point operations per second. */
+  rate?: Located<number>;
 }
 
-function describeRef(ref: AtomRef): string {
+export function describeRef(ref: AtomRef): string {
   return ref.kind === 'index' ? `#${ref.index}` : ref.name;
 }
 

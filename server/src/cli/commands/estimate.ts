@@ -165,7 +165,7 @@ function measurementSettings(analysis: DocumentAnalysis, k: number): Measurement
   const tier = fragment?.tier;
   const epsilon = tier?.accuracy ?? (model.accuracyGiven ? model.accuracy : CHEMICAL_ACCURACY);
   if (!fragment || tier?.level !== 'quantum') return { epsilon, method: null, vqe: null };
-  const parameters = tier.method === 'vqe' ? analysis.estimates.plan(fragment.index)?.ansatz?.parameters : undefined;
+  const parameters = tier.method === 'vqe' ? analysis.estimates.plan(fragment.index)?.quantum?.ansatz?.parameters : undefined;
   return {
     epsilon,
     method: tier.method,

@@ -84,6 +84,7 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
       qubitsFromSpec: ast.limits?.qubits !== undefined,
       ...(ast.limits?.memory ? { memoryBytes: ast.limits.memory.value } : {}),
       ...(ast.limits?.shotRate ? { shotRate: ast.limits.shotRate.value } : {}),
+      ...(ast.limits?.rate ? { flopsPerSecond: ast.limits.rate.value } : {}),
     },
     accuracy: ast.accuracy?.value ?? CHEMICAL_ACCURACY_HARTREE,
     accuracyGiven: ast.accuracy !== undefined,
