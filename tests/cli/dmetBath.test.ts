@@ -66,6 +66,8 @@ describe('tessera estimate --mean-field: the DMET bath of each fragment (tests/f
       // The counting rule min(L, M − L, Nσ, M − Nσ): 24 fragment functions of 48, 10 electrons per spin → 10 (fixture bath count).
       expect(bath['bath']['counted']).toEqual({ alpha: fragment.alpha.bathOrbitals, beta: fragment.beta.bathOrbitals });
       expect(Math.abs(bath['impurity']['electrons'] - fragment.impurityElectrons)).toBeLessThan(1e-8);
+      // The rule counts bath + max(0, L + Nσ − M) = 10 + 0 per spin (fixture bath count; L 24, M 48, Nσ 10).
+      expect(bath['impurity']['countedElectrons']).toBe(2 * fragment.alpha.bathOrbitals);
       expect(Math.abs(bath['coreElectrons'] - fragment.coreElectrons)).toBeLessThan(1e-8);
       expect(bath['impurity']['orbitals']).toBe(24 + fragment.alpha.bathOrbitals);
       expect(bath['beta']).toBeNull();

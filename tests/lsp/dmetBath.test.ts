@@ -65,7 +65,9 @@ describe('computed DMET bath over stdio', () => {
     expect(value).toContain("**DMET bath (computed)** · from the system's RHF mean field");
     const fragment = LITHIUM.fragments[1]!;
     expect(value).toContain(`| bath orbitals | ${fragment.alpha.bathOrbitals} | ${fragment.alpha.bathOrbitals} |`);
-    expect(value).toContain(`| impurity electrons | ${fragment.impurityElectrons.toFixed(6)} | |`);
+    // 12 electrons, 6 per spin = 6 bath + 0 fully occupied fragment orbitals; the rule counts the same.
+    expect(value).toContain(`| impurity electrons | ${fragment.impurityElectrons.toFixed(6)} (6 per spin by the rule bath + fully occupied fragment orbitals) | 12 |`);
+    expect(value).toContain('The DMET impurity in the planning figures above is counted');
     expect(value).toContain(`Singular values σ: ${fragment.alpha.singularValues[0]!.toPrecision(3)}`);
     expect(value).toContain('| | computed | counted |');
   }, 180_000);

@@ -133,6 +133,8 @@ export interface SpinBathSummary {
   readonly countedBathOrbitals: number;
   /** Electrons of the spin on fragment + bath, from the projected density. */
   readonly impurityElectrons: number;
+  /** The counting rule's electrons of the spin on the impurity: counted bath + max(0, L + Nσ − M). */
+  readonly countedImpurityElectrons: number;
   /** Fragment orbitals fully occupied (no bath partner). */
   readonly occupiedFragmentOrbitals: number;
   readonly idempotencyError: number;

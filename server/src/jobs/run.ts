@@ -192,6 +192,7 @@ export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcom
     singularValues: Array.from(value.singularValues),
     bathOrbitals: value.bathOrbitals,
     countedBathOrbitals: bathSize(L, M, electrons),
+    countedImpurityElectrons: bathSize(L, M, electrons) + Math.max(0, L + electrons - M),
     impurityElectrons: value.impurityElectrons,
     occupiedFragmentOrbitals: value.occupiedFragmentOrbitals,
     idempotencyError: value.idempotencyError,

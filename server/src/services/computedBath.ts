@@ -14,7 +14,7 @@ function readySection(summary: DmetBathSummary): string {
   const rows = [
     `| bath orbitals | ${perSpin(s.alpha.bathOrbitals, s.beta.bathOrbitals)} | ${perSpin(s.alpha.countedBathOrbitals, s.beta.countedBathOrbitals)} |`,
     `| impurity orbitals | ${s.impurityOrbitals} (${s.fragmentOrbitals} fragment + bath) | ${s.fragmentOrbitals + Math.max(s.alpha.countedBathOrbitals, s.beta.countedBathOrbitals)} |`,
-    `| impurity electrons | ${electronsText(s.impurityElectrons)} | |`,
+    `| impurity electrons | ${electronsText(s.impurityElectrons)} (${perSpin(s.alpha.bathOrbitals + s.alpha.occupiedFragmentOrbitals, s.beta.bathOrbitals + s.beta.occupiedFragmentOrbitals)} per spin by the rule bath + fully occupied fragment orbitals) | ${s.alpha.countedImpurityElectrons + s.beta.countedImpurityElectrons} |`,
     `| core electrons (environment) | ${electronsText(s.coreElectrons)} | |`,
   ];
   const values = s.restricted
@@ -28,6 +28,8 @@ function readySection(summary: DmetBathSummary): string {
     ...rows,
     '',
     ...values,
+    '',
+    "The DMET impurity in the planning figures above is counted, outside the frozen core when frozen core is on.",
     '',
     `_${BATH_HOVER_NOTE}_`,
   ].join('\n');
