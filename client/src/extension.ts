@@ -12,6 +12,7 @@ import { CostsPanel, LevelsPanel, StructurePanel, type ViewHost } from './views/
 let client: LanguageClient | undefined;
 let statusItem: vscode.StatusBarItem | undefined;
 let reportPanel: vscode.WebviewPanel | undefined;
+let comparePanel: vscode.WebviewPanel | undefined;
 let reportUri: string | undefined;
 let structurePanel: StructurePanel | undefined;
 let costsPanel: CostsPanel | undefined;
@@ -124,6 +125,27 @@ async function showReport(reveal = true): Promise<void> {
   if (reveal) reportPanel.reveal(vscode.ViewColumn.Beside, true);
 }
 
+/** Shows the spec and its variants side by side (the server's `tessera/compare` Markdown). */
+async function showComparison(): Promise<void> {
+  const document = activeSpec();
+  if (!document || !client) {
+    void vscode.window.showInformationMessage('Tessera: open a .tess spec to compare its plan variants.');
+    return;
+  }
+  const result = await client.sendRequest<{ markdown: string } | null>('tessera/compare', { uri: document.uri.toString() });
+  if (!result) return;
+  const html = await vscode.commands.executeCommand<string>('markdown.api.render', result.markdown);
+  if (!comparePanel) {
+    comparePanel = vscode.window.createWebviewPanel('tessera.compare', 'Tessera plans', { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, { enableScripts: false, localResourceRoots: [] });
+    comparePanel.onDidDispose(() => {
+      comparePanel = undefined;
+    });
+  }
+  comparePanel.title = `Plans: ${document.uri.path.split('/').pop() ?? 'spec'}`;
+  comparePanel.webview.html = reportPageHtml(comparePanel.webview.cspSource, makeNonce(), html);
+  comparePanel.reveal(vscode.ViewColumn.Beside, true);
+}
+
 export async function activate(context: vscode.ExtensionContext): Promise<void> {
   const serverModule = context.asAbsolutePath('dist/server.js');
   const serverOptions: ServerOptions = {
@@ -154,6 +176,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     statusItem,
     ...panels,
     vscode.commands.registerCommand('tessera.showReport', () => showReport()),
+    vscode.commands.registerCommand('tessera.comparePlans', showComparison),
     vscode.commands.registerCommand('tessera.showStructure', showStructure),
     vscode.commands.registerCommand('tessera.showCosts', showCosts),
     vscode.commands.registerCommand('tessera.showLevels', showLevels),

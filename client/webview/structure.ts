@@ -1,6 +1,6 @@
 /**
  * The structure view's script: draws the spec's atoms with 3Dmol.js, coloured by fragment, with
- * bonds cut by fragment boundaries dashed and the scanned distance as an arrow; fills the key;
+ * bonds cut by fragment boundaries dashed, their hydrogen caps as small spheres, and the scanned distance as an arrow; fills the key;
  * reports clicks on atoms and on fragments of the key to the extension. Everything it shows comes
  * from the extension's messages (the language server's `tessera/structure` answer).
  */
@@ -149,6 +149,21 @@ function drawBonds(structure: ViewStructure): void {
   }
 }
 
+/** Caps: a small sphere in the fragment's colour on a thin stick from the atom that keeps it. */
+const CAP_RADIUS = 0.2;
+const CAP_STICK = 0.05;
+
+function drawCaps(structure: ViewStructure): void {
+  for (const cap of structure.caps) {
+    const host = structure.atoms[cap.host]!;
+    const colour = structure.fragments[cap.fragment]?.colour ?? structure.unassignedColour;
+    const shown = highlightedFragment === null || highlightedFragment === cap.fragment ? colour : faded(colour);
+    const centre = apply(rotation, cap);
+    viewer.addCylinder({ start: point(host), end: centre, radius: CAP_STICK, color: shown, fromCap: 1, toCap: 1 });
+    viewer.addSphere({ center: centre, radius: CAP_RADIUS, color: shown });
+  }
+}
+
 function scanRange(distances: readonly number[]): string {
   if (distances.length === 0) return 'no points';
   const low = Math.min(...distances);
@@ -222,6 +237,7 @@ function draw(fit: boolean): void {
     },
   );
   drawBonds(structure);
+  drawCaps(structure);
   drawScan(structure);
   drawLabels(structure);
   if (fit) frame();
@@ -280,6 +296,7 @@ function fillKey(structure: ViewStructure): void {
   element('unassigned-dot').style.backgroundColor = structure.unassignedColour;
   element('mark-unassigned').hidden = !structure.atoms.some((atom) => atom.fragment < 0);
   element('mark-cut').hidden = !structure.bonds.some((bond) => bond.cut);
+  element('mark-cap').hidden = structure.caps.length === 0;
 }
 
 function markKey(): void {

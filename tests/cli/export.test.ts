@@ -107,8 +107,8 @@ async function exportQc(file: string): Promise<QcExport> {
 }
 
 describe('the sample list', () => {
-  it('has the eight clean samples and the mistakes', () => {
-    expect(cleanSamples()).toHaveLength(8);
+  it('has the eleven clean samples and the mistakes', () => {
+    expect(cleanSamples()).toHaveLength(11);
     expect(allSamples()).toContain('samples/mistakes.tess');
   });
 });
@@ -244,8 +244,11 @@ describe('tessera export --to qcschema', () => {
     });
     qc.fragments.forEach((fragment, f) => {
       const rows = system.fragments![f]!;
-      expect(fragment.symbols).toEqual(rows.map((k) => system.symbols[k]));
-      expect(fragment.geometry).toEqual(rows.flatMap((k) => system.geometry.slice(3 * k, 3 * k + 3)));
+      // A capped fragment lists its hydrogen caps after its own atoms.
+      const caps = model.fragments[f]!.caps.length;
+      expect(fragment.symbols).toEqual([...rows.map((k) => system.symbols[k]), ...Array<string>(caps).fill('H')]);
+      expect(fragment.geometry.slice(0, 3 * rows.length)).toEqual(rows.flatMap((k) => system.geometry.slice(3 * k, 3 * k + 3)));
+      expect(fragment.geometry).toHaveLength(3 * (rows.length + caps));
       expect(fragment.extras.tessera.spec_atom_numbers).toEqual(rows.map((k) => numbers[k]));
       expect(fragment.extras.tessera.fragment).toBe(model.fragments[f]!.name);
     });
@@ -262,6 +265,10 @@ describe('tessera export --to qcschema', () => {
       'samples/molecules/dinitrogen-bases.tess': { system: [0, 1], fragments: { n2: [0, 1] } },
       'samples/molecules/benzene-6-31gs.tess': { system: [0, 1], fragments: { ring: [0, 1] } },
       'samples/molecules/water-pair-overrides.tess': { system: [0, 1], fragments: { donor: [0, 1], acceptor: [0, 1] } },
+      // Two capped methyl groups: CH3 + H, 10 electrons each, singlets.
+      'samples/launch/ethane-capped-methyls.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
+      'samples/launch/ethane-plan-variants.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
+      'samples/launch/ethane-shared-structure.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
     };
     expect(Object.keys(expected).sort()).toEqual(cleanSamples());
     for (const [file, want] of Object.entries(expected)) {
@@ -393,9 +400,11 @@ describe('tessera export: errors, files and usage', () => {
 
   it('the help names export, report and their options', async () => {
     const help = (await run(['--help'])).stdout;
-    expect(help).toContain('tessera export <file.tess> --to xyz|qcschema [--out <file>]');
+    expect(help).toContain('tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]');
     expect(help).toContain('tessera report <file.tess> [--format markdown|html|csv] [--out <file>]');
     expect(help).toContain('tessera-qcschema-export');
+    expect(help).toContain('tessera-qcschema-input-export');
+    expect(help).toContain('tessera compare <file.tess> [<file2.tess>] [--format markdown|html|csv] [--out <file>]');
   });
 
   it('the built executable exports (npm run build first)', () => {

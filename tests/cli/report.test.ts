@@ -66,7 +66,7 @@ describe('tessera report', () => {
       expect(result.stderr).toContain("Run 'tessera --help'");
     }
     expect((await run(['report', '--help'])).code).toBe(0);
-    expect((await run(['frobnicate'])).stderr).toContain('the commands are check, estimate, export, report and lsp');
+    expect((await run(['frobnicate'])).stderr).toContain('the commands are check, estimate, export, report, compare and lsp');
   });
 
   it('the built executable writes reports (npm run build first)', () => {

@@ -30,6 +30,7 @@ describe('DEVELOPERS.md on the data generators', () => {
       'the elements': 'generate_elements.py',
       'the elements fixture': 'generate_elements_fixture.py',
       'the QCSchema schema': 'generate_qcschema_schema.py',
+      'the QCSchema input schema': 'generate_qcschema_input_schema.py',
       'the integrals fixture': 'generate_integrals_fixture.py',
       'the exponents fixture': 'generate_exponents_fixture.py',
     };

@@ -343,6 +343,17 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMiss: water('fragment w { atoms rest; tier quantum { active 4e 2o } }'),
     message: ["The active space of 'w' does not fit: 6 electrons do not fit in 2 orbitals (at most 4)."],
   },
+  'duplicate-variant': {
+    trigger: water(`${ONE_FRAGMENT}\nvariant a { embedding dmet }\nvariant ⟦a⟧ { embedding none }`),
+    nearMiss: water(`${ONE_FRAGMENT}\nvariant a { embedding dmet }\nvariant b { embedding none }`),
+    message: ["A variant named 'a' is already declared"],
+  },
+  'variant-problem': {
+    // The variant asks for an active space the fragment cannot hold: water in STO-3G has 7 orbitals.
+    trigger: water(`fragment w { atoms rest; tier quantum { active 4e 4o } }\nvariant ⟦big⟧ { fragment w { tier quantum { active 8e 9o } } }`),
+    nearMiss: water(`fragment w { atoms rest; tier quantum { active 4e 4o } }\nvariant small { fragment w { tier quantum { active 2e 2o } } }`),
+    message: ["Variant 'big' has 1 error as a spec of its own: line 7 of the variant's spec:"],
+  },
   'qubit-limit-exceeded': {
     trigger: water('fragment w { atoms rest; tier quantum { mapping parity; ⟦active 8e 8o⟧ } }\nlimits { qubits 12 }', '', 'basis cc-pVDZ'),
     // Under the parity mapping with the two-qubit reduction, 7 orbitals need 2 × 7 − 2 = 12 qubits.
@@ -644,7 +655,7 @@ describe('geometry checks', () => {
       'bond-cut',
     );
     expect(diagnostic.message).toBe(
-      "The boundary between 'a' and 'b' cuts 2 covalent bonds: o–h1 0.96 Å, o–h2 0.96 Å (bonded: closer than 1.2 × the sum of covalent radii). Cut bonds need capping or link atoms in the embedding.",
+      "The boundary between 'a' and 'b' cuts 2 covalent bonds: o–h1 0.96 Å, o–h2 0.96 Å (bonded: closer than 1.2 × the sum of covalent radii). Cut bonds need capping or link atoms in the embedding: `caps hydrogen fixed` (or `scaled`) adds hydrogen link atoms.",
     );
     expect(diagnostic.data).toEqual({ bonds: [[0, 1], [0, 2]] });
     expect(diagnostic.related?.map((r) => [analysis.text.slice(r.span.start, r.span.end), r.message])).toEqual([

@@ -16,6 +16,8 @@ import { mappingKey, MAPPINGS, qubitCounts, type Mapping } from '../../server/sr
 import { LENGTH_UNITS } from '../../server/src/chemistry/units';
 import {
   ANSATZE,
+  CAP_KINDS,
+  CAP_RULES,
   choices,
   EMBEDDINGS,
   FUNCTION_TERMS,
@@ -144,7 +146,7 @@ describe('the TextMate grammar', () => {
 
   it('colours exactly the value words of the table as constants', () => {
     const values = grammar.repository['values']!.patterns!.find((p) => p.name === 'constant.language.tessera')!.match!;
-    const expected = [TIER_LEVELS, METHODS, ANSATZE, MAPPING_TERMS, EMBEDDINGS, UNIT_TERMS, FUNCTION_TERMS, SWITCH_TERMS, SCAN_KINDS].flatMap(names);
+    const expected = [TIER_LEVELS, METHODS, ANSATZE, MAPPING_TERMS, EMBEDDINGS, UNIT_TERMS, FUNCTION_TERMS, SWITCH_TERMS, SCAN_KINDS, CAP_KINDS, CAP_RULES].flatMap(names);
     expect(new Set(alternatives(values))).toEqual(new Set(expected));
   });
 

@@ -80,7 +80,7 @@ describe('language server over stdio', () => {
     expect(labels).not.toContain('vqe');
     const keywords = await client.request<CompletionList>('textDocument/completion', { textDocument: { uri: demoUri }, position: positionOf(demoText, '  charge +2', 0, 2) });
     // Keywords of a fragment block, less the ones this fragment already has (atoms, tier).
-    expect(keywords.items.map((item) => item.label).sort()).toEqual(['charge', 'multiplicity']);
+    expect(keywords.items.map((item) => item.label).sort()).toEqual(['caps', 'charge', 'multiplicity']);
   });
 
   it('renames an atom label at its definition and every use', async () => {
@@ -156,6 +156,9 @@ describe('language server over stdio', () => {
     expect(lenses[0]!.command.title).toContain('largest quantum fragment 18 qubits (site)');
     const report = await client.request<{ markdown: string }>('tessera/report', { uri: demoUri });
     expect(report.markdown).toContain('# Resource report: zn-site-h2s-approach');
+    // The demo has no variants: the comparison holds the spec alone, marked best under its limits.
+    const comparison = await client.request<{ markdown: string }>('tessera/compare', { uri: demoUri });
+    expect(comparison.markdown).toContain('| | zn-site-h2s-approach (best) |');
   });
 
   it('answers the status-bar summary: the largest quantum fragment, the errors and the limit', async () => {

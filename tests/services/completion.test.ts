@@ -39,12 +39,12 @@ function spec(body: string, header = 'basis def2-svp'): string {
 }
 
 describe('keywords valid at the cursor', () => {
-  const TOP = ['spec', 'charge', 'multiplicity', 'basis', 'functions', 'structure', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits'];
+  const TOP = ['spec', 'charge', 'multiplicity', 'basis', 'functions', 'structure', 'frozen-core', 'fragment', 'caps', 'embedding', 'scan', 'limits', 'variant'];
   const cases: { block: string; text: string; expected: string[] }[] = [
     { block: 'top level of an empty spec', text: '$0', expected: TOP },
     // `basis` repeats (a main line and overrides), so it is offered after one.
     { block: 'top level', text: spec('$0\n', 'spec "t"'), expected: TOP.filter((k) => k !== 'spec' && k !== 'structure') },
-    { block: 'fragment', text: spec('fragment f {\n  $0\n}\n'), expected: ['charge', 'multiplicity', 'atoms', 'tier'] },
+    { block: 'fragment', text: spec('fragment f {\n  $0\n}\n'), expected: ['charge', 'multiplicity', 'atoms', 'tier', 'caps'] },
     { block: 'tier', text: spec('fragment f {\n  atoms rest\n  tier quantum {\n    $0\n  }\n}\n'), expected: ['frozen-core', 'method', 'ansatz', 'mapping', 'active', 'taper', 'layers'] },
     { block: 'limits', text: spec('limits {\n  $0\n}\n'), expected: ['qubits', 'memory'] },
   ];
@@ -66,21 +66,21 @@ describe('keywords valid at the cursor', () => {
 
   it('leaves out singleton keywords already given in the block, keeps `fragment`', () => {
     const top = labels(spec('functions cartesian\nfragment a { atoms rest; tier mean-field { method rhf } }\n$0\n', 'spec "t"\ncharge 0\nbasis def2-svp'));
-    expect(top).toEqual(['multiplicity', 'basis', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits']);
-    expect(labels(spec('fragment f {\n  atoms rest\n  charge 0\n  $0\n}\n'))).toEqual(['multiplicity', 'tier']);
+    expect(top).toEqual(['multiplicity', 'basis', 'frozen-core', 'fragment', 'caps', 'embedding', 'scan', 'limits', 'variant']);
+    expect(labels(spec('fragment f {\n  atoms rest\n  charge 0\n  $0\n}\n'))).toEqual(['multiplicity', 'tier', 'caps']);
     expect(labels(spec('fragment f {\n  atoms rest\n  tier quantum {\n    method vqe\n    taper on\n    $0\n  }\n}\n'))).toEqual(['frozen-core', 'ansatz', 'mapping', 'active', 'layers']);
     expect(labels(spec('limits {\n  qubits 4\n  $0\n}\n'))).toEqual(['memory']);
   });
 
   it('starts a new statement on the line after a closed block', () => {
     const after = (block: string) => labels(spec(`${block}\n$0\n`, 'spec "t"\nbasis def2-svp'));
-    const expected = ['charge', 'multiplicity', 'basis', 'functions', 'frozen-core', 'fragment', 'embedding', 'scan', 'limits'];
+    const expected = ['charge', 'multiplicity', 'basis', 'functions', 'frozen-core', 'fragment', 'caps', 'embedding', 'scan', 'limits', 'variant'];
     expect(after('fragment a {\n  atoms rest\n  tier mean-field { method rhf }\n}')).toEqual(expected);
     expect(after('limits { qubits 4 }')).toEqual(expected.filter((k) => k !== 'limits'));
   });
 
   it('counts the keyword being typed as not yet given', () => {
-    expect(labels(spec('fragment f {\n  atoms rest\n  ch$0\n}\n'))).toEqual(['charge', 'multiplicity', 'tier']);
+    expect(labels(spec('fragment f {\n  atoms rest\n  ch$0\n}\n'))).toEqual(['charge', 'multiplicity', 'tier', 'caps']);
   });
 });
 

@@ -18,6 +18,8 @@ export const URI = 'file:///work/specs/test.tess';
 export const SAMPLE_NAMES = [
   'mistakes.tess',
   'zn-site-h2s-scan.tess',
+  'launch/ethane-capped-methyls.tess',
+  'launch/ethane-plan-variants.tess',
   'molecules/benzene-6-31gs.tess',
   'molecules/dinitrogen-bases.tess',
   'molecules/water-cc-pvdz.tess',

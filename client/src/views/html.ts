@@ -96,6 +96,7 @@ body { height: 100vh; display: flex; flex-direction: column; overflow: hidden; }
 #marks li { display: flex; align-items: center; gap: 0.55em; padding: 0.2em 0.4em; }
 #marks .swatch { width: 1.6em; flex: none; }
 #marks .dot { width: 0.95em; height: 0.95em; border-radius: 50%; border: 1px solid #0003; }
+#marks .cap { width: 0.55em; height: 0.55em; margin-left: 0.2em; background: #9a9a9a; }
 #marks .dash { height: 0; border-top: 3px dashed #1f1f1f; }
 #marks .arrow { height: 0; border-top: 3px solid #6a3d9a; }
 #scan-detail { margin: 0.3em 0.4em; font-variant-numeric: tabular-nums; }
@@ -151,6 +152,7 @@ function structureBody(): string {
     <ul id="marks">
       <li id="mark-unassigned"><span class="swatch"><span class="dot" id="unassigned-dot"></span></span><span>in no fragment</span></li>
       <li id="mark-cut"><span class="swatch dash"></span><span>bond cut by a fragment boundary</span></li>
+      <li id="mark-cap"><span class="swatch"><span class="dot cap"></span></span><span>hydrogen cap on a cut bond, in its fragment's colour</span></li>
       <li id="mark-scan"><span class="swatch arrow"></span><span>scanned distance</span></li>
     </ul>
     <p id="scan-detail" hidden></p>

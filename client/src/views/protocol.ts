@@ -65,11 +65,23 @@ export interface ViewFragment {
   line: number;
 }
 
+export interface ViewCap {
+  fragment: number;
+  host: number;
+  partner: number;
+  element: string;
+  x: number;
+  y: number;
+  z: number;
+}
+
 export interface ViewStructure {
   spec: string | null;
   atoms: ViewAtom[];
   fragments: ViewFragment[];
   bonds: { i: number; j: number; cut: boolean }[];
+  /** Hydrogen caps on cut bonds: the fragment that has each, its host and partner atoms, its position (Å). */
+  caps: ViewCap[];
   scan: { first: number; second: number; distances: number[]; moving: number[] } | null;
   unassignedColour: string;
   note: string;
@@ -179,8 +191,8 @@ function typeOf(raw: unknown): string | undefined {
 
 export function checkStructure(raw: unknown): Checked<ViewStructure> {
   if (!isRecord(raw)) return fail('structure data is not an object');
-  if (!hasKeys(raw, ['spec', 'atoms', 'fragments', 'bonds', 'scan', 'unassignedColour', 'note'])) return fail('structure data has unexpected fields');
-  const { spec, atoms, fragments, bonds, scan, unassignedColour, note } = raw;
+  if (!hasKeys(raw, ['spec', 'atoms', 'fragments', 'bonds', 'caps', 'scan', 'unassignedColour', 'note'])) return fail('structure data has unexpected fields');
+  const { spec, atoms, fragments, bonds, caps, scan, unassignedColour, note } = raw;
   if (spec !== null && !isText(spec)) return fail(textProblem('the spec name', spec, MAX_TEXT));
   if (!isText(note) || !isText(unassignedColour) || !COLOUR.test(unassignedColour)) return fail('note or unassigned colour malformed');
   if (!Array.isArray(fragments)) return fail('fragments is not a list');
@@ -208,6 +220,14 @@ export function checkStructure(raw: unknown): Checked<ViewStructure> {
   if (bonds.length > MAX_BONDS) return fail(`${bonds.length} bonds, more than the ${MAX_BONDS} the view shows`);
   for (const bond of bonds) {
     if (!isRecord(bond) || !hasKeys(bond, ['i', 'j', 'cut']) || !isIndex(bond['i'], atoms.length) || !isIndex(bond['j'], atoms.length) || typeof bond['cut'] !== 'boolean') return fail('a bond is malformed or names a missing atom');
+  }
+  if (!Array.isArray(caps)) return fail('caps is not a list');
+  if (caps.length > MAX_BONDS) return fail(`${caps.length} caps, more than the ${MAX_BONDS} the view shows`);
+  for (const cap of caps) {
+    if (!isRecord(cap) || !hasKeys(cap, ['fragment', 'host', 'partner', 'element', 'x', 'y', 'z'])) return fail('a cap has the wrong fields');
+    if (!isIndex(cap['fragment'], fragments.length) || !isIndex(cap['host'], atoms.length) || !isIndex(cap['partner'], atoms.length)) return fail('a cap names a missing fragment or atom');
+    if (!isText(cap['element'], 3) || !ELEMENT.test(cap['element'])) return fail('a cap has no element symbol');
+    if (!isFiniteNumber(cap['x']) || !isFiniteNumber(cap['y']) || !isFiniteNumber(cap['z'])) return fail('cap coordinates are not finite numbers');
   }
   if (scan !== null) {
     if (!isRecord(scan) || !hasKeys(scan, ['first', 'second', 'distances', 'moving'])) return fail('scan has the wrong fields');

@@ -28,6 +28,7 @@ import { assembleReport } from './figures/report';
 import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
+import { analyseVariants, reportVariantProblems, type VariantAnalysis } from './variants';
 import { partComputation, type PartComputation } from './computed';
 import type { PartRef } from './inputKey';
 
@@ -57,7 +58,16 @@ export class DocumentAnalysis {
   private moving: number[] | undefined;
   private readonly computations = new Map<string, PartComputation>();
 
-  constructor(analysis: Analysis, late: LateResults = new LateResults()) {
+  /**
+   * The options the document was analysed with, less the previous version (kept, it would hold
+   * every earlier version alive); its variants are analysed with the same.
+   */
+  readonly options: Omit<AnalysisOptions, 'previous'>;
+  private variantList: VariantAnalysis[] | undefined;
+
+  constructor(analysis: Analysis, late: LateResults = new LateResults(), options: AnalysisOptions = {}) {
+    const { previous: _previous, ...kept } = options;
+    this.options = kept;
     this.text = analysis.text;
     this.path = analysis.path;
     this.lines = analysis.lines;
@@ -75,6 +85,10 @@ export class DocumentAnalysis {
       const sink = new DiagnosticSink();
       const context = { ast: this.ast, model: this.model, sink, estimates: this.estimates };
       for (const check of ESTIMATE_CHECKS) contained(sink, checkName(check), () => check(context));
+      if (this.ast.variants.length > 0) {
+        const own = new Set([...this.languageDiagnostics, ...sink.items].map((d) => `${d.code} ${d.message}`));
+        contained(sink, 'variants', () => reportVariantProblems(this, sink, own));
+      }
       this.allDiagnostics = finishDiagnostics([...this.languageDiagnostics, ...sink.items], sink.dropped, sink.droppedErrors);
     }
     return this.allDiagnostics;
@@ -88,6 +102,12 @@ export class DocumentAnalysis {
       else if (d.severity === 'warning') warnings++;
     }
     return { errors, warnings };
+  }
+
+  /** The spec's plan variants, each analysed as a spec of its own (analysis/variants.ts). */
+  variants(): VariantAnalysis[] {
+    if (!this.variantList) this.variantList = analyseVariants(this, (text) => analyzeDocument(text, this.options, this.late));
+    return this.variantList;
   }
 
   /** One fragment's figures (its point group and plan estimate only). */
@@ -169,5 +189,5 @@ export class DocumentAnalysis {
 
 /** Analyses a document: the language analysis now, everything else when first asked for. */
 export function analyzeDocument(text: string, options: AnalysisOptions = {}, late?: LateResults): DocumentAnalysis {
-  return new DocumentAnalysis(analyze(text, options), late);
+  return new DocumentAnalysis(analyze(text, options), late, options);
 }

@@ -5,14 +5,14 @@
  * symmetry-reduced counts. Symmetry detection is the costliest step, so it follows one size
  * policy everywhere (checks and figures alike): SYMMETRY_ATOM_LIMIT.
  */
-import { frozenCoreShells } from '../chemistry/elements';
+import { elementByNumber, frozenCoreShells } from '../chemistry/elements';
 import { activeIrreps, planSymmetryOf, resolveGivenIrreps, symmetryCounts, type PlanSymmetry } from '../chemistry/estimate/activeIrreps';
 import type { PauliTermCounts } from '../chemistry/estimate/pauliTerms';
 import { EMBEDDING_SYMMETRY, embeddingName, type SymmetryScope } from '../chemistry/estimate/embeddingSymmetry';
 import { estimatePlan, type PlanEstimate, type PlanInput } from '../chemistry/estimate/plan';
 import { embeddedOrbitalSymmetry, orbitalSymmetry, type OrbitalSymmetry, type SymmetryAtoms } from '../chemistry/symmetry';
 import type { Mapping } from '../chemistry/qubits';
-import type { SpecModel } from '../language/model';
+import type { CapModel, SpecModel } from '../language/model';
 import { InputMemo } from './memo';
 
 /**
@@ -61,7 +61,8 @@ export class Estimates {
   fragmentSymmetry(index: number): OrbitalSymmetry | undefined {
     if (!this.fragmentSymmetries.has(index)) {
       const fragment = this.model.fragments[index]!;
-      this.fragmentSymmetries.set(index, this.symmetryOf(fragment.atoms, fragment.tier?.frozenCore ?? this.model.frozenCore, false));
+      // Caps are part of the fragment the solver sees: they count in its point group.
+      this.fragmentSymmetries.set(index, this.symmetryOf(fragment.atoms, fragment.tier?.frozenCore ?? this.model.frozenCore, false, fragment.caps));
     }
     return this.fragmentSymmetries.get(index);
   }
@@ -76,10 +77,13 @@ export class Estimates {
       const fragment = this.model.fragments[index]!;
       const all = this.model.atoms.map((atom) => atom.index);
       let found: OrbitalSymmetry | undefined;
-      if (fragment.atoms.length > 0 && Estimates.symmetryApplies(all.length)) {
-        const atoms = this.symmetryAtoms(all, fragment.tier?.frozenCore ?? this.model.frozenCore);
-        const key = JSON.stringify(['in-system', atoms.key, fragment.atoms]);
-        found = SYMMETRIES.get(key, () => embeddedOrbitalSymmetry(atoms.atoms, fragment.atoms));
+      if (fragment.atoms.length > 0 && Estimates.symmetryApplies(all.length + fragment.caps.length)) {
+        // The fragment's caps join the system and the fragment: an operation that keeps the
+        // fragment's atoms maps its cut bonds onto each other, and so its caps.
+        const atoms = this.symmetryAtoms(all, fragment.tier?.frozenCore ?? this.model.frozenCore, fragment.caps);
+        const members = [...fragment.atoms, ...fragment.caps.map((_, k) => all.length + k)];
+        const key = JSON.stringify(['in-system', atoms.key, members]);
+        found = SYMMETRIES.get(key, () => embeddedOrbitalSymmetry(atoms.atoms, members));
       }
       this.inSystemSymmetries.set(index, found);
     }
@@ -157,21 +161,28 @@ export class Estimates {
     });
   }
 
-  private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean): OrbitalSymmetry | undefined {
-    if (!Estimates.symmetryApplies(atoms.length)) return undefined;
-    const prepared = this.symmetryAtoms(atoms, frozenCore);
+  private symmetryOf(atoms: readonly number[], frozenCore: boolean, withNear: boolean, caps: readonly CapModel[] = []): OrbitalSymmetry | undefined {
+    if (!Estimates.symmetryApplies(atoms.length + caps.length)) return undefined;
+    const prepared = this.symmetryAtoms(atoms, frozenCore, caps);
     return SYMMETRIES.get(JSON.stringify([withNear, prepared.key]), () => orbitalSymmetry(prepared.atoms, withNear ? {} : { nearTolerance: 0 }));
   }
 
-  /** Elements, positions and shells of a set of atoms, with a key that holds all of them. */
-  private symmetryAtoms(atoms: readonly number[], frozenCore: boolean): { atoms: SymmetryAtoms; key: string } {
+  /** Elements, positions and shells of a set of atoms and caps (after the atoms), with a key that holds all of them. */
+  private symmetryAtoms(atoms: readonly number[], frozenCore: boolean, caps: readonly CapModel[] = []): { atoms: SymmetryAtoms; key: string } {
     const model = this.model;
-    const numbers = atoms.map((atom) => model.atoms[atom]!.element.z);
-    const positions = new Float64Array(3 * atoms.length);
+    const numbers = [...atoms.map((atom) => model.atoms[atom]!.element.z), ...caps.map((cap) => cap.z)];
+    const positions = new Float64Array(3 * numbers.length);
     atoms.forEach((atom, k) => positions.set(model.coordinates.subarray(3 * atom, 3 * atom + 3), 3 * k));
+    caps.forEach((cap, k) => positions.set(cap.position, 3 * (atoms.length + k)));
     const basisOf = (atom: number) => model.basis.atomSets[atom];
-    const shells = atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol));
-    const coreShells = frozenCore ? atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)) : undefined;
+    const capSymbol = (cap: CapModel) => elementByNumber(cap.z)!.symbol;
+    const shells = [...atoms.map((atom) => basisOf(atom)?.shellsFor(model.atoms[atom]!.element.symbol)), ...caps.map((cap) => cap.basis?.shellsFor(capSymbol(cap)))];
+    const coreShells = frozenCore
+      ? [
+          ...atoms.map((atom) => frozenCoreShells(model.atoms[atom]!.element.z, basisOf(atom)?.ecpCoreElectrons(model.atoms[atom]!.element.symbol) ?? 0)),
+          ...caps.map((cap) => frozenCoreShells(cap.z, cap.basis?.ecpCoreElectrons(capSymbol(cap)) ?? 0)),
+        ]
+      : undefined;
     const functions = model.basis.functions;
     const key = JSON.stringify([functions, numbers, Array.from(positions), shells, coreShells ?? null]);
     return { atoms: { numbers, positions, shells, coreShells, functions }, key };

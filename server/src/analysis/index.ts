@@ -35,9 +35,11 @@ export {
 export { computeCost, costText, DEFAULT_MEMORY_LIMIT_BYTES, formatDuration, formatMemory, type ComputeCost } from './computeCost';
 export { LateResults, type LateResult, type LateResultChange } from './late';
 export { CONVENTIONS, PLANNING_NOTE } from './figures/types';
-export type { BigFigure, Count, EstimateReport, FragmentFigures, PauliFigures, ScanTotals, SpaceFigures, SystemFigures } from './figures/types';
+export type { BigFigure, CapFigures, Count, EstimateReport, FragmentFigures, PauliFigures, ScanTotals, SpaceFigures, SystemFigures } from './figures/types';
 export { TIER_SECTIONS, type FigureSection } from './figures/fragment';
 export { GROWTH_MAX_ORBITALS, type GrowthPoint } from './figures/growth';
 export { AnalysisHost, type AnalysisSettings, type DocumentSource, type OpenDocument } from './host';
 export { basisFigures } from './figures/report';
+export { BEST_PLAN_RULE, comparePlans, planSummary, specPlans, type PlanComparison, type PlanSummary } from './figures/compare';
+export type { VariantAnalysis } from './variants';
 export { approximateCount, countText, countValue, exactCount } from './figures/space';

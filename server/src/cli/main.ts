@@ -8,6 +8,7 @@ import { escapeForTerminal } from '../language/printable';
 import { parseArgs } from 'node:util';
 import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
+import { COMPARE_FORMATS, runCompare, type CompareFormat } from './commands/compare';
 import { EXPORT_TARGETS, runExport, type ExportTarget } from './commands/export';
 import { REPORT_FORMATS, runReport, type ReportFormat } from './commands/report';
 import { EXIT_BROKEN_PIPE, EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from './io';
@@ -44,7 +45,7 @@ Usage:
       Under embedding dmet each fragment also gets its DMET bath computed from the system's
       mean field (JSON: dmetBath { bath.computed, bath.counted, singularValues,
       impurity.electrons, coreElectrons, ... } under each fragment).
-  tessera export <file.tess> --to xyz|qcschema [--out <file>]
+  tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]
       The geometry for other programs; standard output unless --out. A spec with errors is not
       exported (exit 1, the diagnostics on standard error).
       xyz: ångström, element symbols only (no labels); one frame per scan point when the spec
@@ -54,13 +55,25 @@ Usage:
         distances_angstrom, molecules: [...] } } whose system, fragments[] and scan.molecules[]
         are QCSchema molecules (schema_version 2, geometry in bohr). Atoms are grouped by
         fragment, as QCSchema fragments need; extras.tessera.spec_atom_numbers gives each atom's
-        #n in the spec, and extras.tessera holds the basis, tiers and embedding.
+        #n in the spec, and extras.tessera holds the basis, tiers and embedding. A fragment
+        that caps cut bonds lists its hydrogen caps after its atoms.
+      qcschema-input: one JSON object { format: "tessera-qcschema-input-export",
+        format_version: 1, spec, manifest: [...], skipped: [...], records: [...] } with a
+        QCSchema input record (driver energy, model { method, basis }, keywords, molecule) per
+        fragment with a tier, and per fragment and scan point when the spec scans; the molecule
+        is the fragment with its caps; a per-atom basis is written as a QCSchema basis set.
   tessera report <file.tess> [--format markdown|html|csv] [--out <file>]
       The resource report as a document (default markdown): every figure of the system and each
       fragment, the conventions, the problems with their lines and the scan totals. html is one
       standalone page with the plots inline as SVG; csv has one row per part, columns spec, then
       the figures' keys in the JSON estimate (part, name, tier, ..., qubits.jordanWigner, ...),
       then note. Written even when the spec has errors (exit 1).
+  tessera compare <file.tess> [<file2.tess>] [--format markdown|html|csv] [--out <file>]
+      Plans side by side: the spec and each of its variants (variant <name> { ... }), or two
+      specs with theirs. Qubits needed, Pauli terms, measurement groups, ansatz parameters, CNOTs,
+      classical memory and time (planning estimates); the inputs that differ marked, the best
+      plan under the limits named. html adds a bar chart; csv has one row per plan. Written even
+      when a plan has errors (exit 1).
   tessera lsp --stdio
       The language server, for editors other than VS Code.
 
@@ -217,6 +230,26 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         io,
       );
     }
+    case 'compare': {
+      const { values, positionals } = parseArgs({
+        args: rest,
+        allowPositionals: true,
+        strict: true,
+        options: { format: { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+      });
+      if (values.help) {
+        io.stdout(USAGE);
+        return EXIT_OK;
+      }
+      return runCompare(
+        {
+          specs: positionals,
+          format: formatOption<CompareFormat>(values.format, COMPARE_FORMATS, 'markdown'),
+          ...(values.out !== undefined ? { out: values.out } : {}),
+        },
+        io,
+      );
+    }
     case 'report': {
       const { values, positionals } = parseArgs({
         args: rest,
@@ -249,7 +282,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       return new Promise<number>(() => undefined);
     }
     default:
-      throw new UsageError(`unknown command '${command}'; the commands are check, estimate, export, report and lsp`);
+      throw new UsageError(`unknown command '${command}'; the commands are check, estimate, export, report, compare and lsp`);
   }
 }
 

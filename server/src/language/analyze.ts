@@ -91,7 +91,7 @@ export function checkName(check: { readonly name: string }): string {
 function refusedAnalysis(text: string, options: AnalyzeOptions, modelOptions: ModelOptions, message: string): Analysis {
   const sink = new DiagnosticSink();
   sink.report('spec-too-large', { start: 0, end: 0 }, message);
-  const ast: SpecAst = { fragments: [], basisOverrides: [], statements: [] };
+  const ast: SpecAst = { fragments: [], basisOverrides: [], variants: [], statements: [] };
   const model = buildModel(ast, new DiagnosticSink(), modelOptions);
   return { text, path: options.path, lines: new LineIndex(text), tree: emptyTree(text), ast, model, diagnostics: sink.items };
 }
@@ -122,12 +122,12 @@ export function analyze(original: string, options: AnalyzeOptions = {}): Analysi
     const atoms = ast.geometry?.atoms.length ?? 0;
     if (atoms > MAX_ATOMS) return { refused: tooLarge(`This spec has ${atoms.toLocaleString('en-US')} atoms`) };
     return { tree, ast };
-  }) ?? { tree: emptyTree(text), ast: { fragments: [], basisOverrides: [], statements: [] } };
+  }) ?? { tree: emptyTree(text), ast: { fragments: [], basisOverrides: [], variants: [], statements: [] } };
   if ('refused' in read && read.refused !== undefined) return refusedAnalysis(text, options, modelOptions, read.refused);
   const { tree, ast } = read;
   const model =
     contained(sink, 'building the model (atoms, basis, fragments)', () => buildModel(ast, sink, modelOptions)) ??
-    buildModel({ fragments: [], basisOverrides: [], statements: [] }, new DiagnosticSink(), modelOptions);
+    buildModel({ fragments: [], basisOverrides: [], variants: [], statements: [] }, new DiagnosticSink(), modelOptions);
   const context = { ast, model, sink };
   for (const check of CHECKS) contained(sink, checkName(check), () => check(context));
   contained(sink, 'finding retired spellings', () => {

@@ -31,10 +31,19 @@ export interface SpecAst {
   geometry?: GeometryAst;
   fragments: FragmentAst[];
   embedding?: Located<string>;
+  /** `caps …` at the top level: the default of every fragment. */
+  caps?: CapsAst;
   scan?: ScanAst;
   limits?: LimitsAst;
+  /** `variant <name> { … }` blocks, in order (their insides are read as specs of their own, language/variants.ts). */
+  variants: VariantAst[];
   /** The first statement of each singular kind, for duplicate reports. */
   readonly statements: Statement[];
+}
+
+export interface VariantAst {
+  readonly statement: Statement;
+  readonly name?: Located<string>;
 }
 
 export interface BasisAst {
@@ -203,7 +212,16 @@ export interface FragmentAst {
   atoms?: { readonly selectors: SelectorAst[]; readonly span: Span; readonly keywordSpan: Span };
   charge?: Located<number>;
   multiplicity?: Located<number>;
+  /** `caps …` in the fragment: overrides the top-level choice for this fragment. */
+  caps?: CapsAst;
   tier?: TierAst;
+}
+
+/** `caps hydrogen fixed|scaled` or `caps none`: how cut bonds are capped. */
+export interface CapsAst {
+  readonly statement: Statement;
+  /** `none`, or the placement rule of hydrogen caps. */
+  readonly rule: Located<'none' | 'fixed' | 'scaled'>;
 }
 
 export interface ScanAst {

@@ -91,6 +91,9 @@ export const DIAGNOSTIC_CODES = {
   'active-space-invalid': { severity: 'error', title: 'An active space that does not fit its fragment' },
   'qubit-limit-exceeded': { severity: 'error', title: 'A quantum-tier fragment that needs more qubits than the limit' },
   'memory-limit-exceeded': { severity: 'warning', title: 'A simulation that needs more memory than the limit' },
+  // Variants
+  'duplicate-variant': { severity: 'error', title: 'Two variants with the same name' },
+  'variant-problem': { severity: 'error', title: 'An error in the spec a variant makes (reported at the variant\'s name)' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
   // Spellings the language no longer uses

@@ -27,7 +27,7 @@ export interface FastGeometryBlock {
 }
 
 /** Keywords that only start top-level statements: at a line start inside a block they mean a missing `}` (as in parser.ts). */
-const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'units', 'geometry']);
+const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'variant', 'units', 'geometry']);
 
 /** A line that opens a block the fast reader reads: `structure {`, `structure in bohr {`, or the retired keyword's block. */
 const BLOCK_START = /^[ \t]*(?:structure(?:[ \t]+in[ \t]+[A-Za-z]+)?|geometry)[ \t]*\{/m;

@@ -41,7 +41,13 @@ import { span, type Span } from './text';
  * Keywords that only start top-level statements; seeing one at a line start closes an unclosed
  * block. The retired `units` and `geometry` are among them, so that old specs recover the same way.
  */
-const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'units', 'geometry']);
+const TOP_LEVEL_STARTERS = new Set(['spec', 'basis', 'structure', 'fragment', 'embedding', 'scan', 'limits', 'variant', 'units', 'geometry']);
+
+/**
+ * A variant block holds top-level statements (`fragment`, `basis`, `embedding`, `limits`), so only
+ * these end a variant block left open.
+ */
+const VARIANT_ENDERS = new Set(['spec', 'structure', 'scan', 'variant', 'units', 'geometry']);
 
 const ARGUMENT_KINDS = new Map<TokenType, ArgumentKind>([
   [Word, 'word'],
@@ -67,6 +73,8 @@ function unescapeString(image: string, closed: boolean): string {
 class SpecParser extends EmbeddedActionsParser {
   problems: SyntaxProblem[] = [];
   private text = '';
+  /** The head word of each statement whose block is being read, innermost last. */
+  private blockOwners: string[] = [];
 
   constructor() {
     super(allTokens, { recoveryEnabled: false, maxLookahead: 1 });
@@ -76,6 +84,7 @@ class SpecParser extends EmbeddedActionsParser {
   prepare(text: string): void {
     this.problems = [];
     this.text = text;
+    this.blockOwners = [];
   }
 
   private toArgument(token: IToken): Argument {
@@ -119,6 +128,7 @@ class SpecParser extends EmbeddedActionsParser {
   private topLevelKeywordStartsLine(): boolean {
     const next = this.LA(1);
     if (next.tokenType !== Word || !TOP_LEVEL_STARTERS.has(next.image)) return false;
+    if (this.blockOwners[this.blockOwners.length - 1] === 'variant' && !VARIANT_ENDERS.has(next.image)) return false;
     // Only blanks between the line start and the word: scanning back stops at the first other
     // character, so that many statements on one line cost no more than the line.
     for (let i = next.startOffset - 1; i >= 0; i--) {
@@ -173,7 +183,9 @@ class SpecParser extends EmbeddedActionsParser {
       GATE: () => this.braceFollows(),
       DEF: () => {
         this.MANY2(() => this.CONSUME(Newline));
+        this.ACTION(() => this.blockOwners.push(head.image));
         block = this.SUBRULE(this.block);
+        this.ACTION(() => this.blockOwners.pop());
       },
     });
     return this.ACTION(() => {

@@ -4,7 +4,7 @@
  */
 
 /** The blocks of the language: the atoms of `structure { … }`, fragments, their tiers, and limits. */
-export type BlockKind = 'top' | 'structure' | 'fragment' | 'tier' | 'limits';
+export type BlockKind = 'top' | 'structure' | 'fragment' | 'tier' | 'limits' | 'variant';
 
 export interface KeywordInfo {
   readonly name: string;
@@ -26,23 +26,23 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'multiplicity', blocks: ['top', 'fragment'], syntax: 'multiplicity <2S+1>', summary: 'Spin multiplicity 2S+1 (default: 1 for an even electron count, 2 for an odd one).' },
   {
     name: 'basis',
-    blocks: ['top'],
+    blocks: ['top', 'variant'],
     syntax: 'basis <name>  or  basis <name> on <atoms>',
     summary:
       'The orbital basis set: one main line for every atom, and override lines for a selection (`on all Zn`, `on zn n1..n4`, `on #3`, `on closer-than 3.0 to zn`, `on fragment guest`). ' +
       BASIS_PRECEDENCE,
   },
-  { name: 'functions', blocks: ['top'], syntax: 'functions spherical|cartesian', summary: 'Spherical (2l+1) or cartesian ((l+1)(l+2)/2) functions per shell, for every basis of the spec; default: the main basis family\'s usual convention.' },
+  { name: 'functions', blocks: ['top', 'variant'], syntax: 'functions spherical|cartesian', summary: 'Spherical (2l+1) or cartesian ((l+1)(l+2)/2) functions per shell, for every basis of the spec; default: the main basis family\'s usual convention.' },
   {
     name: 'structure',
     blocks: ['top'],
     syntax: 'structure [in angstrom|bohr] { <Element> [label] x y z ... }  or  structure from "file.xyz"',
     summary:
-      'The atoms: element, optional label and x y z, in the unit its header names (ångström unless `in bohr`); or a plain XYZ file, in ångström by the XYZ convention. Every other distance in the spec (scan ranges, `closer-than`) is in this unit.',
+      'The atoms: element, optional label and x y z, in the unit its header names (ångström unless `in bohr`); or a plain XYZ file, in ångström by the XYZ convention; or the atoms and labels of another spec (`structure from "base.tess"`), in ångström. Every other distance in the spec (scan ranges, `closer-than`) is in this unit.',
     opens: 'structure',
   },
-  { name: 'frozen-core', blocks: ['top', 'tier'], syntax: 'frozen-core on|off', summary: 'Keep the noble-gas core orbitals of each element doubly occupied and out of the correlation treatment (default on).' },
-  { name: 'fragment', blocks: ['top'], syntax: 'fragment <name> { atoms ...; charge; multiplicity; tier <level> { ... } }', summary: 'A part of the system treated by one solver tier.', opens: 'fragment' },
+  { name: 'frozen-core', blocks: ['top', 'tier', 'variant'], syntax: 'frozen-core on|off', summary: 'Keep the noble-gas core orbitals of each element doubly occupied and out of the correlation treatment (default on).' },
+  { name: 'fragment', blocks: ['top', 'variant'], syntax: 'fragment <name> { atoms ...; charge; multiplicity; tier <level> { ... } }', summary: 'A part of the system treated by one solver tier.', opens: 'fragment' },
   { name: 'atoms', blocks: ['fragment'], syntax: 'atoms <label> <a>..<b> #<n> #<n>..#<m> all <Element> closer-than <d> to <atom> rest', summary: 'Which atoms belong to the fragment.' },
   { name: 'tier', blocks: ['fragment'], syntax: 'tier quantum|correlated|mean-field { method ...; ... }', summary: 'The solver tier of this fragment and its settings.', opens: 'tier' },
   { name: 'method', blocks: ['tier'], syntax: 'method <name>', summary: 'The electronic-structure method of the tier.' },
@@ -51,9 +51,24 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'active', blocks: ['tier'], syntax: 'active <n>e <m>o', summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core.' },
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
-  { name: 'embedding', blocks: ['top'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
+  {
+    name: 'caps',
+    blocks: ['top', 'fragment', 'variant'],
+    syntax: 'caps hydrogen fixed|scaled  or  caps none',
+    summary:
+      'Cap every covalent bond a fragment boundary cuts with a hydrogen link atom on the kept atom\'s side (Field, Bash & Karplus 1990): `fixed` puts it at the typical X–H length of the kept atom\'s element, `scaled` at the cut bond\'s length × (r_X + r_H)/(r_X + r_Y) with covalent radii. Caps count in the fragment\'s electrons, functions, orbitals, qubits and symmetry. At the top level for every fragment; in a fragment for that one (default none).',
+  },
+  { name: 'embedding', blocks: ['top', 'variant'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
   { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  … points <n>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
-  { name: 'limits', blocks: ['top'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
+  { name: 'limits', blocks: ['top', 'variant'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
+  {
+    name: 'variant',
+    blocks: ['top'],
+    syntax: 'variant <name> { fragment <name> { tier <level> { active 4e 4o } }; embedding …; caps …; basis … }',
+    summary:
+      'Another version of this plan, checked like a spec of its own and compared side by side (`tessera compare`). Its statements replace those of the spec: a fragment named in it keeps what it does not restate (a `tier` of the same level keeps the settings it does not restate; another level replaces the tier), a fragment the spec lacks is added; `caps`, `embedding`, `frozen-core`, `functions`, `limits` and the main `basis` line replace the spec\'s, `basis … on …` lines are added.',
+    opens: 'variant',
+  },
   { name: 'qubits', blocks: ['limits'], syntax: 'qubits <n>', summary: 'Largest number of qubits a quantum-tier fragment may need.' },
   { name: 'memory', blocks: ['limits'], syntax: 'memory <size> B|KiB|MiB|GiB|TiB', summary: 'Classical memory available, for example to a statevector simulator.' },
 ];
@@ -131,6 +146,22 @@ export const FUNCTION_TERMS: readonly TermInfo[] = [
 export const SWITCH_TERMS: readonly TermInfo[] = [
   { name: 'on', summary: 'Enabled.' },
   { name: 'off', summary: 'Disabled.' },
+];
+
+/** What `caps` takes: the cap atom, or none. */
+export const CAP_KINDS: readonly TermInfo[] = [
+  { name: 'hydrogen', summary: 'A hydrogen link atom on each cut bond.', reference: 'M. J. Field, P. A. Bash, M. Karplus, J. Comput. Chem. 11, 700 (1990)' },
+  { name: 'none', summary: 'Cut bonds are left open (the default).' },
+];
+
+/** Where a hydrogen cap sits on the cut bond X–Y (X kept, Y outside the fragment). */
+export const CAP_RULES: readonly TermInfo[] = [
+  { name: 'fixed', summary: 'At the typical X–H bond length of the kept atom\'s element (C–H 1.09, N–H 1.01, O–H 0.96, S–H 1.34 Å; common practice), else r_X + r_H from covalent radii.' },
+  {
+    name: 'scaled',
+    summary: 'At g × d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero covalent radii: a stretched bond stretches its cap in proportion.',
+    reference: 'S. Dapprich, I. Komáromi, K. S. Byun, K. Morokuma, M. J. Frisch, J. Mol. Struct. THEOCHEM 461–462, 1 (1999)',
+  },
 ];
 
 export const SCAN_KINDS: readonly TermInfo[] = [

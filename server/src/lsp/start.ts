@@ -368,6 +368,10 @@ export function startLanguageServer(given?: Connection): Connection {
     const analysis = analysisOf(params.uri);
     return analysis ? { markdown: service.reportMarkdown(analysis) } : null;
   }));
+  connection.onRequest('tessera/compare', failures.guard('the plan comparison', documentOf, (params: { uri: string }) => {
+    const analysis = analysisOf(params.uri);
+    return analysis ? { markdown: service.compareMarkdown(analysis, params.uri.split('/').pop() ?? 'spec') } : null;
+  }));
   connection.onRequest('tessera/summary', failures.guard('the status bar summary', documentOf, (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);
     if (!analysis) return null;

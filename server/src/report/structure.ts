@@ -28,11 +28,23 @@ export interface StructureAtom {
   line: number;
 }
 
+export interface StructureCap {
+  fragment: number;
+  host: number;
+  partner: number;
+  element: string;
+  x: number;
+  y: number;
+  z: number;
+}
+
 export interface StructureData {
   spec: string | null;
   atoms: StructureAtom[];
   fragments: { name: string; tier: string | null; colour: string; cost: string; atoms: number; line: number }[];
   bonds: { i: number; j: number; cut: boolean }[];
+  /** Hydrogen caps of cut bonds (model/caps.ts): the fragment that has it, its host atom, its position (Å). */
+  caps: StructureCap[];
   scan: { first: number; second: number; distances: number[]; moving: number[] } | null;
 }
 
@@ -70,6 +82,9 @@ export function structureData(analysis: DocumentAnalysis): StructureData {
       line: analysis.lines.positionAt(fragment.ast.statement.span.start).line,
     })),
     bonds,
+    caps: model.fragments.flatMap((fragment, index) =>
+      fragment.caps.map((cap) => ({ fragment: index, host: cap.host, partner: cap.partner, element: 'H', x: cap.position[0], y: cap.position[1], z: cap.position[2] })),
+    ),
     scan: model.scan ? { first: model.scan.first, second: model.scan.second, distances: [...model.scan.distances], moving: analysis.scanMovingAtoms() } : null,
   };
 }

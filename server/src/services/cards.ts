@@ -4,7 +4,8 @@
  * asks for its own fragment's figures only.
  */
 import { markdownText } from '../report/format/escape';
-import { CONVENTIONS, countText, PLANNING_NOTE, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
+import { CONVENTIONS, countText, PLANNING_NOTE, type CapFigures, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
+import { CAP_RULE_TEXT, type CapRule } from '../chemistry/capping';
 
 function signed(value: number): string {
   return value > 0 ? `+${value}` : String(value);
@@ -86,9 +87,26 @@ function planRows(fragment: FragmentFigures, limit: number | null): string[] {
   return rows;
 }
 
+/** Caps shown one by one up to this many; beyond, counted. */
+const LISTED_CAPS = 6;
+
+/** The caps row: how many, by which rule, and on which bonds (kept atom → partner, X–H length). */
+function capsRows(analysis: DocumentAnalysis, caps: CapFigures | null): string[] {
+  if (!caps) return [];
+  if (caps.count === 0) return [`| caps | none needed: the boundary cuts no bond of this fragment (rule ${caps.rule}) |`];
+  const name = (number: number) => {
+    const atom = analysis.model.atoms[number - 1];
+    return atom?.label ? `${markdownText(atom.label)} (#${number})` : `#${number} ${atom?.element.symbol ?? ''}`.trim();
+  };
+  const listed = caps.list.slice(0, LISTED_CAPS).map((cap) => `${cap.element} on ${name(cap.host)} toward ${name(cap.partner)}, ${cap.length.toFixed(3)} Å`);
+  const more = caps.count > LISTED_CAPS ? `; and ${caps.count - LISTED_CAPS} more` : '';
+  return [`| caps | ${caps.count} hydrogen link atom${caps.count === 1 ? '' : 's'} (${caps.rule}, counted in every figure): ${listed.join('; ')}${more} |`];
+}
+
 export function fragmentCard(analysis: DocumentAnalysis, index: number): string {
   const fragment = analysis.fragmentFigures(index);
   const conventions = [`electrons = ${CONVENTIONS.electrons}`, `fragment charge = ${CONVENTIONS.fragmentCharge}`, `frozen core = ${CONVENTIONS.frozenCore}`];
+  if (fragment.caps) conventions.push(`caps: ${CAP_RULE_TEXT[fragment.caps.rule as CapRule] ?? fragment.caps.rule}`);
   if (fragment.problem) conventions.push(fragment.problem.convention);
   if (fragment.symmetry) conventions.push(`point group: ${fragment.symmetry.reason}`);
   if (fragment.pauliTerms) conventions.push(`Pauli terms: ${CONVENTIONS.pauliTerms}`);
@@ -99,6 +117,7 @@ export function fragmentCard(analysis: DocumentAnalysis, index: number): string 
     '| | |',
     '| --- | --- |',
     ...spaceRows(fragment),
+    ...capsRows(analysis, fragment.caps),
     ...planRows(fragment, analysis.model.limits.qubits ?? null),
     ...fragment.notes.map((note) => `| note | ${note} |`),
     '',

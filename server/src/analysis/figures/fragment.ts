@@ -9,7 +9,8 @@ import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
 import type { Estimates } from '../estimates';
 import { approximateCount, bigFigure, exactCount, spaceFigures } from './space';
-import type { FragmentFigures } from './types';
+import type { CapFigures, FragmentFigures } from './types';
+import type { FragmentModel } from '../../language/model';
 
 /** Fills one group of keys from the plan. */
 type Section = (figures: FragmentFigures, plan: PlanEstimate) => Partial<FragmentFigures>;
@@ -82,7 +83,8 @@ export const TIER_SECTIONS: Readonly<Record<TierLevel, readonly FigureSection[]>
 export function fragmentFigures(estimates: Estimates, index: number): FragmentFigures {
   const model = estimates.model;
   const fragment = model.fragments[index]!;
-  const symbols = fragment.atoms.map((atom) => model.atoms[atom]!.element.symbol);
+  // The formula is the part the solver sees: the fragment's atoms and its caps.
+  const symbols = [...fragment.atoms.map((atom) => model.atoms[atom]!.element.symbol), ...fragment.caps.map(() => CAP_SYMBOL)];
   const tier = fragment.tier;
   const base = spaceFigures(fragment.space, symbols, tier ? estimates.countedSymmetry(index) : undefined);
   let figures: FragmentFigures = {
@@ -94,6 +96,8 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
     qubitsRequired: null,
     atomIndices: fragment.atoms.map((atom) => atom + 1),
     ...base,
+    atoms: fragment.atoms.length,
+    caps: capFigures(fragment),
     problem: null,
     activeIrreps: null,
     symmetry: tier ? symmetryFigures(estimates, index) : null,
@@ -108,6 +112,17 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
   if (!tier || !plan) return figures;
   for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan) };
   return figures;
+}
+
+const CAP_SYMBOL = 'H';
+
+function capFigures(fragment: FragmentModel): CapFigures | null {
+  if (!fragment.capRule) return null;
+  return {
+    rule: fragment.capRule,
+    count: fragment.caps.length,
+    list: fragment.caps.map((cap) => ({ host: cap.host + 1, partner: cap.partner + 1, element: CAP_SYMBOL, length: cap.length, position: [cap.position[0], cap.position[1], cap.position[2]] })),
+  };
 }
 
 function groupFigures(symmetry: OrbitalSymmetry | undefined): { pointGroup: string; fullPointGroup: string } | null {

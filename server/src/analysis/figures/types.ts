@@ -20,6 +20,7 @@ export const CONVENTIONS = {
   circuit: 'one Trotter step of UCCSD under Jordan–Wigner in interleaved spin order: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020',
   classical: 'full-CI determinants C(n, nα)·C(n, nβ); CI vector and CCSD amplitudes at 8 bytes each; statevector 2^q × 16 bytes',
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
+  caps: 'cut covalent bonds capped with hydrogen link atoms on the kept atom\'s side when the spec says `caps hydrogen fixed|scaled` (Field, Bash & Karplus 1990): fixed at the typical X–H length of the element (common practice), or scaled g · d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero radii (Dapprich et al. 1999); caps count in the fragment\'s formula, electrons, functions, orbitals, qubits and point group, not in its atom count',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
   fragmentSymmetry:
     "a fragment that sees its environment (embedding dmet or projection) is counted in the stabiliser of its atoms in the system's point group — the operations of the system that map the fragment onto itself (group theory of stabiliser subgroups); a fragment that stands alone (subtractive, none) in its own point group",
@@ -79,6 +80,8 @@ export interface FragmentFigures extends SpaceFigures {
   method: string | null;
   ansatz: string | null;
   mapping: string | null;
+  /** Hydrogen caps on the bonds the fragment boundary cuts; null when the fragment caps none. */
+  caps: CapFigures | null;
   /** Qubits under the fragment's mapping, tapered with `taper on` (quantum tier only). */
   qubitsRequired: number | null;
   atomIndices: number[];
@@ -102,6 +105,14 @@ export interface FragmentFigures extends SpaceFigures {
   circuit: { construction: string; cnots: Count; rotations: Count | null; depth: Count | null; compactCnots: Count | null } | null;
   classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
   notes: string[];
+}
+
+export interface CapFigures {
+  /** `fixed` or `scaled` (chemistry/capping.ts). */
+  rule: string;
+  count: number;
+  /** Each cap: the kept atom and its partner as `#n` numbers of the spec, the X–H length (Å) and the position (Å). */
+  list: { host: number; partner: number; element: string; length: number; position: [number, number, number] }[];
 }
 
 export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null };

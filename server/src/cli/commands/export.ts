@@ -5,14 +5,16 @@
  * in bohr (layout in report/export/qcschema.ts). A spec with errors is not exported: the
  * diagnostics go to standard error and the exit code is 1, so that no half-checked geometry leaves.
  */
+import { safeJsonStringify } from '../../language/printable';
 import { qcSchemaExportParts, qcSchemaJsonChunks } from '../../report/export/qcschema';
+import { buildQcInputExport, InputExportError } from '../../report/export/qcschemaInput';
 import { xyzChunks } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
 import { exitCode, EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput, type SpecSettings } from '../specFile';
 import { VERSION } from '../version';
 
-export const EXPORT_TARGETS = ['xyz', 'qcschema'] as const;
+export const EXPORT_TARGETS = ['xyz', 'qcschema', 'qcschema-input'] as const;
 export type ExportTarget = (typeof EXPORT_TARGETS)[number];
 
 export interface ExportOptions {
@@ -24,8 +26,8 @@ export interface ExportOptions {
 }
 
 export async function runExport(options: ExportOptions, io: CliIo): Promise<number> {
-  if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema [--out <file>]');
-  if (!options.to) throw new UsageError('export needs --to xyz or --to qcschema');
+  if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]');
+  if (!options.to) throw new UsageError('export needs --to xyz, --to qcschema or --to qcschema-input');
   if (options.out === '') throw new UsageError('--out needs a file name');
   const spec = loadSpec(options.spec, io, options.settings);
   if (!spec) return EXIT_USAGE;
@@ -40,9 +42,14 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
   // Streamed: one scan point at a time, so that any scan the language accepts is written in bounded memory.
   let chunks: Iterable<string>;
   try {
-    chunks = options.to === 'xyz' ? xyzChunks(data, { title, version: VERSION }) : qcSchemaJsonChunks(qcSchemaExportParts(spec.analysis, data, { title, version: VERSION }));
+    chunks =
+      options.to === 'xyz'
+        ? xyzChunks(data, { title, version: VERSION })
+        : options.to === 'qcschema'
+          ? qcSchemaJsonChunks(qcSchemaExportParts(spec.analysis, data, { title, version: VERSION }))
+          : [`${safeJsonStringify(buildQcInputExport(spec.analysis, data, { title, version: VERSION }), 2)}\n`];
   } catch (error) {
-    if (!(error instanceof RangeError)) throw error;
+    if (!(error instanceof RangeError) && !(error instanceof InputExportError)) throw error;
     io.stderr(`tessera: ${spec.file}: ${error.message} Nothing exported.\n`);
     return EXIT_ERRORS;
   }

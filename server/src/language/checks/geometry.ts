@@ -129,11 +129,18 @@ function checkCutBonds(context: CheckContext): void {
       { span: earlier.ast.atoms?.span ?? earlier.ast.statement.keyword.span, message: `fragment '${earlier.name}'` },
       ...bonds.slice(0, 10).map((bond) => relatedAtom(model.atoms[bond.j]!, `bond ${shortAtomName(model.atoms[bond.i]!)}–${shortAtomName(model.atoms[bond.j]!)}, ${bond.distance.toFixed(2)} Å`)),
     ];
-    sink.report(
-      'bond-cut',
-      later.ast.atoms?.span ?? later.ast.statement.keyword.span,
-      `The boundary between '${earlier.name}' and '${later.name}' cuts ${bonds.length} covalent bond${bonds.length === 1 ? '' : 's'}: ${listSome(described, 6)} (bonded: closer than ${BOND_TOLERANCE_FACTOR} × the sum of covalent radii). Cut bonds need capping or link atoms in the embedding.`,
-      { related, data: { bonds: bonds.map((bond) => [bond.i, bond.j]) } },
-    );
+    const what = `The boundary between '${earlier.name}' and '${later.name}' cuts ${bonds.length} covalent bond${bonds.length === 1 ? '' : 's'}: ${listSome(described, 6)} (bonded: closer than ${BOND_TOLERANCE_FACTOR} × the sum of covalent radii).`;
+    // Capped on both sides: the cut is planned for, so it is told, not warned about.
+    const capped = earlier.capRule !== undefined && later.capRule !== undefined;
+    const advice = capped
+      ? ` Both fragments cap ${bonds.length === 1 ? 'it' : 'them'} with hydrogen link atoms (${earlier.capRule === later.capRule ? earlier.capRule : `${earlier.capRule} and ${later.capRule}`} placement), counted in their figures.`
+      : earlier.capRule !== undefined || later.capRule !== undefined
+        ? ` Only '${earlier.capRule !== undefined ? earlier.name : later.name}' caps ${bonds.length === 1 ? 'it' : 'them'}; \`caps hydrogen fixed\` in '${earlier.capRule !== undefined ? later.name : earlier.name}' caps the other side.`
+        : ' Cut bonds need capping or link atoms in the embedding: `caps hydrogen fixed` (or `scaled`) adds hydrogen link atoms.';
+    sink.report('bond-cut', later.ast.atoms?.span ?? later.ast.statement.keyword.span, what + advice, {
+      related,
+      data: { bonds: bonds.map((bond) => [bond.i, bond.j]) },
+      ...(capped ? { severity: 'information' as const } : {}),
+    });
   }
 }

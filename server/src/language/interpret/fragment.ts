@@ -3,6 +3,7 @@ import type { FragmentAst, Located } from '../ast';
 import type { Statement } from '../syntax';
 import { joinSpans } from '../text';
 import { describeArgument, type StatementReader } from './reader';
+import { readCaps } from './caps';
 import { readSelectors } from './selectors';
 import { readTier } from './tier';
 
@@ -41,6 +42,11 @@ export function readFragment(reader: StatementReader, statement: Statement): Fra
       case 'multiplicity':
         fragment.multiplicity = reader.multiplicity(inner);
         break;
+      case 'caps': {
+        const caps = readCaps(reader, inner);
+        if (caps) fragment.caps = caps;
+        break;
+      }
       case 'tier':
         fragment.tier = readTier(reader, inner);
         break;

@@ -15,6 +15,7 @@ import type { DiagnosticSink } from '../diagnostics';
 import type { Statement, SyntaxTree } from '../syntax';
 import { choices, EMBEDDINGS, FUNCTION_TERMS, UNIT_TERMS, type KeywordInfo } from '../vocabulary';
 import { readBasis, readRetiredBasisBlock } from './basis';
+import { readCaps } from './caps';
 import { readFragment } from './fragment';
 import { readGeometry } from './geometry';
 import { readLimits } from './limits';
@@ -23,7 +24,7 @@ import { readScan } from './scan';
 
 export function interpret(tree: SyntaxTree, sink: DiagnosticSink): SpecAst {
   const reader = new StatementReader(sink);
-  const ast: SpecAst = { fragments: [], basisOverrides: [], statements: tree.statements };
+  const ast: SpecAst = { fragments: [], basisOverrides: [], variants: [], statements: tree.statements };
   for (const statement of tree.statements) {
     if (readRetiredStatement(reader, ast, statement)) continue;
     const keyword = reader.keyword(statement, 'top');
@@ -67,6 +68,10 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
     readBasis(reader, ast, statement);
     return;
   }
+  if (keyword.name === 'variant') {
+    readVariant(reader, ast, statement);
+    return;
+  }
   if (keyword.name === 'structure') {
     if (reader.onceAs('structure', statement)) ast.geometry = readGeometry(reader, statement);
     return;
@@ -100,6 +105,11 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
       if (args) ast.embedding = reader.term(args[0]!, EMBEDDINGS, 'embedding');
       return;
     }
+    case 'caps': {
+      const caps = readCaps(reader, statement);
+      if (caps) ast.caps = caps;
+      return;
+    }
     case 'scan':
       ast.scan = readScan(reader, statement);
       return;
@@ -107,4 +117,15 @@ function readTopStatement(reader: StatementReader, ast: SpecAst, statement: Stat
       ast.limits = readLimits(reader, statement);
       return;
   }
+}
+
+/** `variant <name> { … }`: the name, unique among variants; the block is read as its own spec later. */
+function readVariant(reader: StatementReader, ast: SpecAst, statement: Statement): void {
+  const args = reader.args(statement, 1, 'variant <name> { … }');
+  const name = args ? { value: args[0]!.text, span: args[0]!.span } : undefined;
+  if (!statement.block) reader.sink.report('missing-value', statement.span, `'variant' needs a block of the statements that differ: \`variant ${name?.value ?? '<name>'} { fragment <name> { tier quantum { active 4e 4o } } }\`.`);
+  if (name && ast.variants.some((variant) => variant.name?.value === name.value)) {
+    reader.sink.report('duplicate-variant', name.span, `A variant named '${name.value}' is already declared; give each variant its own name.`);
+  }
+  ast.variants.push({ statement, ...(name ? { name } : {}) });
 }

@@ -16,6 +16,7 @@ export const BLOCK_NAMES: Record<BlockKind, string> = {
   fragment: 'in a fragment block',
   tier: 'in a tier block',
   limits: 'in a limits block',
+  variant: 'in a variant block',
 };
 
 export function describeArgument(arg: Argument): string {

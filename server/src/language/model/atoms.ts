@@ -5,7 +5,10 @@
 import { elementByNumber, elementBySymbol } from '../../chemistry/elements';
 import { toAngstrom, type LengthUnit } from '../../chemistry/units';
 import type { SpecAst } from '../ast';
-import type { DiagnosticSink } from '../diagnostics';
+import { DiagnosticSink } from '../diagnostics';
+import { interpret } from '../interpret';
+import { parseSpec } from '../parser';
+import { LineIndex, type Span } from '../text';
 import { resolveInclude } from '../files';
 import { byteSize, MAX_ATOMS, MAX_FILE_BYTES, SUPPORTED_SIZE } from '../limits';
 import { parseXyz } from '../xyz';
@@ -71,6 +74,7 @@ function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>
     sink.report('spec-too-large', include.span, `"${include.value}" says it holds ${declared.toLocaleString('en-US')} atoms; Tessera analyses specs of up to ${SUPPORTED_SIZE}. Split the system into several specs.`);
     return none;
   }
+  if (resolved.path.toLowerCase().endsWith('.tess')) return readSpecAtoms(read.text, resolved.path, include, sink);
   const xyz = parseXyz(read.text);
   for (const problem of xyz.problems) {
     sink.report('include-invalid', include.span, `"${include.value}" line ${problem.line + 1}: ${problem.message}`, {
@@ -86,6 +90,51 @@ function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>
     list.push({ index: i, element, span: include.span, source: { file: resolved.path, line: atom.line } });
     positions.set([atom.x, atom.y, atom.z], 3 * i);
   });
+  return { list, positions };
+}
+
+/** Problems of an included spec's structure listed in the report; the rest are counted. */
+const LISTED_INCLUDE_PROBLEMS = 3;
+
+/**
+ * `structure from "other.tess"`: the atoms of another spec's inline structure block, with their
+ * labels, in ångström (its `structure in bohr` header, or its retired `units` line, converted), so
+ * that a family of specs shares one structure and selects atoms by the same labels. The other spec's
+ * own statements (basis, fragments, tiers) are not read; a spec whose structure is itself
+ * `structure from …` is refused (one level of includes).
+ */
+function readSpecAtoms(text: string, file: string, include: { readonly value: string; readonly span: Span }, sink: DiagnosticSink): ReadAtoms {
+  const list: AtomModel[] = [];
+  const none = { list, positions: new Float64Array(0) };
+  const otherSink = new DiagnosticSink();
+  const tree = parseSpec(text);
+  const ast = interpret(tree, otherSink);
+  const geometry = ast.geometry;
+  if (!geometry) {
+    sink.report('include-invalid', include.span, `"${include.value}" has no structure block to take the atoms from.`);
+    return none;
+  }
+  if (geometry.include) {
+    sink.report('include-invalid', include.span, `"${include.value}" takes its own atoms from "${geometry.include.value}"; include that file instead (structures are included one level deep).`);
+    return none;
+  }
+  const lines = new LineIndex(text);
+  const inside = otherSink.items.filter((d) => d.severity === 'error' && d.span.start >= geometry.statement.span.start && d.span.end <= geometry.statement.span.end);
+  inside.slice(0, LISTED_INCLUDE_PROBLEMS).forEach((problem) => {
+    const line = lines.positionAt(problem.span.start).line;
+    sink.report('include-invalid', include.span, `"${include.value}" line ${line + 1}: ${problem.message}`, { related: [{ span: { start: 0, end: 0 }, file, line, message: problem.message }] });
+  });
+  if (inside.length > LISTED_INCLUDE_PROBLEMS) sink.report('include-invalid', include.span, `"${include.value}" has ${inside.length - LISTED_INCLUDE_PROBLEMS} more problems in its structure block.`);
+  const atoms = geometry.atoms;
+  const factor = toAngstrom(1, geometry.unit?.value ?? ast.legacyUnits?.value ?? 'angstrom');
+  const positions = new Float64Array(3 * atoms.length);
+  for (let i = 0; i < atoms.length; i++) {
+    const element = elementByNumber(atoms.atomicNumber(i))!;
+    const label = atoms.label(i);
+    const source = { file, line: lines.positionAt(atoms.spanStart(i)).line };
+    list.push(label !== undefined ? { index: i, element, label, span: include.span, labelSpan: include.span, source } : { index: i, element, span: include.span, source });
+    for (let axis = 0; axis < 3; axis++) positions[3 * i + axis] = atoms.coordinate(i, axis) * factor;
+  }
   return { list, positions };
 }
 

@@ -5,9 +5,11 @@ import type { Mapping } from '../../chemistry/qubits';
 import { lowestMultiplicity } from '../../chemistry/spin';
 import type { FragmentAst, TierAst } from '../ast';
 import type { TierLevel } from '../vocabulary';
-import { electronCount } from './basis';
+import { countedAtom, electronCount } from './basis';
 import type { Selection } from './selectors';
-import type { FragmentModel, ModelOptions, TierModel } from './types';
+import { elementByNumber } from '../../chemistry/elements';
+import type { CapRule } from '../../chemistry/capping';
+import type { CapModel, FragmentModel, ModelOptions, TierModel } from './types';
 
 const DEFAULT_METHODS: Record<TierLevel, (multiplicity: number) => string> = {
   quantum: () => 'vqe',
@@ -23,8 +25,10 @@ export function buildFragment(
   functions: FunctionType,
   defaultFrozenCore: boolean,
   options: ModelOptions,
+  capping: { readonly rule: CapRule | undefined; readonly caps: readonly CapModel[] } = { rule: undefined, caps: [] },
 ): FragmentModel {
-  const members = atoms.map((atom) => counted[atom]!);
+  // Caps are hydrogens with their own basis: they count like any atom of the fragment.
+  const members = [...atoms.map((atom) => counted[atom]!), ...capping.caps.map((cap) => countedAtom(elementByNumber(cap.z)!, cap.basis))];
   const charge = ast.charge?.value ?? 0;
   const multiplicity = ast.multiplicity?.value ?? lowestMultiplicity(electronCount(members, charge));
   const tier = ast.tier ? tierModel(ast.tier, multiplicity, defaultFrozenCore, options) : undefined;
@@ -47,6 +51,8 @@ export function buildFragment(
     multiplicity,
     multiplicityGiven: ast.multiplicity !== undefined,
     tier,
+    capRule: capping.rule,
+    caps: capping.caps,
     space,
   };
 }

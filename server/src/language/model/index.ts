@@ -11,14 +11,16 @@ import type { SpecAst } from '../ast';
 import type { DiagnosticSink } from '../diagnostics';
 import { indexLabels, readAtoms } from './atoms';
 import { countedAtoms, electronCount, resolveBasis } from './basis';
+import { BondNeighbours, capBasis, capRuleOf, fragmentCaps } from './caps';
 import { buildFragment } from './fragments';
 import { assignOwners } from './ownership';
 import { resolveScan } from './scan';
 import { SelectorResolver } from './selectors';
 import type { ModelOptions, SpecModel } from './types';
 
-export type { AtomModel, AtomReference, BasisModel, BasisOverrideModel, FragmentModel, ModelOptions, ScanModel, SpecModel, TierModel } from './types';
+export type { AtomModel, AtomReference, BasisModel, CapModel, BasisOverrideModel, FragmentModel, ModelOptions, ScanModel, SpecModel, TierModel } from './types';
 export { BASIS_RANK, BASIS_RANK_NAMES } from './basis';
+export { fragmentCapsAt } from './caps';
 export { claimsOf } from './ownership';
 export { MAX_SCAN_POINTS, scanPointCount } from './scan';
 export { SelectorResolver, type Selection } from './selectors';
@@ -43,7 +45,17 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const radii = new Float64Array(atoms.list.map((atom) => atom.element.covalentRadius ?? 1.5));
   const contacts = analyseContacts(coordinates, radii, options.previousContacts);
 
-  const fragments = ast.fragments.map((fragmentAst, index) => buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options));
+  const capRules = ast.fragments.map((fragmentAst) => capRuleOf(fragmentAst.caps, ast.caps));
+  const neighbours = capRules.some((rule) => rule !== undefined) ? new BondNeighbours(atoms.list.length, contacts.bonds) : undefined;
+  const stamp = neighbours ? new Int32Array(atoms.list.length).fill(-1) : undefined;
+  const fragments = ast.fragments.map((fragmentAst, index) => {
+    const rule = capRules[index];
+    const caps =
+      rule && neighbours && stamp
+        ? fragmentCaps(rule, selections[index]!.atoms, atoms.list, coordinates, neighbours, capBasis(ast, basis, fragmentAst.name?.value), stamp, index)
+        : [];
+    return buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options, { rule, caps });
+  });
 
   return {
     name: ast.name?.value,

@@ -1,5 +1,6 @@
 /** The shapes of the semantic model (built by `index.ts`). */
 import type { BasisSet } from '../../chemistry/basis/library';
+import type { CapRule } from '../../chemistry/capping';
 import type { FunctionType } from '../../chemistry/basis/shells';
 import type { OrbitalSpace } from '../../chemistry/counting';
 import type { Element } from '../../chemistry/elements';
@@ -50,7 +51,29 @@ export interface FragmentModel {
   readonly multiplicity: number;
   readonly multiplicityGiven: boolean;
   readonly tier: TierModel | undefined;
+  /** The capping rule this fragment follows (its own `caps` line, else the spec's); undefined: none. */
+  readonly capRule: CapRule | undefined;
+  /** Its hydrogen caps, one per cut bond (model/caps.ts); counted in `space`. */
+  readonly caps: readonly CapModel[];
+  /** Orbital space of the fragment's atoms and its caps. */
   readonly space: OrbitalSpace;
+}
+
+/** A hydrogen link atom on a bond the fragment boundary cuts. */
+export interface CapModel {
+  /** The fragment's atom of the cut bond (X). */
+  readonly host: number;
+  /** The atom outside the fragment (Y). */
+  readonly partner: number;
+  readonly rule: CapRule;
+  /** Atomic number of the cap (1, hydrogen). */
+  readonly z: number;
+  /** x, y, z in ångström. */
+  readonly position: readonly [number, number, number];
+  /** X–H distance, ångström. */
+  readonly length: number;
+  /** The cap's basis set (an `all H` line, else a line for its fragment, else the main basis). */
+  readonly basis: BasisSet | undefined;
 }
 
 export interface BasisOverrideModel {

@@ -18,13 +18,17 @@
  *
  * What QCSchema has no field for (the basis, the tiers, the embedding, cut bonds) sits under
  * `extras.tessera`, the place the schema leaves for a producer's own data.
+ *
+ * A fragment that caps its cut bonds (`caps hydrogen …`) lists its hydrogen caps after its own
+ * atoms, with the label `cap`; `extras.tessera.caps` says which bond each one caps (`spec_atom_numbers`
+ * covers the fragment's own atoms only). The system and scan-point molecules carry no caps.
  */
 import { eachScanFrame } from '../../chemistry/scan';
 import { safeJsonStringify } from '../../language/printable';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import { elementBySymbol } from '../../chemistry/elements';
 import { basisFigures, type DocumentAnalysis } from '../../analysis';
-import type { TierModel } from '../../language/model';
+import type { CapModel, TierModel } from '../../language/model';
 import type { StructureData } from '../structure';
 import { coordinatesOf } from './xyz';
 
@@ -72,6 +76,23 @@ export interface TesseraExtras {
   fragment_index?: number;
   tier?: TierExtras | null;
   scan_point?: { point: number; points: number; distance_angstrom: number };
+  /** The fragment's hydrogen caps, after its atoms: the bond each caps (spec numbers `#n`), rule, X–H length. */
+  caps?: CapExtras[];
+}
+
+export interface CapExtras {
+  host_atom: number;
+  partner_atom: number;
+  rule: string;
+  length_angstrom: number;
+}
+
+/** Label of a cap atom in exported molecules. */
+export const CAP_LABEL = 'cap';
+
+/** The caps of a fragment as extras (spec atom numbers are 1-based). */
+export function capExtras(caps: readonly CapModel[]): CapExtras[] {
+  return caps.map((cap) => ({ host_atom: cap.host + 1, partner_atom: cap.partner + 1, rule: cap.rule, length_angstrom: cap.length }));
 }
 
 export interface QcMolecule {
@@ -118,7 +139,7 @@ export interface QcSchemaExportOptions {
   readonly routine?: string;
 }
 
-function tierExtras(tier: TierModel | undefined): TierExtras | null {
+export function tierExtras(tier: TierModel | undefined): TierExtras | null {
   if (!tier) return null;
   return {
     level: tier.level,
@@ -221,34 +242,8 @@ export function qcSchemaExportParts(analysis: DocumentAnalysis, data: StructureD
     .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   const system = systemMolecule(options.title, coordinates, { cut_bonds: cutBonds }, 'system');
 
-  const fragments = model.fragments.map((fragment, index): QcMolecule => ({
-    schema_name: 'qcschema_molecule',
-    schema_version: 2,
-    name: `${options.title}/${fragment.name}`,
-    comment: `Fragment '${fragment.name}' of '${options.title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
-    symbols: symbolsOf(fragment.atoms),
-    geometry: geometryOf(coordinates, fragment.atoms),
-    atomic_numbers: numbersOf(fragment.atoms),
-    atom_labels: labelsOf(fragment.atoms),
-    molecular_charge: fragment.charge,
-    molecular_multiplicity: fragment.multiplicity,
-    fix_com: true,
-    fix_orientation: true,
-    provenance,
-    extras: {
-      tessera: {
-        spec: options.title,
-        part: 'fragment',
-        spec_atom_numbers: fragment.atoms.map((atom) => atom + 1),
-        basis,
-        atom_basis: basisOf(fragment.atoms),
-        frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
-        fragment: fragment.name,
-        fragment_index: index,
-        tier: tiers[index]!,
-      },
-    },
-  }));
+  const context: FragmentMoleculeContext = { analysis, data, title: options.title, provenance, basis };
+  const fragments = model.fragments.map((fragment, index) => fragmentMolecule(context, index, coordinates, fragment.caps));
 
   let scan: QcSchemaExport['scan'] = null;
   let scanMolecules: Iterable<QcMolecule> = [];
@@ -297,4 +292,57 @@ export function qcSchemaJsonChunks(parts: { head: QcSchemaExport; scanMolecules:
     }
     yield first ? ']\n  }\n}\n' : '\n    ]\n  }\n}\n';
   })();
+}
+
+/** What every fragment molecule of one export shares. */
+export interface FragmentMoleculeContext {
+  readonly analysis: DocumentAnalysis;
+  readonly data: StructureData;
+  readonly title: string;
+  readonly provenance: QcProvenance;
+  readonly basis: BasisExtras;
+}
+
+/**
+ * One fragment as a QCSchema molecule at the given coordinates of the spec's atoms (ångström):
+ * its atoms in spec order, then its caps (placed for those coordinates), geometry in bohr.
+ */
+export function fragmentMolecule(context: FragmentMoleculeContext, index: number, coordinates: Float64Array, caps: readonly CapModel[], extras: Partial<TesseraExtras> = {}, name?: string): QcMolecule {
+  const { analysis, data, title } = context;
+  const model = analysis.model;
+  const fragment = model.fragments[index]!;
+  const atoms = fragment.atoms;
+  const capped = caps.length > 0;
+  return {
+    schema_name: 'qcschema_molecule',
+    schema_version: 2,
+    name: name ?? `${title}/${fragment.name}`,
+    comment: capped
+      ? `Fragment '${fragment.name}' of '${title}': its atoms as placed in the system, then ${caps.length} hydrogen cap${caps.length === 1 ? '' : 's'} on its cut bonds (${fragment.capRule} placement).`
+      : `Fragment '${fragment.name}' of '${title}': its atoms as placed in the system, without capping or link atoms at cut bonds.`,
+    symbols: [...atoms.map((atom) => data.atoms[atom]!.element), ...caps.map(() => 'H')],
+    geometry: [...atoms.flatMap((atom) => [0, 1, 2].map((k) => toBohr(coordinates[3 * atom + k]!))), ...caps.flatMap((cap) => cap.position.map(toBohr))],
+    atomic_numbers: [...atoms.map((atom) => elementBySymbol(data.atoms[atom]!.element)?.z ?? 0), ...caps.map((cap) => cap.z)],
+    atom_labels: [...atoms.map((atom) => data.atoms[atom]!.label ?? ''), ...caps.map(() => CAP_LABEL)],
+    molecular_charge: fragment.charge,
+    molecular_multiplicity: fragment.multiplicity,
+    fix_com: true,
+    fix_orientation: true,
+    provenance: context.provenance,
+    extras: {
+      tessera: {
+        spec: title,
+        part: 'fragment',
+        spec_atom_numbers: atoms.map((atom) => atom + 1),
+        basis: context.basis,
+        atom_basis: [...atoms.map((atom) => model.basis.atomSets[atom]?.displayName ?? null), ...caps.map((cap) => cap.basis?.displayName ?? null)],
+        frozen_core: fragment.tier?.frozenCore ?? model.frozenCore,
+        fragment: fragment.name,
+        fragment_index: index,
+        tier: tierExtras(fragment.tier),
+        ...(capped ? { caps: capExtras(caps) } : {}),
+        ...extras,
+      },
+    },
+  };
 }

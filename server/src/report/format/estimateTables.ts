@@ -59,7 +59,7 @@ export function estimateTables(report: EstimateReport): Table[] {
       fragment ? orNone(fragment.method) : dash,
       fragment ? orNone(fragment.ansatz) : dash,
       fragment ? orNone(fragment.mapping) : dash,
-      String(figures.atoms),
+      fragment?.caps && fragment.caps.count > 0 ? `${figures.atoms} + ${fragment.caps.count} cap${fragment.caps.count === 1 ? '' : 's'}` : String(figures.atoms),
       figures.formula || dash,
       figures.charge > 0 ? `+${figures.charge}` : String(figures.charge),
       String(figures.multiplicity),
@@ -147,6 +147,7 @@ export function conventionLines(report: EstimateReport): string[] {
     `circuit: ${c.circuit}`,
     `classical: ${c.classical}`,
     `fragment charge: ${c.fragmentCharge}`,
+    `caps: ${c.caps}`,
   ];
 }
 
