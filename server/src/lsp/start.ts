@@ -109,10 +109,11 @@ export function startLanguageServer(given?: Connection): Connection {
     const document = documents.get(uri);
     if (!document) return;
     const version = document.version;
-    // A newer version has arrived and waits its turn: publish that one instead (its change
-    // schedules it); the wait is bounded in case the change is never applied.
+    // A newer version has arrived and waits its turn: rather than analyse this one, publish that
+    // one (its change schedules it). A version analysed already is published all the same: it
+    // costs nothing and covers the edits so far. The wait is bounded in case the change is never applied.
     const deferred = deferrals.get(uri) ?? 0;
-    if (arrived.superseded(uri, version) && deferred < MAX_PUBLISH_DEFERRALS) {
+    if (arrived.superseded(uri, version) && !cache.isCurrent(uri) && deferred < MAX_PUBLISH_DEFERRALS) {
       deferrals.set(uri, deferred + 1);
       setTimeout(() => schedulePublish(uri), PUBLISH_DEFERRAL_MS);
       return;
