@@ -15,6 +15,7 @@ import { EMBEDDING_SYMMETRY, embeddingName } from '../../server/src/chemistry/es
 import { mappingKey, MAPPINGS, qubitCounts, type Mapping } from '../../server/src/chemistry/qubits';
 import { LENGTH_UNITS } from '../../server/src/chemistry/units';
 import {
+  ACTIVE_CHOICES,
   ANSATZE,
   CAP_KINDS,
   CAP_RULES,
@@ -146,7 +147,7 @@ describe('the TextMate grammar', () => {
 
   it('colours exactly the value words of the table as constants', () => {
     const values = grammar.repository['values']!.patterns!.find((p) => p.name === 'constant.language.tessera')!.match!;
-    const expected = [TIER_LEVELS, METHODS, ANSATZE, MAPPING_TERMS, EMBEDDINGS, UNIT_TERMS, FUNCTION_TERMS, SWITCH_TERMS, SCAN_KINDS, CAP_KINDS, CAP_RULES].flatMap(names);
+    const expected = [TIER_LEVELS, METHODS, ANSATZE, MAPPING_TERMS, EMBEDDINGS, UNIT_TERMS, FUNCTION_TERMS, SWITCH_TERMS, SCAN_KINDS, CAP_KINDS, CAP_RULES, ACTIVE_CHOICES].flatMap(names);
     expect(new Set(alternatives(values))).toEqual(new Set(expected));
   });
 

@@ -8,20 +8,26 @@
  * Kinds of request, each a kind of late result:
  * - `mean-field`: the SCF of one part (RHF, UHF or ROHF), with its orbitals;
  * - `mp2`: MP2 on top of a mean-field result (needs it first: `prerequisites`);
+ * - `active-space`: a quantum or correlated fragment's active orbitals chosen from its restricted
+ *   mean field (ROHF for open shells) — the window or per-irrep counts the spec gives, or a
+ *   suggestion (named atomic shells, MP2 natural occupations, which also needs the MP2 result).
  * - `dmet-bath`: a fragment's DMET bath from the system's mean field (under `embedding dmet`).
  * A later kind (the active-space Hamiltonian) follows the same pattern: a request that names the
  * mean-field request it builds on, receives that result's orbitals, and is keyed by both.
  */
+import type { ActiveSelection } from '../electronic/activeSpace/selection';
 import type { MeanFieldResult } from '../electronic/scf/result';
 import type { ScfReference } from '../electronic/scf/options';
 import type { SpecModel } from '../language/model';
 import { COORDINATE_LIMIT } from '../chemistry/geometry';
+import { DEFAULT_PROJECTION_THRESHOLD } from '../chemistry/activeSpaceDefaults';
 import { inputKey, partAtoms, partInputs, partLabel, type PartInputs, type PartRef } from './inputKey';
 
 export type { ScfReference };
 
 export const MEAN_FIELD_KIND = 'mean-field';
 export const MP2_KIND = 'mp2';
+export const ACTIVE_SPACE_KIND = 'active-space';
 export const DMET_BATH_KIND = 'dmet-bath';
 /** Singular values above this give bath orbitals (electronic/embedding/bath.ts says why). */
 export const DEFAULT_BATH_THRESHOLD = 1e-6;
@@ -43,6 +49,24 @@ export interface Mp2Request {
   readonly frozenCore: boolean;
 }
 
+/** How the active orbitals are chosen (atoms are indices within the part). */
+export type ActiveSpaceChoice =
+  | { readonly kind: 'window'; readonly electrons: number; readonly orbitals: number }
+  | { readonly kind: 'irreps'; readonly electrons: number; readonly irreps: readonly { readonly label: string; readonly count: number }[] }
+  | { readonly kind: 'shells'; readonly shells: readonly { readonly center: number; readonly n: number | null; readonly l: number }[]; readonly threshold: number }
+  | { readonly kind: 'natural'; readonly window: { readonly low: number; readonly high: number } };
+
+export interface ActiveSpaceRequest {
+  readonly kind: typeof ACTIVE_SPACE_KIND;
+  /** A restricted mean field: RHF, or ROHF for an open shell. */
+  readonly meanField: MeanFieldRequest;
+  /** MP2 on it, for natural occupations; null otherwise. */
+  readonly mp2: Mp2Request | null;
+  readonly choice: ActiveSpaceChoice;
+  /** Largest number of active orbitals (the qubit limit, two qubits per orbital); null: no limit. */
+  readonly maxOrbitals: number | null;
+}
+
 /** A fragment's DMET bath from the system's mean field. */
 export interface DmetBathRequest {
   readonly kind: typeof DMET_BATH_KIND;
@@ -58,7 +82,7 @@ export interface DmetBathRequest {
 
 export type BathOrbitals = 'lowdin' | 'iao';
 
-export type ComputeRequest = MeanFieldRequest | Mp2Request | DmetBathRequest;
+export type ComputeRequest = MeanFieldRequest | Mp2Request | DmetBathRequest | ActiveSpaceRequest;
 
 /** Atom indices as ranges: `0-2,5`. */
 function atomRanges(atoms: readonly number[]): string {
@@ -75,12 +99,14 @@ function atomRanges(atoms: readonly number[]): string {
 /** The key a request's result is kept under, within its kind. */
 export function requestKey(request: ComputeRequest): string {
   if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
+  if (request.kind === ACTIVE_SPACE_KIND) return `${JSON.stringify(request.choice)};mo${request.maxOrbitals ?? '-'};${request.mp2 ? requestKey(request.mp2) : requestKey(request.meanField)}`;
   if (request.kind === DMET_BATH_KIND) return `${request.orbitals};t${request.threshold};a${atomRanges(request.fragmentAtoms)};${requestKey(request.meanField)}`;
   return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
 }
 
 /** Requests whose results a request needs before it can run. */
 export function prerequisites(request: ComputeRequest): ComputeRequest[] {
+  if (request.kind === ACTIVE_SPACE_KIND) return request.mp2 ? [request.meanField, request.mp2] : [request.meanField];
   return request.kind === MEAN_FIELD_KIND ? [] : [request.meanField];
 }
 
@@ -123,6 +149,8 @@ export interface Mp2Summary {
   readonly seconds: number;
 }
 
+/** A finished active-space job: the selection (electronic/activeSpace) and its wall time. */
+export type ActiveSpaceOutcome = ActiveSelection & { readonly seconds: number };
 /** One spin's Schmidt decomposition, as the bath job returns it. */
 export interface SpinBathSummary {
   /** Singular values of the environment–fragment block of the spin's orthogonalised density, descending. */
@@ -180,6 +208,9 @@ export interface PartComputation {
   /** MP2 after the mean field: RHF and UHF references only. */
   readonly mp2: Mp2Request | null;
   readonly mp2Key: string | null;
+  /** The active orbitals of a fragment whose tier has an active space; null otherwise. */
+  readonly activeSpace: ActiveSpaceRequest | null;
+  readonly activeSpaceKey: string | null;
   /** A fragment's DMET bath from the system's mean field: under `embedding dmet`, when the system can be computed. */
   readonly bath: DmetBathRequest | null;
   readonly bathKey: string | null;
@@ -256,7 +287,7 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
   const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
   const functions = space.basisFunctions[model.basis.functions];
   const refusal = refusalOf(model, part);
-  let built: { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null } | undefined;
+  let built: { meanField: MeanFieldRequest; meanFieldKey: string; mp2: Mp2Request | null; mp2Key: string | null; activeSpace: ActiveSpaceRequest | null; activeSpaceKey: string | null } | undefined;
   let bath: { request: DmetBathRequest; key: string } | null | undefined;
   const buildBath = () => {
     if (bath !== undefined) return bath;
@@ -280,7 +311,8 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
     };
     const frozenCore = options.frozenCore ?? (part.kind === 'fragment' ? (model.fragments[part.index]!.tier?.frozenCore ?? model.frozenCore) : model.frozenCore);
     const mp2: Mp2Request | null = meanField.reference === 'rohf' ? null : { kind: MP2_KIND, meanField, frozenCore };
-    built = { meanField, meanFieldKey: requestKey(meanField), mp2, mp2Key: mp2 ? requestKey(mp2) : null };
+    const activeSpace = activeSpaceRequest(model, part, meanField, frozenCore);
+    built = { meanField, meanFieldKey: requestKey(meanField), mp2, mp2Key: mp2 ? requestKey(mp2) : null, activeSpace, activeSpaceKey: activeSpace ? requestKey(activeSpace) : null };
     return built;
   };
   return {
@@ -300,6 +332,12 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
     get mp2Key() {
       return refusal ? null : build().mp2Key;
     },
+    get activeSpace() {
+      return refusal ? null : build().activeSpace;
+    },
+    get activeSpaceKey() {
+      return refusal ? null : build().activeSpaceKey;
+    },
     get bath() {
       return buildBath()?.request ?? null;
     },
@@ -307,4 +345,38 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
       return buildBath()?.key ?? null;
     },
   };
+}
+
+/**
+ * What choosing a fragment's active orbitals asks for: the counts or the suggestion of its tier,
+ * from a restricted mean field of the part (ROHF where the part's own reference is UHF), fitted to
+ * the spec's qubit limit. Null for the system, fragments without an active space, mean-field tiers,
+ * and natural occupations of an open shell (MP2 natural orbitals come from RHF).
+ */
+function activeSpaceRequest(model: SpecModel, part: PartRef, meanField: MeanFieldRequest, frozenCore: boolean): ActiveSpaceRequest | null {
+  if (part.kind !== 'fragment') return null;
+  const fragment = model.fragments[part.index]!;
+  const tier = fragment.tier;
+  if (!tier || tier.level === 'mean-field' || !tier.active) return null;
+  const restricted: MeanFieldRequest = meanField.reference === 'uhf' ? { ...meanField, reference: 'rohf' } : meanField;
+  let choice: ActiveSpaceChoice;
+  let mp2: Mp2Request | null = null;
+  const atoms = partAtoms(model, part);
+  if (tier.activeChoice?.kind === 'natural') {
+    if (restricted.reference !== 'rhf') return null;
+    mp2 = { kind: MP2_KIND, meanField: restricted, frozenCore };
+    choice = { kind: 'natural', window: tier.activeChoice.window };
+  } else if (tier.activeChoice?.kind === 'shells') {
+    const place = new Map(atoms.map((atom, k) => [atom, k]));
+    const shells = tier.activeChoice.shells.flatMap((shell) => (place.has(shell.atom) ? [{ center: place.get(shell.atom)!, n: shell.n, l: shell.l }] : []));
+    if (shells.length === 0) return null;
+    choice = { kind: 'shells', shells, threshold: DEFAULT_PROJECTION_THRESHOLD };
+  } else if (tier.activeIrreps && tier.activeIrreps.length > 0) {
+    choice = { kind: 'irreps', electrons: tier.active.electrons, irreps: tier.activeIrreps };
+  } else {
+    choice = { kind: 'window', electrons: tier.active.electrons, orbitals: tier.active.orbitals };
+  }
+  const qubits = model.limits.qubits;
+  const suggestion = choice.kind === 'shells' || choice.kind === 'natural';
+  return { kind: ACTIVE_SPACE_KIND, meanField: restricted, mp2, choice, maxOrbitals: suggestion && qubits !== undefined ? Math.max(1, Math.floor(qubits / 2)) : null };
 }

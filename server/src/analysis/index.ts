@@ -8,6 +8,7 @@ export { analyzeDocument, DocumentAnalysis, ESTIMATE_CHECKS, type AnalysisOption
 export { Estimates, SYMMETRY_ATOM_LIMIT } from './estimates';
 export { fragmentInputKey, inputKey, partAtoms, partInputs, partLabel, type PartAtom, type PartInputs, type PartRef } from './inputKey';
 export {
+  ACTIVE_SPACE_KIND,
   DEFAULT_BATH_THRESHOLD,
   defaultReference,
   DMET_BATH_KIND,
@@ -18,6 +19,9 @@ export {
   requestKey,
   samePart,
   specParts,
+  type ActiveSpaceChoice,
+  type ActiveSpaceOutcome,
+  type ActiveSpaceRequest,
   type BathOrbitals,
   type ComputeRequest,
   type DmetBathRequest,

@@ -2,6 +2,8 @@
  * Which parts of the open documents are computed: the editor's rule over the job queue.
  *
  * - A part (the system or a fragment) with at most `autoFunctionLimit` basis functions (default
+ *   150) is computed by itself: its mean field, and MP2 after it for RHF and UHF references, and
+ *   for a fragment with an active space its active orbitals (analysis/computed.ts).
  *   150) is computed by itself: its mean field, and MP2 after it for RHF and UHF references.
  * - Under `embedding dmet`, whenever the system's mean field is computed, so is every fragment's
  *   bath after it.
@@ -90,6 +92,7 @@ export class DocumentComputations {
       present.add(computation.meanFieldKey!);
       entries.push({ request: computation.meanField!, label: computation.label, explicit });
       if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit });
+      if (computation.activeSpace) entries.push({ request: computation.activeSpace, label: computation.label, explicit });
     }
     // Requests whose inputs left the document lapse: an edit that restores them offers them again.
     for (const key of state.asked) if (!present.has(key)) state.asked.delete(key);

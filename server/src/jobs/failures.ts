@@ -6,6 +6,7 @@
  */
 import { BasisDataUnavailableError, InvalidAtomError, MissingBasisDataError, UnknownBasisError } from '../electronic/basis';
 import { CancelledError } from '../electronic/contracts';
+import { ActiveSelectionError } from '../electronic/activeSpace';
 import { Mp2InputError } from '../electronic/correlation';
 import { UnsupportedEcpError } from '../electronic/integrals';
 import { ScfInputError } from '../electronic/scf';
@@ -31,6 +32,7 @@ export function failureOf(error: unknown): JobFailure {
   if (error instanceof InvalidAtomError) return { code: 'input', message: error.message, atoms: [error.atomIndex] };
   if (error instanceof ScfInputError) return { code: 'input', message: error.message };
   if (error instanceof Mp2InputError) return { code: 'input', message: error.message };
+  if (error instanceof ActiveSelectionError) return { code: 'input', message: error.message };
   if (isOutOfMemory(error)) {
     return { code: 'memory', message: `The computation ran out of memory (${(error as Error).message}). Lower the part's size, or raise the memory available to Tessera.` };
   }

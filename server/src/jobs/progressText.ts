@@ -25,6 +25,8 @@ export function progressText(progress: JobProgress): string {
       if (progress.energyChange !== undefined && progress.energyChange !== null) parts.push(`ΔE = ${change(progress.energyChange)}`);
       return parts.join(' · ');
     }
+    case 'active-space':
+      return 'choosing the active orbitals';
     case 'mp2':
       return progress.total ? `MP2: ${progress.done ?? 0} of ${progress.total} occupied orbitals` : 'MP2';
     case 'embedding':

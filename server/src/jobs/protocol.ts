@@ -8,7 +8,7 @@ import type { ComputeRequest } from '../analysis/computed';
 
 /** Where a running job is, for progress reports. */
 export interface JobProgress {
-  readonly phase: 'integrals' | 'guess' | 'scf' | 'mp2' | 'embedding';
+  readonly phase: 'integrals' | 'guess' | 'scf' | 'mp2' | 'embedding' | 'active-space';
   /** SCF: the Fock build; MP2: occupied orbitals done. */
   readonly iteration?: number;
   readonly energy?: number;

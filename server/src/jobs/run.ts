@@ -9,12 +9,17 @@
  * - `mp2`: the mean-field result it builds on arrives as input; the integrals are built again
  *   (their shell-pair data and Schwarz factors; MP2 recomputes quartets batch by batch anyway)
  *   and MP2 runs on it (RHF: energy, density and natural orbitals; UHF: energy).
- * - `dmet-bath`: the system's mean-field result arrives as input; the basis and its overlap are
+ * - `active-space`: the restricted mean field (and for natural occupations the MP2 result) arrive
+ *   as inputs; the basis and overlap are built again and electronic/activeSpace chooses the orbitals.
+  * - `dmet-bath`: the system's mean-field result arrives as input; the basis and its overlap are
  *   built again and the fragment's bath is cut from the per-spin densities (electronic/embedding).
  */
 import {
+  ACTIVE_SPACE_KIND,
   DMET_BATH_KIND,
   MP2_KIND,
+  type ActiveSpaceOutcome,
+  type ActiveSpaceRequest,
   type ComputeRequest,
   type DmetBathRequest,
   type DmetBathSummary,
@@ -24,6 +29,8 @@ import {
   type Mp2Summary,
 } from '../analysis/computed';
 import { bathSize } from '../chemistry/cost/dmet';
+import { atomicProjectionSelection, canonicalWindow, irrepWindow, naturalOccupationSelection, type ActiveSelection, type SelectionReference } from '../electronic/activeSpace';
+import { naturalOrbitalIrreps, type Mp2Outcome } from '../electronic/correlation';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
 import { throwIfCancelled, type CancelToken } from '../electronic/contracts';
@@ -152,6 +159,53 @@ export function runMp2(request: Mp2Request, meanField: MeanFieldOutcome, context
   };
 }
 
+export function runActiveSpace(request: ActiveSpaceRequest, meanField: MeanFieldOutcome, mp2Result: Mp2Summary | null, context: RunContext): ActiveSpaceOutcome {
+  const start = performance.now();
+  if (!meanField.result.converged) {
+    throw new JobInputError({ code: 'prerequisite', message: `Choosing the active space needs a converged mean field; it stopped after ${meanField.result.iterations} iterations without converging.` });
+  }
+  throwIfCancelled(context.cancel);
+  context.onProgress({ phase: 'active-space' });
+  const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
+  const overlap = overlapMatrix(basis);
+  const { result, orbitals } = meanField;
+  const reference: SelectionReference = {
+    basis,
+    overlap,
+    pointGroup: result.pointGroup,
+    wavefunction: {
+      reference: result.reference,
+      coefficients: { alpha: orbitals.alpha },
+      orbitalEnergies: { alpha: result.orbitalEnergies.alpha },
+      occupations: result.occupations,
+      irreps: { alpha: result.irreps.alpha },
+      electrons: result.electrons,
+    },
+  };
+  const maxOrbitals = request.maxOrbitals ?? undefined;
+  const choice = request.choice;
+  let selection: ActiveSelection;
+  switch (choice.kind) {
+    case 'window':
+      selection = canonicalWindow(reference, choice.electrons, choice.orbitals);
+      break;
+    case 'irreps':
+      selection = irrepWindow(reference, choice.irreps, choice.electrons);
+      break;
+    case 'shells':
+      selection = atomicProjectionSelection(reference, choice.shells, { threshold: choice.threshold, ...(maxOrbitals !== undefined ? { maxOrbitals } : {}) });
+      break;
+    case 'natural': {
+      if (!mp2Result?.naturalOccupations || !mp2Result.naturalOrbitals) throw new JobInputError({ code: 'prerequisite', message: 'Natural occupations need MP2 on an RHF mean field; none arrived.' });
+      const outcome = { result: { naturalOccupations: mp2Result.naturalOccupations }, naturalOrbitals: mp2Result.naturalOrbitals } as unknown as Mp2Outcome;
+      const irreps = naturalOrbitalIrreps(outcome, basis, overlap);
+      selection = naturalOccupationSelection(reference, outcome, { window: choice.window, irreps, ...(maxOrbitals !== undefined ? { maxOrbitals } : {}) });
+      break;
+    }
+  }
+  return { ...selection, seconds: (performance.now() - start) / 1000 };
+}
+
 export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcome, context: RunContext): DmetBathSummary {
   const start = performance.now();
   const { result, orbitals } = meanField;
@@ -215,8 +269,9 @@ export function runDmetBath(request: DmetBathRequest, meanField: MeanFieldOutcom
 }
 
 /** Runs any request, given the results of its prerequisites (in the order `prerequisites` lists them). */
-export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | DmetBathSummary {
+export function runRequest(request: ComputeRequest, inputs: readonly unknown[], context: RunContext): MeanFieldOutcome | Mp2Summary | DmetBathSummary | ActiveSpaceOutcome {
   if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
   if (request.kind === DMET_BATH_KIND) return runDmetBath(request, inputs[0] as MeanFieldOutcome, context);
+  if (request.kind === ACTIVE_SPACE_KIND) return runActiveSpace(request, inputs[0] as MeanFieldOutcome, (inputs[1] as Mp2Summary | undefined) ?? null, context);
   return runMeanField(request, context);
 }

@@ -185,7 +185,30 @@ export interface ActiveIrrepAst {
   readonly span: Span;
 }
 
+/** One shell named after `active shells`: `3d` (n and l) or `d` (l alone: the atom's valence shell of that l). */
+export interface ShellNameAst {
+  readonly n: number | null;
+  readonly l: number;
+  readonly span: Span;
+}
+
+/** `<atoms> <shell>…` after `active shells`: the shells of the selected atoms. */
+export interface ShellGroupAst {
+  readonly selectors: readonly SelectorAst[];
+  readonly shells: readonly ShellNameAst[];
+  readonly span: Span;
+}
+
+/**
+ * A suggestion the active space is taken from, instead of counts: `active shells Fe1 3d all O 2p`
+ * (projection onto atomic shells) or `active natural [0.02 to 1.98]` (MP2 natural occupations).
+ */
+export type ActiveChoiceAst =
+  | { readonly kind: 'shells'; readonly keyword: Span; readonly groups: readonly ShellGroupAst[]; readonly span: Span }
+  | { readonly kind: 'natural'; readonly keyword: Span; readonly window?: { readonly low: Located<number>; readonly high: Located<number> }; readonly span: Span };
+
 export interface ActiveSpaceAst {
+  readonly choice?: ActiveChoiceAst;
   readonly electrons?: Located<number>;
   /** Given as `6o`, or the sum of the per-irrep counts. */
   readonly orbitals?: Located<number>;

@@ -48,7 +48,13 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   { name: 'method', blocks: ['tier'], syntax: 'method <name>', summary: 'The electronic-structure method of the tier.' },
   { name: 'ansatz', blocks: ['tier'], syntax: 'ansatz uccsd|k-upccgsd|hardware-efficient', summary: 'The trial state of a variational quantum algorithm.' },
   { name: 'mapping', blocks: ['tier'], syntax: 'mapping jordan-wigner|bravyi-kitaev|parity', summary: 'How fermionic spin orbitals are encoded on qubits.' },
-  { name: 'active', blocks: ['tier'], syntax: 'active <n>e <m>o', summary: 'Active space: electrons and spatial orbitals correlated by the method, taken around the Fermi level outside the frozen core.' },
+  {
+    name: 'active',
+    blocks: ['tier'],
+    syntax: 'active <n>e <m>o | active <n>e <Irrep>=<k>… | active shells <atoms> <shell>… | active natural [<low> to <high>]',
+    summary:
+      'Active space: electrons and spatial orbitals correlated by the method. Counts take the orbitals around the Fermi level outside the frozen core (per irrep: each irrep\'s nearest); `shells` takes the orbitals of the named atomic shells, `natural` those whose MP2 natural occupation lies in the window, both once the mean field is computed and fitted to the qubit limit.',
+  },
   { name: 'taper', blocks: ['tier'], syntax: 'taper on|off', summary: 'Remove qubits fixed by Z2 symmetries of the qubit Hamiltonian (default off).' },
   { name: 'layers', blocks: ['tier'], syntax: 'layers <n>', summary: 'Repetitions of the ansatz: k of k-UpCCGSD, or the depth of a hardware-efficient ansatz (default 1).' },
   {
@@ -141,6 +147,21 @@ export const UNIT_TERMS: readonly TermInfo[] = [
 export const FUNCTION_TERMS: readonly TermInfo[] = [
   { name: 'spherical', summary: 'Pure (spherical-harmonic) functions: 2l+1 per shell (5 d, 7 f).' },
   { name: 'cartesian', summary: 'Cartesian functions: (l+1)(l+2)/2 per shell (6 d, 10 f).' },
+];
+
+/** The words after `active` that ask for a suggestion instead of counts. */
+export const ACTIVE_CHOICES: readonly TermInfo[] = [
+  {
+    name: 'shells',
+    summary:
+      'The orbitals of named atomic shells: `active shells Fe1 3d all O 2p` (atoms — labels, #indices, ranges, `all <Element>` — then shells of their minimal basis; `d` alone is the valence d shell). Occupied and virtual orbitals are projected onto those shells of STO-3G and those above 0.2 (common practice) are active. Until the mean field is computed the counts are estimated from the free atoms\' shells.',
+    reference: 'Sayfutyarova, Sun, Chan & Knizia, J. Chem. Theory Comput. 13, 4063 (2017)',
+  },
+  {
+    name: 'natural',
+    summary:
+      'What MP2 natural occupations suggest: the natural orbitals with occupation inside the window (default 0.02 to 1.98, common practice) are active. Needs a closed-shell part. Until MP2 is computed the counts are estimated as the minimal-basis valence space.',
+  },
 ];
 
 export const SWITCH_TERMS: readonly TermInfo[] = [

@@ -343,7 +343,7 @@ export function startLanguageServer(given?: Connection): Connection {
   connection.onSelectionRanges(onDocument('selection ranges', (analysis, params) => service.getSelectionRanges(analysis, params.positions), []));
   connection.onDocumentFormatting(onDocument('formatting', (analysis, params) => service.format(analysis.text, undefined, { indent: params.options.tabSize }), []));
   connection.onDocumentRangeFormatting(onDocument('range formatting', (analysis, params) => service.format(analysis.text, params.range, { indent: params.options.tabSize }), []));
-  connection.onCodeAction(onDocument('code actions', (analysis, params) => service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), []));
+  connection.onCodeAction(onDocument('code actions', (analysis, params) => [...service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), ...service.activeSpaceActions(analysis, params.textDocument.uri, params.range)], []));
   connection.languages.inlayHint.on(onDocument('inlay hints', (analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), [], true));
   connection.onCodeLens(
     onDocument('code lens', (analysis, params) => {

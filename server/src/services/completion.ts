@@ -10,6 +10,7 @@ import { MEMORY_UNITS } from '../chemistry/units';
 import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
 import {
+  ACTIVE_CHOICES,
   ANSATZE,
   BASIS_TARGET_WORDS,
   EMBEDDINGS,
@@ -161,6 +162,9 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
     }
     case 'ansatz':
       return index === 0 ? terms(ANSATZE, CompletionItemKind.EnumMember) : [];
+    case 'active':
+      if (index === 0) return terms(ACTIVE_CHOICES, CompletionItemKind.EnumMember);
+      return statement.args[0]?.text === 'shells' ? labelItems(analysis) : [];
     case 'mapping':
       return index === 0 ? terms(MAPPING_TERMS, CompletionItemKind.EnumMember) : [];
     case 'multiplicity': {

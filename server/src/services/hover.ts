@@ -14,6 +14,7 @@ import { describeTarget } from '../language/ast';
 import { claimsOf, type AtomModel } from '../language/model';
 import type { Argument, Statement } from '../language/syntax';
 import {
+  ACTIVE_CHOICES,
   ANSATZE,
   BASIS_PRECEDENCE,
   BASIS_TARGET_WORDS,
@@ -33,6 +34,7 @@ import {
 import { fragmentCard } from './cards';
 import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './computed';
 import { bathSection } from './computedBath';
+import { activeSpaceSection } from './computedActive';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
@@ -180,6 +182,7 @@ const VALUE_TERMS: Readonly<Record<string, { terms: readonly TermInfo[]; kind: s
   taper: { terms: SWITCH_TERMS, kind: 'switch' },
   scan: { terms: SCAN_KINDS, kind: 'scan coordinate' },
   atoms: { terms: SELECTOR_WORDS, kind: 'selector' },
+  active: { terms: ACTIVE_CHOICES, kind: 'active-space suggestion' },
 };
 
 /** Binary search of the inline atom whose line holds the offset. */
@@ -196,6 +199,12 @@ function atomAtLine(analysis: DocumentAnalysis, offset: number): number | undefi
     else return mid;
   }
   return undefined;
+}
+
+/** The computed (or counted) active space under the `active` keyword of a fragment's tier. */
+function activeLineCard(analysis: DocumentAnalysis, statement: { readonly span: { readonly start: number } }): string | undefined {
+  const fragment = analysis.model.fragments.find((f) => f.ast.tier?.active && f.ast.tier.active.span.start === statement.span.start);
+  return fragment ? (activeSpaceSection(analysis, fragment.index) ?? undefined) : undefined;
 }
 
 /** The atom a token refers to: a label or #index in a selector or scan, or an atom line. */
@@ -224,7 +233,7 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
     const keyword = findKeyword(keywordText, context.block);
     if (keyword) {
       const unit = keyword.name === 'structure' || keyword.name === 'scan' ? `\n\nLength unit of this spec: ${unitName(analysis)}.` : '';
-      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : undefined;
+      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : keyword.name === 'active' ? activeLineCard(analysis, statement) : undefined;
       return markdown(`**${keyword.name}**\n\n${keyword.summary}\n\n\`${keyword.syntax}\`${unit}${line ? `\n\n${line}` : ''}`, analysis, token.node);
     }
     const retired = context.block === 'top' ? RETIRED_SPELLINGS.find((entry) => entry.name === keywordText || (entry.name === 'basis block' && keywordText === 'basis')) : undefined;

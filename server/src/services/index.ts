@@ -4,6 +4,7 @@
  */
 export { doComplete, basisItems } from './completion';
 export { getCodeActions } from './codeActions';
+export { activeSpaceActions, activeSpaceSection } from './computedActive';
 export { doValidation, toLspDiagnostic, fileUri, type UriOf } from './diagnostics';
 export { format, formatText, formatLines, type FormatOptions } from './format';
 export { doHover, atomCard, basisCard } from './hover';

@@ -111,6 +111,15 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
   const plan = tier ? estimates.plan(index) : undefined;
   if (!tier || !plan) return figures;
   for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan) };
+  if (tier.activeSource === 'estimated' && tier.activeChoice && figures.active) {
+    // Counted for a suggestion before its orbitals exist: a planning estimate, and the figures say so.
+    const how = tier.activeChoice.kind === 'shells' ? 'the named shells of the free atoms (aufbau)' : 'the minimal-basis valence space';
+    figures = {
+      ...figures,
+      active: { ...figures.active, source: `estimated-${tier.activeChoice.kind}` },
+      notes: [...figures.notes, `Active space ${tier.active!.electrons}e ${tier.active!.orbitals}o counted from ${how} until the ${tier.activeChoice.kind === 'shells' ? 'projected' : 'MP2 natural'} orbitals are computed (a planning estimate).`],
+    };
+  }
   return figures;
 }
 

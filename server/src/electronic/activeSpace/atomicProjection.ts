@@ -36,8 +36,8 @@ import { ActiveSelectionError, type ActiveSelection } from './selection';
 
 /** The minimal basis the named shells are taken from. */
 export const REFERENCE_MINIMAL_BASIS = 'sto-3g';
-/** Projection eigenvalues above this make an orbital active (common practice). */
-export const DEFAULT_PROJECTION_THRESHOLD = 0.2;
+import { DEFAULT_PROJECTION_THRESHOLD } from '../../chemistry/activeSpaceDefaults';
+export { DEFAULT_PROJECTION_THRESHOLD };
 
 export interface ShellTarget {
   /** Index of the atom among the part's centres. */

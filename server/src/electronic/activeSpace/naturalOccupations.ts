@@ -13,8 +13,8 @@ import { fitToOrbitalLimit } from './fit';
 import { canonicalOrbitals, type SelectionReference } from './reference';
 import { ActiveSelectionError, type ActiveSelection } from './selection';
 
-/** Natural occupations inside [low, high] are active; common practice 0.02 to 1.98. */
-export const DEFAULT_OCCUPATION_WINDOW = { low: 0.02, high: 1.98 } as const;
+import { DEFAULT_OCCUPATION_WINDOW } from '../../chemistry/activeSpaceDefaults';
+export { DEFAULT_OCCUPATION_WINDOW };
 
 export interface NaturalOccupationOptions {
   readonly window?: { readonly low: number; readonly high: number };

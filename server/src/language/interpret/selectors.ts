@@ -24,6 +24,15 @@ export function readBasisTargets(reader: StatementReader, args: readonly Argumen
   return readSelectorList(reader, args, 'basis');
 }
 
+/** Atoms named inside another statement (`active shells Fe1 3d`): the fragment selectors but `rest`. */
+export function readAtomSelectors(reader: StatementReader, args: readonly Argument[]): SelectorAst[] {
+  return (readSelectorList(reader, args, 'fragment') as SelectorAst[]).filter((selector) => {
+    if (selector.kind !== 'rest') return true;
+    reader.sink.report('invalid-selector', selector.span, '`rest` selects the atoms no fragment claims; name atoms here: labels, #indices, ranges or `all <Element>`.');
+    return false;
+  });
+}
+
 function readSelectorList(reader: StatementReader, args: readonly Argument[], context: 'fragment' | 'basis'): BasisTargetAst[] {
   const sink = reader.sink;
   const selectors: BasisTargetAst[] = [];

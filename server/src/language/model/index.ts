@@ -45,16 +45,20 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const radii = new Float64Array(atoms.list.map((atom) => atom.element.covalentRadius ?? 1.5));
   const contacts = analyseContacts(coordinates, radii, options.previousContacts);
 
+  const qubitLimit = ast.limits?.qubits?.value ?? options.defaultQubitLimit;
+  const atomicNumbers = atoms.list.map((atom) => atom.element.z);
   const capRules = ast.fragments.map((fragmentAst) => capRuleOf(fragmentAst.caps, ast.caps));
   const neighbours = capRules.some((rule) => rule !== undefined) ? new BondNeighbours(atoms.list.length, contacts.bonds) : undefined;
   const stamp = neighbours ? new Int32Array(atoms.list.length).fill(-1) : undefined;
   const fragments = ast.fragments.map((fragmentAst, index) => {
     const rule = capRules[index];
+    const choice = fragmentAst.tier?.active?.choice;
+    const choiceAtoms = choice?.kind === 'shells' ? choice.groups.map((group) => resolver.resolve(group.selectors).atoms) : [];
     const caps =
       rule && neighbours && stamp
         ? fragmentCaps(rule, selections[index]!.atoms, atoms.list, coordinates, neighbours, capBasis(ast, basis, fragmentAst.name?.value), stamp, index)
         : [];
-    return buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options, { rule, caps });
+    return buildFragment(fragmentAst, index, selections[index]!, counted, basis.functions, frozenCore, options, { rule, caps }, { choiceAtoms, qubitLimit, atomicNumbers });
   });
 
   return {

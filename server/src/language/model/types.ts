@@ -31,6 +31,13 @@ export interface TierModel {
   readonly ansatz: string | undefined;
   readonly mapping: Mapping | undefined;
   readonly active: { readonly electrons: number; readonly orbitals: number } | undefined;
+  /**
+   * `given`: counts written in the spec; `estimated`: counted for a suggestion (`activeChoice`)
+   * before its orbitals are computed — a planning estimate.
+   */
+  readonly activeSource: 'given' | 'estimated' | undefined;
+  /** The suggestion the active space is taken from, when the spec asks for one instead of counts. */
+  readonly activeChoice: ActiveChoiceModel | undefined;
   /** Active orbitals per irrep label, when the spec gives them. */
   readonly activeIrreps: readonly { readonly label: string; readonly count: number }[] | undefined;
   readonly frozenCore: boolean;
@@ -38,6 +45,20 @@ export interface TierModel {
   readonly layers: number;
   readonly ast: TierAst;
 }
+
+/** A named atomic shell of an active-space suggestion: atom index in the spec, n (null: the valence shell) and l. */
+export interface ShellChoice {
+  readonly atom: number;
+  readonly n: number | null;
+  readonly l: number;
+  /** The shell name and the whole `<atoms> <shells>` group in the spec. */
+  readonly span: Span;
+  readonly groupSpan: Span;
+}
+
+export type ActiveChoiceModel =
+  | { readonly kind: 'shells'; readonly shells: readonly ShellChoice[] }
+  | { readonly kind: 'natural'; readonly window: { readonly low: number; readonly high: number } };
 
 export interface FragmentModel {
   readonly index: number;
