@@ -24,13 +24,13 @@ describe('one active-irreps rule for every figure', () => {
   it('gives the growth chart, at the fragment\'s own active space, the figures of its card', () => {
     const analysis = analyzeDocument(spec);
     const card = analysis.fragmentFigures(0);
-    const point = analysis.growth(0).find((p) => p.orbitals === card.active.orbitals)!;
-    expect(card.activeIrreps).toEqual({ perIrrep: { A1: 4 }, source: 'given' });
-    expect(point.tapered).toBe(card.qubits.tapered);
+    const point = analysis.growth(0).find((p) => p.orbitals === card.active!.orbitals)!;
+    expect(card.activeIrreps).toEqual({ perIrrep: { A1: 4 }, source: 'given', occupation: 'assumed' });
+    expect(point.tapered).toBe(card.qubits!.tapered);
     expect(point.pauliTerms).toBe(card.pauliTerms!.jordanWigner);
     // All four in the totally symmetric irrep: only the two number parities taper, and the terms
     // are those of four orbitals without symmetry (the closed form's C1 count).
-    expect(card.qubits.tapered).toBe(6);
+    expect(card.qubits!.tapered).toBe(6);
     expect(card.pauliTerms!.jordanWigner).toBe(countBySymmetry([0, 0, 0, 0]));
   });
 
@@ -38,7 +38,7 @@ describe('one active-irreps rule for every figure', () => {
     const analysis = analyzeDocument(spec);
     const hover = doHover(analysis, positionOf(analysis, 'fragment w', 9))!;
     const report = analysis.report();
-    expect(JSON.stringify(hover.contents)).toContain(`| tapered | ${report.fragments[0]!.qubits.tapered} qubits`);
+    expect(JSON.stringify(hover.contents)).toContain(`| tapered | ${report.fragments[0]!.qubits!.tapered} qubits`);
     expect(JSON.stringify(hover.contents)).toContain(`| Pauli terms | ${report.fragments[0]!.pauliTerms!.jordanWigner} (identity included) |`);
   });
 });
@@ -109,7 +109,7 @@ describe('figures beyond 2^53', () => {
     const atoms = Array.from({ length: 2000 }, (_, i) => `  He ${(i % 20) * 3} ${(Math.floor(i / 20) % 10) * 3} ${Math.floor(i / 200) * 3}`);
     const analysis = analyzeDocument(`basis cc-pVDZ\nstructure {\n${atoms.join('\n')}\n}\nfragment all { atoms rest; tier mean-field { method rhf } }\n`);
     const report = analysis.report();
-    expect(report.system.active.orbitals).toBe(10_000);
+    expect(report.system.active!.orbitals).toBe(10_000);
     const terms = report.system.pauliTerms!.jordanWigner;
     expect(typeof terms).toBe('object');
     expect(terms).toMatchObject({ exact: '14999000250000001', text: '1.50 × 10^16' });

@@ -52,8 +52,8 @@ describe('the text of a variant', () => {
     const byHand = analyzeDocument(BASE.replace('active 4e 4o', 'active 6e 6o'));
     expect(variant.fragmentFigures(0)).toEqual(byHand.fragmentFigures(0));
     // Jordan–Wigner: one qubit per spin orbital, 2 × 6 (Seeley, Richard & Love, J. Chem. Phys. 137, 224109 (2012)).
-    expect(variant.fragmentFigures(0).qubits.jordanWigner).toBe(12);
-    expect(analysis.fragmentFigures(0).qubits.jordanWigner).toBe(8);
+    expect(variant.fragmentFigures(0).qubits!.jordanWigner).toBe(12);
+    expect(analysis.fragmentFigures(0).qubits!.jordanWigner).toBe(8);
   });
 
   it('checks each variant like a spec of its own, reporting its errors at its name', () => {

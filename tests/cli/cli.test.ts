@@ -142,6 +142,13 @@ describe('tessera estimate', () => {
     expect(json.diagnostics.items.map((d: { code: string }) => d.code)).toContain('multiplicity-parity');
   });
 
+  it('--xyz: a negative charge as a plain value, `--charge -1` (hydroxide: 8 + 1 + 1 = 10 electrons, IUPAC periodic table)', async () => {
+    const folder = scratch({ 'oh.xyz': '2\nhydroxide\nO 0 0 0\nH 0 0 0.97\n' });
+    const result = await run(['estimate', '--xyz', 'oh.xyz', '--basis', 'sto-3g', '--charge', '-1', '--format', 'json'], folder);
+    expect(result.code).toBe(0);
+    expect(JSON.parse(result.stdout).system).toMatchObject({ charge: -1, electrons: 10 });
+  });
+
   it('exits 2 for unreadable files and bad options', async () => {
     expect((await run(['estimate', 'nope.tess'])).code).toBe(2);
     expect((await run(['estimate', '--xyz', 'nope.xyz', '--basis', 'sto-3g'])).code).toBe(2);

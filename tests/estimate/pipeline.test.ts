@@ -73,7 +73,7 @@ describe('water in STO-3G', () => {
 
   it('has 1086 Pauli terms under Jordan–Wigner in C2v (Verteletskyi, Yen, Izmaylov 2020; from memory) and tapers 14 → 10 qubits', () => {
     expect(water.system.pauliTerms!.jordanWigner).toBe(1086);
-    expect(water.system.qubits.tapered).toBe(10);
+    expect(water.system.qubits!.tapered).toBe(10);
   });
 });
 
@@ -98,7 +98,7 @@ describe('DMET impurity sizes (Knizia & Chan 2012; Wouters et al. 2016)', () => 
   const two = report(`basis sto-3g\nstructure {\n  O o 0 0 0\n  H h1 0 0.756950 0.585882\n  H h2 0 -0.756950 0.585882\n  O p 6 0 0\n  H g1 6 0.756950 0.585882\n  H g2 6 -0.756950 0.585882\n}\nembedding dmet\nfragment a {\n  atoms o h1 h2\n  tier quantum { method vqe }\n}\nfragment b {\n  atoms p g1 g2\n  tier mean-field { method rhf }\n}\n`);
   it('gives a fragment up to L bath orbitals, fewer when the environment has fewer virtuals', () => {
     expect(two.fragments[0]!.problem).toMatchObject({ embedding: 'dmet', orbitals: 10, electrons: 12, bath: { alpha: 4, beta: 4 } });
-    expect(two.fragments[0]!.qubits.jordanWigner).toBe(20);
+    expect(two.fragments[0]!.qubits!.jordanWigner).toBe(20);
   });
 
   it('uses the fragment\'s own orbitals without DMET: 7 STO-3G orbitals less the frozen O 1s (common practice), 8 electrons', () => {
@@ -113,13 +113,13 @@ describe('active spaces per irrep', () => {
   const spec = (active: string) => `basis cc-pVDZ\n${WATER}\nfragment w {\n  atoms rest\n  tier quantum { method vqe; mapping jordan-wigner; taper on; active ${active} }\n}\n`;
   it('uses the irreps as given', () => {
     const given = report(spec('4e A1=2 B1=1 B2=1'));
-    expect(given.fragments[0]!.activeIrreps).toEqual({ perIrrep: { A1: 2, B1: 1, B2: 1 }, source: 'given' });
-    expect(given.fragments[0]!.active.orbitals).toBe(4);
+    expect(given.fragments[0]!.activeIrreps).toEqual({ perIrrep: { A1: 2, B1: 1, B2: 1 }, source: 'given', occupation: 'assumed' });
+    expect(given.fragments[0]!.active!.orbitals).toBe(4);
   });
 
   it('tapers less when every active orbital is totally symmetric: only the two number parities go', () => {
     const allA1 = report(spec('4e A1=4'));
-    expect(allA1.fragments[0]!.qubits.tapered).toBe(6);
+    expect(allA1.fragments[0]!.qubits!.tapered).toBe(6);
     expect(allA1.fragments[0]!.taperingSymmetries).toEqual(['N_α parity', 'N_β parity']);
   });
 

@@ -274,7 +274,7 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     trigger: water(ONE_FRAGMENT, 'multiplicity ⟦2⟧'),
     // A triplet water is allowed: 10 electrons, 2 unpaired, 8 paired.
     nearMiss: water('fragment w { atoms rest; multiplicity 3; tier mean-field { method rohf } }', 'multiplicity 3'),
-    message: ['Multiplicity 2 needs an odd number of electrons, but the system has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicity is 1.'],
+    message: ['Multiplicity 2 needs an odd number of electrons, but the system has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicities are 1 or 3.'],
   },
   'multiplicity-too-high': {
     trigger: water('fragment w { atoms rest; charge +8; multiplicity 3; tier mean-field { method rohf } }', 'charge +8\nmultiplicity ⟦5⟧'),
@@ -286,6 +286,12 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     // +10 leaves no electrons at all, which is allowed.
     nearMiss: water('fragment w { atoms rest; charge +10; tier mean-field { } }', 'charge +10'),
     message: ['Charge +11 leaves the system with -1 electrons (nuclear charge 10, charge +11): fewer than zero.'],
+  },
+  // Angular-momentum addition: two singlets couple only to S = 0.
+  'spin-coupling': {
+    trigger: `multiplicity ⟦3⟧\nbasis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS}\n`,
+    nearMiss: `multiplicity 3\nbasis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS.replace('atoms o h1 h2;', 'atoms o h1 h2; multiplicity 3;')}\n`,
+    message: ["couple only to multiplicity 1, not to the system's 3", "'a' singlet, S = 0 (default)"],
   },
   'fragment-charge-sum': {
     trigger: water(SPLIT_WATER.replace('charge +1', 'charge 0'), 'charge ⟦0⟧'),
@@ -368,11 +374,24 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     message: ['statevector of 8 qubits', 'needs 4.00 KiB', 'the memory limit is 3.91 KiB'],
   },
   // Scan
+  // O–O bonded below 1.2 × (0.66 + 0.66) = 1.58 Å (Cordero et al. 2008 radii; the bond rule of the structure).
+  'scan-bond-change': {
+    trigger: `basis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS}\n⟦scan⟧ distance o p from 5 to 1.5 step -0.5\n`,
+    nearMiss: `basis sto-3g\nstructure {\n${TWO_WATERS}\n}\n${TWO_FRAGMENTS}\nscan distance o p from 5 to 2 step -0.5\n`,
+    message: ["At 1.5 a bond p–o forms between fragments 'b' and 'a' (1.50 Å"],
+  },
   'invalid-scan': {
     trigger: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 1.5 to 0.9 step ⟦0.1⟧\n'),
     nearMiss: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 1.5 to 0.9 step -0.1\n'),
     nearMissAllows: ['bond-cut'],
     message: ['The scan goes from 1.5 to 0.9, so the step must be negative; it is 0.1.'],
+  },
+  // 3.0 − 4 × 0.25 = 2.0; one more step gives 1.75, past 1.8 (arithmetic, by construction).
+  'scan-end-missed': {
+    trigger: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 3.0 to ⟦1.8⟧ step -0.25\n'),
+    nearMiss: water(SPLIT_WATER, '', 'basis sto-3g').replace(/$/, 'scan distance o h2 from 3.0 to 1.75 step -0.25\n'),
+    nearMissAllows: ['bond-cut'],
+    message: ['Going from 3 in steps of -0.25 stops at 2, not at 1.8: the next step would pass it (1.75).'],
   },
   'spec-too-large': {
     // One character beyond the supported 8 MiB, and a spec of exactly 8 MiB (water padded with a comment).
@@ -444,9 +463,9 @@ describe('charge and multiplicity', () => {
   it('checks the multiplicity of each fragment against its own electron count', () => {
     const { diagnostic } = expectDiagnostic(water('fragment w { atoms rest; multiplicity ⟦2⟧; tier mean-field { method rohf } }'), 'multiplicity-parity');
     expect(diagnostic.message).toBe(
-      "Multiplicity 2 needs an odd number of electrons, but fragment 'w' has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicity is 1.",
+      "Multiplicity 2 needs an odd number of electrons, but fragment 'w' has 10 electrons (nuclear charge 10, charge 0). The nearest valid multiplicities are 1 or 3.",
     );
-    expect(diagnostic.data).toEqual({ multiplicity: 1 });
+    expect(diagnostic.data).toEqual({ multiplicity: 1, multiplicities: [1, 3] });
   });
 
   it('reports a fragment multiplicity above its electron count, with the highest possible one', () => {
@@ -775,7 +794,7 @@ describe('scans', () => {
     ['scan distance o h2 from 1 to 1e308 step ⟦1e-300⟧', 'Going from 1 to 1e+308 in steps of 1e-300 gives more points than can be counted ((1e+308 − 1) / 1e-300 overflows); at most 10,000 are accepted. Is the step mistyped?'],
     ['scan distance o h2 from 0.9 to 1.5 points ⟦10001⟧', '10,001 scan points asked for; at most 10,000 are accepted.'],
     ['scan distance h2 ⟦#3⟧ from 0.9 to 1.5 points 4', 'The scan needs two different atoms.'],
-    ['⟦scan⟧ distance o h1 from 0.9 to 1.5 points 4', "Both scanned atoms are in fragment 'a'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments."],
+    ['⟦scan⟧ distance o h1 from 0.9 to 1.5 points 4', "Both scanned atoms are in fragment 'a'; the second atom's fragment moves as a whole, so the two atoms must be in different fragments, or name the atoms that move: `moving h1 …`."],
     ['scan distance o h2 from ⟦0.3⟧ to 1.5 step 0.3', 'The scan reaches 0.300 Å, closer than 0.5 Å.'],
   ];
   for (const [line, message] of invalid) {
@@ -784,6 +803,18 @@ describe('scans', () => {
       expect(diagnostic.message).toBe(message);
     });
   }
+
+  it('plans a stretch inside one fragment when the moving atoms are named (an O–H stretch of water; common practice)', () => {
+    const analysis = analyzeMarked(water(SPLIT_WATER, '', 'basis sto-3g') + 'scan distance o h1 from 0.9 to 1.5 step 0.2 moving h1\n');
+    expect(analysis.diagnostics.filter((d) => d.code === 'invalid-scan')).toEqual([]);
+    expect(analysis.model.scan?.moving).toEqual([1]); // h1 is atom #2 (by construction)
+  });
+
+  it('asks the moving atoms to hold the second scanned atom and not the first (by construction)', () => {
+    const base = water(SPLIT_WATER, '', 'basis sto-3g');
+    expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h2⟧\n', 'invalid-scan').diagnostic.message).toContain('must include the second scanned atom');
+    expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h1 o⟧\n', 'invalid-scan').diagnostic.message).toContain('must not include the first scanned atom');
+  });
 
   it('converts a scan in bohr to ångström and checks the clash distance there', () => {
     // 0.8 bohr = 0.423 Å: too close; 1.0 bohr = 0.529 Å is not.
@@ -877,7 +908,7 @@ describe('tiers', () => {
   it('names the tier a method belongs to and the methods of this tier', () => {
     const cases: [string, string, string][] = [
       ['quantum', 'ccsd', "'ccsd' is a correlated-tier method, but this tier is quantum. Methods of the quantum tier: vqe, qpe."],
-      ['mean-field', 'fci', "'fci' is a correlated-tier method, but this tier is mean-field. Methods of the mean-field tier: rhf, rohf, uhf."],
+      ['mean-field', 'fci', "'fci' is a correlated-tier method, but this tier is mean-field. Methods of the mean-field tier: rhf, rohf, uhf, pbe, pbe0, b3lyp, tpss."],
       ['correlated', 'rhf', "'rhf' is a mean-field-tier method, but this tier is correlated. Methods of the correlated tier: mp2, ccsd, ccsd(t), casci, casscf, fci."],
     ];
     for (const [level, method, message] of cases) {
@@ -978,7 +1009,7 @@ describe('vocabulary', () => {
 
   it('lists the keywords of the block when nothing is close', () => {
     const { diagnostic } = expectDiagnostic(water(`${ONE_FRAGMENT}\nlimits { ⟦wallclock⟧ 8 }`), 'unknown-keyword');
-    expect(diagnostic.message).toBe("Unknown keyword 'wallclock' in a limits block. Expected one of: qubits, memory.");
+    expect(diagnostic.message).toBe("Unknown keyword 'wallclock' in a limits block. Expected one of: qubits, memory, rate.");
     expect(diagnostic.data).toBeUndefined();
   });
 
@@ -1003,7 +1034,7 @@ describe('vocabulary', () => {
       [water(ONE_FRAGMENT, 'functions ⟦cartesain⟧'), 'unknown-value', "Unknown function type 'cartesain'. Did you mean 'cartesian'? Expected one of: spherical, cartesian."],
       [water('fragment w { atoms rest; tier quantum { ansatz ⟦hardware-eficient⟧ } }'), 'unknown-ansatz', "Unknown ansatz 'hardware-eficient'. Did you mean 'hardware-efficient'? Expected one of: uccsd, k-upccgsd, hardware-efficient."],
       [water('fragment w { atoms rest; tier quantum { mapping ⟦jw⟧ } }'), 'unknown-mapping', "Unknown mapping 'jw'. Expected one of: jordan-wigner, bravyi-kitaev, parity."],
-      [water('fragment w { atoms rest; tier quantum { method ⟦VQE2⟧ } }'), 'unknown-method', "Unknown method 'VQE2'. Did you mean 'vqe'? Expected one of: rhf, rohf, uhf, mp2, ccsd, ccsd(t), casci, casscf, fci, vqe, qpe."],
+      [water('fragment w { atoms rest; tier quantum { method ⟦VQE2⟧ } }'), 'unknown-method', "Unknown method 'VQE2'. Did you mean 'vqe'? Expected one of: rhf, rohf, uhf, pbe, pbe0, b3lyp, tpss, mp2, ccsd, ccsd(t), casci, casscf, fci, vqe, qpe."],
     ];
     for (const [text, code, message] of cases) {
       expect(expectDiagnostic(text, code).diagnostic.message).toBe(message);
@@ -1032,7 +1063,7 @@ describe('values', () => {
       [water(ONE_FRAGMENT, '', '⟦basis⟧'), 'Name the basis set: `basis cc-pVDZ`, or `basis def2-TZVP on all Zn` for some atoms.'],
       [water(ONE_FRAGMENT, '', 'basis sto-3g\nbasis 3-21G ⟦on⟧'), 'Say which atoms take 3-21G: `on all Zn`, `on zn n1..n4`, `on #3` or `on fragment guest`.'],
       [water('fragment w { ⟦atoms⟧; tier mean-field { } }'), 'List the atoms: labels, #indices, ranges like n1..n4, `all H`, `closer-than 3.0 to zn` or `rest`.'],
-      [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`.'],
+      [water('fragment w { atoms rest; tier quantum { ⟦active 4e⟧ } }'), 'The active space needs the orbital count: active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2` (with the reference occupation: `occupied A1=2 B2=1 open B1=1`).'],
       [water('fragment w { atoms rest; tier quantum { ⟦method⟧ } }'), "'method' needs a value: write `method <name>`."],
       [water(`${ONE_FRAGMENT}\nlimits { ⟦memory⟧ }`), 'Give the memory with a unit: `memory 16 GiB` (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB).'],
       [`basis sto-3g\nstructure ⟦from⟧\n${ONE_FRAGMENT}\n`, 'Name the XYZ file to read: `structure from "file.xyz"`.'],
@@ -1059,7 +1090,7 @@ describe('values', () => {
     const cases: [string, string][] = [
       [water(ONE_FRAGMENT, 'multiplicity ⟦triplet⟧'), "The multiplicity must be a number, not 'triplet'."],
       [water('fragment w { atoms rest; tier quantum { layers ⟦0⟧ } }'), "The number of layers must be a whole number of at least 1; '0' is not."],
-      [water('fragment w { atoms rest; tier quantum { active ⟦4⟧ 4o; active 4e 4o } }'), "Mark what the number counts: '4e' for electrons or '4o' for orbitals (active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`)."],
+      [water('fragment w { atoms rest; tier quantum { active ⟦4⟧ 4o; active 4e 4o } }'), "Mark what the number counts: '4e' for electrons or '4o' for orbitals (active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2` (with the reference occupation: `occupied A1=2 B2=1 open B1=1`))."],
       [water(`${ONE_FRAGMENT}\nlimits { qubits ⟦2.5⟧ }`), "The qubit limit must be a whole number of at least 1; '2.5' is not."],
       [water(`${ONE_FRAGMENT}\nlimits { memory 16 ⟦XB⟧ }`), "Unknown memory unit 'XB'; use one of B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB."],
       [water(`${ONE_FRAGMENT}\nlimits { memory ⟦16⟧ }`), 'Add a unit to the memory size: 16 GiB? (units: B, KiB, MiB, GiB, TiB, PiB, kB, KB, MB, GB, TB, PB)'],

@@ -151,7 +151,7 @@ describe('language server over stdio', () => {
     const folds = await client.request<unknown[]>('textDocument/foldingRange', { textDocument: { uri: demoUri } });
     expect(folds.length).toBeGreaterThan(5);
     const hints = await client.request<{ label: string }[]>('textDocument/inlayHint', { textDocument: { uri: demoUri }, range: { start: { line: 0, character: 0 }, end: { line: 200, character: 0 } } });
-    expect(hints.map((h) => h.label)).toContain('20 qubits · 18 tapered');
+    expect(hints.map((h) => h.label)).toContain('20 qubits · 18 tapered · impurity 70e 130o');
     const lenses = await client.request<{ command: { title: string } }[]>('textDocument/codeLens', { textDocument: { uri: demoUri } });
     expect(lenses[0]!.command.title).toContain('largest quantum fragment 18 qubits (site)');
     const report = await client.request<{ markdown: string }>('tessera/report', { uri: demoUri });

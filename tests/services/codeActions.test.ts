@@ -66,10 +66,19 @@ describe('multiplicity', () => {
     expectFixed(fix!, 'multiplicity-parity');
   });
 
+  it('parity: offers both neighbours that fit, 1 and 3 for an even count written as 2 (2S ≤ N, N − 2S even; Szabo & Ostlund 1989)', () => {
+    const offered = fixes(`multiplicity 2\nbasis sto-3g\n${WATER}${MEAN_FIELD}`, 'multiplicity-parity');
+    expect(offered.map((fix) => fix.action.title)).toEqual(['Set the multiplicity to 1', 'Set the multiplicity to 3']);
+    expect(offered.map((fix) => fix.action.isPreferred === true)).toEqual([true, false]);
+    expect(offered[1]!.text.startsWith('multiplicity 3\n')).toBe(true);
+    expect(offered[1]!.after).not.toContain('multiplicity-parity');
+  });
+
   // O + 2 H = 8 + 2 = 10 electrons (IUPAC periodic table); 2S+1 is valid when 2S ≤ N and N − 2S is
   // even (spin algebra; common practice, no source).
   it('too high: 10 electrons allow at most 10 unpaired, multiplicity 11', () => {
-    const [fix] = fixes(`multiplicity 13\nbasis sto-3g\n${WATER}${MEAN_FIELD}`, 'multiplicity-too-high');
+    // The fragment says so too, so that its spin couples to the system's once fixed (angular-momentum addition).
+    const [fix] = fixes(`multiplicity 11\nbasis sto-3g\n${WATER}fragment w { atoms rest; multiplicity 13; tier mean-field { method rohf } }\n`, 'multiplicity-too-high');
     expect(fix!.action.title).toBe('Set the multiplicity to 11');
     expectFixed(fix!, 'multiplicity-too-high');
   });
@@ -79,6 +88,15 @@ describe('multiplicity', () => {
     const [fix] = fixes(text, 'multiplicity-parity');
     expect(fix!.text).toContain('  multiplicity 2\n');
     expectFixed(fix!, 'multiplicity-parity');
+  });
+});
+
+describe('scan end', () => {
+  it('offers the two ends a step of -0.25 from 3.0 lands on near 1.8: 2 and 1.75 (arithmetic, by construction)', () => {
+    const text = `basis sto-3g\n${WATER}fragment a { atoms o h1; charge -1; tier mean-field { method rhf } }\nfragment b { atoms h2; charge +1; tier mean-field { method rhf } }\nscan distance o h2 from 3.0 to 1.8 step -0.25\n`;
+    const offered = fixes(text, 'scan-end-missed');
+    expect(offered.map((fix) => fix.action.title)).toEqual(['Change the end to 2', 'Change the end to 1.75']);
+    for (const fix of offered) expectFixed(fix, 'scan-end-missed');
   });
 });
 
@@ -254,7 +272,7 @@ describe('diagnostics without a fix, and from elsewhere', () => {
     const own = doValidation(analysis, URI).find((d) => d.code === 'multiplicity-parity')!;
     const foreign: LspDiagnostic = { ...own, source: 'spell-checker' };
     expect(getCodeActions(analysis, URI, [foreign])).toEqual([]);
-    expect(getCodeActions(analysis, URI, [own]).length).toBe(1);
+    expect(getCodeActions(analysis, URI, [own]).length).toBe(2); // multiplicity 1 or 3
   });
 });
 

@@ -46,7 +46,7 @@ describe('keywords valid at the cursor', () => {
     { block: 'top level', text: spec('$0\n', 'spec "t"'), expected: TOP.filter((k) => k !== 'spec' && k !== 'structure') },
     { block: 'fragment', text: spec('fragment f {\n  $0\n}\n'), expected: ['charge', 'multiplicity', 'atoms', 'tier', 'caps'] },
     { block: 'tier', text: spec('fragment f {\n  atoms rest\n  tier quantum {\n    $0\n  }\n}\n'), expected: ['frozen-core', 'method', 'ansatz', 'mapping', 'active', 'taper', 'layers'] },
-    { block: 'limits', text: spec('limits {\n  $0\n}\n'), expected: ['qubits', 'memory'] },
+    { block: 'limits', text: spec('limits {\n  $0\n}\n'), expected: ['qubits', 'memory', 'rate'] },
   ];
   for (const c of cases) {
     it(`${c.block}: exactly its own keywords`, () => {
@@ -69,7 +69,7 @@ describe('keywords valid at the cursor', () => {
     expect(top).toEqual(['multiplicity', 'basis', 'frozen-core', 'fragment', 'caps', 'embedding', 'scan', 'limits', 'variant']);
     expect(labels(spec('fragment f {\n  atoms rest\n  charge 0\n  $0\n}\n'))).toEqual(['multiplicity', 'tier', 'caps']);
     expect(labels(spec('fragment f {\n  atoms rest\n  tier quantum {\n    method vqe\n    taper on\n    $0\n  }\n}\n'))).toEqual(['frozen-core', 'ansatz', 'mapping', 'active', 'layers']);
-    expect(labels(spec('limits {\n  qubits 4\n  $0\n}\n'))).toEqual(['memory']);
+    expect(labels(spec('limits {\n  qubits 4\n  $0\n}\n'))).toEqual(['memory', 'rate']);
   });
 
   it('starts a new statement on the line after a closed block', () => {
@@ -96,7 +96,7 @@ describe('values after a keyword', () => {
     { name: 'tier levels', text: FRAGMENT('tier $0'), expected: ['quantum', 'correlated', 'mean-field'] },
     { name: 'methods of a quantum tier', text: FRAGMENT('tier quantum { method $0 }'), expected: ['vqe', 'qpe'] },
     { name: 'methods of a correlated tier', text: FRAGMENT('tier correlated {\n    method $0\n  }'), expected: ['mp2', 'ccsd', 'ccsd(t)', 'casci', 'casscf', 'fci'] },
-    { name: 'methods of a mean-field tier', text: FRAGMENT('tier mean-field { method $0 }'), expected: ['rhf', 'rohf', 'uhf'] },
+    { name: 'methods of a mean-field tier', text: FRAGMENT('tier mean-field { method $0 }'), expected: ['rhf', 'rohf', 'uhf', 'pbe', 'pbe0', 'b3lyp', 'tpss'] },
     { name: 'no methods for an unknown tier', text: FRAGMENT('tier classical { method $0 }'), expected: [] },
     { name: 'ansatz', text: FRAGMENT('tier quantum { ansatz $0 }'), expected: ['uccsd', 'k-upccgsd', 'hardware-efficient'] },
     { name: 'mappings', text: FRAGMENT('tier quantum { mapping $0 }'), expected: ['jordan-wigner', 'bravyi-kitaev', 'parity'] },

@@ -11,19 +11,23 @@ import { positionOf, readSample } from './service';
 const zinc = analyzeDocument(readSample('zn-site-h2s-scan.tess'));
 
 describe('inlay hints', () => {
-  it('after each fragment name: qubits for a quantum tier, orbitals and electrons otherwise', () => {
+  it('after each fragment name: qubits for a quantum tier, the solver\'s time and memory for a classical one, the DMET impurity', () => {
     const hints = getInlayHints(zinc);
     expect(hints.map((hint) => [hint.position, hint.label])).toEqual([
       // site: active 10e 10o under Jordan–Wigner, 2 × 10 = 20 qubits. Under DMET the site keeps only
       // the operations of the C1 system that map it onto itself, C1 (group theory: a subgroup of C1),
-      // so tapering removes only N_α and N_β parity (Bravyi et al. 2017): 18.
-      [positionOf(zinc, 'fragment site', 13), '20 qubits · 18 tapered'],
-      // guest, H2S in def2-SVP: S [4s3p1d] = 18, H [2s1p] = 5 each (tests/fixtures/basis-counts.nwchem.json):
-      // 18 + 2 × 5 = 28 orbitals; 16 + 2 × 1 = 18 electrons.
-      [positionOf(zinc, 'fragment guest', 14), '28 orbitals · 18 e⁻'],
-      // frame, two formates HCOO in def2-SVP: (2 × 14 for O + 14 for C + 5 for H) × 2 = 94
-      // orbitals (same fixture); (8 + 8 + 6 + 1) × 2 = 46 electrons, + 2 for the charge −2 = 48.
-      [positionOf(zinc, 'fragment frame', 14), '94 orbitals · 48 e⁻'],
+      // so tapering removes only N_α and N_β parity (Bravyi et al. 2017): 18. Its impurity: 65
+      // orbitals outside the frozen core and as many bath orbitals (Knizia & Chan 2012).
+      [positionOf(zinc, 'fragment site', 13), '20 qubits · 18 tapered · impurity 70e 130o'],
+      // guest, CCSD(T) on its DMET impurity of 46e 46o: o = v = 23. Per CCSD iteration
+      // 2(o²v⁴ + 2o³v³ + o⁴v²) = 8 × 23⁶ ≈ 1.18 × 10⁹ flops, 20 iterations, plus 2·o³v⁴ = 2 × 23⁷
+      // for (T) (Raghavachari et al. 1989): 3.05 × 10¹⁰ flops, 0.3 s at the assumed 100 Gflops.
+      // Memory v⁴/2 + o·v³ + 3·o²v² + v³ doubles = 1,271,452 × 8 B = 9.70 MiB.
+      [positionOf(zinc, 'fragment guest', 14), 'ccsd(t) under a second · 9.70 MiB · impurity 46e 46o'],
+      // frame, two formates HCOO in def2-SVP: (2 × 14 for O + 14 for C + 5 for H) × 2 = 94 basis
+      // functions (tests/fixtures/basis-counts.nwchem.json). Direct RHF memory 20 N² doubles =
+      // 20 × 94² × 8 B = 1,413,760 B = 1.35 MiB (common practice: a few N² matrices per density).
+      [positionOf(zinc, 'fragment frame', 14), 'rhf under a second · 1.35 MiB'],
     ]);
     for (const hint of hints) {
       expect(hint.kind).toBe(InlayHintKind.Type);
@@ -37,13 +41,15 @@ describe('inlay hints', () => {
     // The correlated guest under `embedding dmet`: its 28 − 5 = 23 orbitals outside the frozen
     // S 1s2s2p core get 23 bath orbitals, and the impurity holds 2 × 23 = 46 orbitals and 46
     // electrons, all active (DMET with a single-determinant bath: Knizia & Chan 2012; Wouters et al. 2016).
-    expect(guest!.tooltip).toBe('correlated: 46e 46o active. Planning estimate.');
+    // Operations as above: 20 × 8 × 23⁶ + 2 × 23⁷ = 30,495,393,134 (Raghavachari et al. 1989).
+    expect(guest!.tooltip).toBe('correlated: 46e 46o active; 3.05 × 10^10 operations, 9.70 MiB, under a second at 100 Gflops. Planning estimate.');
+    expect(zinc.report().fragments[1]!.solverCost!.operations.exact).toBe(String(20 * 8 * 23 ** 6 + 2 * 23 ** 7));
   });
 
   it('only in the requested range', () => {
     const line = positionOf(zinc, 'fragment guest').line;
     const hints = getInlayHints(zinc, { start: { line, character: 0 }, end: { line: line + 1, character: 0 } });
-    expect(hints.map((hint) => hint.label)).toEqual(['28 orbitals · 18 e⁻']);
+    expect(hints.map((hint) => hint.label)).toEqual(['ccsd(t) under a second · 9.70 MiB · impurity 46e 46o']);
   });
 
   it('under the parity mapping, two qubits fewer: 2 × 4 − 2 = 6 for water in cc-pVDZ, 4e 4o', () => {

@@ -54,7 +54,7 @@ describe('fragment card', () => {
     // Frozen core: the He-like 1s of O, one orbital (common practice); 10 electrons fill 5
     // orbitals; 24 − 5 = 19 virtual.
     expect(row(card, 'orbitals')).toBe('| orbitals | 24 (spherical): 1 frozen-core, 5 occupied, 19 virtual |');
-    expect(row(card, 'active space')).toBe('| active space | 4e 4o (as given) |');
+    expect(row(card, 'active space')).toBe('| active space | 4e 4o (α 2 / β 2), as given |');
     // 2n qubits for n = 4 spatial orbitals under Jordan–Wigner and Bravyi–Kitaev; 2n − 2 under parity
     // with the two-qubit reduction (Bravyi, Gambetta, Mezzacapo, Temme, arXiv:1701.08213 (2017)).
     expect(row(card, 'qubits')).toBe('| qubits | Jordan–Wigner 8 · Bravyi–Kitaev 8 · parity 6 |');
@@ -65,7 +65,7 @@ describe('fragment card', () => {
   it('takes every orbital outside the frozen core when no active space is given', () => {
     const { markdown } = hoverAt(waterSpec('fragment w$0 {\n  atoms rest\n  tier quantum { method vqe }\n}'));
     // 10 − 2 core electrons = 8; 24 − 1 frozen-core orbital = 23; Jordan–Wigner 2 × 23 = 46.
-    expect(row(markdown!, 'active space')).toBe('| active space | 8e 23o (all orbitals outside the frozen core) |');
+    expect(row(markdown!, 'active space')).toBe('| active space | 8e 23o (α 4 / β 4), all orbitals outside the frozen core |');
     expect(row(markdown!, 'qubits needed')).toBe('| qubits needed | **46** under jordan-wigner |');
   });
 
@@ -242,7 +242,7 @@ describe('keyword and value-word hovers', () => {
     { name: 'an old spelling', text: `⟦un$0its⟧ bohr\n${FRAGMENT('mean-field')}`, heading: '**units** · old spelling', contains: 'Write `structure in bohr`; the quick fix rewrites it.' },
     { name: 'keyword in a tier', text: FRAGMENT('quantum { ⟦met$0hod⟧ vqe }'), heading: '**method**', contains: '`method <name>`' },
     { name: 'method', text: FRAGMENT('quantum { method ⟦v$0qe⟧ }'), heading: '**vqe** · method', contains: 'Peruzzo et al., Nat. Commun. 5, 4213 (2014)' },
-    { name: 'correlated method', text: FRAGMENT('correlated { method ⟦ccsd$0(t)⟧ }'), heading: '**ccsd(t)** · method', contains: 'Cost: N^7 for the triples correction.' },
+    { name: 'correlated method', text: FRAGMENT('correlated { method ⟦ccsd$0(t)⟧ }'), heading: '**ccsd(t)** · method', contains: 'Cost: N^7: o^3 v^4 once for the triples' },
     { name: 'ansatz', text: FRAGMENT('quantum { method vqe; ansatz ⟦k-up$0ccgsd⟧ }'), heading: '**k-upccgsd** · ansatz', contains: 'J. Chem. Theory Comput. 15, 311 (2019)' },
     { name: 'mapping', text: FRAGMENT('quantum { mapping ⟦bravyi-$0kitaev⟧ }'), heading: '**bravyi-kitaev** · fermion-to-qubit mapping', contains: 'Ann. Phys. 298, 210 (2002)' },
     { name: 'tier level', text: FRAGMENT('⟦corr$0elated⟧ { method mp2 }'), heading: '**correlated** · solver tier' },

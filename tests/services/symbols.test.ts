@@ -31,15 +31,16 @@ describe('outline', () => {
     // Line numbers are 1-based, as an editor shows them. Figures: 'site' is zn and #2..#9 (9 atoms)
     // with a 10e 10o active space, 2 × 10 = 20 qubits under Jordan–Wigner; 'guest' is S and two H;
     // 'frame' takes the remaining 20 − 9 − 3 = 8 atoms; the scan from 2.3 to 3.5 Å in steps of
-    // 0.2 Å has (3.5 − 2.3) / 0.2 + 1 = 7 points.
+    // 0.2 Å has (3.5 − 2.3) / 0.2 + 1 = 7 points. The classical tiers' labels are those of their
+    // inlay hints (tests/services/hintsAndLens.test.ts, with their sources).
     expect(outline(findDocumentSymbols(analysis))).toEqual([
       { name: 'spec zn-site-h2s-approach', kind: SymbolKind.File, detail: 'zn-site-h2s-approach', lines: [5, 5] },
       { name: 'basis def2-svp', kind: SymbolKind.Module, detail: 'def2-svp', lines: [10, 10] },
       { name: 'basis def2-tzvp', kind: SymbolKind.Module, detail: 'def2-tzvp on all Zn', lines: [11, 11] },
       { name: 'structure', kind: SymbolKind.Struct, detail: '20 atoms, ångström', lines: [13, 34] },
-      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 18 tapered', lines: [37, 48], children: [['tier quantum', SymbolKind.Method]] },
-      { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms · 28 orbitals · 18 e⁻', lines: [51, 54], children: [['tier correlated', SymbolKind.Method]] },
-      { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms · 94 orbitals · 48 e⁻', lines: [57, 61], children: [['tier mean-field', SymbolKind.Method]] },
+      { name: 'fragment site', kind: SymbolKind.Class, detail: 'quantum · 9 atoms · 20 qubits · 18 tapered · impurity 70e 130o', lines: [37, 48], children: [['tier quantum', SymbolKind.Method]] },
+      { name: 'fragment guest', kind: SymbolKind.Class, detail: 'correlated · 3 atoms · ccsd(t) under a second · 9.70 MiB · impurity 46e 46o', lines: [51, 54], children: [['tier correlated', SymbolKind.Method]] },
+      { name: 'fragment frame', kind: SymbolKind.Class, detail: 'mean-field · 8 atoms · rhf under a second · 1.35 MiB', lines: [57, 61], children: [['tier mean-field', SymbolKind.Method]] },
       { name: 'embedding', kind: SymbolKind.Property, detail: 'dmet', lines: [63, 63] },
       { name: 'scan', kind: SymbolKind.Event, detail: '7 points', lines: [65, 65] },
       { name: 'limits', kind: SymbolKind.Object, detail: '', lines: [67, 70] },

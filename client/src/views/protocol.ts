@@ -246,7 +246,7 @@ const SVG_ELEMENTS = new Set(['svg', 'g', 'rect', 'line', 'polyline', 'circle', 
 const SVG_ATTRIBUTES = new Set([
   'xmlns', 'width', 'height', 'viewBox', 'role', 'aria-label',
   'x', 'y', 'x1', 'y1', 'x2', 'y2', 'cx', 'cy', 'r', 'd', 'points', 'transform',
-  'fill', 'fill-opacity', 'opacity', 'stroke', 'stroke-width', 'stroke-dasharray', 'stroke-opacity',
+  'fill', 'fill-opacity', 'opacity', 'stroke', 'stroke-width', 'stroke-dasharray', 'stroke-opacity', 'stroke-linejoin', 'paint-order',
   'font-family', 'font-size', 'font-weight', 'text-anchor', 'dominant-baseline',
 ]);
 /** data-* attributes carry what a drawing shows (an orbital's index, its irrep) for tests and tools. */

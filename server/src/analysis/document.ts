@@ -17,6 +17,7 @@ import { DiagnosticSink, finishDiagnostics } from '../language/diagnostics';
 import type { SpecModel } from '../language/model';
 import type { SyntaxTree } from '../language/syntax';
 import type { LineIndex } from '../language/text';
+import { checkImpurityActiveSpaces } from './checks/impurity';
 import { checkActiveIrreps } from './checks/activeIrreps';
 import type { EstimateCheck } from './checks/context';
 import { checkLimits } from './checks/limits';
@@ -33,7 +34,7 @@ import { partComputation, type PartComputation } from './computed';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
-export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkLimits];
+export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkImpurityActiveSpaces, checkLimits];
 
 export type AnalysisOptions = AnalyzeOptions;
 
@@ -172,7 +173,7 @@ export class DocumentAnalysis {
     return computation;
   }
 
-  /** The atoms a scan moves: the second atom's fragment, or its bonded group without fragments. */
+  /** The atoms a scan moves: those its `moving` clause names, else the second atom's fragment, or its bonded group without fragments. */
   scanMovingAtoms(): number[] {
     if (!this.moving) {
       const model = this.model;
@@ -180,7 +181,7 @@ export class DocumentAnalysis {
       if (!scan) this.moving = [];
       else {
         const owner = model.owner[scan.second] ?? -1;
-        this.moving = owner >= 0 ? [...model.fragments[owner]!.atoms] : bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
+        this.moving = scan.moving ? [...scan.moving] : owner >= 0 ? [...model.fragments[owner]!.atoms] : bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
       }
     }
     return this.moving;

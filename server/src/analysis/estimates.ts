@@ -108,7 +108,10 @@ export class Estimates {
     if (!tier || tier.level === 'mean-field' || fragment.atoms.length === 0 || fragment.space.atomsWithoutBasis > 0) return undefined;
     const symmetry = planSymmetryOf(this.countedSymmetry(fragment.index));
     const perIrrep = tier.activeIrreps && symmetry ? resolveGivenIrreps(symmetry.group, tier.activeIrreps) : undefined;
-    const active = tier.active ? { ...tier.active, ...(perIrrep ? { perIrrep } : {}) } : undefined;
+    const doubly = perIrrep && tier.activeOccupation ? resolveGivenIrreps(symmetry!.group, tier.activeOccupation.doubly) : undefined;
+    const singly = perIrrep && tier.activeOccupation ? resolveGivenIrreps(symmetry!.group, tier.activeOccupation.singly) : undefined;
+    const occupation = doubly && singly ? { doubly, singly } : undefined;
+    const active = tier.active ? { ...tier.active, ...(perIrrep ? { perIrrep } : {}), ...(occupation ? { occupation } : {}) } : undefined;
     return {
       fragment: fragment.space,
       system: this.model.system,

@@ -44,6 +44,32 @@ export function nearestValidMultiplicity(electrons: number, multiplicity: number
   return Math.min(highest, Math.max(lowest, lowest + 2 * steps));
 }
 
+/**
+ * The valid multiplicities nearest the one given, lowest first: both neighbours of a multiplicity
+ * whose parity does not fit (1 and 3 for 54 electrons written as 2), the highest possible one when
+ * it asks for more unpaired electrons than there are, else the one given.
+ */
+export function nearbyValidMultiplicities(electrons: number, multiplicity: number): number[] {
+  if (!Number.isFinite(multiplicity) || electrons < 0) return [lowestMultiplicity(electrons)];
+  const highest = electrons + 1;
+  if (multiplicity >= highest) return [highest];
+  if (spinState(electrons, multiplicity).ok) return [multiplicity];
+  return [multiplicity - 1, multiplicity + 1].filter((candidate) => candidate >= 1 && candidate <= highest && spinState(electrons, candidate).ok);
+}
+
+/**
+ * The total spins that spins S1, S2, … can couple to, as multiplicities 2S+1 in steps of 2 (the
+ * angular-momentum addition rule: S from |S1 − S2| to S1 + S2 in whole steps, applied one spin at a
+ * time). With 2Si = ti: the largest total is Σt; the smallest is 2·max(t) − Σt when one spin
+ * outweighs the rest, else 0 or 1/2 by the parity of Σt.
+ */
+export function coupledMultiplicities(multiplicities: readonly number[]): { lowest: number; highest: number } {
+  const twice = multiplicities.map((multiplicity) => multiplicity - 1);
+  const sum = twice.reduce((total, t) => total + t, 0);
+  const largest = twice.reduce((most, t) => Math.max(most, t), 0);
+  return { lowest: Math.max(sum % 2, 2 * largest - sum) + 1, highest: sum + 1 };
+}
+
 export function multiplicityName(multiplicity: number): string {
   const names = ['singlet', 'doublet', 'triplet', 'quartet', 'quintet', 'sextet', 'septet', 'octet'];
   return names[multiplicity - 1] ?? `multiplicity ${multiplicity}`;

@@ -16,6 +16,16 @@ export function fromAngstrom(value: number, unit: LengthUnit): number {
 }
 
 /** Memory sizes: binary multiples (IEC 80000-13) and decimal ones. */
+/** Units of a computing rate: floating-point operations per second with SI prefixes (lower case accepted). */
+export const RATE_UNITS: Readonly<Record<string, number>> = {
+  flops: 1,
+  kflops: 1e3,
+  mflops: 1e6,
+  gflops: 1e9,
+  tflops: 1e12,
+  pflops: 1e15,
+};
+
 export const MEMORY_UNITS: Readonly<Record<string, number>> = {
   B: 1,
   KiB: 1024,

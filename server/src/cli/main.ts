@@ -6,6 +6,7 @@
  */
 import { escapeForTerminal } from '../language/printable';
 import { parseArgs } from 'node:util';
+import { joinNegativeValues } from './negativeValues';
 import { runCheck } from './commands/check';
 import { runEstimate, type EstimateFormat } from './commands/estimate';
 import { COMPARE_FORMATS, runCompare, type CompareFormat } from './commands/compare';
@@ -139,28 +140,24 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       return runCheck({ files: positionals, format: formatOption(values.format, ['text', 'json'] as const, 'text'), settings: settingsOption(values) }, io);
     }
     case 'estimate': {
-      const { values, positionals } = parseArgs({
-        args: rest,
-        allowPositionals: true,
-        strict: true,
-        options: {
-          format: { type: 'string' },
-          xyz: { type: 'string' },
-          basis: { type: 'string' },
-          charge: { type: 'string' },
-          multiplicity: { type: 'string' },
-          functions: { type: 'string' },
-          'frozen-core': { type: 'boolean' },
-          'mean-field': { type: 'boolean' },
-          reference: { type: 'string' },
-          'max-iterations': { type: 'string' },
-          'memory-limit': { type: 'string' },
-          ...SETTING_OPTIONS,
-          'bath-threshold': { type: 'string' },
-          'bath-orbitals': { type: 'string' },
-          help: { type: 'boolean', short: 'h' },
-        },
-      });
+      const options = {
+        format: { type: 'string' },
+        xyz: { type: 'string' },
+        basis: { type: 'string' },
+        charge: { type: 'string' },
+        multiplicity: { type: 'string' },
+        functions: { type: 'string' },
+        'frozen-core': { type: 'boolean' },
+        'mean-field': { type: 'boolean' },
+        reference: { type: 'string' },
+        'max-iterations': { type: 'string' },
+        'memory-limit': { type: 'string' },
+        ...SETTING_OPTIONS,
+        'bath-threshold': { type: 'string' },
+        'bath-orbitals': { type: 'string' },
+        help: { type: 'boolean', short: 'h' },
+      } as const;
+      const { values, positionals } = parseArgs({ args: joinNegativeValues(rest, options), allowPositionals: true, strict: true, options });
       if (values.help) {
         io.stdout(USAGE);
         return EXIT_OK;

@@ -214,6 +214,9 @@ export interface ActiveSpaceAst {
   readonly orbitals?: Located<number>;
   /** Orbitals per irrep of the fragment's point group, when given (`A1=3 B2=1`). */
   readonly irreps: readonly ActiveIrrepAst[];
+  /** The reference occupation, when given: doubly occupied (`occupied A1=2`) and singly occupied (`open B1=1`) orbitals per irrep. */
+  readonly occupied?: readonly ActiveIrrepAst[];
+  readonly open?: readonly ActiveIrrepAst[];
   readonly span: Span;
 }
 
@@ -256,6 +259,8 @@ export interface ScanAst {
   readonly to?: Located<number>;
   readonly step?: Located<number>;
   readonly points?: Located<number>;
+  /** `moving <atom> …`: the atoms that move with the second one, when given. */
+  readonly moving?: { readonly atoms: readonly AtomRef[]; readonly span: Span };
 }
 
 export interface LimitsAst {
@@ -263,9 +268,11 @@ export interface LimitsAst {
   qubits?: Located<number>;
   /** In bytes. */
   memory?: Located<number>;
+  /** Floating-point operations per second. */
+  rate?: Located<number>;
 }
 
-function describeRef(ref: AtomRef): string {
+export function describeRef(ref: AtomRef): string {
   return ref.kind === 'index' ? `#${ref.index}` : ref.name;
 }
 

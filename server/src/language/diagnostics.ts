@@ -79,6 +79,7 @@ export const DIAGNOSTIC_CODES = {
   'multiplicity-too-high': { severity: 'error', title: 'More unpaired electrons than electrons' },
   'negative-electrons': { severity: 'error', title: 'A charge that leaves fewer than zero electrons' },
   'fragment-charge-sum': { severity: 'error', title: 'Fragment charges that do not add up to the total charge' },
+  'spin-coupling': { severity: 'warning', title: 'Fragment spins that cannot couple to the system\'s multiplicity (angular-momentum addition)' },
   // Fragments
   'duplicate-fragment': { severity: 'error', title: 'Two fragments with the same name' },
   'unknown-atom': { severity: 'error', title: 'A selector naming an atom that does not exist' },
@@ -96,6 +97,8 @@ export const DIAGNOSTIC_CODES = {
   'variant-problem': { severity: 'error', title: 'An error in the spec a variant makes (reported at the variant\'s name)' },
   // Scan
   'invalid-scan': { severity: 'error', title: 'A scan whose range, step or atoms do not work' },
+  'scan-bond-change': { severity: 'warning', title: 'A scan point where a bond forms between two fragments' },
+  'scan-end-missed': { severity: 'warning', title: 'A scan step that does not land on the end of the range' },
   // Spellings the language no longer uses
   'retired-spelling': { severity: 'error', title: 'An old spelling (`geometry`, `units`, the braced basis block, `within … of`); the quick fix rewrites it' },
   // Tessera itself

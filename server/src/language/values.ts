@@ -1,5 +1,5 @@
 /** Readers for compound values such as memory sizes (`16 GiB`, `512MiB`). */
-import { MEMORY_UNITS } from '../chemistry/units';
+import { MEMORY_UNITS, RATE_UNITS } from '../chemistry/units';
 import type { Argument } from './syntax';
 import { joinSpans, type Span } from './text';
 
@@ -41,4 +41,22 @@ export function parseMemorySize(args: readonly Argument[]): MemoryReading {
     return { ok: false, message: `${amountText} ${unitText} is ${(amount * factor).toPrecision(3)} bytes, less than one byte: is the unit or the number mistyped?`, span: whole };
   }
   return { ok: true, bytes: amount * factor, span: whole };
+}
+
+export type RateReading = { ok: true; flopsPerSecond: number; span: Span } | { ok: false; message: string; span?: Span };
+
+const RATE_LIST = 'flops, Gflops, Tflops, Pflops';
+
+/** `rate 500 Gflops`: a number and a unit of floating-point operations per second. */
+export function parseRate(args: readonly Argument[]): RateReading {
+  const [amount, unit, ...extra] = args;
+  if (!amount) return { ok: false, message: `Give the rate with a unit: \`rate 500 Gflops\` (units: ${RATE_LIST}).` };
+  if (amount.kind !== 'number') return { ok: false, message: `'${amount.text}' is not a number; write \`rate 500 Gflops\`.`, span: amount.span };
+  if (!unit) return { ok: false, message: `Add a unit to the rate: ${amount.text} Gflops? (units: ${RATE_LIST})`, span: amount.span };
+  if (extra.length > 0) return { ok: false, message: 'A rate is a number and a unit, nothing more.', span: joinSpans(extra[0]!.span, extra[extra.length - 1]!.span) };
+  const factor = RATE_UNITS[unit.text.toLowerCase()];
+  if (factor === undefined) return { ok: false, message: `Unknown rate unit '${unit.text}'; use one of ${RATE_LIST} (floating-point operations per second).`, span: unit.span };
+  const value = Number(amount.text) * factor;
+  if (!(value > 0) || !Number.isFinite(value)) return { ok: false, message: 'The rate must be a positive number.', span: amount.span };
+  return { ok: true, flopsPerSecond: value, span: joinSpans(amount.span, unit.span) };
 }

@@ -51,7 +51,7 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   {
     name: 'active',
     blocks: ['tier'],
-    syntax: 'active <n>e <m>o | active <n>e <Irrep>=<k>… | active shells <atoms> <shell>… | active natural [<low> to <high>]',
+    syntax: 'active <n>e <m>o | active <n>e <Irrep>=<k>… [occupied <Irrep>=<k>… open <Irrep>=<k>…] | active shells <atoms> <shell>… | active natural [<low> to <high>]',
     summary:
       'Active space: electrons and spatial orbitals correlated by the method. Counts take the orbitals around the Fermi level outside the frozen core (per irrep: each irrep\'s nearest); `shells` takes the orbitals of the named atomic shells, `natural` those whose MP2 natural occupation lies in the window, both once the mean field is computed and fitted to the qubit limit.',
   },
@@ -65,8 +65,8 @@ export const KEYWORDS: readonly KeywordInfo[] = [
       'Cap every covalent bond a fragment boundary cuts with a hydrogen link atom on the kept atom\'s side (Field, Bash & Karplus 1990): `fixed` puts it at the typical X–H length of the kept atom\'s element, `scaled` at the cut bond\'s length × (r_X + r_H)/(r_X + r_Y) with covalent radii. Caps count in the fragment\'s electrons, functions, orbitals, qubits and symmetry. At the top level for every fragment; in a fragment for that one (default none).',
   },
   { name: 'embedding', blocks: ['top', 'variant'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
-  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  … points <n>', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
-  { name: 'limits', blocks: ['top', 'variant'], syntax: 'limits { qubits <n>; memory <size> GiB }', summary: 'Resources available: checked against every fragment.', opens: 'limits' },
+  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  … points <n>, then optionally moving <atom> …', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment (or the atoms after `moving`) moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
+  { name: 'limits', blocks: ['top', 'variant'], syntax: 'limits { qubits <n>; memory <size> GiB; rate <n> Gflops }', summary: 'Resources available: qubits and memory checked against every fragment, the rate used for the time of classical solvers.', opens: 'limits' },
   {
     name: 'variant',
     blocks: ['top'],
@@ -77,6 +77,12 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   },
   { name: 'qubits', blocks: ['limits'], syntax: 'qubits <n>', summary: 'Largest number of qubits a quantum-tier fragment may need.' },
   { name: 'memory', blocks: ['limits'], syntax: 'memory <size> B|KiB|MiB|GiB|TiB', summary: 'Classical memory available, for example to a statevector simulator.' },
+  {
+    name: 'rate',
+    blocks: ['limits'],
+    syntax: 'rate <n> flops|Gflops|Tflops|Pflops',
+    summary: 'Floating-point operations per second of the classical machine: the time of each classical solver is its operation count at this rate (default 100 Gflops, an assumption).',
+  },
 ];
 
 export function keywordsFor(block: BlockKind): KeywordInfo[] {
@@ -106,17 +112,21 @@ export const TIER_LEVELS: readonly TermInfo[] = [
 // Scaling statements are the textbook formal scalings with system size N (Helgaker, Jørgensen,
 // Olsen, Molecular Electronic-Structure Theory, Wiley 2000), written from memory.
 export const METHODS: readonly (TermInfo & { readonly tier: TierLevel })[] = [
-  { name: 'rhf', tier: 'mean-field', summary: 'Restricted Hartree–Fock: closed-shell mean field.', scaling: 'N^4 formally (two-electron integrals), N^3 with density fitting' },
-  { name: 'rohf', tier: 'mean-field', summary: 'Restricted open-shell Hartree–Fock.', scaling: 'N^4 formally' },
-  { name: 'uhf', tier: 'mean-field', summary: 'Unrestricted Hartree–Fock: separate alpha and beta orbitals.', scaling: 'N^4 formally' },
-  { name: 'mp2', tier: 'correlated', summary: 'Second-order Møller–Plesset perturbation theory.', scaling: 'N^5' },
-  { name: 'ccsd', tier: 'correlated', summary: 'Coupled cluster with single and double excitations.', scaling: 'N^6; amplitudes o^2 v^2' },
-  { name: 'ccsd(t)', tier: 'correlated', summary: 'CCSD with perturbative triples.', scaling: 'N^7 for the triples correction' },
-  { name: 'casci', tier: 'correlated', summary: 'Complete active-space configuration interaction.', scaling: 'exponential in the active space (number of determinants)' },
-  { name: 'casscf', tier: 'correlated', summary: 'CASCI with optimized orbitals.', scaling: 'exponential in the active space, times orbital iterations' },
-  { name: 'fci', tier: 'correlated', summary: 'Full configuration interaction in the active space.', scaling: 'exponential: binomial(n, alpha) × binomial(n, beta) determinants' },
-  { name: 'vqe', tier: 'quantum', summary: 'Variational quantum eigensolver (Peruzzo et al., Nat. Commun. 5, 4213 (2014)).', scaling: 'circuit per ansatz; measurements grow with the number of Pauli terms' },
-  { name: 'qpe', tier: 'quantum', summary: 'Quantum phase estimation (Aspuru-Guzik et al., Science 309, 1704 (2005)).', scaling: 'deep circuits: Hamiltonian simulation to the target precision' },
+  { name: 'rhf', tier: 'mean-field', summary: 'Restricted Hartree–Fock: closed-shell mean field.', scaling: 'N^4 formally (two-electron integrals), N^3 with density fitting', reference: 'C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951)' },
+  { name: 'rohf', tier: 'mean-field', summary: 'Restricted open-shell Hartree–Fock.', scaling: 'N^4 formally', reference: 'C. C. J. Roothaan, Rev. Mod. Phys. 32, 179 (1960)' },
+  { name: 'uhf', tier: 'mean-field', summary: 'Unrestricted Hartree–Fock: separate alpha and beta orbitals.', scaling: 'N^4 formally', reference: 'J. A. Pople, R. K. Nesbet, J. Chem. Phys. 22, 571 (1954)' },
+  { name: 'pbe', tier: 'mean-field', summary: 'Kohn–Sham DFT with the PBE generalized-gradient functional (no exact exchange; unrestricted for open shells).', scaling: 'N^4 formally for the Coulomb term (N^3 with density fitting), plus grid quadrature', reference: 'J. P. Perdew, K. Burke, M. Ernzerhof, Phys. Rev. Lett. 77, 3865 (1996)' },
+  { name: 'pbe0', tier: 'mean-field', summary: 'Kohn–Sham DFT with the PBE0 hybrid functional (25 % exact exchange).', scaling: 'N^4 formally (exact exchange), plus grid quadrature', reference: 'C. Adamo, V. Barone, J. Chem. Phys. 110, 6158 (1999)' },
+  { name: 'b3lyp', tier: 'mean-field', summary: 'Kohn–Sham DFT with the B3LYP hybrid functional (20 % exact exchange).', scaling: 'N^4 formally (exact exchange), plus grid quadrature', reference: 'A. D. Becke, J. Chem. Phys. 98, 5648 (1993); P. J. Stephens et al., J. Phys. Chem. 98, 11623 (1994)' },
+  { name: 'tpss', tier: 'mean-field', summary: 'Kohn–Sham DFT with the TPSS meta-GGA functional (no exact exchange).', scaling: 'N^4 formally for the Coulomb term, plus grid quadrature', reference: 'J. Tao, J. P. Perdew, V. N. Staroverov, G. E. Scuseria, Phys. Rev. Lett. 91, 146401 (2003)' },
+  { name: 'mp2', tier: 'correlated', summary: 'Second-order Møller–Plesset perturbation theory.', scaling: 'N^5 (o·N^4 for the integral transformation)', reference: 'C. Møller, M. S. Plesset, Phys. Rev. 46, 618 (1934)' },
+  { name: 'ccsd', tier: 'correlated', summary: 'Coupled cluster with single and double excitations.', scaling: 'N^6: o^2 v^4 per iteration; amplitudes o^2 v^2', reference: 'G. D. Purvis, R. J. Bartlett, J. Chem. Phys. 76, 1910 (1982)' },
+  { name: 'ccsd(t)', tier: 'correlated', summary: 'CCSD with perturbative triples.', scaling: 'N^7: o^3 v^4 once for the triples, after the CCSD iterations', reference: 'K. Raghavachari, G. W. Trucks, J. A. Pople, M. Head-Gordon, Chem. Phys. Lett. 157, 479 (1989)' },
+  { name: 'casci', tier: 'correlated', summary: 'Complete active-space configuration interaction.', scaling: 'exponential in the active space (number of determinants)', reference: 'P. J. Knowles, N. C. Handy, Chem. Phys. Lett. 111, 315 (1984)' },
+  { name: 'casscf', tier: 'correlated', summary: 'CASCI with optimized orbitals.', scaling: 'exponential in the active space, times orbital iterations', reference: 'B. O. Roos, P. R. Taylor, P. E. M. Siegbahn, Chem. Phys. 48, 157 (1980)' },
+  { name: 'fci', tier: 'correlated', summary: 'Full configuration interaction in the active space.', scaling: 'exponential: binomial(n, alpha) × binomial(n, beta) determinants', reference: 'P. J. Knowles, N. C. Handy, Chem. Phys. Lett. 111, 315 (1984)' },
+  { name: 'vqe', tier: 'quantum', summary: 'Variational quantum eigensolver.', scaling: 'circuit per ansatz; measurements grow with the number of Pauli terms', reference: 'A. Peruzzo et al., Nat. Commun. 5, 4213 (2014)' },
+  { name: 'qpe', tier: 'quantum', summary: 'Quantum phase estimation.', scaling: 'deep circuits: Hamiltonian simulation to the target precision', reference: 'A. Aspuru-Guzik, A. D. Dutoit, P. J. Love, M. Head-Gordon, Science 309, 1704 (2005)' },
 ];
 
 export const ANSATZE: readonly TermInfo[] = [

@@ -78,13 +78,22 @@ function emptyChart(title: string, message: string): string {
   return `${svgOpen(title)}<text x="${WIDTH / 2}" y="${HEIGHT / 2}" ${FONT} font-size="13" fill="#777777" text-anchor="middle">${escape(message)}</text></svg>`;
 }
 
-/** Grouped bars: qubits of each sized fragment under Jordan–Wigner, Bravyi–Kitaev, parity, and tapered. */
+/** A label with a white halo, so that a line drawn beneath it never strikes through the text. */
+function haloText(x: number, y: number, size: number, fill: string, anchor: string, text: string): string {
+  return `<text x="${x.toFixed(1)}" y="${y.toFixed(1)}" ${FONT} font-size="${size}" fill="${fill}" text-anchor="${anchor}" stroke="#ffffff" stroke-width="3" stroke-linejoin="round" paint-order="stroke">${escape(text)}</text>`;
+}
+
+/**
+ * Grouped bars: qubits of each quantum-tier fragment under Jordan–Wigner, Bravyi–Kitaev, parity,
+ * and tapered. Classical tiers have no qubits and no bars. The limit line is drawn beneath the
+ * bars and their labels (which carry a halo), so it never strikes through a number.
+ */
 export function qubitsChartSvg(report: EstimateReport): string {
   const title = 'Qubits per fragment (planning estimate)';
-  const fragments = report.fragments.filter((fragment) => fragment.problem !== null);
-  if (fragments.length === 0) return emptyChart(title, 'No quantum or correlated fragment to size.');
+  const fragments = report.fragments.filter((fragment) => fragment.tier === 'quantum' && fragment.qubits !== null);
+  if (fragments.length === 0) return emptyChart(title, 'No quantum-tier fragment to size: classical tiers need no qubits.');
   const series = ['Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered'];
-  const values = fragments.map((fragment) => [fragment.qubits.jordanWigner, fragment.qubits.bravyiKitaev, fragment.qubits.parity, fragment.qubits.tapered ?? 0]);
+  const values = fragments.map((fragment) => [fragment.qubits!.jordanWigner, fragment.qubits!.bravyiKitaev, fragment.qubits!.parity, fragment.qubits!.tapered ?? 0]);
   const limit = report.limits.qubits;
   const max = values.reduce((most, row) => row.reduce((m, value) => Math.max(m, value), most), Math.max(limit ?? 0, 1));
   const f = frame();
@@ -94,20 +103,23 @@ export function qubitsChartSvg(report: EstimateReport): string {
   const groupWidth = (f.x1 - f.x0) / fragments.length;
   const barWidth = Math.min(26, (groupWidth * 0.8) / series.length);
   const parts = [svgOpen(title), yAxis(f, ticks, toY, 'qubits'), `<line x1="${f.x0}" y1="${f.y0}" x2="${f.x1}" y2="${f.y0}" stroke="#888888"/>`];
+  if (limit !== null) {
+    const y = toY(limit);
+    parts.push(`<line x1="${f.x0}" y1="${y.toFixed(1)}" x2="${f.x1}" y2="${y.toFixed(1)}" stroke="#d55e00" stroke-dasharray="6 4"/>`);
+  }
+  const labels: string[] = [];
   fragments.forEach((fragment, g) => {
     const start = f.x0 + g * groupWidth + (groupWidth - barWidth * series.length) / 2;
     values[g]!.forEach((value, s) => {
       const x = start + s * barWidth;
       const y = toY(value);
       parts.push(`<rect x="${x.toFixed(1)}" y="${y.toFixed(1)}" width="${(barWidth - 2).toFixed(1)}" height="${(f.y0 - y).toFixed(1)}" fill="${SERIES_COLOURS[s]}"><title>${escape(`${fragment.name}, ${series[s]}: ${value}`)}</title></rect>`);
-      parts.push(`<text x="${(x + barWidth / 2 - 1).toFixed(1)}" y="${(y - 3).toFixed(1)}" ${FONT} font-size="9" fill="#333333" text-anchor="middle">${value}</text>`);
+      labels.push(haloText(x + barWidth / 2 - 1, y - 3, 9, '#333333', 'middle', String(value)));
     });
-    parts.push(`<text x="${(f.x0 + (g + 0.5) * groupWidth).toFixed(1)}" y="${f.y0 + 16}" ${FONT} font-size="11" fill="#222222" text-anchor="middle">${escape(fragment.name)}</text>`);
+    labels.push(`<text x="${(f.x0 + (g + 0.5) * groupWidth).toFixed(1)}" y="${f.y0 + 16}" ${FONT} font-size="11" fill="#222222" text-anchor="middle">${escape(fragment.name)}</text>`);
   });
-  if (limit !== null) {
-    const y = toY(limit).toFixed(1);
-    parts.push(`<line x1="${f.x0}" y1="${y}" x2="${f.x1}" y2="${y}" stroke="#d55e00" stroke-dasharray="6 4"/><text x="${f.x1}" y="${Number(y) - 4}" ${FONT} font-size="10" fill="#d55e00" text-anchor="end">limit ${limit} qubits</text>`);
-  }
+  parts.push(...labels);
+  if (limit !== null) parts.push(haloText(f.x1, toY(limit) - 4, 10, '#d55e00', 'end', `limit ${limit} qubits`));
   parts.push(legend(series, f.x0, HEIGHT - 16), '</svg>');
   return parts.join('');
 }
@@ -161,9 +173,10 @@ export function scanChartSvg(report: EstimateReport): string {
   const circuits = countValue(scan.totals.measurementCircuits);
   const perPointCircuits = circuits / scan.points;
   const f = frame();
-  const low = scan.distances.reduce((least, d) => Math.min(least, d), Infinity);
-  const span = scan.distances.reduce((most, d) => Math.max(most, d), -Infinity) - low || 1;
-  const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - low)) / span;
+  // Scan order left to right: the first distance at the left edge, also for a descending scan.
+  const first = scan.distances[0]!;
+  const span = scan.distances[scan.distances.length - 1]! - first || 1;
+  const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - first)) / span;
   const ticks = niceTicks(Math.max(circuits, 1));
   const yTop = ticks[ticks.length - 1]!;
   const toY = (value: number) => f.y0 - ((f.y0 - f.y1) * value) / yTop;

@@ -3,8 +3,9 @@
  * comes from the document's analysis (analysis/figures), with the convention behind it; a card
  * asks for its own fragment's figures only.
  */
+import { formatRate } from '../chemistry/cost/format';
 import { markdownText } from '../report/format/escape';
-import { CONVENTIONS, countText, PLANNING_NOTE, type CapFigures, type DocumentAnalysis, type FragmentFigures, type SpaceFigures } from '../analysis';
+import { CONVENTIONS, countText, PLANNING_NOTE, type CapFigures, type DocumentAnalysis, type FragmentFigures, type SolverCostFigures, type SpaceFigures } from '../analysis';
 import { CAP_RULE_TEXT, type CapRule } from '../chemistry/capping';
 
 function signed(value: number): string {
@@ -15,6 +16,7 @@ function spinText(figures: SpaceFigures): string {
   return figures.alpha === null ? 'charge and multiplicity do not fit' : `α ${figures.alpha} / β ${figures.beta}`;
 }
 
+/** The rows every part has: atoms, electrons, basis functions, orbitals. */
 export function spaceRows(figures: SpaceFigures): string[] {
   const missing = figures.atomsWithoutBasis > 0 ? ` (${figures.atomsWithoutBasis} atom${figures.atomsWithoutBasis === 1 ? '' : 's'} without basis functions not counted)` : '';
   return [
@@ -22,9 +24,14 @@ export function spaceRows(figures: SpaceFigures): string[] {
     `| electrons | ${figures.electrons} (${spinText(figures)}) · charge ${signed(figures.charge)}, multiplicity ${figures.multiplicity}${figures.ecpCoreElectrons > 0 ? ` · ${figures.ecpCoreElectrons} in ECP cores` : ''} |`,
     `| basis functions | ${figures.basisFunctions.spherical} spherical · ${figures.basisFunctions.cartesian} cartesian${missing} |`,
     `| orbitals | ${figures.orbitals} (${figures.functions}): ${figures.frozenCore.orbitals} frozen-core, ${figures.occupied ?? '–'} occupied, ${figures.virtual ?? '–'} virtual |`,
-    `| active space | ${figures.active.electrons}e ${figures.active.orbitals}o (${figures.active.source === 'given' ? 'as given' : figures.active.source === 'outside-frozen-core' ? 'all orbitals outside the frozen core' : 'all orbitals'}) |`,
-    `| qubits | Jordan–Wigner ${figures.qubits.jordanWigner} · Bravyi–Kitaev ${figures.qubits.bravyiKitaev} · parity ${figures.qubits.parity} |`,
   ];
+}
+
+function activeRow(figures: SpaceFigures): string[] {
+  const active = figures.active;
+  if (!active) return [];
+  const source = active.source === 'given' ? 'as given' : active.source === 'dmet-impurity' ? 'the whole DMET impurity' : active.source === 'outside-frozen-core' ? 'all orbitals outside the frozen core' : 'all orbitals';
+  return [`| active space | ${active.electrons}e ${active.orbitals}o${active.alpha !== null ? ` (α ${active.alpha} / β ${active.beta})` : ''}, ${source} |`];
 }
 
 function fragmentHeadline(fragment: FragmentFigures): string {
@@ -54,39 +61,79 @@ function pointGroupRow(fragment: FragmentFigures): string | undefined {
   return `| point group | **${own}**, the fragment alone (counted) |`;
 }
 
-/** Rows of the cost figures a plan estimate adds (quantum and correlated tiers). */
-function planRows(fragment: FragmentFigures, limit: number | null): string[] {
-  const rows: string[] = [];
-  const symmetryRow = pointGroupRow(fragment);
-  if (symmetryRow) rows.push(symmetryRow);
-  if (fragment.problem) {
-    const bath = fragment.problem.bath.alpha === fragment.problem.bath.beta ? `${fragment.problem.bath.alpha}` : `${fragment.problem.bath.alpha} α / ${fragment.problem.bath.beta} β`;
-    rows.push(
-      fragment.problem.embedding === 'dmet'
-        ? `| DMET impurity | ${fragment.problem.electrons}e ${fragment.problem.orbitals}o (fragment + ${bath} bath orbitals) |`
-        : `| solver's problem | ${fragment.problem.electrons}e ${fragment.problem.orbitals}o (${fragment.problem.embedding === 'none' ? 'the fragment\'s own orbitals' : `${fragment.problem.embedding} embedding`}) |`,
-    );
+function problemRow(fragment: FragmentFigures): string[] {
+  const problem = fragment.problem;
+  if (!problem) return [];
+  if (problem.embedding === 'dmet') {
+    const bath = problem.bath.alpha === problem.bath.beta ? `${problem.bath.alpha}` : `${problem.bath.alpha} α / ${problem.bath.beta} β`;
+    return [`| DMET impurity | ${problem.electrons}e ${problem.orbitals}o (α ${problem.alpha} / β ${problem.beta}; fragment + ${bath} bath orbitals) |`];
   }
-  if (fragment.activeIrreps) rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}) |`);
-  if (fragment.qubits.tapered !== null) rows.push(`| tapered | ${fragment.qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
-  if (fragment.qubitsRequired !== null) rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${fragment.qubitsRequired === fragment.qubits.tapered && fragment.qubits.tapered !== null ? ', tapered' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
+  return [`| solver's problem | ${problem.electrons}e ${problem.orbitals}o (${problem.embedding === 'none' ? "the fragment's own orbitals" : `${problem.embedding} embedding`}) |`];
+}
+
+/** A quantum tier's register first: what decides whether it runs. */
+function quantumRows(fragment: FragmentFigures, limit: number | null): string[] {
+  const rows: string[] = [];
+  const qubits = fragment.qubits;
+  if (fragment.qubitsRequired !== null) {
+    const tapered = qubits !== null && fragment.qubitsRequired === qubits.tapered && qubits.tapered !== null;
+    rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${tapered ? ', tapered' : ''}${fragment.method === 'qpe' ? ', the system register only (the phase register and ancillas of the QPE scheme not counted)' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
+  }
+  if (qubits?.tapered !== null && qubits?.tapered !== undefined) rows.push(`| tapered | ${qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
+  rows.push(...problemRow(fragment), ...activeRow(fragment));
+  if (fragment.activeIrreps) {
+    const reference = fragment.activeIrreps.occupation === 'given' ? 'reference occupation as given' : 'reference occupation assumed (the orbitals of each irrep spread evenly, the lowest filled; give `occupied A1=2 …` to set it)';
+    rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}); ${reference} |`);
+  }
+  if (qubits) rows.push(`| qubits | Jordan–Wigner ${qubits.jordanWigner} · Bravyi–Kitaev ${qubits.bravyiKitaev} · parity ${qubits.parity} |`);
   if (fragment.pauliTerms) rows.push(`| Pauli terms | ${fragment.pauliTerms.upperBound ? '≤ ' : ''}${countText(fragment.pauliTerms.jordanWigner)} (identity included) |`);
-  if (fragment.measurement && fragment.tier === 'quantum') {
+  if (fragment.measurement) {
     const groups = countText(fragment.measurement.groups);
-    rows.push(`| measurement | ${fragment.measurement.exact || groups.startsWith('≈') ? '' : '≈ '}${groups} qubit-wise commuting groups |`);
+    const how = fragment.measurement.exact ? 'greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum' : 'extrapolated from explicit groupings';
+    rows.push(`| measurement | ${fragment.measurement.exact || groups.startsWith('≈') ? '' : '≈ '}${groups} qubit-wise commuting groups (${how}) |`);
   }
   if (fragment.ansatzCost) {
     const unscreened = fragment.ansatzCost.unscreened !== null && countText(fragment.ansatzCost.unscreened) !== countText(fragment.ansatzCost.parameters) ? ` (${countText(fragment.ansatzCost.unscreened)} without point-group screening)` : '';
     rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${countText(fragment.ansatzCost.parameters)} parameters${unscreened} |`);
   }
-  if (fragment.circuit) rows.push(`| circuit | ${countText(fragment.circuit.cnots)} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${countText(fragment.circuit.compactCnots)} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${countText(fragment.circuit.depth)}` : ''} |`);
+  if (fragment.circuit) {
+    const register = fragment.circuit.construction === 'hardware-efficient' ? `on the ${fragment.qubitsRequired ?? fragment.qubits?.jordanWigner} qubits needed` : `untapered Jordan–Wigner on ${fragment.qubits?.jordanWigner} qubits, interleaved order`;
+    rows.push(`| circuit | ${countText(fragment.circuit.cnots)} CNOTs per Trotter step${fragment.circuit.compactCnots !== null ? `, ${countText(fragment.circuit.compactCnots)} with compact excitation circuits` : ''}${fragment.circuit.depth !== null ? `; depth ≤ ${countText(fragment.circuit.depth)} (serial upper estimate)` : ''} — ${register} |`);
+  }
   if (fragment.classical) {
-    rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes |`);
+    rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes (${fragment.classical.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted, closed shell' : 'spin orbitals'}) |`);
     if (fragment.classical.statevectorBytes) rows.push(`| statevector | ${fragment.classical.statevectorBytes.text} |`);
   }
   return rows;
 }
 
+const SOLVER_TARGETS: Record<SolverCostFigures['on'], string> = {
+  'active-space': 'its active space',
+  'dmet-impurity': 'the DMET impurity',
+  fragment: "the fragment's own orbitals",
+};
+
+/** A classical tier's solver cost first: what decides whether it runs. */
+function classicalRows(fragment: FragmentFigures): string[] {
+  const rows: string[] = [];
+  const cost = fragment.solverCost;
+  if (cost) {
+    const size = fragment.tier === 'mean-field' ? `${cost.basisFunctions} basis functions` : `${SOLVER_TARGETS[cost.on]}, ${cost.occupied} occupied and ${cost.virtual} virtual orbitals`;
+    rows.push(`| solver | **${cost.method}** on ${size}${cost.determinants ? `, ${cost.determinants.text} determinants` : ''} |`);
+    const rate = `${formatRate(cost.time.flopsPerSecond)}${cost.time.rateFrom === 'default' ? ' (assumed; set `limits { rate }`)' : ''}`;
+    rows.push(`| cost | **${cost.time.text}** at ${rate}: ${cost.operations.text} operations${cost.iterations !== null ? ` (${cost.iterations} iterations)` : ''}, ${cost.memoryBytes.text} memory |`);
+    rows.push(`| scaling | ${cost.scaling} |`);
+  }
+  rows.push(...problemRow(fragment), ...activeRow(fragment));
+  if (fragment.classical) rows.push(`| full CI | ${fragment.classical.determinants.text} determinants (${fragment.classical.ciVectorBytes.text}) · CCSD ${fragment.classical.ccsdAmplitudes.text} amplitudes (${fragment.classical.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted, closed shell' : 'spin orbitals'}) |`);
+  return rows;
+}
+
+/**
+ * The card of a fragment: the figures that decide first (the qubits a quantum tier needs, the time
+ * and memory of a classical solver, the problem's size), then the point groups and the sizes every
+ * part has, conventions last.
+ */
 /** Caps shown one by one up to this many; beyond, counted. */
 const LISTED_CAPS = 6;
 
@@ -110,15 +157,20 @@ export function fragmentCard(analysis: DocumentAnalysis, index: number): string 
   if (fragment.problem) conventions.push(fragment.problem.convention);
   if (fragment.symmetry) conventions.push(`point group: ${fragment.symmetry.reason}`);
   if (fragment.pauliTerms) conventions.push(`Pauli terms: ${CONVENTIONS.pauliTerms}`);
-  if (fragment.qubits.tapered !== null) conventions.push(`qubits: ${CONVENTIONS.qubits}`);
+  if (fragment.qubits?.tapered !== null && fragment.qubits?.tapered !== undefined) conventions.push(`qubits: ${CONVENTIONS.qubits}`);
+  if (fragment.measurement) conventions.push(`measurement: ${fragment.measurement.method}`);
+  if (fragment.solverCost) conventions.push(`solver cost: ${fragment.solverCost.formula} (${fragment.solverCost.references.join('; ')})`);
+  const deciding = fragment.tier === 'quantum' ? quantumRows(fragment, analysis.model.limits.qubits ?? null) : classicalRows(fragment);
+  const symmetryRow = pointGroupRow(fragment);
   return [
     fragmentHeadline(fragment),
     '',
     '| | |',
     '| --- | --- |',
+    ...deciding,
+    ...(symmetryRow ? [symmetryRow] : []),
     ...spaceRows(fragment),
     ...capsRows(analysis, fragment.caps),
-    ...planRows(fragment, analysis.model.limits.qubits ?? null),
     ...fragment.notes.map((note) => `| note | ${note} |`),
     '',
     `_Conventions: ${conventions.join('; ')}._`,

@@ -1,5 +1,5 @@
 /**
- * Quick fixes for diagnostics: the nearest valid multiplicity, a word's suggested spelling, a
+ * Quick fixes for diagnostics: the valid multiplicities near the one written, a scan end the step lands on, a word's suggested spelling, a
  * home for unassigned atoms, a basis override line that covers a missing element, the largest
  * active space that fits the qubit limit, the length unit the coordinates look like, and the
  * rewrite of a retired spelling (one statement, or every one in the file).
@@ -225,8 +225,13 @@ export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnost
     if (diagnostic.source !== undefined && diagnostic.source !== 'tessera') continue;
     const data = (diagnostic.data ?? {}) as Record<string, unknown>;
     const code = (data['code'] as string | undefined) ?? String(diagnostic.code ?? '');
-    if ((code === 'multiplicity-parity' || code === 'multiplicity-too-high') && typeof data['multiplicity'] === 'number') {
-      actions.push(quickFix(`Set the multiplicity to ${data['multiplicity']}`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: String(data['multiplicity']) }]), true));
+    if ((code === 'multiplicity-parity' || code === 'multiplicity-too-high' || code === 'spin-coupling') && typeof data['multiplicity'] === 'number') {
+      // Every valid value near the one written (both neighbours of a wrong parity), the first preferred.
+      const values = Array.isArray(data['multiplicities']) ? (data['multiplicities'] as unknown[]).filter((value): value is number => typeof value === 'number') : [data['multiplicity']];
+      values.forEach((value, i) => actions.push(quickFix(`Set the multiplicity to ${value}`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: String(value) }]), i === 0)));
+    } else if (code === 'scan-end-missed' && Array.isArray(data['ends'])) {
+      // The two ends the step does land on: the last point reached, and one step further.
+      (data['ends'] as unknown[]).filter((end): end is number => typeof end === 'number').forEach((end, i) => actions.push(quickFix(`Change the end to ${end}`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: String(end) }]), i === 0)));
     } else if (typeof data['replacement'] === 'string') {
       actions.push(quickFix(`Replace with '${data['replacement']}'`, diagnostic, edit(uri, [{ range: diagnostic.range, newText: data['replacement'] }]), true));
     } else if (code === 'atoms-unassigned' && Array.isArray(data['atoms'])) {

@@ -1,30 +1,51 @@
 /** Inlay hints after each fragment name, and a code lens with the totals above the spec. */
 import { InlayHintKind, type CodeLens, type InlayHint, type Range } from 'vscode-languageserver-types';
+import { formatRate } from '../chemistry/cost/format';
 import { mappingKey, type Mapping } from '../chemistry/qubits';
 import type { DocumentAnalysis, FragmentFigures } from '../analysis';
 import { toRange } from './positions';
 
 /** Qubits under the fragment's mapping before tapering, or null outside the quantum tier. */
 function untaperedQubits(figures: FragmentFigures): number | null {
-  if (figures.qubitsRequired === null || !figures.mapping) return null;
+  if (figures.qubitsRequired === null || !figures.mapping || !figures.qubits) return null;
   return figures.qubits[mappingKey(figures.mapping as Mapping)];
 }
 
+/** `impurity 70e 130o` for a fragment solved in its DMET impurity. */
+function impurityText(figures: FragmentFigures): string | undefined {
+  const problem = figures.problem;
+  return problem?.embedding === 'dmet' ? `impurity ${problem.electrons}e ${problem.orbitals}o` : undefined;
+}
+
 /**
- * The short cost label of a fragment, as shown in hints and the outline: `20 qubits · 17 tapered`
- * for the quantum tier, else its orbitals and electrons (counted by the model: no figures needed).
+ * The short cost label of a fragment, as shown in hints and the outline: for the quantum tier its
+ * qubits (`20 qubits · 18 tapered`), for a classical tier its solver's time and memory
+ * (`ccsd(t) 21 min · 2.3 GiB`), and the DMET impurity's size under DMET; without figures, the
+ * fragment's orbitals and electrons (counted by the model).
  */
 export function fragmentCostLabel(analysis: DocumentAnalysis, index: number): string {
   const fragment = analysis.model.fragments[index]!;
-  if (fragment.tier?.level === 'quantum') {
-    const figures = analysis.fragmentFigures(index);
-    const qubits = untaperedQubits(figures);
-    if (qubits !== null) {
-      const tapered = figures.qubits.tapered;
-      return tapered !== null && tapered < qubits ? `${qubits} qubits · ${tapered} tapered` : `${qubits} qubits`;
-    }
+  if (!fragment.tier) return `${fragment.space.orbitals} orbitals · ${fragment.space.electrons} e⁻`;
+  const figures = analysis.fragmentFigures(index);
+  const parts: string[] = [];
+  const qubits = untaperedQubits(figures);
+  if (qubits !== null) {
+    const tapered = figures.qubits!.tapered;
+    parts.push(tapered !== null && tapered < qubits ? `${qubits} qubits · ${tapered} tapered` : `${qubits} qubits`);
+  } else if (figures.solverCost) {
+    parts.push(`${figures.solverCost.method} ${figures.solverCost.time.text} · ${figures.solverCost.memoryBytes.text}`);
+  } else {
+    parts.push(`${fragment.space.orbitals} orbitals · ${fragment.space.electrons} e⁻`);
   }
-  return `${fragment.space.orbitals} orbitals · ${fragment.space.electrons} e⁻`;
+  const impurity = impurityText(figures);
+  if (impurity) parts.push(impurity);
+  return parts.join(' · ');
+}
+
+function hintTooltip(figures: FragmentFigures): string {
+  const what = figures.active ? `${figures.active.electrons}e ${figures.active.orbitals}o active` : `${figures.orbitals} orbitals`;
+  const cost = figures.solverCost ? `; ${figures.solverCost.operations.text} operations, ${figures.solverCost.memoryBytes.text}, ${figures.solverCost.time.text} at ${formatRate(figures.solverCost.time.flopsPerSecond)}` : '';
+  return `${figures.tier ?? 'no tier'}: ${what}${figures.mapping ? `, ${figures.mapping}` : ''}${cost}. Planning estimate.`;
 }
 
 /** Hints for the fragments whose names lie in the range (the visible lines); only those are estimated. */
@@ -42,7 +63,7 @@ export function getInlayHints(analysis: DocumentAnalysis, range?: Range): InlayH
       kind: InlayHintKind.Type,
       paddingLeft: true,
       paddingRight: true,
-      tooltip: `${figures.tier ?? 'no tier'}: ${figures.active.electrons}e ${figures.active.orbitals}o active${figures.mapping ? `, ${figures.mapping}` : ''}. Planning estimate.`,
+      tooltip: hintTooltip(figures),
     });
   }
   return hints;

@@ -25,7 +25,7 @@ describe('no figures for a rejected active space', () => {
     expect(estimatePlan(hydrogenFragment(2, 'sto-3g', { electrons: 4, orbitals: 1_000_000 }))).toBeUndefined();
     expect(estimatePlan(hydrogenFragment(2, 'sto-3g', { electrons: 1e20, orbitals: 1e20 }))).toBeUndefined();
     // The same H2 with an active space that fits: 2n qubits under Jordan–Wigner (Jordan & Wigner 1928).
-    expect(estimatePlan(hydrogenFragment(2, 'sto-3g', { electrons: 2, orbitals: 2 }))?.qubits.jordanWigner).toBe(4);
+    expect(estimatePlan(hydrogenFragment(2, 'sto-3g', { electrons: 2, orbitals: 2 }))?.quantum!.qubits.jordanWigner).toBe(4);
   });
 });
 
@@ -63,10 +63,10 @@ describe('beyond PER_ORBITAL_LIMIT active orbitals', () => {
     const n = 60_000;
     expect(plan.active.orbitals).toBe(n);
     // 2n qubits (Jordan & Wigner 1928); the two number parities taper two (Bravyi et al. 2017).
-    expect(plan.qubits.jordanWigner).toBe(2 * n);
-    expect(plan.qubits.tapered).toBe(2 * n - 2);
+    expect(plan.quantum!.qubits.jordanWigner).toBe(2 * n);
+    expect(plan.quantum!.qubits.tapered).toBe(2 * n - 2);
     expect(plan.active.irrepsSource).toBe('none');
-    expect(plan.circuit).toBeNull();
+    expect(plan.quantum!.circuit).toBeNull();
     // The limit by construction (PER_ORBITAL_LIMIT).
     expect(plan.notes.join(' ')).toContain('more than 10,000 orbitals is counted without point-group symmetry');
     expect(plan.notes.join(' ')).toContain('UCCSD circuit cost is not estimated');
@@ -74,12 +74,12 @@ describe('beyond PER_ORBITAL_LIMIT active orbitals', () => {
     const pairs = (n * (n - 1)) / 2;
     const quartets = (n * (n - 1) * (n - 2) * (n - 3)) / 24;
     const expected = 1 + 2 * n + n * (2 * n - 1) + 4 * pairs * (2 * n - 1) + 4 * pairs * pairs + 12 * quartets;
-    expect(plan.pauliTerms.jordanWigner / expected).toBeCloseTo(1, 12); // the closed form by construction
-    expect(plan.measurement.exact).toBe(false);
-    expect(plan.ansatz?.kind).toBe('uccsd');
+    expect(plan.quantum!.pauliTerms.jordanWigner / expected).toBeCloseTo(1, 12); // the closed form by construction
+    expect(plan.quantum!.measurement.exact).toBe(false);
+    expect(plan.quantum!.ansatz?.kind).toBe('uccsd');
     // Spin-orbital UCCSD without screening, Romero et al. 2019: o = v = ... here 1000 α and β in 60,000.
     const o = 1000;
     const v = n - o;
-    expect(plan.ansatz?.parameters).toBe(2 * o * v + 2 * ((o * (o - 1)) / 2) * ((v * (v - 1)) / 2) + o * o * v * v);
+    expect(plan.quantum!.ansatz?.parameters).toBe(2 * o * v + 2 * ((o * (o - 1)) / 2) * ((v * (v - 1)) / 2) + o * o * v * v);
   });
 });

@@ -19,15 +19,16 @@ export function checkLimits(context: EstimateCheckContext): void {
     if (tier?.level !== 'quantum' || !tier.mapping || fragment.atoms.length === 0) continue;
     const plan = estimates.plan(fragment.index);
     const input = estimates.planInput(fragment.index);
-    if (!plan || !input || plan.qubits.required === null) continue;
-    const needed = plan.qubits.required;
+    const quantum = plan?.quantum;
+    if (!plan || !quantum || !input || quantum.qubits.required === null) continue;
+    const needed = quantum.qubits.required;
     const where = fragment.ast.tier?.active?.span ?? fragment.ast.tier?.statement.keyword.span ?? fragment.ast.statement.keyword.span;
     const sizeNote = tier.active
       ? `active space ${tier.active.electrons}e ${tier.active.orbitals}o`
       : `no active space given, so all ${plan.active.orbitals} orbitals of its ${plan.problem.embedding === 'dmet' ? 'DMET impurity' : 'own space'} outside the frozen core are active`;
     const how = `${tier.mapping}${tier.taper ? ', tapered' : ''}`;
 
-    const statevector = plan.classical.statevectorBytes;
+    const statevector = quantum.statevectorBytes;
     if (memory !== undefined && statevector && !compareWithMemoryLimit(statevector, memory).fits) {
       const limitSpan = ast.limits?.memory?.span;
       sink.report(
@@ -40,7 +41,7 @@ export function checkLimits(context: EstimateCheckContext): void {
     if (limit === undefined || needed <= limit) continue;
 
     const ideas: string[] = [];
-    if (!tier.taper && plan.qubits.tapered <= limit) ideas.push(`\`taper on\` brings it to ${plan.qubits.tapered} qubits`);
+    if (!tier.taper && quantum.qubits.tapered <= limit) ideas.push(`\`taper on\` brings it to ${quantum.qubits.tapered} qubits`);
     if (tier.mapping !== 'parity') {
       const parity = qubitsFor({ ...input, mapping: 'parity' }, plan.active.orbitals, plan.active.alpha, plan.active.beta);
       if (parity !== null && parity <= limit) ideas.push(`\`mapping parity\` needs ${parity}`);

@@ -91,7 +91,7 @@ function inputsOf(analysis: DocumentAnalysis, figures: readonly FragmentFigures[
     inputs[key('caps')] = fragment.capRule ? `${fragment.caps.length} ${fragment.capRule}` : 'none';
     inputs[key('tier')] = tier ? `${tier.level} ${tier.method}` : 'none';
     if (tier?.level === 'quantum') {
-      inputs[key('active')] = `${f.active.electrons}e ${f.active.orbitals}o`;
+      inputs[key('active')] = f.active ? `${f.active.electrons}e ${f.active.orbitals}o` : '–';
       inputs[key('mapping')] = tier.mapping ?? 'jordan-wigner';
       inputs[key('taper')] = tier.taper ? 'on' : 'off';
       inputs[key('ansatz')] = tier.ansatz ?? '(default)';

@@ -1,22 +1,35 @@
 /**
  * A fragment's figures: what every part has (space.ts), then the sections its tier shows, each
- * read from the fragment's plan estimate. TIER_SECTIONS says which tier shows which section: a new
- * tier is a new row there; a new figure is a new section (and its key in types.ts, its convention
- * and its rows in the renderers).
+ * read from the fragment's plan estimate (or, for the solver cost, from the estimates directly).
+ * TIER_SECTIONS says which tier shows which section: a new tier is a new row there; a new figure is
+ * a new section (and its key in types.ts, its convention and its rows in the renderers). Qubit,
+ * Hamiltonian, measurement, ansatz and circuit figures belong to the quantum tier alone; the
+ * classical tiers show their solver cost instead.
  */
-import type { PlanEstimate } from '../../chemistry/estimate/plan';
+import type { PlanEstimate, QuantumPlan } from '../../chemistry/estimate/plan';
 import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
 import type { Estimates } from '../estimates';
+import { solverCostFigures } from './solver';
 import { approximateCount, bigFigure, exactCount, spaceFigures } from './space';
 import type { CapFigures, FragmentFigures } from './types';
 import type { FragmentModel } from '../../language/model';
 
-/** Fills one group of keys from the plan. */
-type Section = (figures: FragmentFigures, plan: PlanEstimate) => Partial<FragmentFigures>;
+/** Fills one group of keys from the plan (undefined when the fragment has none). */
+type Section = (figures: FragmentFigures, plan: PlanEstimate | undefined, estimates: Estimates, index: number) => Partial<FragmentFigures>;
+
+/** A section that needs the plan: nothing without one. */
+function fromPlan(fill: (figures: FragmentFigures, plan: PlanEstimate) => Partial<FragmentFigures>): Section {
+  return (figures, plan) => (plan ? fill(figures, plan) : {});
+}
+
+/** A section that needs the quantum part of the plan: nothing without one. */
+function fromQuantum(fill: (figures: FragmentFigures, quantum: QuantumPlan) => Partial<FragmentFigures>): Section {
+  return (figures, plan) => (plan?.quantum ? fill(figures, plan.quantum) : {});
+}
 
 const SECTIONS = {
-  problem: (_figures, plan) => ({
+  problem: fromPlan((_figures, plan) => ({
     problem: {
       embedding: plan.problem.embedding,
       orbitals: plan.problem.orbitals,
@@ -27,57 +40,60 @@ const SECTIONS = {
       convention: plan.problem.convention,
     },
     notes: [...plan.notes],
-  }),
-  active: (figures, plan) => ({
+  })),
+  active: fromPlan((figures, plan) => ({
     active: {
       electrons: plan.active.electrons,
       orbitals: plan.active.orbitals,
       alpha: plan.active.alpha,
       beta: plan.active.beta,
-      source: plan.active.source === 'given' ? 'given' : plan.problem.embedding === 'dmet' ? 'dmet-impurity' : figures.active.source,
+      source: plan.active.source === 'given' ? 'given' : plan.problem.embedding === 'dmet' ? 'dmet-impurity' : (figures.active?.source ?? 'problem'),
     },
     activeIrreps:
       plan.active.irrepsSource === 'none'
         ? null
-        : { perIrrep: Object.fromEntries(plan.active.irreps.filter((share) => share.count > 0).map((share) => [share.label, share.count])), source: plan.active.irrepsSource },
-  }),
-  qubits: (_figures, plan) => ({
-    qubits: { jordanWigner: plan.qubits.jordanWigner, bravyiKitaev: plan.qubits.bravyiKitaev, parity: plan.qubits.parity, tapered: plan.qubits.tapered },
-    qubitsRequired: plan.qubits.required,
-    taperingSymmetries: [...plan.qubits.taperingSymmetries],
-  }),
-  pauliTerms: (_figures, plan) => ({
+        : { perIrrep: Object.fromEntries(plan.active.irreps.filter((share) => share.count > 0).map((share) => [share.label, share.count])), source: plan.active.irrepsSource, occupation: plan.active.occupation },
+  })),
+  qubits: fromQuantum((_figures, quantum) => ({
+    qubits: { jordanWigner: quantum.qubits.jordanWigner, bravyiKitaev: quantum.qubits.bravyiKitaev, parity: quantum.qubits.parity, tapered: quantum.qubits.tapered },
+    qubitsRequired: quantum.qubits.required,
+    taperingSymmetries: [...quantum.qubits.taperingSymmetries],
+  })),
+  pauliTerms: fromQuantum((_figures, quantum) => ({
     pauliTerms: {
-      jordanWigner: exactCount(plan.pauliTerms.exact.full),
-      bravyiKitaev: exactCount(plan.pauliTerms.exact.full),
-      parity: exactCount(plan.pauliTerms.exact.parity),
+      jordanWigner: exactCount(quantum.pauliTerms.exact.full),
+      bravyiKitaev: exactCount(quantum.pauliTerms.exact.full),
+      parity: exactCount(quantum.pauliTerms.exact.parity),
       identityIncluded: true,
-      upperBound: plan.pauliTerms.upperBound,
+      upperBound: quantum.pauliTerms.upperBound,
     },
-  }),
-  measurement: (_figures, plan) => ({ measurement: { groups: approximateCount(plan.measurement.groups), exact: plan.measurement.exact, method: plan.measurement.method } }),
-  ansatz: (_figures, plan) => ({ ansatzCost: ansatzFigures(plan) }),
-  circuit: (_figures, plan) => ({ circuit: circuitFigures(plan) }),
-  classical: (_figures, plan) => ({
+  })),
+  measurement: fromQuantum((_figures, quantum) => ({ measurement: { groups: approximateCount(quantum.measurement.groups), exact: quantum.measurement.exact, method: quantum.measurement.method } })),
+  ansatz: fromQuantum((_figures, quantum) => ({ ansatzCost: ansatzFigures(quantum) })),
+  circuit: fromQuantum((_figures, quantum) => ({ circuit: circuitFigures(quantum) })),
+  classical: fromPlan((_figures, plan) => ({
     classical: {
       determinants: bigFigure(plan.classical.determinants.determinants),
       ciVectorBytes: bigFigure(plan.classical.ciVectorBytes, true),
       ccsdAmplitudes: bigFigure(plan.classical.ccsd.amplitudes),
-      statevectorBytes: plan.classical.statevectorBytes ? bigFigure(plan.classical.statevectorBytes, true) : null,
+      ccsdAmplitudesConvention: plan.classical.ccsd.convention,
+      statevectorBytes: plan.quantum ? bigFigure(plan.quantum.statevectorBytes, true) : null,
     },
-  }),
+  })),
+  solverCost: (_figures, _plan, estimates, index) => ({ solverCost: solverCostFigures(estimates, index) }),
 } satisfies Record<string, Section>;
 
 export type FigureSection = keyof typeof SECTIONS;
 
 /**
- * The sections each tier shows. A mean-field tier has no plan (its cost is its orbital count), so
- * it shows none. The correlated tier shows the qubit figures of its active space as a comparison.
+ * The sections each tier shows: the quantum tier its register, Hamiltonian, measurement, ansatz and
+ * circuit (and the classical size of its active space, for comparison); the correlated tier its
+ * problem, active space and solver cost; the mean-field tier its solver cost.
  */
 export const TIER_SECTIONS: Readonly<Record<TierLevel, readonly FigureSection[]>> = {
   quantum: ['problem', 'active', 'qubits', 'pauliTerms', 'measurement', 'ansatz', 'circuit', 'classical'],
-  correlated: ['problem', 'active', 'qubits', 'pauliTerms', 'measurement', 'ansatz', 'circuit', 'classical'],
-  'mean-field': [],
+  correlated: ['problem', 'active', 'classical', 'solverCost'],
+  'mean-field': ['solverCost'],
 };
 
 export function fragmentFigures(estimates: Estimates, index: number): FragmentFigures {
@@ -106,11 +122,15 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
     ansatzCost: null,
     circuit: null,
     classical: null,
+    solverCost: null,
     notes: [],
+    // Qubits are a quantum tier's figure; an active space is not a mean-field tier's.
+    ...(tier?.level === 'quantum' ? {} : { qubits: null }),
+    ...(tier?.level === 'mean-field' ? { active: null } : {}),
   };
-  const plan = tier ? estimates.plan(index) : undefined;
-  if (!tier || !plan) return figures;
-  for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan) };
+  if (!tier) return figures;
+  const plan = tier.level === 'mean-field' ? undefined : estimates.plan(index);
+  for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan, estimates, index) };
   if (tier.activeSource === 'estimated' && tier.activeChoice && figures.active) {
     // Counted for a suggestion before its orbitals exist: a planning estimate, and the figures say so.
     const how = tier.activeChoice.kind === 'shells' ? 'the named shells of the free atoms (aufbau)' : 'the minimal-basis valence space';
@@ -147,7 +167,7 @@ function symmetryFigures(estimates: Estimates, index: number): FragmentFigures['
   return { countedIn: scope, own, inSystem, reason };
 }
 
-function circuitFigures(plan: PlanEstimate): FragmentFigures['circuit'] {
+function circuitFigures(plan: QuantumPlan): FragmentFigures['circuit'] {
   const circuit = plan.circuit;
   if (!circuit) return null;
   const standard = circuit.standard;
@@ -155,7 +175,7 @@ function circuitFigures(plan: PlanEstimate): FragmentFigures['circuit'] {
   return { construction: standard.construction, cnots: approximateCount(standard.cnots), rotations: optional(standard.rotations), depth: optional(standard.depth), compactCnots: optional(circuit.compact?.cnots) };
 }
 
-function ansatzFigures(plan: PlanEstimate): FragmentFigures['ansatzCost'] {
+function ansatzFigures(plan: QuantumPlan): FragmentFigures['ansatzCost'] {
   const ansatz = plan.ansatz;
   if (!ansatz) return null;
   if (ansatz.kind === 'uccsd') {

@@ -5,6 +5,7 @@
  * figures its card shows.
  */
 import { activeIrreps, symmetryCounts } from '../../chemistry/estimate/activeIrreps';
+import { problemUnpaired } from '../../chemistry/estimate/plan';
 import type { Estimates } from '../estimates';
 
 export interface GrowthPoint {
@@ -21,7 +22,8 @@ export function activeSpaceGrowth(estimates: Estimates, fragmentIndex: number, m
   const plan = estimates.plan(fragmentIndex);
   const input = estimates.planInput(fragmentIndex);
   if (!plan || !input) return [];
-  const unpaired = estimates.model.fragments[fragmentIndex]!.multiplicity - 1;
+  // The spin of the problem its solver sees (the DMET impurity's, or the fragment's own).
+  const unpaired = problemUnpaired(input, plan.problem);
   const points: GrowthPoint[] = [];
   for (let n = 1; n <= Math.min(plan.problem.orbitals, maxOrbitals); n++) {
     let electrons = n + ((n - unpaired) % 2 === 0 ? 0 : 1);

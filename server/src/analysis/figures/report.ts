@@ -1,4 +1,5 @@
 /** The whole estimate report of a document, assembled from the per-part figures it already holds. */
+import { DEFAULT_FLOPS } from '../../chemistry/cost/solvers';
 import { describeTarget } from '../../language/ast';
 import type { Analysis } from '../../language/analyze';
 import { approximateCount, countValue } from './space';
@@ -44,7 +45,12 @@ export function assembleReport(parts: ReportParts): EstimateReport {
     system: parts.system,
     fragments,
     scan: model.scan ? { points: model.scan.distances.length, distances: model.scan.distances, totals: scanTotals(model.scan.distances.length, fragments) } : null,
-    limits: { qubits: model.limits.qubits ?? null, memoryBytes: model.limits.memoryBytes ?? null },
+    limits: {
+      qubits: model.limits.qubits ?? null,
+      memoryBytes: model.limits.memoryBytes ?? null,
+      flopsPerSecond: model.limits.flopsPerSecond ?? DEFAULT_FLOPS,
+      flopsFrom: model.limits.flopsPerSecond !== undefined ? 'limits' : 'default',
+    },
     diagnostics: parts.diagnostics,
   };
 }

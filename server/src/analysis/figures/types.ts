@@ -15,10 +15,13 @@ export const CONVENTIONS = {
     'as given; otherwise every orbital of the problem the solver sees outside the frozen core (the DMET impurity under `embedding dmet`, else the fragment\'s own orbitals); irreps of the active orbitals as given per irrep, else in proportion to the orbitals of each irrep (an assumption)',
   qubits: 'Jordan–Wigner and Bravyi–Kitaev: 2n for n active spatial orbitals; parity with the two-qubit reduction: 2n − 2; tapered: 2n − rank over GF(2) of the Z2 symmetries (N_α and N_β parity, point-group generators acting on the active orbitals; Bravyi et al. 2017, Setia et al. 2020)',
   pauliTerms: 'distinct Pauli strings of the qubit Hamiltonian, identity included, for generic real integrals allowed by the abelian point group; the same under Jordan–Wigner, Bravyi–Kitaev and unreduced parity (Clifford-related); an upper bound when the full point group is non-abelian',
-  measurement: 'qubit-wise commuting groups from a largest-degree-first greedy colouring of the explicit strings up to 14 qubits, else 0.21 × (terms − 1), an estimate',
+  measurement: 'qubit-wise commuting groups from a largest-degree-first greedy colouring (a heuristic, not the minimum) of the explicit Jordan–Wigner strings in block spin-orbital order (all α, then all β; the order changes the count) up to 14 qubits; beyond, 0.21 × (terms − 1), extrapolated from explicit groupings of 8–20 qubits',
   ansatz: 'UCCSD: spin-conserving spin-orbital excitations screened by the point group (Romero et al. 2019); k-UpCCGSD: k × 3n(n−1)/2 (Lee et al. 2019); hardware-efficient: q(3d+2) Euler angles (Kandala et al. 2017)',
-  circuit: 'one Trotter step of UCCSD under Jordan–Wigner in interleaved spin order: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020',
+  circuit: 'one Trotter step of UCCSD on the untapered Jordan–Wigner register (2 qubits per active orbital, interleaved spin order), whatever the fragment\'s mapping: Pauli-rotation ladders, 2(w−1) CNOTs per string of weight w; compact fermionic-excitation circuits after Yordanov et al. 2020; depth a serial upper estimate (no gates run in parallel); hardware-efficient circuits on the qubits needed',
   classical: 'full-CI determinants C(n, nα)·C(n, nβ); CI vector and CCSD amplitudes at 8 bytes each; statevector 2^q × 16 bytes',
+  tiers: 'qubit, Pauli-term, measurement, ansatz and circuit figures belong to quantum tiers only; correlated and mean-field tiers get their solver cost instead',
+  solverCost:
+    'formal scaling, floating-point operations (a multiply–add counts two) and memory of the method on the fragment: Hartree–Fock and Kohn–Sham on its basis functions, correlated methods on the active space of its problem (DMET impurity or own orbitals); leading terms with stated prefactors, 20 iterations assumed for iterative methods; time at `limits { rate }` or 100 Gflops (an assumption)',
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
   caps: 'cut covalent bonds capped with hydrogen link atoms on the kept atom\'s side when the spec says `caps hydrogen fixed|scaled` (Field, Bash & Karplus 1990): fixed at the typical X–H length of the element (common practice), or scaled g · d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero radii (Dapprich et al. 1999); caps count in the fragment\'s formula, electrons, functions, orbitals, qubits and point group, not in its atom count',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
@@ -65,8 +68,14 @@ export interface SpaceFigures {
   occupied: number | null;
   virtual: number | null;
   frozenCore: { orbitals: number; electrons: number };
-  active: { electrons: number; orbitals: number; alpha: number | null; beta: number | null; source: string };
-  qubits: { jordanWigner: number; bravyiKitaev: number; parity: number; tapered: number | null };
+  /** The active space; null for a mean-field tier, which has none. */
+  active: { electrons: number; orbitals: number; alpha: number | null; beta: number | null; source: string } | null;
+  /**
+   * Qubits of the active space under each mapping: a quantum tier's register. Null for the
+   * correlated and mean-field tiers (no qubits there); for the system a hypothetical figure (see
+   * SystemFigures.qubitsScope).
+   */
+  qubits: { jordanWigner: number; bravyiKitaev: number; parity: number; tapered: number | null } | null;
   /** The abelian group used for counting (D2h or a subgroup), and the full Schoenflies group. */
   pointGroup: string | null;
   fullPointGroup: string | null;
@@ -87,7 +96,12 @@ export interface FragmentFigures extends SpaceFigures {
   atomIndices: number[];
   /** The orbital space the solver sees: a DMET impurity or the fragment's own orbitals. */
   problem: { embedding: string; orbitals: number; electrons: number; alpha: number; beta: number; bath: { alpha: number; beta: number }; convention: string } | null;
-  activeIrreps: { perIrrep: Record<string, number>; source: string } | null;
+  /**
+   * Active orbitals per irrep and where they come from; `occupation` says where the reference
+   * determinant's irreps come from: `given` (`occupied …`), or `assumed` (orbitals of each irrep
+   * spread evenly, the lowest filled).
+   */
+  activeIrreps: { perIrrep: Record<string, number>; source: string; occupation: 'given' | 'assumed' } | null;
   /**
    * The two point groups of the fragment: its own (its atoms alone) and the one it keeps inside the
    * system (the stabiliser of its atoms in the system's group); `countedIn` says which the figures
@@ -103,7 +117,16 @@ export interface FragmentFigures extends SpaceFigures {
   measurement: { groups: Count; exact: boolean; method: string } | null;
   ansatzCost: { kind: string; parameters: Count; singles: Count | null; doubles: Count | null; unscreened: Count | null; spinAdapted: Count | null } | null;
   circuit: { construction: string; cnots: Count; rotations: Count | null; depth: Count | null; compactCnots: Count | null } | null;
-  classical: { determinants: BigFigure; ciVectorBytes: BigFigure; ccsdAmplitudes: BigFigure; statevectorBytes: BigFigure | null } | null;
+  classical: {
+    determinants: BigFigure;
+    ciVectorBytes: BigFigure;
+    ccsdAmplitudes: BigFigure;
+    /** How the amplitudes are counted: spin-adapted for a closed shell, spin orbitals for an open one. */
+    ccsdAmplitudesConvention: 'closed-shell' | 'spin-orbital';
+    statevectorBytes: BigFigure | null;
+  } | null;
+  /** What decides a classical tier's feasibility: scaling, operations, memory and time of its method. */
+  solverCost: SolverCostFigures | null;
   notes: string[];
 }
 
@@ -115,7 +138,32 @@ export interface CapFigures {
   list: { host: number; partner: number; element: string; length: number; position: [number, number, number] }[];
 }
 
-export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null };
+
+export interface SolverCostFigures {
+  method: string;
+  /** Formal scaling and the leading term. */
+  scaling: string;
+  /** What the method is applied to. */
+  on: 'active-space' | 'dmet-impurity' | 'fragment';
+  basisFunctions: number;
+  orbitals: number;
+  occupied: number;
+  virtual: number;
+  determinants: BigFigure | null;
+  /** Floating-point operations of the whole solve (assumed iterations included). */
+  operations: BigFigure;
+  operationsPerIteration: BigFigure | null;
+  iterations: number | null;
+  memoryBytes: BigFigure;
+  time: { seconds: number | null; log10Seconds: number; text: string; flopsPerSecond: number; rateFrom: 'limits' | 'default' };
+  formula: string;
+  references: string[];
+}
+
+/** What the system row's qubit, Pauli-term and tapering figures describe. */
+export const SYSTEM_QUBITS_SCOPE = 'hypothetical: the whole system on one quantum tier, every orbital outside the frozen core active';
+
+export type SystemFigures = SpaceFigures & { nearSymmetry: { group: string; within: number } | null; qubitsScope: typeof SYSTEM_QUBITS_SCOPE };
 
 export interface BasisOverrideFigure {
   basis: string;
@@ -137,7 +185,7 @@ export interface EstimateReport {
   system: SystemFigures;
   fragments: FragmentFigures[];
   scan: { points: number; distances: number[]; totals: ScanTotals } | null;
-  limits: { qubits: number | null; memoryBytes: number | null };
+  limits: { qubits: number | null; memoryBytes: number | null; flopsPerSecond: number; flopsFrom: 'limits' | 'default' };
   diagnostics: { errors: number; warnings: number };
 }
 

@@ -71,3 +71,15 @@ function scientificFromLog(log10: number): string {
   const text = leading.toString();
   return `${text[0]}.${text.slice(1)} × 10^${exponent}`;
 }
+
+/** `1.0e11` → `100 Gflops`. */
+export function formatRate(flopsPerSecond: number): string {
+  const units: [number, string][] = [
+    [1e15, 'Pflops'],
+    [1e12, 'Tflops'],
+    [1e9, 'Gflops'],
+    [1e6, 'Mflops'],
+  ];
+  for (const [factor, unit] of units) if (flopsPerSecond >= factor) return `${Number((flopsPerSecond / factor).toPrecision(3))} ${unit}`;
+  return `${Number(flopsPerSecond.toPrecision(3))} flops`;
+}

@@ -8,7 +8,11 @@
  *  3. without a point group, all orbitals in the totally symmetric irrep of C1.
  *
  * The orbitals of each irrep are then spread evenly over the register, which fixes the irreps the
- * reference determinant fills; tapering and the Pauli-term count read that order.
+ * reference determinant fills (an assumption, said as `occupation: 'assumed'`); tapering and the
+ * Pauli-term count read that order. When the spec gives the reference occupation per irrep
+ * (`occupied A1=2 open B1=1`), the doubly occupied orbitals come first in the register, then the
+ * singly occupied ones, then the rest (`occupation: 'given'`). A computed mean field, where there
+ * is one, is a third source for the same order.
  */
 import { ABELIAN_GROUPS, CHARACTER_TABLES, findIrrep, type AbelianGroupName } from '../symmetry/characterTables';
 import type { OrbitalSymmetry } from '../symmetry/orbitalSymmetry';
@@ -115,23 +119,59 @@ export interface ActiveIrreps {
   readonly orbitalIrreps: readonly number[];
   /** Generators of the group the masks refer to (0 without symmetry). */
   readonly generatorCount: number;
+  /** Where the reference determinant's irreps come from. */
+  readonly occupation: 'given' | 'assumed';
+}
+
+/** The reference occupation per irrep as given: doubly and singly occupied orbitals. */
+export interface GivenOccupation {
+  readonly doubly: readonly IrrepShare[];
+  readonly singly: readonly IrrepShare[];
+}
+
+/**
+ * Register order for a given occupation: doubly occupied orbitals, singly occupied, the rest, each
+ * group spread evenly; undefined when an irrep holds more occupied orbitals than it has.
+ */
+function occupiedFirst(shares: readonly IrrepShare[], occupation: GivenOccupation): number[] | undefined {
+  const left = new Map(shares.map((share) => [share.mask, share.count]));
+  for (const share of [...occupation.doubly, ...occupation.singly]) {
+    const count = (left.get(share.mask) ?? 0) - share.count;
+    if (count < 0) return undefined;
+    left.set(share.mask, count);
+  }
+  const rest = shares.map((share) => ({ ...share, count: left.get(share.mask) ?? 0 }));
+  return [...spreadIrreps(occupation.doubly), ...spreadIrreps(occupation.singly), ...spreadIrreps(rest)];
 }
 
 /** The active orbitals per irrep, by the rule in the module comment. */
-export function activeIrreps(symmetry: PlanSymmetry | undefined, orbitals: number, given?: { readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[] }): ActiveIrreps {
+export function activeIrreps(
+  symmetry: PlanSymmetry | undefined,
+  orbitals: number,
+  given?: { readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation },
+): ActiveIrreps {
   if (orbitals > PER_ORBITAL_LIMIT) {
-    return { irreps: [{ label: 'A', mask: 0, count: orbitals }], source: 'none', orbitals, perOrbital: false, orbitalIrreps: [], generatorCount: 0 };
+    return { irreps: [{ label: 'A', mask: 0, count: orbitals }], source: 'none', orbitals, perOrbital: false, orbitalIrreps: [], generatorCount: 0, occupation: 'assumed' };
   }
   if (given?.perIrrep && given.orbitals === orbitals) {
-    return { irreps: [...given.perIrrep], source: 'given', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(given.perIrrep), generatorCount: symmetry?.generatorCount ?? 0 };
+    const ordered = given.occupation ? occupiedFirst(given.perIrrep, given.occupation) : undefined;
+    return {
+      irreps: [...given.perIrrep],
+      source: 'given',
+      orbitals,
+      perOrbital: true,
+      orbitalIrreps: ordered ?? spreadIrreps(given.perIrrep),
+      generatorCount: symmetry?.generatorCount ?? 0,
+      occupation: ordered ? 'given' : 'assumed',
+    };
   }
   // Also for a DMET impurity, whose bath orbitals are taken to split like the fragment's own.
   if (symmetry && symmetry.generatorCount > 0) {
     const irreps = apportion(symmetry.available, orbitals);
-    return { irreps, source: 'proportional', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(irreps), generatorCount: symmetry.generatorCount };
+    return { irreps, source: 'proportional', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(irreps), generatorCount: symmetry.generatorCount, occupation: 'assumed' };
   }
   const irreps = [{ label: 'A', mask: 0, count: orbitals }];
-  return { irreps, source: 'none', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(irreps), generatorCount: 0 };
+  return { irreps, source: 'none', orbitals, perOrbital: true, orbitalIrreps: spreadIrreps(irreps), generatorCount: 0, occupation: 'assumed' };
 }
 
 /** Tapering of an active space with these irreps and electrons. */

@@ -161,12 +161,12 @@ export function measurementGroups(pattern: IntegralPattern, ordering: SpinOrbita
   const terms = countPauliTerms(pattern).jordanWigner;
   if (qubits <= EXPLICIT_GROUPING_QUBITS) {
     const groups = groupQubitWise(jordanWignerStrings(pattern, ordering)).groups;
-    return { qubits, terms, groups, exact: true, method: 'largest-degree-first greedy grouping of qubit-wise commuting strings' };
+    return { qubits, terms, groups, exact: true, method: `largest-degree-first greedy grouping of the qubit-wise commuting strings, Jordan–Wigner in ${ordering === 'block' ? 'block spin-orbital order (all α, then all β)' : 'interleaved spin-orbital order'} — a heuristic, not the minimum; the order changes the count` };
   }
   return { qubits, terms, groups: estimateQubitWiseGroups(terms), exact: false, method: estimatedGroupsMethod() };
 }
 
 /** How an estimated group count was made, for reports. */
 export function estimatedGroupsMethod(): string {
-  return `estimate: ${QWC_GROUPS_PER_TERM} × (terms − 1), ratio fitted to explicit groups for 8–20 qubits`;
+  return `extrapolated beyond ${EXPLICIT_GROUPING_QUBITS} qubits: ${QWC_GROUPS_PER_TERM} × (terms − 1), the ratio fitted to explicit greedy groupings (block order) of 8–20 qubits`;
 }

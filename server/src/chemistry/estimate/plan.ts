@@ -24,7 +24,7 @@ import type { OrbitalSpace } from '../counting';
 import { mappingKey, qubitCounts, type Mapping } from '../qubits';
 import { symmetryPattern } from './integralPattern';
 import { EXPLICIT_GROUPING_QUBITS, estimatedGroupsMethod, estimateQubitWiseGroups, measurementGroups, type MeasurementEstimate } from './measurement';
-import { activeIrreps, PER_ORBITAL_LIMIT, symmetryCounts, taperingOf, type ActiveIrreps, type IrrepShare, type PlanSymmetry } from './activeIrreps';
+import { activeIrreps, PER_ORBITAL_LIMIT, symmetryCounts, taperingOf, type ActiveIrreps, type GivenOccupation, type IrrepShare, type PlanSymmetry } from './activeIrreps';
 
 export type { IrrepShare, PlanSymmetry } from './activeIrreps';
 export { apportion, spreadIrreps } from './activeIrreps';
@@ -40,7 +40,7 @@ export interface PlanInput {
   readonly taper: boolean;
   readonly layers: number;
   /** The active space as written: totals, and per irrep when given. */
-  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[] };
+  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation };
   readonly symmetry?: PlanSymmetry;
 }
 
@@ -53,11 +53,11 @@ export interface ActiveFigures {
   /** Orbitals per irrep of the active space, and whether that split was given or assumed. */
   readonly irreps: readonly IrrepShare[];
   readonly irrepsSource: 'given' | 'proportional' | 'none';
+  /** Where the reference determinant's irreps come from (activeIrreps.ts). */
+  readonly occupation: 'given' | 'assumed';
 }
 
-export interface PlanEstimate {
-  readonly problem: EmbeddedSizes;
-  readonly active: ActiveFigures;
+export interface QuantumPlan {
   readonly qubits: {
     readonly jordanWigner: number;
     readonly bravyiKitaev: number;
@@ -80,7 +80,15 @@ export interface PlanEstimate {
   readonly measurement: MeasurementEstimate;
   readonly ansatz: AnsatzFigures | null;
   readonly circuit: { readonly standard: CircuitCost; readonly compact: CircuitCost | null } | null;
-  readonly classical: { readonly determinants: DeterminantCount; readonly ciVectorBytes: Magnitude; readonly ccsd: AmplitudeCount; readonly statevectorBytes: Magnitude | null };
+  readonly statevectorBytes: Magnitude;
+}
+
+export interface PlanEstimate {
+  readonly problem: EmbeddedSizes;
+  readonly active: ActiveFigures;
+  /** The register, Hamiltonian, measurement, ansatz and circuit of a quantum tier; null for the classical tiers. */
+  readonly quantum: QuantumPlan | null;
+  readonly classical: { readonly determinants: DeterminantCount; readonly ciVectorBytes: Magnitude; readonly ccsd: AmplitudeCount };
   /** Problems that prevent an estimate (an active space larger than the problem, an invalid spin). */
   readonly notes: readonly string[];
 }
@@ -104,6 +112,23 @@ function problemSizes(input: PlanInput): EmbeddedSizes | undefined {
     alpha: Math.max(0, fragment.spin.alpha - frozen),
     beta: Math.max(0, fragment.spin.beta - frozen),
   });
+}
+
+/**
+ * Unpaired electrons (nα − nβ) of what the solver treats, one rule for the problem, its active
+ * space and its determinant counts. Under DMET the impurity's electrons come from the system's
+ * determinant (dmet.ts: per spin, bath plus fully occupied fragment orbitals), so its spin is the
+ * impurity's nα − nβ, not the fragment's own multiplicity; otherwise the fragment is solved with
+ * its own electrons and multiplicity.
+ */
+export function problemUnpaired(input: PlanInput, problem: EmbeddedSizes): number {
+  return problem.embedding === 'dmet' ? Math.abs(problem.alpha - problem.beta) : input.fragment.multiplicity - 1;
+}
+
+/** The DMET impurity sizes the solver sees, or undefined without DMET or a valid spin. */
+export function impurityOf(input: PlanInput): EmbeddedSizes | undefined {
+  const problem = problemSizes(input);
+  return problem?.embedding === 'dmet' ? problem : undefined;
 }
 
 function ansatzFigures(input: PlanInput, active: ActiveFigures, irreps: ActiveIrreps, qubits: number): AnsatzFigures | null {
@@ -186,7 +211,7 @@ export function qubitsFor(input: PlanInput, orbitals: number, alpha: number, bet
 export function fitActiveSpace(input: PlanInput, limit: number): { electrons: number; orbitals: number; qubits: number } | undefined {
   const problem = problemSizes(input);
   if (!problem || !input.mapping) return undefined;
-  const unpaired = input.fragment.multiplicity - 1;
+  const unpaired = problemUnpaired(input, problem);
   const wanted = input.active?.electrons ?? problem.electrons;
   const fits = (electrons: number, orbitals: number) =>
     electrons >= unpaired && electrons <= problem.electrons && (electrons - unpaired) % 2 === 0 && (electrons + unpaired) / 2 <= orbitals;
@@ -214,7 +239,12 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const problem = problemSizes(input);
   if (!problem) return undefined;
   const notes: string[] = [];
-  const unpaired = input.fragment.multiplicity - 1;
+  const unpaired = problemUnpaired(input, problem);
+  if (problem.embedding === 'dmet' && unpaired !== input.fragment.multiplicity - 1) {
+    notes.push(
+      `under DMET the impurity's spin comes from the system's mean field (${problem.alpha}α / ${problem.beta}β, ${unpaired} unpaired), not from the fragment's multiplicity ${input.fragment.multiplicity}; its active space and determinants follow the impurity`,
+    );
+  }
   let electrons = problem.electrons;
   let orbitals = problem.orbitals;
   if (input.active) {
@@ -227,9 +257,26 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const beta = (electrons - unpaired) / 2;
 
   const irreps = irrepsOf(input, orbitals);
-  const orbitalIrreps = irreps.orbitalIrreps;
-  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps: irreps.irreps, irrepsSource: irreps.source };
+  const active: ActiveFigures = { electrons, orbitals, alpha, beta, source: input.active ? 'given' : 'problem', irreps: irreps.irreps, irrepsSource: irreps.source, occupation: irreps.occupation };
+  if (!irreps.perOrbital) {
+    notes.push(
+      `an active space of more than ${PER_ORBITAL_LIMIT.toLocaleString('en-US')} orbitals is counted without point-group symmetry (tapering, Pauli terms, UCCSD screening)${input.ansatz === 'uccsd' && input.tier === 'quantum' && input.method === 'vqe' ? ', and its UCCSD circuit cost is not estimated' : ''}`,
+    );
+  }
+  const determinants = fciDeterminantCount(orbitals, alpha, beta);
+  return {
+    problem,
+    active,
+    quantum: input.tier === 'quantum' ? quantumPlan(input, active, irreps) : null,
+    classical: { determinants, ciVectorBytes: ciVectorBytes(determinants.determinants), ccsd: ccsdAmplitudeCount(orbitals, alpha, beta) },
+    notes,
+  };
+}
 
+/** Register, Hamiltonian, measurement, ansatz and circuit of a quantum tier's active space. */
+function quantumPlan(input: PlanInput, active: ActiveFigures, irreps: ActiveIrreps): QuantumPlan {
+  const { orbitals, alpha, beta } = active;
+  const orbitalIrreps = irreps.orbitalIrreps;
   const counts = qubitCounts(orbitals);
   const { tapering, pauli } = symmetryCounts(irreps, { alpha, beta });
   const required = requiredQubits(input, counts, tapering.tapered);
@@ -237,20 +284,12 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
   const qubitsForCircuits = required ?? counts.jordanWigner;
 
   const layout = { orbitals, alpha, beta, order: 'interleaved' as const, irreps: orbitalIrreps };
-  let circuit: PlanEstimate['circuit'] = null;
-  if (input.tier === 'quantum' && input.method === 'vqe') {
+  let circuit: QuantumPlan['circuit'] = null;
+  if (input.method === 'vqe') {
     if (input.ansatz === 'uccsd' && irreps.perOrbital) circuit = { standard: uccsdPauliRotationCircuit(layout), compact: uccsdFermionicExcitationCircuit(layout) };
     else if (input.ansatz === 'hardware-efficient') circuit = { standard: hardwareEfficientCircuit(qubitsForCircuits, input.layers), compact: null };
   }
-  if (!irreps.perOrbital) {
-    notes.push(
-      `an active space of more than ${PER_ORBITAL_LIMIT.toLocaleString('en-US')} orbitals is counted without point-group symmetry (tapering, Pauli terms, UCCSD screening)${input.ansatz === 'uccsd' && circuit === null && input.tier === 'quantum' ? ', and its UCCSD circuit cost is not estimated' : ''}`,
-    );
-  }
-  const determinants = fciDeterminantCount(orbitals, alpha, beta);
   return {
-    problem,
-    active,
     qubits: {
       ...counts,
       tapered: tapering.tapered,
@@ -271,12 +310,6 @@ export function estimatePlan(input: PlanInput): PlanEstimate | undefined {
     measurement: measurementFor(irreps, pauli.jordanWigner),
     ansatz: ansatzFigures(input, active, irreps, qubitsForCircuits),
     circuit,
-    classical: {
-      determinants,
-      ciVectorBytes: ciVectorBytes(determinants.determinants),
-      ccsd: ccsdAmplitudeCount(orbitals, alpha, beta),
-      statevectorBytes: input.tier === 'quantum' ? statevectorBytes(qubitsForCircuits) : null,
-    },
-    notes,
+    statevectorBytes: statevectorBytes(qubitsForCircuits),
   };
 }

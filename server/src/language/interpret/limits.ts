@@ -1,7 +1,7 @@
-/** `limits { qubits <n>; memory <size> <unit> }` */
+/** `limits { qubits <n>; memory <size> <unit>; rate <n> <unit> }` */
 import type { LimitsAst } from '../ast';
 import type { Statement } from '../syntax';
-import { parseMemorySize } from '../values';
+import { parseMemorySize, parseRate } from '../values';
 import type { StatementReader } from './reader';
 
 export function readLimits(reader: StatementReader, statement: Statement): LimitsAst {
@@ -23,6 +23,10 @@ export function readLimits(reader: StatementReader, statement: Statement): Limit
       const memory = parseMemorySize(inner.args);
       if (memory.ok) limits.memory = { value: memory.bytes, span: memory.span };
       else sink.report(inner.args.length === 0 ? 'missing-value' : 'invalid-value', memory.span ?? inner.keyword.span, memory.message);
+    } else if (keyword.name === 'rate') {
+      const rate = parseRate(inner.args);
+      if (rate.ok) limits.rate = { value: rate.flopsPerSecond, span: rate.span };
+      else sink.report(inner.args.length === 0 ? 'missing-value' : 'invalid-value', rate.span ?? inner.keyword.span, rate.message);
     }
   }
   return limits;

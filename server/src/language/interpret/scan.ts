@@ -1,11 +1,16 @@
-/** `scan distance <atom> <atom> from <d> to <d> step <d>` (or `points <n>` instead of step) */
+/**
+ * `scan distance <atom> <atom> from <d> to <d> step <d>` (or `points <n>` instead of step), and
+ * optionally `moving <atom> <atom> …`: the atoms that move with the second one (default: its fragment).
+ */
 import type { ScanAst } from '../ast';
 import type { Statement } from '../syntax';
 import { SCAN_KINDS } from '../vocabulary';
+import type { AtomRef } from '../ast';
+import { joinSpans } from '../text';
 import { describeArgument, type StatementReader } from './reader';
 
 const SCAN_SYNTAX = 'scan distance <atom> <atom> from <d> to <d> step <d>';
-const SCAN_KEYS = new Set(['from', 'to', 'step', 'points']);
+const SCAN_KEYS = new Set(['from', 'to', 'step', 'points', 'moving']);
 
 export function readScan(reader: StatementReader, statement: Statement): ScanAst | undefined {
   const sink = reader.sink;
@@ -26,6 +31,17 @@ export function readScan(reader: StatementReader, statement: Statement): ScanAst
     const key = args[i]!;
     if (key.kind !== 'word' || !SCAN_KEYS.has(key.text)) {
       sink.report('invalid-value', key.span, `A scan does not take ${describeArgument(key)} here; write \`${SCAN_SYNTAX}\`.`);
+      continue;
+    }
+    if (key.text === 'moving') {
+      const atoms: AtomRef[] = [];
+      while (i + 1 < args.length && !(args[i + 1]!.kind === 'word' && SCAN_KEYS.has(args[i + 1]!.text))) {
+        i++;
+        const ref = reader.atomRef(args[i], key.span);
+        if (ref) atoms.push(ref);
+      }
+      if (atoms.length === 0) sink.report('missing-value', key.span, "'moving' needs the atoms that move with the second scanned atom: `moving h2 h3`.");
+      else scan.moving = { atoms, span: joinSpans(key.span, atoms[atoms.length - 1]!.span) };
       continue;
     }
     const value = args[i + 1];

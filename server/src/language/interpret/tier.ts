@@ -52,8 +52,10 @@ export function readTier(reader: StatementReader, statement: Statement): TierAst
 }
 
 /**
- * active 6e 6o, or per irrep of the fragment's point group: active 6e A1=3 B1=1 B2=2, or a
- * suggestion from the mean field: active shells Fe1 3d all O 2p, active natural [0.02 to 1.98].
+ * active 6e 6o, or per irrep of the fragment's point group: active 6e A1=3 B1=1 B2=2, optionally
+ * with the reference occupation per irrep: … occupied A1=2 B2=1 (doubly occupied orbitals) and
+ * open B1=1 (singly occupied, α); or a suggestion from the mean field: active shells Fe1 3d all
+ * O 2p, active natural [0.02 to 1.98].
  */
 function readActiveSpace(reader: StatementReader, statement: Statement): ActiveSpaceAst {
   const first = statement.args[0];
@@ -65,18 +67,22 @@ function readActiveSpace(reader: StatementReader, statement: Statement): ActiveS
   let electrons: Located<number> | undefined;
   let orbitals: Located<number> | undefined;
   const irreps: ActiveIrrepAst[] = [];
-  const syntax = 'active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2`';
+  const occupied: ActiveIrrepAst[] = [];
+  const open: ActiveIrrepAst[] = [];
+  let target = irreps;
+  const syntax = 'active <n>e <m>o, for example `active 6e 6o`, or per irrep `active 6e A1=3 B1=1 B2=2` (with the reference occupation: `occupied A1=2 B2=1 open B1=1`)';
   const args = statement.args;
   for (let i = 0; i < args.length; i++) {
     const arg = args[i]!;
     if (arg.kind === 'electrons' && !electrons) electrons = { value: Number(arg.text.slice(0, -1)), span: arg.span };
     else if (arg.kind === 'orbitals' && !orbitals) orbitals = { value: Number(arg.text.slice(0, -1)), span: arg.span };
+    else if (arg.kind === 'word' && (arg.text === 'occupied' || arg.text === 'open') && args[i + 1]?.kind !== 'equals') target = arg.text === 'occupied' ? occupied : open;
     else if (arg.kind === 'word' && args[i + 1]?.kind === 'equals') {
       const count = args[i + 2];
       i += 2;
       const value = count ? reader.wholeNumber(count, `The orbital count of ${arg.text}`, 0) : undefined;
       if (!count) sink.report('missing-value', joinSpans(arg.span, args[i - 1]!.span), `Give the number of ${arg.text} orbitals after '=': \`${arg.text}=2\`.`);
-      if (value) irreps.push({ label: { value: arg.text, span: arg.span }, count: value, span: joinSpans(arg.span, value.span) });
+      if (value) target.push({ label: { value: arg.text, span: arg.span }, count: value, span: joinSpans(arg.span, value.span) });
     } else if (arg.kind === 'number') {
       sink.report('invalid-value', arg.span, `Mark what the number counts: '${arg.text}e' for electrons or '${arg.text}o' for orbitals (${syntax}).`);
     } else {
@@ -91,7 +97,7 @@ function readActiveSpace(reader: StatementReader, statement: Statement): ActiveS
     const missing = !electrons && !orbitals ? 'electrons and orbitals' : !electrons ? 'the electron count' : 'the orbital count';
     sink.report('missing-value', statement.span, `The active space needs ${missing}: ${syntax}.`);
   }
-  const located: ActiveSpaceAst = { span: statement.span, irreps };
+  const located: ActiveSpaceAst = { span: statement.span, irreps, ...(occupied.length > 0 ? { occupied } : {}), ...(open.length > 0 ? { open } : {}) };
   return { ...located, ...(electrons ? { electrons } : {}), ...(orbitals ? { orbitals } : {}) };
 }
 

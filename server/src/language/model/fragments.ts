@@ -94,6 +94,10 @@ function tierModel(
     activeSource: given ? 'given' : active ? 'estimated' : undefined,
     activeChoice,
     activeIrreps: ast.active && ast.active.irreps.length > 0 ? ast.active.irreps.map((irrep) => ({ label: irrep.label.value, count: irrep.count.value })) : undefined,
+    activeOccupation:
+      ast.active && (ast.active.occupied || ast.active.open)
+        ? { doubly: (ast.active.occupied ?? []).map((e) => ({ label: e.label.value, count: e.count.value })), singly: (ast.active.open ?? []).map((e) => ({ label: e.label.value, count: e.count.value })) }
+        : undefined,
     frozenCore: ast.frozenCore?.value ?? defaultFrozenCore,
     taper: ast.taper?.value ?? false,
     layers: ast.layers?.value ?? 1,

@@ -82,6 +82,7 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
       ...(ast.limits?.qubits ? { qubits: ast.limits.qubits.value } : options.defaultQubitLimit ? { qubits: options.defaultQubitLimit } : {}),
       qubitsFromSpec: ast.limits?.qubits !== undefined,
       ...(ast.limits?.memory ? { memoryBytes: ast.limits.memory.value } : {}),
+      ...(ast.limits?.rate ? { flopsPerSecond: ast.limits.rate.value } : {}),
     },
     system,
     contacts,

@@ -30,8 +30,10 @@ export function resolveScan(ast: SpecAst, resolver: SelectorResolver, units: Len
     count = scan.points!.value;
     step = count > 1 ? (to - from) / (count - 1) : 0;
   }
-  if (count > MAX_SCAN_POINTS) return { first, second, distances: [] };
+  const moving = scan.moving ? [...new Set(scan.moving.atoms.map((ref) => resolver.ref(ref)).filter((atom): atom is number => atom !== undefined))].sort((a, b) => a - b) : undefined;
+  const named = moving ? { moving } : {};
+  if (count > MAX_SCAN_POINTS) return { first, second, distances: [], ...named };
   // Rounded to 10 decimals so that 2.3 + 2 × 0.2 prints as 2.7, not 2.6999999999999997.
   const distances = Array.from({ length: count }, (_, i) => toAngstrom(Number((from + i * step).toFixed(10)), units));
-  return { first, second, distances };
+  return { first, second, distances, ...named };
 }

@@ -40,6 +40,8 @@ export interface TierModel {
   readonly activeChoice: ActiveChoiceModel | undefined;
   /** Active orbitals per irrep label, when the spec gives them. */
   readonly activeIrreps: readonly { readonly label: string; readonly count: number }[] | undefined;
+  /** The reference occupation per irrep when the spec gives it: doubly and singly occupied orbitals. */
+  readonly activeOccupation: { readonly doubly: readonly { readonly label: string; readonly count: number }[]; readonly singly: readonly { readonly label: string; readonly count: number }[] } | undefined;
   readonly frozenCore: boolean;
   readonly taper: boolean;
   readonly layers: number;
@@ -122,6 +124,8 @@ export interface ScanModel {
   readonly second: number;
   /** Distances in ångström, one per point. */
   readonly distances: number[];
+  /** The atoms `moving` names (sorted, unique), when the spec gives them. */
+  readonly moving?: readonly number[];
 }
 
 export interface SpecModel {
@@ -146,7 +150,7 @@ export interface SpecModel {
   readonly embedding: string;
   readonly scan: ScanModel | undefined;
   /** `qubitsFromSpec` is false when the qubit limit is the caller's default (the spec sets none). */
-  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number };
+  readonly limits: { readonly qubits?: number; readonly qubitsFromSpec: boolean; readonly memoryBytes?: number; readonly flopsPerSecond?: number };
   readonly system: OrbitalSpace;
   readonly contacts: ContactAnalysis;
   /** Absolute paths of files read for this spec. */

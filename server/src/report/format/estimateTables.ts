@@ -1,5 +1,6 @@
 /** The estimate report as tables, shared by the text and Markdown renderings. */
-import { countText, SYMMETRY_ATOM_LIMIT, type Count, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../../analysis';
+import { formatRate } from '../../chemistry/cost/format';
+import { approximateCount, countText, countValue, SYMMETRY_ATOM_LIMIT, type Count, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../../analysis';
 import type { Table } from './table';
 
 const dash = '–';
@@ -80,18 +81,20 @@ export function estimateTables(report: EstimateReport): Table[] {
       orNone(figures.virtual),
     ]),
   };
+  // Qubits belong to quantum tiers; the system's row is the hypothetical "everything on one quantum tier".
+  const quantumRows = rows.filter(({ fragment }) => !fragment || fragment.tier === 'quantum');
   const qubits: Table = {
-    title: 'Qubits and Hamiltonian',
+    title: 'Qubits and Hamiltonian (quantum tiers; the system row is hypothetical: the whole system on one quantum tier)',
     headers: ['part', 'problem', 'active', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered', 'needed', 'Pauli terms', 'QWC groups'],
     numeric: [false, true, true, true, true, true, true, true, true, true],
-    rows: rows.map(({ name, figures, fragment }) => [
-      name,
+    rows: quantumRows.map(({ name, figures, fragment }) => [
+      fragment ? name : `${name} (hypothetical)`,
       problemText(fragment),
-      `${figures.active.electrons}e ${figures.active.orbitals}o`,
-      String(figures.qubits.jordanWigner),
-      String(figures.qubits.bravyiKitaev),
-      String(figures.qubits.parity),
-      orNone(figures.qubits.tapered),
+      figures.active ? `${figures.active.electrons}e ${figures.active.orbitals}o` : dash,
+      orNone(figures.qubits?.jordanWigner),
+      orNone(figures.qubits?.bravyiKitaev),
+      orNone(figures.qubits?.parity),
+      orNone(figures.qubits?.tapered),
       fragment?.qubitsRequired !== undefined && fragment.qubitsRequired !== null ? `${fragment.qubitsRequired}` : dash,
       figures.pauliTerms ? `${figures.pauliTerms.upperBound ? '≤ ' : ''}${countText(figures.pauliTerms.jordanWigner)}` : dash,
       fragment?.measurement ? approximately(fragment.measurement.exact, fragment.measurement.groups) : dash,
@@ -116,13 +119,35 @@ export function estimateTables(report: EstimateReport): Table[] {
       ]),
     });
   }
+  const solvers = report.fragments.filter((fragment) => fragment.solverCost);
+  if (solvers.length > 0) {
+    const rate = `${formatRate(report.limits.flopsPerSecond)}${report.limits.flopsFrom === 'default' ? ', assumed' : ''}`;
+    tables.push({
+      title: `Classical solvers (time at ${rate})`,
+      headers: ['part', 'method', 'applied to', 'o / v', 'scaling', 'operations', 'memory', 'time'],
+      numeric: [false, false, false, true, false, true, true, true],
+      rows: solvers.map((fragment) => {
+        const cost = fragment.solverCost!;
+        return [
+          fragment.name,
+          cost.method,
+          cost.on === 'dmet-impurity' ? `DMET impurity, ${cost.orbitals}o` : cost.on === 'active-space' ? `active space, ${cost.orbitals}o` : `${cost.basisFunctions} functions`,
+          `${cost.occupied} / ${cost.virtual}`,
+          cost.scaling.split(':')[0]!,
+          cost.operations.text,
+          cost.memoryBytes.text,
+          cost.time.text,
+        ];
+      }),
+    });
+  }
   const classical = report.fragments.filter((fragment) => fragment.classical);
   if (classical.length > 0) {
     tables.push({
-      title: 'Classical cost of the active space',
+      title: 'Classical size of the active space',
       headers: ['part', 'full-CI determinants', 'CI vector', 'CCSD amplitudes'],
       numeric: [false, true, true, true],
-      rows: classical.map((fragment) => [fragment.name, fragment.classical!.determinants.text, fragment.classical!.ciVectorBytes.text, fragment.classical!.ccsdAmplitudes.text]),
+      rows: classical.map((fragment) => [fragment.name, fragment.classical!.determinants.text, fragment.classical!.ciVectorBytes.text, `${fragment.classical!.ccsdAmplitudes.text} (${fragment.classical!.ccsdAmplitudesConvention === 'closed-shell' ? 'spin-adapted' : 'spin orbitals'})`]),
     });
   }
   return tables;
@@ -146,6 +171,8 @@ export function conventionLines(report: EstimateReport): string[] {
     `ansatz: ${c.ansatz}`,
     `circuit: ${c.circuit}`,
     `classical: ${c.classical}`,
+    `tiers: ${c.tiers}`,
+    `solver cost: ${c.solverCost}`,
     `fragment charge: ${c.fragmentCharge}`,
     `caps: ${c.caps}`,
   ];
@@ -169,7 +196,7 @@ export function headerLines(report: EstimateReport): string[] {
     const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: ${totals.fragmentCalculations} fragment calculations, ${countText(totals.measurementCircuits)} measurement circuits per energy evaluation in all${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}; per-point figures below`
+        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(approximateCount(countValue(totals.measurementCircuits) / report.scan.points))} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
         : 'scan: no valid points',
     );
   }
