@@ -11,7 +11,7 @@ import { describe, expect, it } from 'vitest';
 import type { CompletionItem } from 'vscode-languageserver-types';
 import { analyzeDocument } from '../../server/src/analysis';
 import { FUNCTION_TYPES } from '../../server/src/chemistry/basis/shells';
-import { EMBEDDING_SYMMETRY } from '../../server/src/chemistry/estimate/embeddingSymmetry';
+import { EMBEDDING_SYMMETRY, embeddingName } from '../../server/src/chemistry/estimate/embeddingSymmetry';
 import { mappingKey, MAPPINGS, qubitCounts, type Mapping } from '../../server/src/chemistry/qubits';
 import { LENGTH_UNITS } from '../../server/src/chemistry/units';
 import {
@@ -83,6 +83,13 @@ describe('the chemistry layer\'s lists', () => {
     expect([...LENGTH_UNITS]).toEqual(names(UNIT_TERMS));
     expect([...FUNCTION_TYPES]).toEqual(names(FUNCTION_TERMS));
     expect(Object.keys(EMBEDDING_SYMMETRY).sort()).toEqual(names(EMBEDDINGS).sort());
+  });
+
+  it('reads every embedding by its own name and refuses a name that is none', () => {
+    for (const name of names(EMBEDDINGS)) expect(embeddingName(name)).toBe(name);
+    // A misspelt or inherited name must not be counted as no embedding (its own point group) without a word.
+    expect(() => embeddingName('dmte')).toThrow(/not an embedding/);
+    expect(() => embeddingName('toString')).toThrow(/not an embedding/);
   });
 });
 

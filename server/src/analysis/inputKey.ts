@@ -78,29 +78,42 @@ export function inputKey(inputs: PartInputs): string {
     });
     return header.join(';');
   }
-  let a = 0x811c9dc5;
-  let b = 0x01000193 ^ 0x5bd1e995;
-  const mix = (value: number) => {
-    a = Math.imul(a ^ (value & 0xffff), 0x01000193) >>> 0;
-    a = Math.imul(a ^ (value >>> 16), 0x01000193) >>> 0;
-    b = Math.imul(b ^ (value & 0xffff), 0x01000193 ^ 0x2c1b3c6d) >>> 0;
-    b = Math.imul(b ^ (value >>> 16), 0x01000193 ^ 0x2c1b3c6d) >>> 0;
-  };
-  const text = (value: string) => {
-    for (let i = 0; i < value.length; i++) mix(value.charCodeAt(i));
-    mix(0xffff);
-  };
+  // The two hash states live in a typed array: as closure variables above 2^31 each update would
+  // allocate a heap number (garbage that a 50,000-atom part turned into most of the cost).
+  const state = new Uint32Array([0x811c9dc5, (0x01000193 ^ 0x5bd1e995) >>> 0]);
   const scale = 10 ** DECIMALS;
-  inputs.atoms.forEach((atom, k) => {
-    text(atom.symbol);
-    text(inputs.basis[k] ?? '-');
-    for (const value of [atom.x, atom.y, atom.z]) {
-      const rounded = Math.round(value * scale);
-      mix(rounded | 0);
-      mix(Math.floor(rounded / 2 ** 32) | 0);
-    }
-  });
+  const atoms = inputs.atoms;
+  for (let k = 0; k < atoms.length; k++) {
+    const atom = atoms[k]!;
+    mixText(state, atom.symbol);
+    mixText(state, inputs.basis[k] ?? '-');
+    mixCoordinate(state, atom.x, scale);
+    mixCoordinate(state, atom.y, scale);
+    mixCoordinate(state, atom.z, scale);
+  }
+  const a = state[0]!;
+  const b = state[1]!;
   return `${header.join(';')};h${a.toString(16).padStart(8, '0')}${b.toString(16).padStart(8, '0')}`;
+}
+
+/** One 32-bit value into both FNV-1a states, 16 bits at a time. */
+function mix(state: Uint32Array, value: number): void {
+  state[0] = Math.imul(state[0]! ^ (value & 0xffff), 0x01000193);
+  state[0] = Math.imul(state[0]! ^ (value >>> 16), 0x01000193);
+  state[1] = Math.imul(state[1]! ^ (value & 0xffff), 0x01000193 ^ 0x2c1b3c6d);
+  state[1] = Math.imul(state[1]! ^ (value >>> 16), 0x01000193 ^ 0x2c1b3c6d);
+}
+
+function mixText(state: Uint32Array, value: string): void {
+  for (let i = 0; i < value.length; i++) mix(state, value.charCodeAt(i));
+  mix(state, 0xffff);
+}
+
+/** A coordinate rounded to 10^-DECIMALS, as its low and high 32 bits. */
+function mixCoordinate(state: Uint32Array, value: number, scale: number): void {
+  const rounded = Math.round(value * scale);
+  mix(state, rounded | 0);
+  mix(state, Math.floor(rounded / 2 ** 32) | 0);
 }
 
 /** A fragment's inputs with its frozen-core setting (what correlated results also depend on). */

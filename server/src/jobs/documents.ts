@@ -13,7 +13,8 @@
  * - What a document no longer contains (an edit, closing it) is cancelled by the queue.
  *
  * Each document's demand is worked out from its analysis after the analysis has been published,
- * so typing never waits for it; it reads function counts and builds keys only for the parts it asks for.
+ * so typing never waits for it; it reads function counts and builds keys only for the parts it asks
+ * for, and a part above the limit that nobody asked for costs nothing.
  */
 import { specParts, type DocumentAnalysis, type PartComputation, type PartRef } from '../analysis';
 import type { DemandEntry, JobQueue } from './queue';
@@ -74,7 +75,12 @@ export class DocumentComputations {
     const present = new Set<string>();
     const small = new Set<string>();
     let systemWanted: { explicit: boolean } | null = null;
-    for (const part of specParts(analysis.model)) {
+    const model = analysis.model;
+    for (const part of specParts(model)) {
+      // A part above the limit that nobody asked for, and no bath to queue: nothing to do, and
+      // nothing to read (its checks and key are linear in its atoms, every version).
+      const space = part.kind === 'system' ? model.system : model.fragments[part.index]!.space;
+      if (!systemWanted && state.asked.size === 0 && space.basisFunctions[model.basis.functions] > this.settings.autoFunctionLimit) continue;
       const computation = analysis.computation(part);
       // The bath builds on the system's mean field, not the fragment's own: a fragment that cannot be computed alone still has one.
       if (systemWanted && computation.bath) entries.push({ request: computation.bath, label: computation.label, explicit: systemWanted.explicit });

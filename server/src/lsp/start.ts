@@ -24,6 +24,7 @@ import { AnalysisHost, type AnalysisSettings } from '../analysis';
 import { DEFAULT_COMPUTE_SETTINGS, readComputeSettings, ServerComputations, type ComputeEditorSettings } from './computations';
 import { CoalescingScheduler, pathToUri, uriToPath } from './documents';
 import { FailureReporter } from './guard';
+import { ArrivedVersions } from './arrivals';
 import { openServerConnection } from './transport';
 import { warmUp } from './warmUp';
 
@@ -71,7 +72,13 @@ function readSettings(raw: unknown): EditorSettings {
   };
 }
 
-export function startLanguageServer(connection: Connection = openServerConnection(process.argv.slice(2), { cancelUndispatched })): Connection {
+/** A version superseded on the wire waits at most this many times for the newer one before it is published anyway. */
+const MAX_PUBLISH_DEFERRALS = 20;
+const PUBLISH_DEFERRAL_MS = 25;
+
+export function startLanguageServer(given?: Connection): Connection {
+  const arrived = new ArrivedVersions();
+  const connection = given ?? openServerConnection(process.argv.slice(2), { cancelUndispatched }, (message) => arrived.observe(message));
   const documents = new TextDocuments(TextDocument);
   const cache = new AnalysisHost({ open: (uri) => documents.get(uri), pathOf: uriToPath, uriOf: pathToUri });
   const scheduler = new CoalescingScheduler();
@@ -97,10 +104,21 @@ export function startLanguageServer(connection: Connection = openServerConnectio
   const computations = new ServerComputations(connection, cache, settings.compute, (what, error) => failures.report(what, undefined, undefined, error));
 
   /** Analyses the document's current version, whatever was scheduled, and sends its diagnostics. */
+  const deferrals = new Map<string, number>();
   const publish = (uri: string) => {
     const document = documents.get(uri);
     if (!document) return;
     const version = document.version;
+    // A newer version has arrived and waits its turn: rather than analyse this one, publish that
+    // one (its change schedules it). A version analysed already is published all the same: it
+    // costs nothing and covers the edits so far. The wait is bounded in case the change is never applied.
+    const deferred = deferrals.get(uri) ?? 0;
+    if (arrived.superseded(uri, version) && !cache.isCurrent(uri) && deferred < MAX_PUBLISH_DEFERRALS) {
+      deferrals.set(uri, deferred + 1);
+      setTimeout(() => schedulePublish(uri), PUBLISH_DEFERRAL_MS);
+      return;
+    }
+    deferrals.delete(uri);
     let diagnostics;
     try {
       // Always the current version, whatever was scheduled.
@@ -250,9 +268,17 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     void connection.sendDiagnostics({ uri: event.document.uri, diagnostics: [] });
   });
 
-  const onDocument = <P extends { textDocument: { uri: string } }, R>(feature: string, handler: (analysis: NonNullable<ReturnType<typeof analysisOf>>, params: P) => R, empty: R) =>
+  /**
+   * `askedAgain`: a request the editor sends again after every change (tokens, hints, lenses,
+   * symbols). For a version already superseded on the wire it answers ContentModified without
+   * analysing that version, and the editor asks again for the new one.
+   */
+  const onDocument = <P extends { textDocument: { uri: string } }, R>(feature: string, handler: (analysis: NonNullable<ReturnType<typeof analysisOf>>, params: P) => R, empty: R, askedAgain = false) =>
     failures.guard(feature, documentOf, (params: P): R => {
-      const analysis = analysisOf(params.textDocument.uri);
+      const uri = params.textDocument.uri;
+      const version = documents.get(uri)?.version;
+      if (askedAgain && version !== undefined && arrived.superseded(uri, version)) throw new ResponseError(LSPErrorCodes.ContentModified, 'The document has changed since; ask again for its new version.');
+      const analysis = analysisOf(uri);
       return analysis ? handler(analysis, params) : empty;
     });
 
@@ -275,7 +301,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
       return result;
     }, null),
   );
-  connection.onDocumentSymbol(onDocument('outline', (analysis) => service.findDocumentSymbols(analysis), []));
+  connection.onDocumentSymbol(onDocument('outline', (analysis) => service.findDocumentSymbols(analysis), [], true));
   connection.onWorkspaceSymbol((params) =>
     // Document by document, so that one that fails leaves the others' symbols in the answer.
     documents.all().flatMap((document) => {
@@ -298,7 +324,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
     onDocument('semantic highlighting', (analysis, params) => {
       const { resultId, data } = tokensOf(params.textDocument.uri, analysis);
       return { resultId, data: service.plainNumbers(data, 0, data.length) };
-    }, { resultId: '0', data: [] as number[] }),
+    }, { resultId: '0', data: [] as number[] }, true),
   );
   connection.languages.semanticTokens.onDelta(
     onDocument(
@@ -310,6 +336,7 @@ export function startLanguageServer(connection: Connection = openServerConnectio
         return { resultId: next.resultId, edits: service.semanticTokensEdits(previous.data, next.data) };
       },
       { resultId: '0', edits: [] as { start: number; deleteCount: number; data: number[] }[] },
+      true,
     ),
   );
   connection.onFoldingRanges(onDocument('folding', (analysis) => service.getFoldingRanges(analysis), []));
@@ -317,13 +344,13 @@ export function startLanguageServer(connection: Connection = openServerConnectio
   connection.onDocumentFormatting(onDocument('formatting', (analysis, params) => service.format(analysis.text, undefined, { indent: params.options.tabSize }), []));
   connection.onDocumentRangeFormatting(onDocument('range formatting', (analysis, params) => service.format(analysis.text, params.range, { indent: params.options.tabSize }), []));
   connection.onCodeAction(onDocument('code actions', (analysis, params) => [...service.getCodeActions(analysis, params.textDocument.uri, params.context.diagnostics), ...service.activeSpaceActions(analysis, params.textDocument.uri, params.range)], []));
-  connection.languages.inlayHint.on(onDocument('inlay hints', (analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), []));
+  connection.languages.inlayHint.on(onDocument('inlay hints', (analysis, params) => (settings.inlayHints ? service.getInlayHints(analysis, params.range) : []), [], true));
   connection.onCodeLens(
     onDocument('code lens', (analysis, params) => {
       if (!settings.codeLens) return [];
       const uri = params.textDocument.uri;
       return [...service.getCodeLenses(analysis), ...service.computeLenses(analysis, uri, computations.policy(uri))];
-    }, []),
+    }, [], true),
   );
   connection.onExecuteCommand(
     failures.guard('the command', () => ({}), (params: { command: string; arguments?: unknown[] }) => {

@@ -202,6 +202,8 @@ export class LifecycleGate extends AbstractMessageReader implements MessageReade
     private readonly inner: MessageReader,
     private readonly writer: MessageWriter,
     private readonly log: (line: string) => void,
+    /** Sees every admitted message as soon as it is read (before it waits its turn). */
+    private readonly observe: (message: Message) => void = () => undefined,
   ) {
     super();
     inner.onError((error) => this.fireError(error));
@@ -215,7 +217,9 @@ export class LifecycleGate extends AbstractMessageReader implements MessageReade
 
   listen(callback: DataCallback): Disposable {
     return this.inner.listen((message) => {
-      if (this.admit(message)) callback(message);
+      if (!this.admit(message)) return;
+      this.observe(message);
+      callback(message);
     });
   }
 
@@ -269,7 +273,7 @@ function argument(argv: readonly string[], name: string): string | undefined {
 }
 
 /** The connection of a server process, on the transport its command line names. */
-export function openServerConnection(argv: readonly string[] = process.argv.slice(2), strategy?: ConnectionStrategy): Connection {
+export function openServerConnection(argv: readonly string[] = process.argv.slice(2), strategy?: ConnectionStrategy, observe?: (message: Message) => void): Connection {
   let log: (line: string) => void = (line) => process.stderr.write(`${line}\n`);
   let writer: MessageWriter;
   let reader: MessageReader;
@@ -294,7 +298,7 @@ export function openServerConnection(argv: readonly string[] = process.argv.slic
     writer = new StreamMessageWriter(process.stdout, 'utf-8');
     reader = new FramedStreamReader(process.stdin, report, skipped);
   }
-  const gate = new LifecycleGate(reader, writer, (line) => log(line));
+  const gate = new LifecycleGate(reader, writer, (line) => log(line), observe);
   const connection = createConnection(ProposedFeatures.all, gate, writer, strategy);
   log = (line) => connection.console.warn(line);
   if (stream === process.stdin) {

@@ -34,9 +34,14 @@ export const EMBEDDING_SYMMETRY: Readonly<Record<EmbeddingName, { readonly scope
   },
 };
 
-/** The embedding as the symmetry rule reads it: an unknown word counts as none. */
+/**
+ * The embedding as the symmetry rule reads it. Throws on a word that is not an embedding: the
+ * language reports unknown words and leaves the model's default (`none`), so anything else here is
+ * a bug, and counting it as `none` without a word would give the wrong point group.
+ */
 export function embeddingName(written: string): EmbeddingName {
-  return written in EMBEDDING_SYMMETRY ? (written as EmbeddingName) : 'none';
+  if (!Object.hasOwn(EMBEDDING_SYMMETRY, written)) throw new RangeError(`'${written}' is not an embedding (${Object.keys(EMBEDDING_SYMMETRY).join(', ')})`);
+  return written as EmbeddingName;
 }
 
 export function symmetryScope(embedding: string): SymmetryScope {
