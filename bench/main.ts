@@ -4,6 +4,7 @@ import { benchEcp } from './ecp';
 import { benchHamiltonian } from './hamiltonian';
 import { benchIntegrals } from './integrals';
 import { benchIrreps } from './irreps';
+import { benchJobs } from './jobs';
 import { benchLanguageServer } from './lsp';
 import { benchPauli } from './pauli';
 import { benchScf } from './scf';
@@ -21,6 +22,7 @@ const sections: Record<string, Section> = {
   ecp: benchEcp,
   scf: benchScf,
   lsp: () => benchLanguageServer(),
+  jobs: benchJobs,
 };
 
 /** `TESSERA_BENCH=integrals,scf` runs only those sections (for profiling one of them). */

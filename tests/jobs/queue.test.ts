@@ -7,10 +7,12 @@
  * worker runs the next job correctly), never by a timed assertion: the grace period before
  * termination is made long so that only the flag can have stopped the job.
  */
+import { readdirSync, readFileSync, readlinkSync } from 'node:fs';
 import { afterEach, describe, expect, it } from 'vitest';
 import { LateResults, MEAN_FIELD_KIND, requestKey, type MeanFieldOutcome, type Mp2Summary } from '../../server/src/analysis';
 import { JobQueue, type JobEvent } from '../../server/src/jobs';
 import { BOHR_IN_ANGSTROM } from '../../server/src/chemistry/units';
+import { JOB_THREAD_NICE } from '../../server/src/jobs/priority';
 import { ECP_CASES, mp2For, referenceCase, requestFor, slowRequest } from './requests';
 
 const queues: JobQueue[] = [];
@@ -22,6 +24,20 @@ function makeQueue(options: ConstructorParameters<typeof JobQueue>[1] = {}): { q
   queue.onEvent((event) => events.push(event));
   queues.push(queue);
   return { queue, store, events };
+}
+
+/** Nice value per thread id of this process (Linux: field 19 of /proc/self/task/<id>/stat). */
+function threadNiceValues(): Map<number, number> {
+  const values = new Map<number, number>();
+  for (const id of readdirSync('/proc/self/task')) {
+    try {
+      const fields = readFileSync(`/proc/self/task/${id}/stat`, 'utf8').split(') ')[1]!.split(' ');
+      values.set(Number(id), Number(fields[16]));
+    } catch {
+      // The thread ended between the listing and the read.
+    }
+  }
+  return values;
 }
 
 function nextEvent(queue: JobQueue, test: (event: JobEvent) => boolean): Promise<JobEvent> {
@@ -240,6 +256,19 @@ describe('the job queue', () => {
     const settled = (await queue.whenSettled(request)) as { value: MeanFieldOutcome };
     // psi4 1.3.2, scf_type pk (tests/fixtures/ecp-energies.psi4.json).
     expect(Math.abs(settled.value.result.energy - hydrogenIodide.references.rhf!.energy)).toBeLessThan(1e-6);
+  });
+
+  it.runIf(process.platform === 'linux')('runs its worker thread at a lowered priority, leaving the calling thread as it was', async () => {
+    const own = Number(readlinkSync('/proc/thread-self').split('/').pop());
+    const before = threadNiceValues();
+    const { queue } = makeQueue();
+    const request = requestFor(referenceCase('water', 'sto-3g', 'rhf'));
+    queue.setDemand('doc', [{ request, label: 'system' }]);
+    expect((await queue.whenSettled(request)).state).toBe('ready');
+    const after = threadNiceValues();
+    expect(after.get(own)).toBe(before.get(own));
+    const lowered = [...after].filter(([id, nice]) => !before.has(id) && nice === JOB_THREAD_NICE);
+    expect(lowered.length).toBe(1);
   });
 
   it('forgets the oldest finished results nobody wants beyond the ones it keeps', async () => {

@@ -2,11 +2,13 @@
  * The worker thread's entry (bundled on its own as dist/worker.js): runs the jobs the queue sends,
  * one at a time, and answers each with progress, then its result, its failure, or that it stopped
  * because its cancel flag was set. Progress is sent at most every PROGRESS_INTERVAL_MS (and at
- * every change of phase), so that a fast SCF does not flood the main thread.
+ * every change of phase), so that a fast SCF does not flood the main thread. The thread runs at a
+ * lowered priority (priority.ts), so that the main thread comes first when both want a core.
  */
 import { parentPort } from 'node:worker_threads';
 import type { CancelToken } from '../electronic/contracts';
 import { failureOf, isCancellation } from './failures';
+import { lowerThreadPriority } from './priority';
 import type { FromWorker, JobProgress, ToWorker } from './protocol';
 import { runRequest } from './run';
 
@@ -50,6 +52,7 @@ function run(message: ToWorker, post: (answer: FromWorker, transfer?: ArrayBuffe
 
 const port = parentPort;
 if (port) {
+  lowerThreadPriority();
   port.on('message', (message: ToWorker) => {
     if (message?.type === 'run') run(message, (answer, transfer) => port.postMessage(answer, transfer ?? []));
   });

@@ -3,9 +3,10 @@
  * matrices built straight from the integrals for several densities at once.
  *
  * Screening: |(PQ|RS)| ≤ Q_PQ Q_RS with Q_PQ = √max|(pq|pq)| (Cauchy–Schwarz; M. Häser and
- * R. Ahlrichs, J. Comput. Chem. 10, 104 (1989)); a quartet is skipped when that bound times the
- * largest density element it multiplies stays below the threshold. Pairs are visited in decreasing
- * Q so that a whole row of quartets ends at the first one below the bound.
+ * R. Ahlrichs, J. Comput. Chem. 10, 104 (1989)); a quartet's Coulomb part is skipped when that
+ * bound times the largest density element it multiplies (D_PQ, D_RS) stays below the threshold,
+ * its exchange part likewise (D_PR, D_PS, D_QR, D_QS), and the quartet when both are. Pairs are
+ * visited in decreasing Q so that a whole row of quartets ends at the first one below the bound.
  *
  * Permutational symmetry: each unique quartet (8-fold) is computed once and its contributions to
  * J and K are added with its degeneracy, then J and K are symmetrised (the scheme of the libint
@@ -72,6 +73,8 @@ export interface DirectTwoElectronIntegrals extends TwoElectronIntegrals {
 interface Storage {
   readonly values: Float64Array;
   readonly cutoff: number;
+  /** Offset of the first stored value of each row of the walk (storedRowOffsets). */
+  readonly rowOffset: Float64Array;
   filled: boolean;
 }
 
@@ -86,7 +89,7 @@ export function createTwoElectronIntegrals(basis: MolecularBasis, options: TwoEl
   const order = Int32Array.from({ length: pairs.count }, (_, k) => k).sort((x, y) => schwarzValues[y]! - schwarzValues[x]!);
   const cost = pairCosts(basis, pairs);
   const plan = planStorage(pairs, schwarzValues, order, cost, options.storageLimitBytes ?? DEFAULT_STORAGE_LIMIT_BYTES);
-  const storage: Storage | null = plan ? { values: new Float64Array(plan.values), cutoff: plan.cutoff, filled: false } : null;
+  const storage: Storage | null = plan ? { values: new Float64Array(plan.values), cutoff: plan.cutoff, rowOffset: storedRowOffsets(pairs, schwarzValues, order, cost, plan.cutoff), filled: false } : null;
   const storageBytes = plan ? plan.values * 8 : 0;
   let statistics: JkStatistics = { quartetsComputed: 0, quartetsSkipped: 0, quartetsRead: 0 };
   const context: JkContext = { basis, engine, pairs, schwarz: schwarzValues, order, cost };
@@ -118,26 +121,24 @@ export function createTwoElectronIntegrals(basis: MolecularBasis, options: TwoEl
   };
 }
 
-/** Per shell pair: functions, primitive pairs and total momentum, for the cost of its quartets. */
+/** Per shell pair: functions, and its share of the work per value of its quartets (below). */
 interface PairCosts {
   readonly size: Float64Array;
-  readonly primitives: Float64Array;
-  readonly momentum: Int32Array;
+  /** Primitive pairs × 2^(la+lb) / functions: a quartet's cost per value is the product over its two pairs. */
+  readonly workPerValue: Float64Array;
 }
 
 function pairCosts(basis: MolecularBasis, pairs: ShellPairs): PairCosts {
   const shells = basis.shells;
   const size = new Float64Array(pairs.count);
-  const primitives = new Float64Array(pairs.count);
-  const momentum = new Int32Array(pairs.count);
+  const workPerValue = new Float64Array(pairs.count);
   for (let k = 0; k < pairs.count; k++) {
     const a = shells[pairs.pairFirst[k]!]!;
     const b = shells[pairs.pairSecond[k]!]!;
     size[k] = a.size * b.size;
-    primitives[k] = Math.max(1, pairs.primStart[k + 1]! - pairs.primStart[k]!);
-    momentum[k] = a.l + b.l;
+    workPerValue[k] = (Math.max(1, pairs.primStart[k + 1]! - pairs.primStart[k]!) * 2 ** (a.l + b.l)) / size[k]!;
   }
-  return { size, primitives, momentum };
+  return { size, workPerValue };
 }
 
 /**
@@ -145,7 +146,7 @@ function pairCosts(basis: MolecularBasis, pairs: ShellPairs): PairCosts {
  * the total momentum L) over its values. Stored quartets are those at or above a cutoff of this.
  */
 function costPerValue(cost: PairCosts, pq: number, rs: number): number {
-  return (cost.primitives[pq]! * cost.primitives[rs]! * 2 ** (cost.momentum[pq]! + cost.momentum[rs]!)) / (cost.size[pq]! * cost.size[rs]!);
+  return cost.workPerValue[pq]! * cost.workPerValue[rs]!;
 }
 
 /**
@@ -279,18 +280,23 @@ function prepareBuild(basis: MolecularBasis, densities: readonly Float64Array[],
   return { blockMax, densityMax };
 }
 
-/** The largest density element a quartet's J and K contributions multiply. */
-function densityBound(blockMax: Float64Array, nShells: number, P: number, Q: number, R: number, S: number, wantJ: boolean, wantK: boolean): number {
-  let dm = 0;
-  if (wantJ) dm = Math.max(blockMax[P * nShells + Q]!, blockMax[R * nShells + S]!);
-  if (wantK) dm = Math.max(dm, blockMax[P * nShells + R]!, blockMax[P * nShells + S]!, blockMax[Q * nShells + R]!, blockMax[Q * nShells + S]!);
-  return dm;
+/** The largest density element a quartet's Coulomb contributions multiply (D_PQ, D_RS). */
+function coulombDensityBound(blockMax: Float64Array, nShells: number, P: number, Q: number, R: number, S: number): number {
+  return Math.max(blockMax[P * nShells + Q]!, blockMax[R * nShells + S]!);
+}
+
+/** The largest density element a quartet's exchange contributions multiply (D_PR, D_PS, D_QR, D_QS). */
+function exchangeDensityBound(blockMax: Float64Array, nShells: number, P: number, Q: number, R: number, S: number): number {
+  return Math.max(blockMax[P * nShells + R]!, blockMax[P * nShells + S]!, blockMax[Q * nShells + R]!, blockMax[Q * nShells + S]!);
 }
 
 /**
  * One J/K build: walks the unique quartets in decreasing Schwarz order; each needed quartet is
  * read from the storage when it is kept there (after the first build) or computed. The first build
- * with a storage computes and keeps every quartet the storage holds, needed now or not.
+ * with a storage computes and keeps every quartet the storage holds, needed now or not. Later
+ * builds end a row at the first quartet whose Schwarz bound times the largest density element is
+ * below the threshold (the rows are sorted), and find each row's stored values at its recorded
+ * offset, so an incremental build with a small density difference visits few quartets.
  */
 function buildPass(
   context: JkContext,
@@ -309,47 +315,51 @@ function buildPass(
   const wantJ = J !== null;
   const wantK = K !== null;
   const filling = storage !== null && !storage.filled;
-  // With a storage every quartet it may hold is visited, so that the running offset stays in step.
-  const bound0 = storage ? STORED_QUARTET_BOUND : threshold / Math.max(densityMax, 1e-300);
+  // Quartets with a Schwarz bound below `limit` are not needed; the filling build visits all the
+  // storage may hold so that the running offset stays in step.
+  const limit = threshold / Math.max(densityMax, 1e-300);
+  const visitBound = filling ? Math.min(limit, STORED_QUARTET_BOUND) : limit;
   const cutoff = storage ? storage.cutoff : Number.POSITIVE_INFINITY;
   const stored = storage ? storage.values : null;
+  const rowOffset = storage ? storage.rowOffset : null;
+  const workPerValue = cost.workPerValue;
   let computed = 0;
-  let skipped = 0;
+  let used = 0;
   let read = 0;
-  let offset = 0;
   throwIfCancelled(cancel);
   for (let ii = 0; ii < count; ii++) {
     const pq = order[ii]!;
     const qpq = schwarz[pq]!;
-    if (qpq * qpq < bound0) break;
+    if (qpq * qpq < visitBound) break;
     const P = pairs.pairFirst[pq]!;
     const Q = pairs.pairSecond[pq]!;
     const sizePQ = cost.size[pq]!;
+    const workPQ = workPerValue[pq]!;
+    let offset = rowOffset ? rowOffset[ii]! : 0;
     for (let jj = ii; jj < count; jj++) {
       const rs = order[jj]!;
       const bound = qpq * schwarz[rs]!;
-      if (bound < bound0) break;
+      if (bound < visitBound) break;
       const R = pairs.pairFirst[rs]!;
       const S = pairs.pairSecond[rs]!;
-      const needed = bound * densityBound(blockMax, nShells, P, Q, R, S, wantJ, wantK) >= threshold;
-      const keep = stored !== null && costPerValue(cost, pq, rs) >= cutoff;
+      // Coulomb and exchange are screened each by the density they multiply.
+      const neededJ = wantJ && bound * coulombDensityBound(blockMax, nShells, P, Q, R, S) >= threshold;
+      const neededK = wantK && bound * exchangeDensityBound(blockMax, nShells, P, Q, R, S) >= threshold;
+      const needed = neededJ || neededK;
+      const keep = stored !== null && bound >= STORED_QUARTET_BOUND && workPQ * workPerValue[rs]! >= cutoff;
       if (keep && !filling) {
         if (needed) {
           // Stored in the engine's layout; the engine's orientation depends on the pairs only.
           engine.orient(pq, rs);
-          scatter(basis, engine.a, engine.b, engine.c, engine.d, stored, offset, densities, J, K);
+          scatter(basis, engine.a, engine.b, engine.c, engine.d, stored, offset, densities, neededJ ? J : null, neededK ? K : null);
           read++;
-        } else {
-          skipped++;
+          used++;
+          if (read % 1024 === 0) throwIfCancelled(cancel);
         }
         offset += sizePQ * cost.size[rs]!;
-        if ((read + skipped) % 1024 === 0) throwIfCancelled(cancel);
         continue;
       }
-      if (!needed && !keep) {
-        skipped++;
-        continue;
-      }
+      if (!needed && !keep) continue;
       engine.compute(pq, rs);
       computed++;
       if (keep) {
@@ -358,13 +368,36 @@ function buildPass(
         for (let i = 0; i < size; i++) stored![offset + i] = result[i]!;
         offset += size;
       }
-      if (needed) scatter(basis, engine.a, engine.b, engine.c, engine.d, engine.result, 0, densities, J, K);
-      else skipped++;
+      if (needed) {
+        scatter(basis, engine.a, engine.b, engine.c, engine.d, engine.result, 0, densities, neededJ ? J : null, neededK ? K : null);
+        used++;
+      }
       if (computed % CANCEL_CHECK_INTERVAL === 0) throwIfCancelled(cancel);
     }
   }
   if (filling) storage!.filled = true;
-  return { quartetsComputed: computed, quartetsSkipped: skipped, quartetsRead: read };
+  return { quartetsComputed: computed, quartetsSkipped: (count * (count + 1)) / 2 - used, quartetsRead: read };
+}
+
+/**
+ * Where each row of the walk (the quartets of order[ii] with order[jj], jj ≥ ii) starts in the
+ * stored values: the sizes of the kept quartets of all rows before it.
+ */
+function storedRowOffsets(pairs: ShellPairs, schwarz: Float64Array, order: Int32Array, cost: PairCosts, cutoff: number): Float64Array {
+  const offsets = new Float64Array(pairs.count);
+  let offset = 0;
+  for (let ii = 0; ii < pairs.count; ii++) {
+    offsets[ii] = offset;
+    const pq = order[ii]!;
+    const q = schwarz[pq]!;
+    if (q * q < STORED_QUARTET_BOUND) continue;
+    for (let jj = ii; jj < pairs.count; jj++) {
+      const rs = order[jj]!;
+      if (q * schwarz[rs]! < STORED_QUARTET_BOUND) break;
+      if (costPerValue(cost, pq, rs) >= cutoff) offset += cost.size[pq]! * cost.size[rs]!;
+    }
+  }
+  return offsets;
 }
 
 function finishBuild(basis: MolecularBasis, J: Float64Array[] | null, K: Float64Array[] | null): void {
@@ -376,7 +409,9 @@ function finishBuild(basis: MolecularBasis, J: Float64Array[] | null, K: Float64
 /**
  * Adds one unique quartet's contributions, scaled by its degeneracy, to the unsymmetrised J and K:
  * J_ab += ½ g v D_cd, J_cd += ½ g v D_ab, K_ac += ¼ g v D_bd, K_bd += ¼ g v D_ac, K_ad += ¼ g v D_bc,
- * K_bc += ¼ g v D_ad (g = 1, 2, 4 or 8); symmetrize() then averages each matrix with its transpose.
+ * K_bc += ¼ g v D_ad (g = 1, 2, 4 or 8); finishBuild() then averages each matrix with its
+ * transpose. Because of that average, and because the densities are symmetric, the innermost loop
+ * (over b) reads D_db for D_bd and adds to K_db for K_bd, so that it walks rows, not columns.
  * `values[offset …]` holds the quartet in layout [c][d][a][b].
  */
 function scatter(
@@ -410,8 +445,44 @@ function scatter(
   const nd = sd.size;
   for (let x = 0; x < densities.length; x++) {
     const D = densities[x]!;
-    if (J) {
-      const j = J[x]!;
+    const j = J ? J[x]! : null;
+    const k = K ? K[x]! : null;
+    if (j && k) {
+      // Both in one pass over the values.
+      let index = offset;
+      for (let ic = 0; ic < nc; ic++) {
+        const fc = oc + ic;
+        const rowC = fc * n;
+        for (let id = 0; id < nd; id++) {
+          const fd = od + id;
+          const rowD = fd * n;
+          const dcd = halfG * D[rowC + fd]!;
+          let jcd = 0;
+          for (let ia = 0; ia < na; ia++) {
+            const rowA = (oa + ia) * n;
+            const dac = quarterG * D[rowA + fc]!;
+            const dad = quarterG * D[rowA + fd]!;
+            let kac = 0;
+            let kad = 0;
+            for (let ib = 0; ib < nb; ib++) {
+              const v = values[index++]!;
+              const fb = ob + ib;
+              j[rowA + fb]! += v * dcd;
+              jcd += v * D[rowA + fb]!;
+              kac += v * D[rowD + fb]!;
+              kad += v * D[rowC + fb]!;
+              k[rowD + fb]! += v * dac;
+              k[rowC + fb]! += v * dad;
+            }
+            k[rowA + fc]! += quarterG * kac;
+            k[rowA + fd]! += quarterG * kad;
+          }
+          j[rowC + fd]! += halfG * jcd;
+        }
+      }
+      continue;
+    }
+    if (j) {
       let index = offset;
       for (let ic = 0; ic < nc; ic++) {
         const rowC = (oc + ic) * n;
@@ -430,13 +501,14 @@ function scatter(
         }
       }
     }
-    if (K) {
-      const k = K[x]!;
+    if (k) {
       let index = offset;
       for (let ic = 0; ic < nc; ic++) {
         const fc = oc + ic;
+        const rowC = fc * n;
         for (let id = 0; id < nd; id++) {
           const fd = od + id;
+          const rowD = fd * n;
           for (let ia = 0; ia < na; ia++) {
             const rowA = (oa + ia) * n;
             const dac = quarterG * D[rowA + fc]!;
@@ -445,11 +517,11 @@ function scatter(
             let kad = 0;
             for (let ib = 0; ib < nb; ib++) {
               const v = values[index++]!;
-              const rowB = (ob + ib) * n;
-              kac += v * D[rowB + fd]!;
-              kad += v * D[rowB + fc]!;
-              k[rowB + fd]! += v * dac;
-              k[rowB + fc]! += v * dad;
+              const fb = ob + ib;
+              kac += v * D[rowD + fb]!;
+              kad += v * D[rowC + fb]!;
+              k[rowD + fb]! += v * dac;
+              k[rowC + fb]! += v * dad;
             }
             k[rowA + fc]! += quarterG * kac;
             k[rowA + fd]! += quarterG * kad;
