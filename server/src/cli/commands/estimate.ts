@@ -13,6 +13,7 @@ import { readTextFile } from '../../language/files';
 import { parseXyz } from '../../language/xyz';
 import { renderEstimateMarkdown, renderEstimateText } from '../../report/format/render';
 import type { BathOrbitals, ScfReference } from '../../analysis';
+import { activeSpaceJson, renderActiveSpaceMarkdown, renderActiveSpaceText } from '../../report/format/activeSpace';
 import { bathJson, renderBathMarkdown, renderBathText, type BathPart } from '../../report/format/dmetBath';
 import { meanFieldJson, renderMeanFieldMarkdown, renderMeanFieldText, type MeanFieldPart } from '../../report/format/meanField';
 import { exitCode, EXIT_INTERRUPTED, EXIT_USAGE, UsageError, type CliIo } from '../io';
@@ -182,8 +183,8 @@ function bathParts(parts: readonly MeanFieldPart[]): BathPart[] {
 }
 
 /** `dmetBath` for a fragment's JSON, when the spec uses DMET. */
-function bathJsonOf(part: MeanFieldPart): { dmetBath?: Record<string, unknown> } {
-  return part.bath ? { dmetBath: bathJson(part.bath) } : {};
+function bathJsonOf(part: MeanFieldPart): { dmetBath?: Record<string, unknown>; activeSpace?: Record<string, unknown> } {
+  return { ...(part.bath ? { dmetBath: bathJson(part.bath) } : {}), ...(part.activeSpace ? { activeSpace: activeSpaceJson(part.activeSpace) } : {}) };
 }
 
 /** Why the command ends with errors because of the computed parts: failures and non-convergence count. */
@@ -257,6 +258,8 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
     const baths = parts ? bathParts(parts) : [];
     if (baths.length > 0) io.stdout(options.format === 'markdown' ? `\n${renderBathMarkdown(baths)}` : `\n${renderBathText(baths)}`);
     if (hamiltonians) io.stdout(options.format === 'markdown' ? `\n${renderHamiltonianMarkdown(hamiltonians, settings)}` : `\n${renderHamiltonianText(hamiltonians, settings)}`);
+    const actives = parts ? parts.flatMap((part) => (part.activeSpace ? [{ label: part.label, activeSpace: part.activeSpace }] : [])) : [];
+    if (actives.length > 0) io.stdout(options.format === 'markdown' ? `\n${renderActiveSpaceMarkdown(actives)}` : `\n${renderActiveSpaceText(actives)}`);
     for (const diagnostic of prepared.diagnostics) {
       const line = diagnostic.line > 0 ? formatDiagnosticLine(diagnostic) : `${diagnostic.file}: ${diagnostic.severity} ${diagnostic.code} ${diagnostic.message}`;
       io.stderr(`${line}\n`);

@@ -17,6 +17,7 @@ import {
   type HamiltonianRequest,
   type PartComputation,
   specParts,
+  type ActiveSpaceOutcome,
   type DocumentAnalysis,
   type LateResult,
   type MeanFieldOutcome,
@@ -27,6 +28,7 @@ import {
 } from '../../analysis';
 import { JobQueue, type DemandEntry, type JobEvent } from '../../jobs';
 import type { HamiltonianPart, PartHamiltonian } from '../../report/format/hamiltonian';
+import type { PartActiveSpace } from '../../report/format/activeSpace';
 import type { PartBath } from '../../report/format/dmetBath';
 import type { MeanFieldPart, PartMeanField } from '../../report/format/meanField';
 import type { CliIo } from '../io';
@@ -62,7 +64,7 @@ function progressPrinter(io: CliIo): (event: JobEvent) => void {
   return (event) => {
     const id = event.job.id;
     const now = performance.now();
-    const what = `${event.job.kind === 'mp2' ? 'MP2' : event.job.kind === 'dmet-bath' ? 'DMET bath' : event.job.kind === HAMILTONIAN_KIND ? 'Hamiltonian' : 'mean field'} of ${event.job.label}`;
+    const what = `${event.job.kind === 'mp2' ? 'MP2' : event.job.kind === 'dmet-bath' ? 'DMET bath' : event.job.kind === HAMILTONIAN_KIND ? 'Hamiltonian' : event.job.kind === 'active-space' ? 'active orbitals' : 'mean field'} of ${event.job.label}`;
     switch (event.type) {
       case 'started':
         started.set(id, now);
@@ -96,6 +98,14 @@ async function bathOf(queue: JobQueue, request: DmetBathRequest, interrupted: ()
   return settled.state === 'ready' ? { state: 'computed', summary: settled.value as DmetBathSummary } : { state: 'failed', ...failed(settled, interrupted()) };
 }
 
+async function activeSpaceOf(queue: JobQueue, analysis: DocumentAnalysis, computation: PartComputation, interrupted: () => boolean): Promise<PartActiveSpace> {
+  const settled = await queue.whenSettled(computation.activeSpace!);
+  if (settled.state !== 'ready') return { state: 'failed', ...failed(settled, interrupted()) };
+  const tier = computation.part.kind === 'fragment' ? analysis.model.fragments[computation.part.index]!.tier : undefined;
+  const source = tier?.activeSource === 'estimated' && tier.activeChoice ? `estimated-${tier.activeChoice.kind}` : 'given';
+  return { state: 'computed', outcome: settled.value as ActiveSpaceOutcome, counted: { electrons: tier?.active?.electrons ?? 0, orbitals: tier?.active?.orbitals ?? 0, source } };
+}
+
 export async function computeMeanFields(analysis: DocumentAnalysis, options: MeanFieldOptions, io: CliIo): Promise<MeanFieldRun> {
   const store = new LateResults();
   const queue = new JobQueue(store, { workers: options.workers ?? 1, ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}) });
@@ -113,6 +123,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     const request = space === null || 'refusal' in space || 'bound' in space ? space : ({ kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(computation.meanField!), space } as const);
     hamiltonianRequests.set(computation, request);
     if (request && 'kind' in request) entries.push({ request, label: computation.label, explicit: true });
+    if (computation.activeSpace) entries.push({ request: computation.activeSpace, label: computation.label, explicit: true });
   }
   for (const computation of computations) if (computation.bath) entries.push({ request: computation.bath, label: computation.label, explicit: true });
   let interrupted = false;
@@ -145,7 +156,8 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
       } else {
         result = { state: 'failed', reference: request.reference, ...failed(settled, interrupted) };
       }
-      parts.push({ label: computation.label, result, ...(bath ? { bath } : {}) });
+      const activeSpace = computation.activeSpace ? await activeSpaceOf(queue, analysis, computation, () => interrupted) : undefined;
+      parts.push({ label: computation.label, result, ...(activeSpace ? { activeSpace } : {}), ...(bath ? { bath } : {}) });
     }
     return { parts, hamiltonians, interrupted };
   } finally {

@@ -3,6 +3,7 @@
  * for the system and each fragment, and one table (text or Markdown) of every part. These are
  * results of a calculation, not planning estimates, and the output says so.
  */
+import type { PartActiveSpace } from './activeSpace';
 import type { MeanFieldOutcome, Mp2Summary, ScfReference } from '../../analysis';
 import type { PartBath } from './dmetBath';
 import { markdownText, plainText } from './escape';
@@ -17,6 +18,8 @@ export interface MeanFieldPart {
   /** `system` or `fragment <name>`. */
   readonly label: string;
   readonly result: PartMeanField;
+  /** A fragment's active orbitals chosen from its own restricted mean field (fragments with an active space). */
+  readonly activeSpace?: PartActiveSpace;
   /** A fragment's DMET bath from the system's mean field (only under `embedding dmet`). */
   readonly bath?: PartBath;
 }
