@@ -1,10 +1,10 @@
 /**
  * The figures of an analysed spec under stable keys, with the convention behind each: the shapes
  * the CLI's JSON, hover cards, hints, reports and plots all read, so they cannot disagree. All
- * figures are planning estimates.
+ * counted figures are planning estimates; results of the engine are marked computed where shown.
  */
 export const PLANNING_NOTE =
-  'Planning estimates from counting rules, not results of a calculation: use them to size a study, not as guarantees.';
+  'Planning estimates from counting rules, not results of a calculation: use them to size a study, not as guarantees. Figures marked computed are results of Tessera\'s own mean-field engine.';
 
 export const CONVENTIONS = {
   electrons: 'sum of nuclear charges − charge − core electrons replaced by effective core potentials',
