@@ -66,13 +66,14 @@ async function referenceFigures(workspace) {
   if (quantum.length === 0) throw new Error('the demo has no quantum-tier fragment; the status bar check needs one');
   const multiplicity = diagnosticsOf('quick-fix.tess').filter((d) => d.code === 'multiplicity-parity');
   if (multiplicity.length !== 1) throw new Error(`quick-fix.tess should have one multiplicity-parity problem, has ${multiplicity.length}`);
-  const nearest = /nearest valid multiplicity is (\d+)/.exec(multiplicity[0].message)?.[1];
+  // One nearest value, or two ('… are 1 or 3'): the quick fix prefers the first (the lower one).
+  const nearest = /nearest valid multiplicit(?:y is|ies are) (\d+)/.exec(multiplicity[0].message)?.[1];
   if (!nearest) throw new Error(`no nearest multiplicity in '${multiplicity[0].message}'`);
   return {
     mistakes: diagnosticsOf('mistakes.tess'),
     demoName: demo.spec.name,
     demoFragments: demo.fragments.map((f) => f.name),
-    demoFigures: demo.fragments.map(({ name, qubitsRequired, orbitals }) => ({ name, qubitsRequired, orbitals })),
+    demoFigures: demo.fragments.map(({ name, qubitsRequired, orbitals, solverCost }) => ({ name, qubitsRequired, orbitals, solverMemory: solverCost?.memoryBytes?.text ?? null })),
     demoLargest: { fragment: quantum[0].name, qubits: quantum[0].qubitsRequired },
     quickFix: { ...multiplicity[0], nearest: Number(nearest) },
     // The language server's answers for the views (atom lines, colours, charts) over stdio.

@@ -378,7 +378,8 @@ export async function runViewChecks({ root, runDir, shots, toolsDir, webviewDir,
       const text = Object.fromEntries(await Promise.all(['qubits', 'growth', 'scan'].map(async (plot) => [plot, await page.locator(`#plot-${plot} > svg`).evaluate((svg) => svg.textContent)])));
       const selected = costs.fragments.find((f) => f.index === costs.selected);
       const wanted = {
-        qubits: ['Qubits per fragment (planning estimate)', 'Jordan–Wigner', 'Bravyi–Kitaev', 'tapered', ...costs.fragments.map((f) => f.name)],
+        // Only quantum tiers have qubits, so only they get bars.
+        qubits: ['Qubits per fragment (planning estimate)', 'Jordan–Wigner', 'Bravyi–Kitaev', 'tapered', ...structure.fragments.filter((f) => f.tier === 'quantum').map((f) => f.name)],
         growth: [`Cost against active-space size: ${selected.name}`, 'Pauli terms'],
         scan: ['Cumulative cost along the scan', 'measurement circuits'],
       };

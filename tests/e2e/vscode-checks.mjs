@@ -183,14 +183,16 @@ export async function runWorkbenchChecks({ page, workspace, shots, reference, lo
     const wantedLens = `largest quantum fragment ${qubits} qubits (${fragment})`;
     if (!lensText.includes(wantedLens)) throw new Error(`code lens '${lensText}' lacks '${wantedLens}'`);
     const hints = [];
-    for (const { name, qubitsRequired, orbitals } of reference.demoFigures) {
+    for (const { name, qubitsRequired, orbitals, solverMemory } of reference.demoFigures) {
       await goTo(page, lineOf(demo, `fragment ${name} `), 1);
       const hint = activeEditor(page).locator('.view-line', { hasText: `fragment ${name} ` }).first().locator('[class*="dyn-rule-"]', { hasText: /\S/ });
       await hint.first().waitFor({ timeout: WAIT });
       const text = plain((await hint.allTextContents()).join('')).trim();
-      // A quantum fragment's hint names the qubits it needs; another's its orbitals.
-      const fits = qubitsRequired !== null ? new RegExp(`(^|\\D)${qubitsRequired}(\\D|$)`).test(text) && text.includes('qubits') : text.includes(`${orbitals} orbitals`);
-      if (!fits) throw new Error(`inlay hint after '${name}' reads '${text}', expected ${qubitsRequired !== null ? `${qubitsRequired} and 'qubits'` : `'${orbitals} orbitals'`}`);
+      // A quantum fragment's hint names the qubits it needs; a classical tier's its solver's memory
+      // (the command line's solverCost); a fragment without figures its orbitals.
+      const expected = qubitsRequired !== null ? `${qubitsRequired} and 'qubits'` : `'${solverMemory ?? `${orbitals} orbitals`}'`;
+      const fits = qubitsRequired !== null ? new RegExp(`(^|\\D)${qubitsRequired}(\\D|$)`).test(text) && text.includes('qubits') : text.includes(solverMemory ?? `${orbitals} orbitals`);
+      if (!fits) throw new Error(`inlay hint after '${name}' reads '${text}', expected ${expected}`);
       hints.push(`${name} → '${text}'`);
     }
     return `code lens: '${lensText}'; inlay hints: ${hints.join(', ')}`;
