@@ -58,6 +58,23 @@ export function plain(text) {
 
 const QUICK_INPUT = '.quick-input-widget';
 
+/**
+ * Presses a shortcut that opens a quick input and waits for it. The workbench can swallow the
+ * shortcut while focus is still leaving a webview (seen after the structure view's clicks): it is
+ * pressed again, up to three times, before the wait fails.
+ */
+async function openQuickInput(page, shortcut) {
+  for (let attempt = 1; ; attempt++) {
+    await page.keyboard.press(shortcut);
+    try {
+      await page.locator(`${QUICK_INPUT} input`).waitFor({ state: 'visible', timeout: 5_000 });
+      return;
+    } catch (error) {
+      if (attempt === 3) throw error;
+    }
+  }
+}
+
 async function waitQuickInput(page) {
   await page.locator(`${QUICK_INPUT} input`).waitFor({ state: 'visible', timeout: 15_000 });
 }
@@ -98,8 +115,7 @@ export async function openFile(page, name) {
 /** Runs a command from the command palette by its exact title. */
 export async function runCommand(page, title) {
   await dismiss(page);
-  await page.keyboard.press('Control+Shift+P');
-  await waitQuickInput(page);
+  await openQuickInput(page, 'Control+Shift+P');
   await page.keyboard.type(title, { delay: 10 });
   const row = page.locator(`${QUICK_INPUT} .monaco-list-row`).filter({ has: page.locator('.label-name', { hasText: new RegExp(`^${escapeRegExp(title)}$`) }) }).first();
   await row.waitFor({ timeout: 15_000 });
@@ -119,8 +135,7 @@ export function activeEditor(page) {
 /** Moves the cursor with Go to Line (Ctrl+G), `line` and `column` 1-based. */
 export async function goTo(page, line, column = 1) {
   await dismiss(page);
-  await page.keyboard.press('Control+G');
-  await waitQuickInput(page);
+  await openQuickInput(page, 'Control+G');
   await page.keyboard.type(`${line}:${column}`, { delay: 10 });
   await page.keyboard.press('Enter');
   await page.locator(`${QUICK_INPUT}`).waitFor({ state: 'hidden', timeout: 5_000 });
