@@ -1,10 +1,10 @@
 /**
  * The language server while an SCF job runs in its worker thread. The same spec (an idealised
- * benzene, invented: C–C 1.39 Å, C–H 1.09 Å, D6h, in cc-pVDZ: 114 basis functions, an SCF of
- * several seconds here) is opened in two fresh servers over stdio:
+ * naphthalene, invented, in cc-pVDZ: 180 basis functions, an SCF of several seconds even on a quiet
+ * machine) is opened in two fresh servers over stdio:
  *
  * - the anchor, with `tessera.meanField.autoFunctionLimit` 0: nothing is computed;
- * - the loaded server, with the default limit (150): the fragment's mean field starts by itself.
+ * - the loaded server, with the limit raised above the part's size: its mean field starts by itself.
  *
  * In each, once the job runs (loaded) or after the same wait (anchor), a comment digit is edited
  * every 150 ms (an edit that keeps the fragment's inputs, so the job goes on) and each edit is
@@ -24,13 +24,35 @@ import { ms, summarize, type Timing } from './timing';
 const EDITS = 40;
 const EDIT_INTERVAL_MS = 150;
 
-function benzeneSpec(): string {
+/**
+ * An idealised naphthalene (invented geometry: regular hexagons, C–C 1.40 Å, C–H 1.09 Å, D2h), in
+ * cc-pVDZ: 10 × 14 + 8 × 5 = 180 basis functions, so that the SCF runs for several seconds even on a
+ * quiet machine and the edits below all fall while it runs.
+ */
+function naphthaleneSpec(): string {
+  const cc = 1.4;
+  const ch = 1.09;
   const rows: string[] = [];
-  for (const [symbol, radius] of [['C', 1.39], ['H', 2.48]] as const) {
-    for (let k = 0; k < 6; k++) rows.push(`  ${symbol} ${symbol.toLowerCase()}${k + 1} ${(radius * Math.cos((k * Math.PI) / 3)).toFixed(6)} ${(radius * Math.sin((k * Math.PI) / 3)).toFixed(6)} 0.000000`);
+  const place = (symbol: string, name: string, x: number, y: number) => rows.push(`  ${symbol} ${name} ${x.toFixed(6)} ${y.toFixed(6)} 0.000000`);
+  place('C', 'c1', 0, cc / 2);
+  place('C', 'c2', 0, -cc / 2);
+  let carbon = 3;
+  let hydrogen = 1;
+  for (const side of [1, -1]) {
+    const centre = (side * cc * Math.sqrt(3)) / 2;
+    for (const degrees of [90, 30, -30, -90]) {
+      const angle = (degrees * Math.PI) / 180;
+      const dx = side * Math.cos(angle);
+      const dy = Math.sin(angle);
+      place('C', `c${carbon++}`, centre + cc * dx, cc * dy);
+      place('H', `h${hydrogen++}`, centre + (cc + ch) * dx, (cc + ch) * dy);
+    }
   }
-  return ['spec "benzene"', '# note 1000', 'basis cc-pVDZ', 'structure {', ...rows, '}', 'fragment ring {', '  atoms rest', '  tier quantum {', '    method vqe', '    active 6e 6o', '  }', '}', ''].join('\n');
+  return ['spec "naphthalene"', '# note 1000', 'basis cc-pVDZ', 'structure {', ...rows, '}', 'fragment rings {', '  atoms rest', '  tier quantum {', '    method vqe', '    active 10e 10o', '  }', '}', ''].join('\n');
 }
+
+/** Large enough that the loaded server computes the 180-function part by itself. */
+const LOADED_FUNCTION_LIMIT = 400;
 
 interface Position {
   line: number;
@@ -109,9 +131,9 @@ function jobState(progress: Map<string, ProgressValue[]>): { running: boolean; e
 }
 
 async function run(loaded: boolean): Promise<Run> {
-  const { connection, stop, progress, onProgress } = await startServer(loaded ? 150 : 0);
-  const uri = 'file:///bench/benzene-job.tess';
-  let text = benzeneSpec();
+  const { connection, stop, progress, onProgress } = await startServer(loaded ? LOADED_FUNCTION_LIMIT : 0);
+  const uri = 'file:///bench/naphthalene-job.tess';
+  let text = naphthaleneSpec();
   let version = 1;
   let publishedVersion = 0;
   const waiters: { version: number; resolve: (at: number) => void }[] = [];
@@ -155,7 +177,7 @@ async function run(loaded: boolean): Promise<Run> {
     latencies.push(published(edited).then((at) => at - sent));
     const asked = performance.now();
     if (k % 2 === 0) {
-      const at = text.indexOf('fragment ring') + 'fragment ri'.length;
+      const at = text.indexOf('fragment rings') + 'fragment ri'.length;
       hovers.push(connection.sendRequest('textDocument/hover', { textDocument: { uri }, position: positionOf(text, at) }).then(() => performance.now() - asked));
     } else {
       const at = text.indexOf('method vqe') + 'method '.length;
@@ -199,7 +221,7 @@ export async function benchJobs(): Promise<string[]> {
   const lines = [
     '## Language server while an SCF job runs',
     '',
-    `Benzene/cc-pVDZ (114 functions), ${EDITS} comment edits ${EDIT_INTERVAL_MS} ms apart, each followed by a hover or a completion; anchor: the same spec on a server that computes nothing, in this run; ${ROUNDS} rounds of anchor then loaded. Load average at the start: ${loadavg().map((value) => value.toFixed(1)).join(', ')} (2 cores shared).`,
+    `Naphthalene/cc-pVDZ (180 functions, computed by itself with the auto-compute limit raised to ${LOADED_FUNCTION_LIMIT}), ${EDITS} comment edits ${EDIT_INTERVAL_MS} ms apart, each followed by a hover or a completion; anchor: the same spec on a server that computes nothing, in this run; ${ROUNDS} rounds of anchor then loaded. Load average at the start: ${loadavg().map((value) => value.toFixed(1)).join(', ')} (2 cores shared).`,
   ];
   for (let round = 1; round <= ROUNDS; round++) {
     const anchor = await run(false);
