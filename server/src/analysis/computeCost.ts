@@ -3,12 +3,13 @@
  * an estimate, said so wherever it is shown, used to decide which parts run by themselves, to
  * label the offer to compute the others, and to refuse a job that does not fit the memory limit.
  *
- * Time: t ≈ 0.5 s + 15 s × (n / 114)^2.5 for the SCF, fitted to the mean-field benchmark
- * (bench/scf.ts on the development machine, 2 shared cores: water/cc-pVDZ 24 functions 1.1 s,
- * benzene/6-31G* 102 functions 10 s, benzene/cc-pVDZ 114 functions 15 s); the exponent 2.5
- * between the formal n⁴ and the n² that Schwarz screening approaches in large, spread-out parts
- * (common practice). MP2 adds the integral-direct transformation, taken as 60 % of the SCF.
- *
+ * Time: t ≈ 0.1 s + 4 s × (n / 114)^2.75 for the SCF, fitted to the mean-field benchmark
+ * (bench/scf.ts, processor seconds on the development machine with a free core, 2026-12-03:
+ * water/cc-pVDZ 24 functions 0.09 s, benzene/6-31G* 102 functions 2.6 s, benzene/cc-pVDZ 114
+ * functions 4.2 s, 13 waters/cc-pVDZ 312 functions 66 s); the exponent 2.75 lies between the formal
+ * n⁴ and the n² that Schwarz screening approaches in large, spread-out parts. MP2 adds the
+ * integral-direct transformation, taken as twice the SCF (benzene/cc-pVDZ: 11.6 s after a 5.7 s
+ * SCF in the same run). A busy machine stretches both; the figure is a planning estimate.
  * Memory: a worker's baseline (48 MiB), the SCF's dense matrices (about 40 n² doubles: overlap,
  * core Hamiltonian, Fock, density, Coulomb, exchange and coefficients per spin, DIIS history of 8
  * Fock and error matrices per spin) and the stored two-electron integrals (n⁴/8 values at most,
@@ -43,7 +44,7 @@ export interface ComputeCost {
 /** The cost of one part's mean field (SCF; MP2 separately) under a memory limit. */
 export function computeCost(functions: number, memoryLimitBytes = DEFAULT_MEMORY_LIMIT_BYTES): ComputeCost {
   const n = Math.max(0, functions);
-  const scfSeconds = 0.5 + 15 * (n / 114) ** 2.5;
+  const scfSeconds = 0.1 + 4 * (n / 114) ** 2.75;
   const matrices = 40 * n * n * 8;
   const requiredBytes = WORKER_BASELINE_BYTES + matrices;
   const allIntegrals = (n ** 4 / 8) * 8;
@@ -51,7 +52,7 @@ export function computeCost(functions: number, memoryLimitBytes = DEFAULT_MEMORY
   return {
     functions: n,
     scfSeconds,
-    mp2Seconds: 0.6 * scfSeconds,
+    mp2Seconds: 2 * scfSeconds,
     requiredBytes,
     expectedBytes: requiredBytes + storageBytes,
     storageBytes,
