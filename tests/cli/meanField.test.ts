@@ -73,6 +73,12 @@ describe('tessera estimate --mean-field against psi4 1.3.2', () => {
     const { json } = await estimateCase(c, ['--frozen-core']);
     expect(Math.abs(json['system']['meanField']['mp2']['correlationEnergy'] - c.mp2FrozenCore!)).toBeLessThan(1e-6);
     expect(json['system']['meanField']['mp2']['frozenOrbitals']).toBe(1);
+    // The text table says which MP2 the figure is: psi4's frozen-core value, 1 frozen orbital.
+    const folder = scratch({ 'molecule.xyz': xyzOf(c.geometry) });
+    const frozen = await run(['estimate', '--xyz', 'molecule.xyz', '--basis', 'cc-pVDZ', '--mean-field', '--frozen-core'], folder);
+    expect(frozen.stdout).toContain(`${c.mp2FrozenCore!.toFixed(6)} (1 frozen-core orbital)`);
+    const all = await run(['estimate', '--xyz', 'molecule.xyz', '--basis', 'cc-pVDZ', '--mean-field'], folder);
+    expect(all.stdout).toContain(`${c.mp2!.toFixed(6)} (all electrons)`);
   });
 
   it('defaults to UHF for a doublet cation, with UHF MP2 and β orbital energies of their own (psi4 1.3.2 fixture)', async () => {

@@ -68,7 +68,7 @@ function table(parts: readonly ActiveSpacePart[]): Table {
     }
     const o = activeSpace.outcome;
     for (const d of o.details) {
-      const character = d.character ? `${d.character.symbol}${d.character.center + 1} ${SHELL_LETTERS[d.character.l] ?? d.character.l} ${d.character.weight.toFixed(2)}` : '–';
+      const character = d.character ? `${d.character.symbol} (atom ${d.character.center + 1}) ${SHELL_LETTERS[d.character.l] ?? d.character.l} ${d.character.weight.toFixed(2)}` : '–';
       rows.push([label, String(d.index + 1), d.energy === null ? '–' : d.energy.toFixed(4), o.orbitalKind === 'natural' ? d.occupation.toFixed(4) : String(d.occupation), d.irrep ?? '–', character]);
     }
   }
@@ -76,7 +76,7 @@ function table(parts: readonly ActiveSpacePart[]): Table {
 }
 
 export const ACTIVE_SPACE_NOTE =
-  "Computed from each fragment's own restricted mean field (ROHF for open shells; no embedding): a result. The plan's figures above count the active space (`counted` in JSON); main character is the atom and l with the largest Mulliken share.";
+  "Computed from each fragment's own restricted mean field (ROHF for open shells; no embedding): a result. The plan's figures above count the active space (`counted` in JSON); main character is the atom (numbered in the part's order) and l with the largest Mulliken share.";
 
 export function renderActiveSpaceText(parts: readonly ActiveSpacePart[]): string {
   return [renderTextTable(table(parts)), ACTIVE_SPACE_NOTE, ''].join('\n');

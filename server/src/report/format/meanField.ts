@@ -68,6 +68,11 @@ function energy(value: number | null): string {
   return value === null ? '–' : value.toFixed(6);
 }
 
+/** "all electrons", "1 frozen-core orbital", "2 frozen-core orbitals": which MP2 the figure is. */
+function frozenText(frozen: number): string {
+  return frozen === 0 ? 'all electrons' : `${frozen} frozen-core orbital${frozen === 1 ? '' : 's'}`;
+}
+
 /** One row per part: reference, energy, convergence, frontier orbitals, MP2. */
 export function meanFieldTable(parts: readonly MeanFieldPart[]): Table {
   return {
@@ -77,7 +82,7 @@ export function meanFieldTable(parts: readonly MeanFieldPart[]): Table {
     rows: parts.map(({ label, result }) => {
       if (result.state === 'failed') return [label, result.reference?.toUpperCase() ?? '–', '–', 'not computed', '–', '–', '–', '–', '–'];
       const r = result.outcome.result;
-      const mp2 = result.mp2 === null ? '–' : 'error' in result.mp2 ? 'not computed' : energy(result.mp2.correlationEnergy);
+      const mp2 = result.mp2 === null ? '–' : 'error' in result.mp2 ? 'not computed' : `${energy(result.mp2.correlationEnergy)} (${frozenText(result.mp2.frozenOrbitals)})`;
       return [
         label,
         r.reference.toUpperCase(),
