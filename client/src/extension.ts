@@ -8,12 +8,15 @@ import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
 import { makeNonce, reportPageHtml } from './views/html';
 import { CostsPanel, LevelsPanel, StructurePanel, type ViewHost } from './views/panels';
+import { RefreshScheduler } from './views/refresh';
 
 let client: LanguageClient | undefined;
 let statusItem: vscode.StatusBarItem | undefined;
 let reportPanel: vscode.WebviewPanel | undefined;
 let comparePanel: vscode.WebviewPanel | undefined;
 let reportUri: string | undefined;
+/** The open report renders again after a pause in typing, one render at a time (refresh.ts). */
+const reportRefresh = new RefreshScheduler(() => (reportPanel ? showReport(false) : Promise.resolve()));
 let structurePanel: StructurePanel | undefined;
 let costsPanel: CostsPanel | undefined;
 let levelsPanel: LevelsPanel | undefined;
@@ -175,6 +178,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   context.subscriptions.push(
     statusItem,
     ...panels,
+    reportRefresh,
     vscode.commands.registerCommand('tessera.showReport', () => showReport()),
     vscode.commands.registerCommand('tessera.comparePlans', showComparison),
     vscode.commands.registerCommand('tessera.showStructure', showStructure),
@@ -191,6 +195,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     }),
     vscode.workspace.onDidChangeTextDocument((event) => {
       for (const panel of panels) panel.documentChanged(event.document);
+      if (reportPanel && event.document.uri.toString() === reportUri) reportRefresh.changed();
     }),
     vscode.workspace.onDidCloseTextDocument((document) => {
       for (const panel of panels) panel.documentClosed(document);
@@ -200,7 +205,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
       const active = activeSpec();
       if (!active || !event.uris.some((uri) => uri.toString() === active.uri.toString())) return;
       void refreshStatus();
-      if (reportPanel && reportUri === active.uri.toString()) void showReport(false);
+      if (reportPanel && reportUri === active.uri.toString()) reportRefresh.changed();
     }),
   );
   await client.start();

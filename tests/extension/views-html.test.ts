@@ -3,8 +3,14 @@
  * nonce, one script from the extension's folder carrying that nonce, no inline script or handler,
  * and the planning-estimate note.
  */
+import { readFileSync } from 'node:fs';
+import * as path from 'node:path';
+import MarkdownIt from 'markdown-it';
 import { describe, expect, it } from 'vitest';
-import { contentSecurityPolicy, makeNonce, reportPageHtml, viewPage, type ViewKind } from '../../client/src/views/html';
+import { analyzeDocument } from '../../server/src/analysis';
+import { reportMarkdown } from '../../server/src/services/report';
+import { compareMarkdown } from '../../server/src/services/compare';
+import { contentSecurityPolicy, makeNonce, reportPageHtml, viewPage, withoutInlineStyles, type ViewKind } from '../../client/src/views/html';
 
 const CSP_SOURCE = 'https://file+.vscode-resource.vscode-cdn.net';
 const NONCE = 'bm9uY2UtZm9yLXRoZS10ZXN0';
@@ -50,7 +56,58 @@ describe('the report panel', () => {
   });
 });
 
+/**
+ * The report and comparison panels show the server's Markdown as VS Code renders it: markdown-it
+ * (the renderer of its Markdown preview, HTML enabled as there) turns a `---:` column rule into
+ * `style="text-align:right"` on every cell, which the page's policy (no 'unsafe-inline' styles)
+ * refuses, one CSP error per cell, and the numbers fall back to the left.
+ */
+describe('the report panel’s tables', () => {
+  const markdown = new MarkdownIt({ html: true, linkify: false });
+  const SAMPLE = path.resolve(__dirname, '../../samples/zn-site-h2s-scan.tess');
+  const analysis = analyzeDocument(readFileSync(SAMPLE, 'utf8'), { path: SAMPLE });
+  const rendered = markdown.render(reportMarkdown(analysis));
+  const page = reportPageHtml(CSP_SOURCE, NONCE, rendered);
+
+  it('the renderer does give inline alignment (else this test checks nothing)', () => {
+    expect(rendered).toMatch(/<td style="text-align:right">/);
+  });
+
+  it('has no inline style attribute left', () => {
+    expect(page).not.toMatch(/<[a-z][^>]*\sstyle\s*=/i);
+  });
+
+  it('gives every right-aligned cell the page’s right-aligned class instead, and the class is in the stylesheet', () => {
+    const before = rendered.match(/<t[dh] style="text-align:right">/g)!.length;
+    expect(page.match(/<t[dh] class="ts-right">/g)).toHaveLength(before);
+    expect(page).toMatch(/<style nonce="[^"]+">[\s\S]*\.ts-right \{ text-align: right; \}[\s\S]*<\/style>/);
+  });
+
+  it('right-aligns every cell that holds a plain number', () => {
+    const cells = [...page.matchAll(/<td([^>]*)>([^<]*)<\/td>/g)];
+    const numbers = cells.filter(([, , text]) => /^[+-]?\d[\d,]*(\.\d+)?$/.test(text!.trim()));
+    expect(numbers.length).toBeGreaterThan(20);
+    for (const [, attributes, text] of numbers) expect(`${text}:${attributes}`).toBe(`${text}: class="ts-right"`);
+  });
+
+  it('does the same for the comparison of plan variants', () => {
+    const variants = `${readFileSync(SAMPLE, 'utf8')}\nvariant smaller { basis sto-3g }\n`;
+    const compared = compareMarkdown(analyzeDocument(variants, { path: SAMPLE }), 'zn.tess');
+    const html = markdown.render(compared);
+    expect(html).toMatch(/style="text-align:right"/);
+    expect(reportPageHtml(CSP_SOURCE, NONCE, html)).not.toMatch(/\sstyle\s*=/i);
+  });
+
+  it('turns other alignments into classes and drops any other inline style', () => {
+    expect(withoutInlineStyles('<th style="text-align:center">a</th><td style="text-align: left;">b</td><p style="color:red">c</p>')).toBe('<th class="ts-center">a</th><td class="ts-left">b</td><p>c</p>');
+  });
+});
+
 describe('the pages', () => {
+  it('levels: no inline style either', () => {
+    expect(page('levels')).not.toMatch(/\sstyle="/i);
+  });
+
   it.each<ViewKind>(['structure', 'costs'])('%s: one script, from the extension folder, with the nonce; no inline code', (kind) => {
     const html = page(kind);
     const scripts = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)];

@@ -39,8 +39,21 @@ export function contentSecurityPolicy(cspSource: string, nonce: string): string 
 }
 
 /**
+ * Rendered Markdown without inline `style` attributes, which the report page's policy refuses
+ * (each one is a CSP error and its effect is lost): the renderer's column alignment
+ * (`style="text-align:right"` on table cells, from a `---:` rule) becomes a class of the page's
+ * stylesheet (`ts-right`, `ts-center`, `ts-left`), and any other inline style is dropped.
+ */
+export function withoutInlineStyles(html: string): string {
+  return html
+    .replace(/<(td|th)\b([^>]*?)\sstyle="\s*text-align:\s*(left|center|right)\s*;?\s*"([^>]*)>/gi, (_, tag: string, before: string, side: string, after: string) => `<${tag}${before} class="ts-${side.toLowerCase()}"${after}>`)
+    .replace(/(<[a-z][^>]*?)\sstyle="[^"]*"/gi, '$1');
+}
+
+/**
  * The report panel: Markdown already rendered to HTML by the extension, no script at all; styles
- * only from its nonce'd block, images from the extension's folder and data: URLs.
+ * only from its nonce'd block, images from the extension's folder and data: URLs. Inline styles
+ * in the body become classes or go (`withoutInlineStyles`).
  */
 export function reportPageHtml(cspSource: string, nonce: string, body: string): string {
   return `<!DOCTYPE html>
@@ -52,9 +65,12 @@ body { font-family: var(--vscode-font-family); font-size: var(--vscode-font-size
 table { border-collapse: collapse; margin: 0.5em 0 1.2em; }
 th, td { border: 1px solid var(--vscode-panel-border, #8884); padding: 0.2em 0.6em; }
 td { font-variant-numeric: tabular-nums; }
+.ts-right { text-align: right; }
+.ts-center { text-align: center; }
+.ts-left { text-align: left; }
 blockquote { border-left: 3px solid var(--vscode-textLink-foreground); margin: 0.5em 0; padding-left: 0.8em; }
 code { font-family: var(--vscode-editor-font-family); }
-</style></head><body>${body}</body></html>`;
+</style></head><body>${withoutInlineStyles(body)}</body></html>`;
 }
 
 function escapeHtml(text: string): string {

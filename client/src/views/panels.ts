@@ -24,9 +24,8 @@ import {
   type ViewCosts,
   type ViewStructure,
 } from './protocol';
+import { RefreshScheduler } from './refresh';
 
-/** Quiet time after the last keystroke before a view asks for fresh data. */
-const REFRESH_DELAY_MS = 300;
 /** Quiet time after the last cursor move before the structure view's highlight follows it. */
 const CURSOR_DELAY_MS = 80;
 
@@ -45,7 +44,8 @@ function fileName(uri: string): string {
 abstract class SpecPanel<HostMessage> implements vscode.Disposable {
   protected panel: vscode.WebviewPanel | undefined;
   protected uri: string | undefined;
-  private refreshTimer: ReturnType<typeof setTimeout> | undefined;
+  /** Edits refresh the view after a pause in typing, one refresh at a time (refresh.ts). */
+  private readonly edits = new RefreshScheduler(() => (this.panel ? this.refresh() : Promise.resolve()));
   /** Answers to earlier requests are dropped when a later one was sent. */
   private generation = 0;
 
@@ -81,15 +81,13 @@ abstract class SpecPanel<HostMessage> implements vscode.Disposable {
     panel.webview.onDidReceiveMessage((raw: unknown) => this.receive(raw));
     panel.onDidDispose(() => {
       this.panel = undefined;
-      if (this.refreshTimer) clearTimeout(this.refreshTimer);
     });
   }
 
-  /** The spec changed: ask again after a quiet moment. */
+  /** The spec changed: ask again after a pause in typing. */
   documentChanged(document: vscode.TextDocument): void {
     if (!this.panel || document.uri.toString() !== this.uri) return;
-    if (this.refreshTimer) clearTimeout(this.refreshTimer);
-    this.refreshTimer = setTimeout(() => void this.refresh(), REFRESH_DELAY_MS);
+    this.edits.changed();
   }
 
   /** Another spec became active: show that one. */
@@ -107,6 +105,7 @@ abstract class SpecPanel<HostMessage> implements vscode.Disposable {
   }
 
   dispose(): void {
+    this.edits.dispose();
     this.panel?.dispose();
   }
 
