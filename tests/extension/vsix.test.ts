@@ -99,6 +99,8 @@ describe('the .vsix package', () => {
         'tessera.meanField.autoFunctionLimit',
         'tessera.jobs.workers',
         'tessera.jobs.memoryLimit',
+        'tessera.embedding.bathThreshold',
+        'tessera.embedding.bathOrbitals',
         'tessera.trace.server',
       ]),
     );

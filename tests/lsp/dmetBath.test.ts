@@ -5,7 +5,8 @@
  *
  * Check values: the Li+–water case of tests/fixtures/dmet-bath.psi4.json (made by
  * scripts/data/generate_dmet_bath_fixture.py with psi4 1.3.2 and numpy): 6 bath orbitals per
- * fragment, 12 impurity electrons, largest singular value 0.286.
+ * fragment, 12 impurity electrons, largest singular value 0.286; with the editor's threshold at 0.1
+ * the same fixture's singular values (0.286, 0.208, 0.144, 0.095, …) keep 3 bath orbitals.
  */
 import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
@@ -41,27 +42,33 @@ afterEach(async () => {
   client = undefined;
 });
 
+/** Opens the Li+–water spec with the given settings and returns the water fragment's hover once its bath is computed. */
+async function computedBathHover(settings: Record<string, unknown>): Promise<string> {
+  client = await startServer({ capabilities: { window: { workDoneProgress: true } }, settings });
+  const c = client;
+  c.connection.onRequest('window/workDoneProgress/create', () => null);
+  c.connection.onNotification('$/progress', () => undefined);
+  c.connection.onNotification('tessera/computedChanged', () => undefined);
+  const uri = pathToFileURL(path.join(ROOT, 'samples', 'li-water-bath.tess')).toString();
+  const text = spec();
+  const published = c.diagnostics(uri);
+  c.open(uri, text);
+  expect((await published).filter((d) => d.severity === 1)).toEqual([]);
+  const hover = async () => ((await c.request<Hover>('textDocument/hover', { textDocument: { uri }, position: positionOf(text, 'fragment water') })).contents as MarkupContent).value;
+  const first = await hover();
+  expect(first).toMatch(/\*\*DMET bath\*\* · (computing|computed once)/);
+  const end = Date.now() + 120_000;
+  let value = first;
+  while (!value.includes('DMET bath (computed)') && Date.now() < end) {
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    value = await hover();
+  }
+  return value;
+}
+
 describe('computed DMET bath over stdio', () => {
   it('shows the bath of a fragment once the system mean field and the bath job have run', async () => {
-    client = await startServer({ capabilities: { window: { workDoneProgress: true } } });
-    const c = client;
-    c.connection.onRequest('window/workDoneProgress/create', () => null);
-    c.connection.onNotification('$/progress', () => undefined);
-    c.connection.onNotification('tessera/computedChanged', () => undefined);
-    const uri = pathToFileURL(path.join(ROOT, 'samples', 'li-water-bath.tess')).toString();
-    const text = spec();
-    const published = c.diagnostics(uri);
-    c.open(uri, text);
-    expect((await published).filter((d) => d.severity === 1)).toEqual([]);
-    const hover = async () => ((await c.request<Hover>('textDocument/hover', { textDocument: { uri }, position: positionOf(text, 'fragment water') })).contents as MarkupContent).value;
-    const first = await hover();
-    expect(first).toMatch(/\*\*DMET bath\*\* · (computing|computed once)/);
-    const end = Date.now() + 120_000;
-    let value = first;
-    while (!value.includes('DMET bath (computed)') && Date.now() < end) {
-      await new Promise((resolve) => setTimeout(resolve, 200));
-      value = await hover();
-    }
+    const value = await computedBathHover({});
     expect(value).toContain("**DMET bath (computed)** · from the system's RHF mean field");
     const fragment = LITHIUM.fragments[1]!;
     expect(value).toContain(`| bath orbitals | ${fragment.alpha.bathOrbitals} | ${fragment.alpha.bathOrbitals} |`);
@@ -70,5 +77,18 @@ describe('computed DMET bath over stdio', () => {
     expect(value).toContain('The DMET impurity in the planning figures above is counted');
     expect(value).toContain(`Singular values σ: ${fragment.alpha.singularValues[0]!.toPrecision(3)}`);
     expect(value).toContain('| | computed | counted |');
+  }, 180_000);
+
+  it('takes the bath threshold from the editor settings (tessera.embedding.bathThreshold)', async () => {
+    const value = await computedBathHover({ embedding: { bathThreshold: 0.1 } });
+    expect(value).toContain('bath where σ > 1e-1');
+    expect(value).toContain('Löwdin-orthogonalised atomic orbitals');
+    // Fixture singular values of the water fragment: 0.286, 0.208, 0.144, 0.095, ...: three above 0.1.
+    expect(value).toMatch(/\| bath orbitals \| 3 \| \d+ \|/);
+  }, 180_000);
+
+  it('builds the bath against intrinsic atomic orbitals when the editor asks (tessera.embedding.bathOrbitals)', async () => {
+    const value = await computedBathHover({ embedding: { bathOrbitals: 'iao' } });
+    expect(value).toContain('intrinsic atomic orbitals (minimal basis');
   }, 180_000);
 });

@@ -31,13 +31,19 @@ import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
 import { analyseVariants, reportVariantProblems, type VariantAnalysis } from './variants';
-import { partComputation, type HamiltonianSpace, type PartComputation } from './computed';
+import { partComputation, type BathOrbitals, type HamiltonianSpace, type PartComputation, type RequestOptions } from './computed';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
 export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkImpurityActiveSpaces, checkLimits];
 
-export type AnalysisOptions = AnalyzeOptions;
+/** The language options, and the settings of computations that the text does not hold. */
+export interface AnalysisOptions extends AnalyzeOptions {
+  /** Singular values above it give DMET bath orbitals (editor setting `tessera.embedding.bathThreshold`). */
+  readonly bathThreshold?: number;
+  /** The fragment's orbitals the DMET bath is built against (`tessera.embedding.bathOrbitals`). */
+  readonly bathOrbitals?: BathOrbitals;
+}
 
 export class DocumentAnalysis {
   readonly text: string;
@@ -168,7 +174,11 @@ export class DocumentAnalysis {
     const id = part.kind === 'system' ? 'system' : String(part.index);
     let computation = this.computations.get(id);
     if (!computation) {
-      computation = partComputation(this.model, part, part.kind === 'fragment' ? { activeSpace: this.activeSpaceChoice(part.index) } : {});
+      const settings: RequestOptions = {
+        ...(this.options.bathThreshold !== undefined ? { bathThreshold: this.options.bathThreshold } : {}),
+        ...(this.options.bathOrbitals !== undefined ? { bathOrbitals: this.options.bathOrbitals } : {}),
+      };
+      computation = partComputation(this.model, part, part.kind === 'fragment' ? { ...settings, activeSpace: this.activeSpaceChoice(part.index) } : settings);
       this.computations.set(id, computation);
     }
     return computation;

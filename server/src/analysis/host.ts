@@ -6,6 +6,7 @@
  */
 import * as path from 'node:path';
 import type { Mapping } from '../chemistry/qubits';
+import type { BathOrbitals } from './computed';
 import { diskFileHost, type FileHost } from '../language/files';
 import { analyzeDocument, type DocumentAnalysis } from './document';
 import { LateResults } from './late';
@@ -13,6 +14,8 @@ import { LateResults } from './late';
 export interface AnalysisSettings {
   readonly defaultMapping?: Mapping;
   readonly defaultQubitLimit?: number;
+  readonly bathThreshold?: number;
+  readonly bathOrbitals?: BathOrbitals;
 }
 
 export interface OpenDocument {
@@ -71,6 +74,8 @@ export class AnalysisHost {
         ...(cached ? { previous: cached.analysis } : {}),
         ...(this.settings.defaultMapping ? { defaultMapping: this.settings.defaultMapping } : {}),
         ...(this.settings.defaultQubitLimit ? { defaultQubitLimit: this.settings.defaultQubitLimit } : {}),
+        ...(this.settings.bathThreshold !== undefined ? { bathThreshold: this.settings.bathThreshold } : {}),
+        ...(this.settings.bathOrbitals !== undefined ? { bathOrbitals: this.settings.bathOrbitals } : {}),
       },
       this.late,
     );

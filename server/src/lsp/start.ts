@@ -20,7 +20,7 @@ import {
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { MAPPINGS, type Mapping } from '../chemistry/qubits';
 import * as service from '../services';
-import { AnalysisHost, type AnalysisSettings } from '../analysis';
+import { AnalysisHost, DEFAULT_BATH_THRESHOLD, type AnalysisSettings, type BathOrbitals } from '../analysis';
 import { DEFAULT_COMPUTE_SETTINGS, readComputeSettings, ServerComputations, type ComputeEditorSettings } from './computations';
 import { CoalescingScheduler, pathToUri, uriToPath } from './documents';
 import { FailureReporter } from './guard';
@@ -50,9 +50,12 @@ export interface EditorSettings {
   inlayHints: boolean;
   codeLens: boolean;
   compute: ComputeEditorSettings;
+  /** The computed DMET bath: threshold on the singular values, and the fragment's orbitals. */
+  bathThreshold: number;
+  bathOrbitals: BathOrbitals;
 }
 
-const DEFAULT_SETTINGS: EditorSettings = { defaultMapping: 'jordan-wigner', qubitLimit: null, inlayHints: true, codeLens: true, compute: DEFAULT_COMPUTE_SETTINGS };
+const DEFAULT_SETTINGS: EditorSettings = { defaultMapping: 'jordan-wigner', qubitLimit: null, inlayHints: true, codeLens: true, compute: DEFAULT_COMPUTE_SETTINGS, bathThreshold: DEFAULT_BATH_THRESHOLD, bathOrbitals: 'lowdin' };
 
 /** While jobs report progress, code lenses (which show it) are refreshed at most this often. */
 const PROGRESS_LENS_INTERVAL_MS = 1000;
@@ -63,12 +66,28 @@ function readSettings(raw: unknown): EditorSettings {
   const limit = section['qubitLimit'];
   const inlay = (section['inlayHints'] as Record<string, unknown> | undefined)?.['enabled'];
   const lens = (section['codeLens'] as Record<string, unknown> | undefined)?.['enabled'];
+  const embedding = (section['embedding'] ?? {}) as Record<string, unknown>;
+  const threshold = embedding['bathThreshold'];
+  const orbitals = embedding['bathOrbitals'];
   return {
     defaultMapping: typeof mapping === 'string' && (MAPPINGS as readonly string[]).includes(mapping) ? (mapping as Mapping) : DEFAULT_SETTINGS.defaultMapping,
     qubitLimit: typeof limit === 'number' && Number.isInteger(limit) && limit > 0 ? limit : null,
     inlayHints: typeof inlay === 'boolean' ? inlay : true,
     codeLens: typeof lens === 'boolean' ? lens : true,
     compute: readComputeSettings(section),
+    // The same range the command line's --bath-threshold accepts.
+    bathThreshold: typeof threshold === 'number' && threshold > 0 && threshold < 0.5 ? threshold : DEFAULT_BATH_THRESHOLD,
+    bathOrbitals: orbitals === 'iao' || orbitals === 'lowdin' ? orbitals : 'lowdin',
+  };
+}
+
+/** What the analyses take from the editor settings. */
+function analysisSettingsOf(settings: EditorSettings): AnalysisSettings {
+  return {
+    defaultMapping: settings.defaultMapping,
+    ...(settings.qubitLimit ? { defaultQubitLimit: settings.qubitLimit } : {}),
+    bathThreshold: settings.bathThreshold,
+    bathOrbitals: settings.bathOrbitals,
   };
 }
 
@@ -171,8 +190,7 @@ export function startLanguageServer(given?: Connection): Connection {
     // Settings are sent again on every change of any setting; unchanged ones keep the analyses.
     if (unchanged) return;
     computations.configure(next.compute);
-    const analysisSettings: AnalysisSettings = { defaultMapping: next.defaultMapping, ...(next.qubitLimit ? { defaultQubitLimit: next.qubitLimit } : {}) };
-    cache.configure(analysisSettings);
+    cache.configure(analysisSettingsOf(next));
     for (const document of documents.all()) schedulePublish(document.uri);
     void connection.sendNotification('tessera/settingsChanged');
   };
@@ -195,7 +213,7 @@ export function startLanguageServer(given?: Connection): Connection {
     const initial = (params.initializationOptions as { settings?: unknown } | undefined)?.settings;
     if (initial) settings = readSettings(initial);
     computations.configure(settings.compute);
-    cache.configure({ defaultMapping: settings.defaultMapping, ...(settings.qubitLimit ? { defaultQubitLimit: settings.qubitLimit } : {}) });
+    cache.configure(analysisSettingsOf(settings));
     return {
       capabilities: {
         textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental },
