@@ -92,7 +92,7 @@ describe('fragments taken from another spec', () => {
       // The member's own basis: cc-pVDZ C [3s2p1d] 14, H [2s1p] 5 (Dunning, J. Chem. Phys. 90, 1007 (1989)): 14 + 4 × 5.
       expect(figures.basisFunctions.spherical).toBe(34);
       // Jordan–Wigner: one qubit per spin orbital, 2 × 2 (Jordan & Wigner, Z. Phys. 47, 631 (1928)).
-      expect(figures.qubits.jordanWigner).toBe(4);
+      expect(figures.qubits?.jordanWigner).toBe(4);
     }
     expect(analysis.model.fragments[0]!.ast.included).toMatchObject({ file: `${FOLDER}/base.tess`, start: { line: 13, character: 9 }, patched: false });
   });
@@ -108,8 +108,8 @@ describe('fragments taken from another spec', () => {
     expect(left.tier?.active).toEqual({ electrons: 4, orbitals: 4 });
     expect(left.ast.included?.patched).toBe(true);
     // 4 spatial orbitals under Jordan–Wigner: 8 qubits (Jordan & Wigner 1928).
-    expect(analysis.fragmentFigures(0).qubits.jordanWigner).toBe(8);
-    expect(analysis.fragmentFigures(1).qubits.jordanWigner).toBe(4);
+    expect(analysis.fragmentFigures(0).qubits?.jordanWigner).toBe(8);
+    expect(analysis.fragmentFigures(1).qubits?.jordanWigner).toBe(4);
   });
 
   it('replaces a tier of another level whole, and adds fragments of new names after the included ones', () => {
