@@ -99,6 +99,8 @@ export interface GeometryAst {
   readonly statement: Statement;
   readonly atoms: AtomList;
   readonly include?: Located<string>;
+  /** `with fragments` after an included spec's name: its fragments are this spec's too (model/includedFragments.ts). */
+  readonly withFragments?: Span;
   /** The unit named in the header, `structure in bohr`. */
   readonly unit?: Located<LengthUnit>;
 }
@@ -247,6 +249,22 @@ export interface FragmentAst {
   /** `caps …` in the fragment: overrides the top-level choice for this fragment. */
   caps?: CapsAst;
   tier?: TierAst;
+  /** For a fragment taken from another spec (`structure from "…" with fragments`): where it is written there. */
+  readonly included?: IncludedFragmentOrigin;
+}
+
+/**
+ * Where an included fragment is written in the other spec (zero-based line and character of its
+ * name, or of its keyword when it has none), and whether this spec's own `fragment` of the same
+ * name patches it. The spans of an included fragment's syntax are the `with fragments` words of
+ * this spec, where its problems are reported.
+ */
+export interface IncludedFragmentOrigin {
+  readonly file: string;
+  readonly start: { readonly line: number; readonly character: number };
+  readonly end: { readonly line: number; readonly character: number };
+  /** This spec has a fragment of the same name that patches the included one. */
+  readonly patched: boolean;
 }
 
 /** `caps hydrogen fixed|scaled` or `caps none`: how cut bonds are capped. */

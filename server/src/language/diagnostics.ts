@@ -61,7 +61,7 @@ export const DIAGNOSTIC_CODES = {
   'duplicate-label': { severity: 'error', title: 'Two atoms with the same label' },
   'include-outside-folder': { severity: 'error', title: 'An included file outside the spec\'s folder tree' },
   'include-unreadable': { severity: 'error', title: 'An included file that cannot be read' },
-  'include-invalid': { severity: 'error', title: 'An included XYZ file with a malformed line' },
+  'include-invalid': { severity: 'error', title: 'An included XYZ file or spec that cannot be used as it is (a malformed line, an include cycle, fragments it lacks)' },
   'coordinate-out-of-range': { severity: 'error', title: 'A coordinate beyond ±100,000 Å, which no molecule has' },
   'atoms-too-close': { severity: 'error', title: 'Two atoms closer than 0.5 Å' },
   'units-suspect': { severity: 'warning', title: 'Distances that look typed in the other length unit' },

@@ -254,5 +254,21 @@ export function getCodeActions(analysis: DocumentAnalysis, uri: string, diagnost
     const all = rewriteAllFix(analysis, uri, retired);
     if (all) actions.push(all);
   }
-  return actions;
+  return withoutIncludedEdits(analysis, uri, actions);
+}
+
+/**
+ * Fragments taken from another spec have their syntax at the `with fragments` words of this one
+ * (language/model/includedFragments.ts): a fix for them belongs in that spec, so no edit may touch
+ * those words.
+ */
+function withoutIncludedEdits(analysis: DocumentAnalysis, uri: string, actions: CodeAction[]): CodeAction[] {
+  const taken = analysis.ast.geometry?.withFragments;
+  if (!taken) return actions;
+  const touches = (edit: TextEdit) => {
+    const start = analysis.lines.offsetAt(edit.range.start);
+    const end = analysis.lines.offsetAt(edit.range.end);
+    return end >= taken.start && start <= taken.end;
+  };
+  return actions.filter((action) => !(action.edit?.changes?.[uri] ?? []).some(touches));
 }

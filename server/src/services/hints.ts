@@ -4,6 +4,7 @@ import { formatRate } from '../chemistry/cost/format';
 import { mappingKey, type Mapping } from '../chemistry/qubits';
 import type { DocumentAnalysis, FragmentFigures } from '../analysis';
 import { toRange } from './positions';
+import { onlyIncluded } from './includedFragments';
 
 /** Qubits under the fragment's mapping before tapering, or null outside the quantum tier. */
 function untaperedQubits(figures: FragmentFigures): number | null {
@@ -53,7 +54,8 @@ export function getInlayHints(analysis: DocumentAnalysis, range?: Range): InlayH
   const hints: InlayHint[] = [];
   for (const fragment of analysis.model.fragments) {
     const name = fragment.ast.name;
-    if (!name) continue;
+    // A fragment taken whole from another spec has no name in this text to stand beside.
+    if (!name || onlyIncluded(fragment)) continue;
     const position = toRange(analysis, name.span).end;
     if (range && (position.line < range.start.line || position.line > range.end.line)) continue;
     const figures = analysis.fragmentFigures(fragment.index);

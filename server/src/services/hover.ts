@@ -36,6 +36,7 @@ import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './compu
 import { hamiltonianSection } from './hamiltonian';
 import { bathSection } from './computedBath';
 import { activeSpaceSection } from './computedActive';
+import { includedFragmentNote, includedFragmentsCard, onlyIncluded } from './includedFragments';
 import { locate, type CursorContext } from './locate';
 import { toOffset, toRange } from './positions';
 import type { Position } from 'vscode-languageserver-types';
@@ -241,15 +242,24 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
     return retired ? markdown(`**${keywordText}** · old spelling\n\n${retired.summary}\n\nWrite \`${retired.now}\`; the quick fix rewrites it.`, analysis, token.node) : null;
   }
 
-  if (context.block === 'top' && keywordText === 'fragment' && token.index === 0) {
-    const fragment = analysis.model.fragments.find((f) => f.ast.name?.span.start === token.node.span.start);
+  // A fragment's name where it is declared, or after `on fragment` in a basis line.
+  const declared = context.block === 'top' && keywordText === 'fragment' && token.index === 0;
+  const referenced = context.block === 'top' && keywordText === 'basis' && token.index > 0 && statement.args[token.index - 1]?.text === 'fragment';
+  if (declared || referenced) {
+    const fragment = declared ? analysis.model.fragments.find((f) => !onlyIncluded(f) && f.ast.name?.span.start === token.node.span.start) : analysis.model.fragments.find((f) => f.name === token.node.text);
     if (fragment) {
       const part = { kind: 'fragment', index: fragment.index } as const;
       const bath = bathSection(analysis, fragment.index);
       const hamiltonian = hamiltonianSection(analysis, part);
-      const sections = [fragmentCard(analysis, fragment.index), meanFieldSection(analysis, part, policy), ...(bath ? [bath] : []), ...(hamiltonian ? [hamiltonian] : [])];
+      const origin = includedFragmentNote(analysis, fragment);
+      const sections = [fragmentCard(analysis, fragment.index), ...(origin ? [origin] : []), meanFieldSection(analysis, part, policy), ...(bath ? [bath] : []), ...(hamiltonian ? [hamiltonian] : [])];
       return markdown(sections.join('\n\n---\n\n'), analysis, token.node);
     }
+  }
+  const taken = analysis.ast.geometry?.withFragments;
+  if (context.block === 'top' && keywordText === 'structure' && taken && token.node.span.start >= taken.start && token.node.span.end <= taken.end) {
+    const card = includedFragmentsCard(analysis);
+    if (card) return markdown(card, analysis, token.node);
   }
   if (context.block === 'top' && keywordText === 'basis' && token.index === 0) {
     const basis = findBasisSet(token.node.text);

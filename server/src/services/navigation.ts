@@ -7,6 +7,7 @@ import { DocumentHighlightKind, type DocumentHighlight, type Location, type Posi
 import type { DocumentAnalysis } from '../analysis';
 import type { Span } from '../language/text';
 import { atomAt } from './hover';
+import { includedFragmentLocation, onlyIncluded } from './includedFragments';
 import { locate } from './locate';
 import { toOffset, toRange } from './positions';
 
@@ -19,6 +20,8 @@ export interface SymbolOccurrences {
   readonly references: readonly Span[];
   /** `#n` references, which point at the same atom but carry no name. */
   readonly indexReferences: readonly Span[];
+  /** A fragment taken from another spec: its name there (go to definition leads there). */
+  readonly external?: Location;
 }
 
 export function occurrencesAt(analysis: DocumentAnalysis, position: Position): SymbolOccurrences | undefined {
@@ -41,10 +44,12 @@ export function occurrencesAt(analysis: DocumentAnalysis, position: Position): S
   }
   const uses = fragmentReferences(analysis);
   const used = uses.find((use) => use.span.start === token.node.span.start);
-  const fragment = model.fragments.find((f) => f.ast.name && (f.ast.name.span.start === token.node.span.start || f.name === used?.name));
+  // A fragment taken from another spec has no name of its own here (its spans are `with fragments`).
+  const fragment = model.fragments.find((f) => f.ast.name && ((!onlyIncluded(f) && f.ast.name.span.start === token.node.span.start) || f.name === used?.name));
   if (fragment?.ast.name) {
     const references = uses.filter((use) => use.name === fragment.name).map((use) => use.span);
-    return { kind: 'fragment', name: fragment.name, definition: fragment.ast.name.span, references, indexReferences: [] };
+    const external = includedFragmentLocation(fragment);
+    return { kind: 'fragment', name: fragment.name, definition: fragment.ast.name.span, references, indexReferences: [], ...(external ? { external } : {}) };
   }
   return undefined;
 }
@@ -56,7 +61,8 @@ function fragmentReferences(analysis: DocumentAnalysis): { name: string; span: S
 
 export function findDefinition(analysis: DocumentAnalysis, uri: string, position: Position): Location | null {
   const found = occurrencesAt(analysis, position);
-  return found ? { uri, range: toRange(analysis, found.definition) } : null;
+  if (!found) return null;
+  return found.external ?? { uri, range: toRange(analysis, found.definition) };
 }
 
 export function findReferences(analysis: DocumentAnalysis, uri: string, position: Position, includeDeclaration: boolean): Location[] {
@@ -84,6 +90,7 @@ export type RenameCheck = { ok: true; range: Range; placeholder: string } | { ok
 export function prepareRename(analysis: DocumentAnalysis, position: Position): RenameCheck {
   const found = occurrencesAt(analysis, position);
   if (!found) return { ok: false, message: 'Only atom labels and fragment names can be renamed.' };
+  if (found.external) return { ok: false, message: `Fragment '${found.name}' is taken from ${found.external.uri} (\`with fragments\`); rename it there.` };
   const offset = toOffset(analysis, position);
   const atomEntry = found.kind === 'atom' ? analysis.model.atoms.find((atom) => atom.labelSpan === found.definition) : undefined;
   if (found.kind === 'atom' && !atomEntry) return { ok: false, message: 'This atom has no label to rename; add one after its element symbol.' };

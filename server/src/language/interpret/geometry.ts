@@ -7,7 +7,7 @@ import { elementBySymbol } from '../../chemistry/elements';
 import { atomListOf, atomListOfMixed, type AtomAst, type GeometryAst, type Located } from '../ast';
 import { didYouMean } from '../suggest';
 import type { Statement } from '../syntax';
-import { joinSpans } from '../text';
+import { joinSpans, type Span } from '../text';
 import type { LengthUnit } from '../../chemistry/units';
 import { KEYWORDS, UNIT_TERMS } from '../vocabulary';
 import { describeArgument, type StatementReader } from './reader';
@@ -32,6 +32,7 @@ export function readGeometry(reader: StatementReader, statement: Statement): Geo
   const args = statement.args;
   let unit: Located<LengthUnit> | undefined;
   let include: Located<string> | undefined;
+  let withFragments: Span | undefined;
   const first = args[0];
   const header = first?.kind === 'word' && first.text === 'in' && keyword === 'structure';
   if (header) {
@@ -39,7 +40,15 @@ export function readGeometry(reader: StatementReader, statement: Statement): Geo
     if (args.length > 2) sink.report('extra-value', joinSpans(args[2]!.span, args[args.length - 1]!.span), 'The structure header takes the unit only: `structure in bohr { … }`.');
     if (!statement.block) sink.report('missing-block', statement.keyword.span, 'Give the atoms in a block after the header: `structure in bohr { O 0 0 0 ... }`.');
   } else if (first) {
-    const [from, path, ...rest] = args;
+    const [from, path, ...after] = args;
+    let rest = after;
+    // `with fragments`: the included spec's fragments come too (a .tess file only; model/includedFragments.ts says so otherwise).
+    if (rest[0]?.kind === 'word' && rest[0].text === 'with') {
+      const what = rest[1];
+      if (what?.kind === 'word' && what.text === 'fragments') withFragments = joinSpans(rest[0].span, what.span);
+      else sink.report(what ? 'invalid-value' : 'missing-value', what?.span ?? rest[0].span, `\`with\` after the file name takes \`fragments\`: \`structure from "base.tess" with fragments\`${what ? `; found ${describeArgument(what)}` : ''}.`);
+      rest = rest.slice(what ? 2 : 1);
+    }
     if (from!.kind !== 'word' || from!.text !== 'from') {
       sink.report('invalid-value', from!.span, `Write \`structure { ... }\` with the atoms inside, \`structure in bohr { ... }\`, or \`structure from "file.xyz"\`; found ${describeArgument(from!)}.`);
     } else if (!path) {
@@ -52,7 +61,7 @@ export function readGeometry(reader: StatementReader, statement: Statement): Geo
     if (rest[0]?.kind === 'word' && rest[0].text === 'in') {
       sink.report('extra-value', joinSpans(rest[0].span, rest[rest.length - 1]!.span), 'An XYZ file is in ångström by the format\'s convention, so `structure from` takes no unit.');
     } else if (rest.length > 0) {
-      sink.report('extra-value', joinSpans(rest[0]!.span, rest[rest.length - 1]!.span), '`structure from` takes one file name.');
+      sink.report('extra-value', joinSpans(rest[0]!.span, rest[rest.length - 1]!.span), '`structure from` takes one file name, and `with fragments` after a spec\'s name.');
     }
     if (statement.block) {
       sink.report('unexpected-block', statement.block.open, 'Give the atoms either inline or from a file, not both; the block is ignored.');
@@ -61,7 +70,7 @@ export function readGeometry(reader: StatementReader, statement: Statement): Geo
     sink.report('missing-block', statement.keyword.span, 'Give the atoms in a block, `structure { O 0 0 0 ... }`, or from a file, `structure from "file.xyz"`.');
   }
   const withUnit = (ast: GeometryAst): GeometryAst => (unit ? { ...ast, unit } : ast);
-  if (include) return { statement, atoms: atomListOf([]), include };
+  if (include) return withFragments ? { statement, atoms: atomListOf([]), include, withFragments } : { statement, atoms: atomListOf([]), include };
   // A block after a malformed `… from` is reported above and not read.
   if (!statement.block || (first && !header)) return withUnit({ statement, atoms: atomListOf([]) });
   if (statement.block.atomTable) {

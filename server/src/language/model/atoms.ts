@@ -5,7 +5,7 @@
 import { elementByNumber, elementBySymbol } from '../../chemistry/elements';
 import { toAngstrom, type LengthUnit } from '../../chemistry/units';
 import type { SpecAst } from '../ast';
-import { DiagnosticSink } from '../diagnostics';
+import { DiagnosticSink, type Diagnostic } from '../diagnostics';
 import { interpret } from '../interpret';
 import { parseSpec } from '../parser';
 import { LineIndex, type Span } from '../text';
@@ -18,6 +18,17 @@ export interface ReadAtoms {
   readonly list: AtomModel[];
   /** x, y, z of every atom in ångström. */
   readonly positions: Float64Array;
+  /** The spec the atoms were read from, when `structure from` names a spec (its fragments may be taken too). */
+  readonly spec?: IncludedSpec;
+}
+
+/** Another spec read for its structure: its text, typed tree and the problems reading it found. */
+export interface IncludedSpec {
+  readonly file: string;
+  readonly text: string;
+  readonly lines: LineIndex;
+  readonly ast: SpecAst;
+  readonly problems: readonly Diagnostic[];
 }
 
 /**
@@ -74,7 +85,7 @@ function readIncludedAtoms(include: NonNullable<NonNullable<SpecAst['geometry']>
     sink.report('spec-too-large', include.span, `"${include.value}" says it holds ${declared.toLocaleString('en-US')} atoms; Tessera analyses specs of up to ${SUPPORTED_SIZE}. Split the system into several specs.`);
     return none;
   }
-  if (resolved.path.toLowerCase().endsWith('.tess')) return readSpecAtoms(read.text, resolved.path, include, sink);
+  if (resolved.path.toLowerCase().endsWith('.tess')) return readSpecAtoms(read.text, resolved.path, include, sink, options);
   const xyz = parseXyz(read.text);
   for (const problem of xyz.problems) {
     sink.report('include-invalid', include.span, `"${include.value}" line ${problem.line + 1}: ${problem.message}`, {
@@ -100,10 +111,12 @@ const LISTED_INCLUDE_PROBLEMS = 3;
  * `structure from "other.tess"`: the atoms of another spec's inline structure block, with their
  * labels, in ångström (its `structure in bohr` header, or its retired `units` line, converted), so
  * that a family of specs shares one structure and selects atoms by the same labels. The other spec's
- * own statements (basis, fragments, tiers) are not read; a spec whose structure is itself
- * `structure from …` is refused (one level of includes).
+ * own top-level statements (basis, caps, limits) are not read, its fragments only when asked for
+ * (`with fragments`, model/includedFragments.ts); a spec whose structure is itself
+ * `structure from …` is refused (one level of includes), and a spec that includes itself, or one
+ * that includes this spec back, is named as a cycle.
  */
-function readSpecAtoms(text: string, file: string, include: { readonly value: string; readonly span: Span }, sink: DiagnosticSink): ReadAtoms {
+function readSpecAtoms(text: string, file: string, include: { readonly value: string; readonly span: Span }, sink: DiagnosticSink, options: ModelOptions): ReadAtoms {
   const list: AtomModel[] = [];
   const none = { list, positions: new Float64Array(0) };
   const otherSink = new DiagnosticSink();
@@ -114,7 +127,17 @@ function readSpecAtoms(text: string, file: string, include: { readonly value: st
     sink.report('include-invalid', include.span, `"${include.value}" has no structure block to take the atoms from.`);
     return none;
   }
+  const self = options.path !== undefined && options.files.realPath(options.path) === options.files.realPath(file);
+  if (self) {
+    sink.report('include-invalid', include.span, `"${include.value}" is this spec itself: a spec cannot take its structure from itself (an include cycle).`);
+    return none;
+  }
   if (geometry.include) {
+    const back = resolveInclude(file, geometry.include.value, options.files);
+    if (back.ok && options.path !== undefined && options.files.realPath(back.path) === options.files.realPath(options.path)) {
+      sink.report('include-invalid', include.span, `"${include.value}" takes its structure from this spec ("${geometry.include.value}"): the two include each other (an include cycle). Keep the structure in one of them.`);
+      return none;
+    }
     sink.report('include-invalid', include.span, `"${include.value}" takes its own atoms from "${geometry.include.value}"; include that file instead (structures are included one level deep).`);
     return none;
   }
@@ -135,7 +158,7 @@ function readSpecAtoms(text: string, file: string, include: { readonly value: st
     list.push(label !== undefined ? { index: i, element, label, span: include.span, labelSpan: include.span, source } : { index: i, element, span: include.span, source });
     for (let axis = 0; axis < 3; axis++) positions[3 * i + axis] = atoms.coordinate(i, axis) * factor;
   }
-  return { list, positions };
+  return { list, positions, spec: { file, text, lines, ast, problems: otherSink.items } };
 }
 
 /** Label → atom index; a label used twice is reported and keeps its first atom. */

@@ -2,7 +2,8 @@
  * The semantic model: atoms in ångström, labels and selectors resolved, basis sets looked up and
  * given to each atom, defaults applied, and the orbital space of the system and of every fragment
  * counted. One module per seam: `atoms.ts` (inline atoms and includes, labels), `basis.ts`,
- * `selectors.ts`, `ownership.ts` (rest and owners), `fragments.ts` (fragments and tiers), `scan.ts`.
+ * `selectors.ts`, `ownership.ts` (rest and owners), `fragments.ts` (fragments and tiers),
+ * `includedFragments.ts` (fragments taken from another spec), `scan.ts`.
  */
 import { CHEMICAL_ACCURACY_HARTREE } from '../../chemistry/units';
 import { countOrbitalSpace } from '../../chemistry/counting';
@@ -14,6 +15,7 @@ import { indexLabels, readAtoms } from './atoms';
 import { countedAtoms, electronCount, resolveBasis } from './basis';
 import { BondNeighbours, capBasis, capRuleOf, fragmentCaps } from './caps';
 import { buildFragment } from './fragments';
+import { withIncludedFragments } from './includedFragments';
 import { assignOwners } from './ownership';
 import { resolveScan } from './scan';
 import { SelectorResolver } from './selectors';
@@ -31,6 +33,8 @@ export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOpt
   const units = ast.geometry?.unit?.value ?? ast.legacyUnits?.value ?? 'angstrom';
   const includes: string[] = [];
   const atoms = readAtoms(ast, units, sink, options, includes, options.previousAtoms);
+  // `with fragments`: the included spec's fragments, patched by this spec's own, are the fragments from here on.
+  if (ast.geometry?.withFragments) ast.fragments = withIncludedFragments(ast, atoms.spec, sink, units);
   const coordinates = atoms.positions;
   const labels = indexLabels(atoms.list, sink);
 
