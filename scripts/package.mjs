@@ -15,7 +15,7 @@ const out = path.join(root, `tessera-${version}.vsix`);
 
 rmSync(stage, { recursive: true, force: true });
 mkdirSync(stage, { recursive: true });
-for (const item of ['package.json', 'LICENSE', 'CHANGELOG.md', 'language-configuration.json', '.vscodeignore', 'icons', 'grammar', 'snippets']) {
+for (const item of ['package.json', 'LICENSE', 'CHANGELOG.md', 'language-configuration.json', '.vscodeignore', 'icons', 'grammar']) {
   cpSync(path.join(root, item), path.join(stage, item), { recursive: true });
 }
 cpSync(path.join(root, 'client', 'README.md'), path.join(stage, 'README.md'));

@@ -6,6 +6,7 @@
  */
 import { createViewer, Vector2, type AtomSpec, type GLViewer } from '3dmol';
 import { checkStructureHostMessage, type StructureViewMessage, type ViewAtom, type ViewStructure } from '../src/views/protocol';
+import { apply, IDENTITY, viewRotation, type Matrix, type Vector } from '../src/views/orientation';
 import { element, post, receive } from './host';
 
 const BACKGROUND = '#fbfaf6';
@@ -59,68 +60,12 @@ function describe(atom: ViewAtom): string {
   return `${atomName(atom)} · ${fragment}${line}`;
 }
 
-type Vector = { x: number; y: number; z: number };
-type Matrix = [number, number, number, number, number, number, number, number, number];
-const IDENTITY: Matrix = [1, 0, 0, 0, 1, 0, 0, 0, 1];
-
-/** Product of two rotation matrices (row-major). */
-function times(a: Matrix, b: Matrix): Matrix {
-  const c: number[] = [];
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) c.push(a[3 * i]! * b[j]! + a[3 * i + 1]! * b[3 + j]! + a[3 * i + 2]! * b[6 + j]!);
-  return c as Matrix;
-}
-
-/** The rotation by `angle` about the x axis. */
-function aboutX(angle: number): Matrix {
-  return [1, 0, 0, 0, Math.cos(angle), -Math.sin(angle), 0, Math.sin(angle), Math.cos(angle)];
-}
-
-function apply(m: Matrix, v: Vector): Vector {
-  return { x: m[0] * v.x + m[1] * v.y + m[2] * v.z, y: m[3] * v.x + m[4] * v.y + m[5] * v.z, z: m[6] * v.x + m[7] * v.y + m[8] * v.z };
-}
-
 /**
- * The rotation the view applies to the coordinates so that the scanned distance lies across the
- * screen (along +x) rather than along the line of sight, turned about it so that the atoms spread
- * most along the screen's height and least in depth (fewest atoms hidden behind others); the
- * identity without a scan. Drawing only: the spec's coordinates are not changed.
+ * The rotation the view applies to the coordinates (orientation.ts): the scanned distance across
+ * the screen when there is a scan, else the molecule's largest plane facing the viewer.
  */
 function orientation(structure: ViewStructure): Matrix {
-  if (!structure.scan) return IDENTITY;
-  const a = structure.atoms[structure.scan.first]!;
-  const b = structure.atoms[structure.scan.second]!;
-  const length = Math.hypot(b.x - a.x, b.y - a.y, b.z - a.z);
-  if (length < 1e-6) return IDENTITY;
-  const u = { x: (b.x - a.x) / length, y: (b.y - a.y) / length, z: (b.z - a.z) / length };
-  // Rodrigues: the rotation about u × x̂ by the angle between u and x̂.
-  const cos = u.x;
-  let align: Matrix;
-  if (cos > 1 - 1e-9) align = IDENTITY;
-  else if (cos < -1 + 1e-9) align = [-1, 0, 0, 0, 1, 0, 0, 0, -1];
-  else {
-    const sin = Math.hypot(u.y, u.z);
-    const k = { x: 0, y: u.z / sin, z: -u.y / sin };
-    const t = 1 - cos;
-    align = [
-      cos + k.x * k.x * t, k.x * k.y * t - k.z * sin, k.x * k.z * t + k.y * sin,
-      k.y * k.x * t + k.z * sin, cos + k.y * k.y * t, k.y * k.z * t - k.x * sin,
-      k.z * k.x * t - k.y * sin, k.z * k.y * t + k.x * sin, cos + k.z * k.z * t,
-    ];
-  }
-  // The principal axis of the atoms' spread across the scan, turned onto the screen's y axis.
-  const turned = structure.atoms.map((atom) => apply(align, atom));
-  const meanY = turned.reduce((sum, p) => sum + p.y, 0) / turned.length;
-  const meanZ = turned.reduce((sum, p) => sum + p.z, 0) / turned.length;
-  let yy = 0;
-  let zz = 0;
-  let yz = 0;
-  for (const p of turned) {
-    yy += (p.y - meanY) ** 2;
-    zz += (p.z - meanZ) ** 2;
-    yz += (p.y - meanY) * (p.z - meanZ);
-  }
-  const axis = 0.5 * Math.atan2(2 * yz, yy - zz);
-  return times(aboutX(-axis), align);
+  return viewRotation(structure.atoms, structure.scan);
 }
 
 let rotation: Matrix = IDENTITY;

@@ -68,7 +68,6 @@ describe('the .vsix package', () => {
         'extension/language-configuration.json',
         'extension/package.json',
         'extension/readme.md',
-        'extension/snippets/tessera.json',
         'extension/dist/basis-sets/BASIS-ORIGIN.md',
         ...basisData,
       ].sort(),
@@ -87,7 +86,6 @@ describe('the .vsix package', () => {
       expect(has(language.icon.light)).toBe(true);
     }
     for (const grammar of packaged.contributes.grammars) expect(has(grammar.path)).toBe(true);
-    for (const snippet of packaged.contributes.snippets) expect(has(snippet.path)).toBe(true);
     const commands = packaged.contributes.commands.map((c: { command: string }) => c.command);
     expect(commands).toEqual(expect.arrayContaining(['tessera.showReport', 'tessera.showStructure', 'tessera.showCosts', 'tessera.showLevels', 'tessera.restartServer']));
     expect(Object.keys(packaged.contributes.configuration.properties)).toEqual(

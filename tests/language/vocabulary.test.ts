@@ -1,7 +1,7 @@
 /**
  * One vocabulary: every place that lists the words of the language (the parser's usage strings,
  * completion, hover, the chemistry layer's types, the editor settings in package.json, the
- * TextMate grammar and the snippets) agrees with the table in server/src/language/vocabulary.ts.
+ * TextMate grammar and the snippets of server/src/services/snippets.ts) agrees with the table in server/src/language/vocabulary.ts.
  * Each check compares a consumer with the table, so a word added in one place and forgotten in
  * another fails here, with the place named.
  */
@@ -32,6 +32,7 @@ import {
   UNIT_TERMS,
   type TermInfo,
 } from '../../server/src/language/vocabulary';
+import { SNIPPETS } from '../../server/src/services/snippets';
 import { doComplete, doHover } from '../../server/src/services';
 import { marked } from '../services/service';
 
@@ -158,8 +159,7 @@ describe('the TextMate grammar', () => {
 });
 
 describe('the snippets', () => {
-  const snippets = JSON.parse(readFileSync(path.join(ROOT, 'snippets', 'tessera.json'), 'utf8')) as Record<string, { body: string[] }>;
-  const lines = Object.values(snippets).flatMap((snippet) => snippet.body);
+  const lines = SNIPPETS.flatMap((snippet) => snippet.body.split('\n'));
 
   it('offer exactly the table\'s words as choices', () => {
     const lists: Record<string, readonly TermInfo[]> = { mapping: MAPPING_TERMS, ansatz: ANSATZE, tier: TIER_LEVELS, in: UNIT_TERMS, embedding: EMBEDDINGS, functions: FUNCTION_TERMS };

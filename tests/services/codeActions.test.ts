@@ -180,19 +180,35 @@ describe('basis override for an element the basis lacks', () => {
       expected: 'basis 6-31G\nbasis 3-21G on all Cl  # chlorine\nbasis STO-3G on all Rb\n',
       titles: titlesOn('all Rb'),
     },
-    // The line that gave rb its basis gives it to no other atom: its name changes, or, for the main
-    // line's own basis, the line goes.
+    // The line that gave rb its basis gives it to no other atom: removing it comes first (rb falls
+    // back to the spec's own basis), then the line's name changes to another basis.
     {
-      name: 'the name of an element line that lacks the element too',
+      name: 'an element line that lacks the element too: remove it first',
       basis: 'basis def2-svp\nbasis 6-31G on all Rb',
-      expected: 'basis def2-svp\nbasis STO-3G on all Rb\n',
-      titles: [...titlesOn('all Rb').slice(0, 2), 'Use def2-SVP for Rb (remove `basis 6-31G on all Rb`)', titlesOn('all Rb')[3]!],
+      expected: 'basis def2-svp\nstructure {',
+      titles: ['Remove the override `basis 6-31G on all Rb` (Rb takes the spec’s basis def2-SVP)', ...titlesOn('all Rb').slice(0, 2), titlesOn('all Rb')[3]!],
     },
     {
-      name: 'the name of a line naming the atom',
+      name: 'a line naming the atom: remove it first',
       basis: 'basis def2-svp\nbasis 6-31G on rb',
-      expected: 'basis def2-svp\nbasis STO-3G on rb\n',
-      titles: [...titlesOn('rb').slice(0, 2), 'Use def2-SVP for Rb (remove `basis 6-31G on rb`)', titlesOn('rb')[3]!],
+      expected: 'basis def2-svp\nstructure {',
+      titles: ['Remove the override `basis 6-31G on rb` (Rb takes the spec’s basis def2-SVP)', ...titlesOn('rb').slice(0, 2), titlesOn('rb')[3]!],
+    },
+    // Without the line naming rb, the element line gives it 3-21G: removal first, then the spec's
+    // own basis by renaming the line, then the others.
+    {
+      name: 'a line naming the atom over an element line: remove it, then the spec’s basis',
+      basis: 'basis def2-svp\nbasis 3-21G on all Rb\nbasis 6-31G on rb',
+      expected: 'basis def2-svp\nbasis 3-21G on all Rb\nstructure {',
+      titles: ['Remove the override `basis 6-31G on rb` (Rb takes 3-21G)', 'Use the spec’s basis def2-SVP for Rb (basis def2-SVP on rb)', titlesOn('rb')[0]!, titlesOn('rb')[3]!],
+    },
+    // The line gives 6-31G to Cl as well, so it stays: the spec's own basis comes first, on a new
+    // line that names rb (a second `all Rb` line would tie with it, a conflict).
+    {
+      name: 'a line that also gives its basis to other atoms: the spec’s basis first, on a new line',
+      basis: 'basis def2-svp\nbasis 6-31G on all Rb all Cl',
+      expected: 'basis def2-svp\nbasis 6-31G on all Rb all Cl\nbasis def2-SVP on rb\n',
+      titles: ['Use the spec’s basis def2-SVP for Rb (basis def2-SVP on rb)', ...titlesOn('rb').slice(0, 2), titlesOn('rb')[3]!],
     },
   ];
   function titlesOn(target: string): string[] {

@@ -6,9 +6,13 @@
  * Geometries are invented test data. Atomic numbers and element names are those of the IUPAC
  * periodic table.
  */
+import { readFileSync } from 'node:fs';
+import * as path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import type { CompletionItem } from 'vscode-languageserver-types';
+import { CompletionItemKind, InsertTextFormat, type CompletionItem, type MarkupContent } from 'vscode-languageserver-types';
+import { analyzeDocument } from '../../server/src/analysis';
 import { doComplete } from '../../server/src/services';
+import { ANSATZE, EMBEDDINGS, KEYWORDS, MAPPING_TERMS, METHODS } from '../../server/src/language/vocabulary';
 import { marked } from './service';
 
 function complete(text: string): CompletionItem[] {
@@ -176,8 +180,10 @@ describe('scan', () => {
     { name: 'the coordinate kind', text: scan('$0'), expected: ['distance'] },
     { name: 'the first atom', text: scan('distance $0'), expected: ['zn', 's', 'h1', 'h2'] },
     { name: 'the second atom', text: scan('distance zn $0'), expected: ['zn', 's', 'h1', 'h2'] },
-    { name: 'the range keywords', text: scan('distance zn s $0'), expected: ['from', 'to', 'step', 'points'] },
-    { name: 'the range keywords not yet given', text: scan('distance zn s from 2 to 3 $0'), expected: ['step', 'points'] },
+    { name: 'the range keywords', text: scan('distance zn s $0'), expected: ['from', 'to', 'step', 'points', 'moving'] },
+    { name: 'the range keywords not yet given', text: scan('distance zn s from 2 to 3 $0'), expected: ['step', 'points', 'moving'] },
+    { name: 'no `points` once a step is given', text: scan('distance zn s from 2 to 3 step 0.5 $0'), expected: ['moving'] },
+    { name: 'the atoms after `moving`, then the clauses left', text: scan('distance zn s from 2 to 3 step 0.5 moving $0'), expected: ['zn', 's', 'h1', 'h2'] },
     { name: 'nothing where a number belongs', text: scan('distance zn s from $0'), expected: [] },
   ];
   for (const c of cases) {
@@ -260,5 +266,148 @@ describe('textEdit replaces the word being typed', () => {
     const items = complete(spec('fragment f {\n  atoms rest\n  tier quantum { mapping $0 }\n}\n'));
     expect(items.length).toBe(3);
     expect(items.every((item) => item.textEdit === undefined)).toBe(true);
+  });
+});
+
+describe('accepting a completion does not glue words together', () => {
+  const SAMPLE = path.resolve(__dirname, '../../samples/zn-site-h2s-scan.tess');
+  const text = readFileSync(SAMPLE, 'utf8');
+  const analysis = analyzeDocument(text, { path: SAMPLE });
+
+  it('every textEdit replaces only the word at the cursor, on the cursor’s line (at the end of every word of a sample)', () => {
+    let edits = 0;
+    for (const match of text.matchAll(/[A-Za-z0-9_.#*()+-]+/g)) {
+      const end = match.index! + match[0].length;
+      const cursor = analysis.lines.positionAt(end);
+      for (const item of doComplete(analysis, cursor).items) {
+        const edit = item.textEdit;
+        if (!edit || !('range' in edit)) continue;
+        edits++;
+        const { start, end: stop } = edit.range;
+        expect(start.line).toBe(cursor.line);
+        expect(stop.line).toBe(cursor.line);
+        expect(start.character).toBeLessThanOrEqual(cursor.character);
+        expect(stop.character).toBeGreaterThanOrEqual(cursor.character);
+        const replaced = text.slice(analysis.lines.offsetAt(start), analysis.lines.offsetAt(stop));
+        expect(replaced).not.toMatch(/\s/);
+      }
+    }
+    expect(edits).toBeGreaterThan(100);
+  });
+
+  it('a space typed where a statement starts (indentation) opens no list, so Enter then makes a new line', () => {
+    const m = marked(spec('fragment f {\n  atoms rest\n   $0\n}\n'));
+    expect(doComplete(m.analysis, m.cursor, { triggerCharacter: ' ' }).items).toEqual([]);
+    // Asked for (Ctrl+Space), the same place offers the block's keywords.
+    expect(doComplete(m.analysis, m.cursor).items.map((item) => item.label)).toContain('tier');
+    // After a keyword, a space still opens its values.
+    const after = marked(spec('fragment f {\n  atoms rest\n  tier quantum { mapping $0 }\n}\n'));
+    expect(doComplete(after.analysis, after.cursor, { triggerCharacter: ' ' }).items).toHaveLength(3);
+  });
+
+  it('in VS Code, Enter ends the line and Tab accepts (the language default in the manifest)', () => {
+    // Enter accepting a suggestion that only repeats or recases the word typed (`def2-svp` →
+    // `def2-SVP`) leaves the cursor on that line, and the next statement is typed onto it.
+    const manifest = JSON.parse(readFileSync(path.resolve(__dirname, '../../package.json'), 'utf8'));
+    expect(manifest.contributes.configurationDefaults['[tessera]']['editor.acceptSuggestionOnEnter']).toBe('off');
+  });
+});
+
+describe('snippets only where a statement starts', () => {
+  const withSnippets = (text: string) => {
+    const m = marked(text);
+    return doComplete(m.analysis, m.cursor, { snippets: true }).items.filter((item) => item.kind === CompletionItemKind.Snippet);
+  };
+
+  it('a new spec and a new fragment in an empty file', () => {
+    expect(withSnippets('$0').map((item) => item.label)).toEqual(['new spec', 'new fragment']);
+    expect(withSnippets('fr$0').map((item) => item.label)).toEqual(['new spec', 'new fragment']);
+  });
+
+  it('a new fragment (not a new spec) at the start of a top-level line of a spec', () => {
+    expect(withSnippets(spec('$0\n')).map((item) => item.label)).toEqual(['new fragment']);
+    expect(withSnippets(spec('  frag$0\n')).map((item) => item.label)).toEqual(['new fragment']);
+  });
+
+  it('none after other text on the line, in a value position, inside a block, or for an editor without snippets', () => {
+    expect(withSnippets(spec('charge 0; $0\n'))).toEqual([]);
+    expect(withSnippets(spec('basis $0\n'))).toEqual([]);
+    expect(withSnippets(spec('basis def2-svp on $0\n'))).toEqual([]);
+    expect(withSnippets(spec('fragment f {\n  $0\n}\n'))).toEqual([]);
+    expect(withSnippets(spec('fragment f {\n  atoms rest\n  tier quantum {\n    $0\n  }\n}\n'))).toEqual([]);
+    expect(withSnippets(spec('limits {\n  $0\n}\n'))).toEqual([]);
+    const m = marked('$0');
+    expect(doComplete(m.analysis, m.cursor).items.some((item) => item.kind === CompletionItemKind.Snippet)).toBe(false);
+  });
+
+  it('expand, with their defaults, to text the language reads without a syntax or vocabulary error', () => {
+    for (const item of withSnippets('$0')) {
+      expect(item.insertTextFormat).toBe(InsertTextFormat.Snippet);
+      const expanded = item.insertText!.replace(/\$\{\d+\|([^,|]*)[^}]*\}/g, '$1').replace(/\$\{\d+:([^}]*)\}/g, '$1').replace(/\$\d+/g, '');
+      const text = item.label === 'new fragment' ? spec(expanded) : expanded;
+      const codes = analyzeDocument(text).diagnostics.map((d) => d.code);
+      expect(codes.filter((code) => /^(unknown|syntax|unexpected|missing-value|misplaced)/.test(code)), `${item.label}:\n${text}`).toEqual([]);
+    }
+  });
+});
+
+describe('documentation for every word offered', () => {
+  const documentation = (item: CompletionItem): string => (typeof item.documentation === 'string' ? item.documentation : ((item.documentation as MarkupContent | undefined)?.value ?? ''));
+  /** Places that offer keywords and the vocabulary's words: every block, every tier, every keyword's values. */
+  const places = [
+    '$0',
+    spec('$0\n'),
+    spec('fragment f {\n  $0\n}\n'),
+    spec('limits {\n  $0\n}\n'),
+    spec('variant v {\n  $0\n}\n'),
+    ...['quantum', 'correlated', 'mean-field'].flatMap((level) => [spec(`fragment f {\n  atoms rest\n  tier ${level} {\n    $0\n  }\n}\n`), spec(`fragment f {\n  atoms rest\n  tier ${level} { method $0 }\n}\n`)]),
+    spec('fragment f {\n  atoms rest\n  tier $0\n}\n'),
+    spec('fragment f {\n  atoms rest\n  tier quantum { ansatz $0 }\n}\n'),
+    spec('fragment f {\n  atoms rest\n  tier quantum { mapping $0 }\n}\n'),
+    spec('fragment f {\n  atoms rest\n  tier quantum { active $0 }\n}\n'),
+    spec('fragment f {\n  atoms rest\n  tier quantum { taper $0 }\n}\n'),
+    spec('embedding $0\n'),
+    spec('functions $0\n'),
+    spec('caps $0\n'),
+    spec('accuracy 1 $0\n'),
+    spec('structure $0\n'),
+    spec('basis def2-svp on $0\n'),
+    spec('basis def2-svp $0\n'),
+    spec('fragment f { atoms $0 }\n'),
+    spec('fragment f { atoms rest; tier mean-field { method rhf } }\nscan $0\n'),
+    spec('fragment f { atoms rest; tier mean-field { method rhf } }\nscan distance zn s $0\n'),
+  ];
+
+  it('every keyword, method, embedding and other word of the vocabulary offered has documentation', () => {
+    let seen = 0;
+    for (const place of places) {
+      for (const item of complete(place)) {
+        if (item.kind !== CompletionItemKind.Keyword && item.kind !== CompletionItemKind.EnumMember && item.kind !== CompletionItemKind.Unit) continue;
+        seen++;
+        expect(documentation(item).trim(), `'${item.label}' at ${JSON.stringify(place.slice(-60))}`).not.toBe('');
+      }
+    }
+    expect(seen).toBeGreaterThan(80);
+  });
+
+  it('takes it from the vocabulary table: summary, scaling and reference of each method; syntax and summary of each keyword', () => {
+    // The first offer of each word (a keyword first offered where it starts a statement, before
+    // `fragment` after `on` in a basis line, which is a word of another table).
+    const offered = new Map<string, CompletionItem>();
+    for (const place of places) for (const item of complete(place)) if (!offered.has(`${item.kind}:${item.label}`)) offered.set(`${item.kind}:${item.label}`, item);
+    for (const method of METHODS) {
+      const item = offered.get(`${CompletionItemKind.EnumMember}:${method.name}`);
+      expect(item, `method ${method.name} offered`).toBeDefined();
+      const doc = documentation(item!);
+      expect(doc).toContain(method.summary);
+      if (method.scaling) expect(doc).toContain(method.scaling);
+      if (method.reference) expect(doc).toContain(method.reference);
+    }
+    for (const term of [...EMBEDDINGS, ...ANSATZE, ...MAPPING_TERMS]) expect(documentation(offered.get(`${CompletionItemKind.EnumMember}:${term.name}`)!)).toContain(term.summary);
+    for (const keyword of KEYWORDS) {
+      const item = offered.get(`${CompletionItemKind.Keyword}:${keyword.name}`);
+      expect(item, `keyword ${keyword.name} offered somewhere`).toBeDefined();
+      expect(documentation(item!)).toContain(keyword.summary);
+    }
   });
 });

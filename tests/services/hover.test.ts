@@ -218,6 +218,20 @@ describe('basis card', () => {
     expect(markdown).toContain('- 3-21G on all S: 1 atom');
   });
 
+  it('lists which basis each element takes and the spec’s own basis, on the main line and on an override', () => {
+    // Zn takes def2-TZVP through its element line; one S is named by a line of its own, the other
+    // takes the element line for S; H keeps the main line.
+    const text = `basis ⟦def2-$0svp⟧\nbasis def2-tzvp on all Zn\nbasis sto-3g on s\nbasis 3-21G on all S\nstructure {\n  Zn zn 0 0 0\n  S s 0 0 2.3\n  S t 0 0 4.6\n  H h 0 0 5.94\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
+    for (const cursor of [text, text.replace('⟦def2-$0svp⟧', 'def2-svp').replace('basis def2-tzvp on', 'basis def2-$0tzvp on')]) {
+      const { markdown } = hoverAt(cursor);
+      expect(markdown).toContain('Spec’s basis: def2-SVP. Per element:');
+      const table = markdown!.slice(markdown!.indexOf('| element | atoms | basis |'));
+      expect(row(table, 'Zn')).toBe('| Zn | 1 | def2-TZVP (`on all Zn`) |');
+      expect(row(table, 'S')).toBe('| S | 2 | STO-3G (`on s`) × 1; 3-21G (`on all S`) × 1 |');
+      expect(row(table, 'H')).toBe('| H | 1 | def2-SVP (spec’s basis) |');
+    }
+  });
+
   it('lists the atoms an override selects that another line decides', () => {
     const text = `basis def2-svp\nbasis sto-3g on s\nbasis 3-21G ⟦o$0n⟧ all S\nstructure {\n  S s 0 0 0\n  S t 0 0 2.3\n}\nfragment w { atoms rest; tier mean-field { method rhf } }\n`;
     const { markdown, range, expectedRange } = hoverAt(text);

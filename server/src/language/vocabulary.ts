@@ -220,6 +220,15 @@ export const SCAN_KINDS: readonly TermInfo[] = [
   { name: 'distance', summary: 'A distance between two atoms.' },
 ];
 
+/** The clauses of a `scan` line after its two atoms. */
+export const SCAN_CLAUSES: readonly TermInfo[] = [
+  { name: 'from', summary: '`from <d>`: the first value of the scanned distance, in the structure\'s unit.' },
+  { name: 'to', summary: '`to <d>`: the last value; the step must land on it.' },
+  { name: 'step', summary: '`step <d>`: the change from one point to the next (negative to shorten the distance).' },
+  { name: 'points', summary: '`points <n>`: n evenly spaced points from the first value to the last, instead of a step.' },
+  { name: 'moving', summary: '`moving <atom> …`: the atoms that move with the second scanned atom, instead of its whole fragment.' },
+];
+
 export const SELECTOR_WORDS: readonly TermInfo[] = [
   { name: 'rest', summary: 'Every atom that no other fragment claims.' },
   { name: 'all', summary: '`all <Element>`: every atom of that element (an element is always named after `all`; a bare word is a label).' },

@@ -110,6 +110,8 @@ export function startLanguageServer(given?: Connection): Connection {
   let tokenResults = 0;
   let canRefreshHints = false;
   let canRefreshLenses = false;
+  /** Whether the client expands snippet syntax in completion items. */
+  let canExpandSnippets = false;
   let settings = DEFAULT_SETTINGS;
   let canPullConfiguration = false;
   let canWatchFiles = false;
@@ -210,6 +212,7 @@ export function startLanguageServer(given?: Connection): Connection {
     canWatchFiles = capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
     canRefreshHints = capabilities.workspace?.inlayHint?.refreshSupport === true;
     canRefreshLenses = capabilities.workspace?.codeLens?.refreshSupport === true;
+    canExpandSnippets = capabilities.textDocument?.completion?.completionItem?.snippetSupport === true;
     const initial = (params.initializationOptions as { settings?: unknown } | undefined)?.settings;
     if (initial) settings = readSettings(initial);
     computations.configure(settings.compute);
@@ -301,7 +304,7 @@ export function startLanguageServer(given?: Connection): Connection {
     });
 
   connection.onHover(onDocument('hover', (analysis, params) => service.doHover(analysis, params.position, computations.policy(params.textDocument.uri)), null));
-  connection.onCompletion(onDocument('completion', (analysis, params) => service.doComplete(analysis, params.position), { isIncomplete: false, items: [] }));
+  connection.onCompletion(onDocument('completion', (analysis, params) => service.doComplete(analysis, params.position, { snippets: canExpandSnippets, ...(params.context?.triggerCharacter ? { triggerCharacter: params.context.triggerCharacter } : {}) }), { isIncomplete: false, items: [] }));
   connection.onDefinition(onDocument('go to definition', (analysis, params) => service.findDefinition(analysis, params.textDocument.uri, params.position), null));
   connection.onReferences(onDocument('find references', (analysis, params) => service.findReferences(analysis, params.textDocument.uri, params.position, params.context.includeDeclaration), []));
   connection.onDocumentHighlight(onDocument('highlight', (analysis, params) => service.findDocumentHighlights(analysis, params.position), []));

@@ -97,11 +97,14 @@ function unassignedFixes(analysis: DocumentAnalysis, uri: string, diagnostic: Ls
 }
 
 /**
- * A basis that defines a missing element. When the override line that gave those atoms their basis
- * gives it to no other atom, its name is replaced (or the line goes, when the candidate is the basis
- * the atoms would have without it). Otherwise a new override line goes after the last basis line,
- * where it wins among lines of its kind: `on all <Element>`, or, when the atoms got their basis from
- * a line naming them (which an element line would not beat), `on` those atoms.
+ * A basis that defines a missing element, the spec's own choices first. When an override line gave
+ * those atoms the basis that lacks it: removing that line (when it gives its basis to no other
+ * atom and what the atoms fall back to defines the element), then the spec's own basis (the main
+ * line's). After them the library's other bases that define the element. Each basis is offered by
+ * renaming the override line that gave the atoms their basis, when that line gives it to no other
+ * atom, or else by a new override line after the last basis line, where it wins among lines of its
+ * kind: `on all <Element>`, or, when the atoms got their basis from an element line or a line naming
+ * them (which a new element line would tie with or not beat), `on` those atoms.
  */
 function basisOverrideFixes(analysis: DocumentAnalysis, uri: string, diagnostic: LspDiagnostic, element: string, candidates: readonly string[], line: number, atoms: readonly number[]): CodeAction[] {
   const basis = analysis.model.basis;
@@ -110,33 +113,50 @@ function basisOverrideFixes(analysis: DocumentAnalysis, uri: string, diagnostic:
   const decider = line >= 0 ? basis.overrides[line] : undefined;
   const missing = new Set(atoms);
   const ownLine = decider?.ast.name && [...decider.atomRanks.keys()].every((atom) => basis.decidedBy[atom] !== line || missing.has(atom)) ? decider : undefined;
-  const namedAtoms = decider && atoms.some((atom) => decider.atomRanks.get(atom) === BASIS_RANK.atoms);
+  // A new `all <Element>` line would tie with an element line that stays (a conflict): name the
+  // atoms instead, which beats it.
+  const namedAtoms = decider && atoms.some((atom) => (decider.atomRanks.get(atom) ?? 0) >= BASIS_RANK.element);
   const lastLine = [main, ...analysis.ast.basisOverrides].reduce((last, current) => (current.statement.span.end > last.statement.span.end ? current : last));
   // After a retired basis block, the new line follows its `}`; comments after it stay on their line.
   const end = lastLine.statement.block?.close?.end ?? lastLine.statement.span.end;
   const at = lineEndAfter(analysis.text, end);
-  return candidates.slice(0, 4).map((candidate, index) => {
-    let change: TextEdit;
-    let title: string;
+  const defines = new Set(candidates);
+  const specBasis = basis.main && defines.has(basis.main.displayName) ? basis.main.displayName : undefined;
+  const actions: CodeAction[] = [];
+  const offered = new Set<string>();
+
+  // Remove the override: the atoms take what they would have without it.
+  const without = ownLine ? basisWithout(basis.overrides, basis.main, atoms[0]!, line) : undefined;
+  if (ownLine && without && defines.has(without.displayName)) {
+    const on = ownLine.ast.targets.map(describeTarget).join(' ');
+    const lineStart = analysis.text.lastIndexOf('\n', ownLine.ast.statement.span.start - 1) + 1;
+    const lineEnd = lineEndAfter(analysis.text, ownLine.ast.statement.span.end);
+    const change = { range: toRange(analysis, { start: lineStart, end: Math.min(lineEnd + 1, analysis.text.length) }), newText: '' };
+    const fallback = without === basis.main ? `the spec’s basis ${without.displayName}` : without.displayName;
+    actions.push(quickFix(`Remove the override \`basis ${ownLine.ast.name!.value} on ${on}\` (${element} takes ${fallback})`, diagnostic, edit(uri, [change])));
+    offered.add(without.displayName);
+  }
+
+  const useBasis = (candidate: string, spec: boolean): CodeAction => {
+    const which = spec ? `the spec’s basis ${candidate}` : candidate;
     if (ownLine) {
       const on = ownLine.ast.targets.map(describeTarget).join(' ');
-      const without = basisWithout(basis.overrides, basis.main, atoms[0]!, line);
-      if (without?.displayName === candidate) {
-        const lineStart = analysis.text.lastIndexOf('\n', ownLine.ast.statement.span.start - 1) + 1;
-        const lineEnd = lineEndAfter(analysis.text, ownLine.ast.statement.span.end);
-        change = { range: toRange(analysis, { start: lineStart, end: Math.min(lineEnd + 1, analysis.text.length) }), newText: '' };
-        title = `Use ${candidate} for ${element} (remove \`basis ${ownLine.ast.name!.value} on ${on}\`)`;
-      } else {
-        change = { range: toRange(analysis, ownLine.ast.name!.span), newText: candidate };
-        title = `Use ${candidate} for ${element} (basis ${candidate} on ${on})`;
-      }
-    } else {
-      const target = namedAtoms ? atomList(analysis, atoms) : `all ${element}`;
-      change = { range: toRange(analysis, { start: at, end: at }), newText: `\nbasis ${candidate} on ${target}` };
-      title = `Use ${candidate} for ${element} (basis ${candidate} on ${target})`;
+      return quickFix(`Use ${which} for ${element} (basis ${candidate} on ${on})`, diagnostic, edit(uri, [{ range: toRange(analysis, ownLine.ast.name!.span), newText: candidate }]));
     }
-    return quickFix(title, diagnostic, edit(uri, [change]), index === 0);
-  });
+    const target = namedAtoms ? atomList(analysis, atoms) : `all ${element}`;
+    return quickFix(`Use ${which} for ${element} (basis ${candidate} on ${target})`, diagnostic, edit(uri, [{ range: toRange(analysis, { start: at, end: at }), newText: `\nbasis ${candidate} on ${target}` }]));
+  };
+  // The spec's own basis, unless removing the override already gives it (or it is the one lacking).
+  if (specBasis && decider && !offered.has(specBasis)) {
+    actions.push(useBasis(specBasis, true));
+    offered.add(specBasis);
+  }
+  for (const candidate of candidates) {
+    if (actions.length >= 4) break;
+    if (!offered.has(candidate)) actions.push(useBasis(candidate, false));
+    offered.add(candidate);
+  }
+  return actions.map((action, index) => (index === 0 ? { ...action, isPreferred: true } : action));
 }
 
 function textEdits(analysis: DocumentAnalysis, changes: readonly TextChange[]): TextEdit[] {

@@ -1,9 +1,13 @@
 /**
  * Completion that knows where the cursor is: only the keywords of the block it stands in, and
  * after a keyword only the values that keyword takes (basis sets ranked by coverage of the
- * file's elements, methods of the enclosing tier, atom labels in selectors, ...).
+ * file's elements, methods of the enclosing tier, atom labels in selectors, ...). Every keyword,
+ * method, embedding and other word of the vocabulary comes with its documentation from the table
+ * in language/vocabulary.ts. Snippets (snippets.ts) only where a statement starts on its own line.
+ * A space typed where a statement starts (indentation) opens no list, so that the Enter that
+ * follows makes a new line rather than accepting a keyword.
  */
-import { CompletionItemKind, type CompletionItem, type CompletionList, type Position } from 'vscode-languageserver-types';
+import { CompletionItemKind, InsertTextFormat, MarkupKind, type CompletionItem, type CompletionList, type MarkupContent, type Position } from 'vscode-languageserver-types';
 import { allBasisSets } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
 import { MEMORY_UNITS } from '../chemistry/units';
@@ -18,6 +22,7 @@ import {
   keywordsFor,
   MAPPING_TERMS,
   methodsForTier,
+  SCAN_CLAUSES,
   SCAN_KINDS,
   SELECTOR_WORDS,
   SWITCH_TERMS,
@@ -29,6 +34,7 @@ import {
   ENERGY_UNIT_TERMS,
 } from '../language/vocabulary';
 import { locate, type CursorContext } from './locate';
+import { SNIPPETS } from './snippets';
 import { toOffset, toRange } from './positions';
 
 /** Keywords that may appear more than once in their block (basis: one main line and its overrides). */
@@ -37,8 +43,16 @@ const REPEATABLE = new Set(['fragment', 'basis']);
 /** Elements offered in a structure block before any atom is written: the common ones first. */
 const COMMON_ELEMENTS = ['H', 'C', 'N', 'O', 'F', 'P', 'S', 'Cl', 'Br', 'I', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Mn', 'Cr', 'Ti', 'Pd', 'Pt'];
 
+/** A word's documentation: its summary, how its cost grows and its reference, where the table has them. */
+export function termDocumentation(term: TermInfo): MarkupContent {
+  return {
+    kind: MarkupKind.Markdown,
+    value: [term.summary, ...(term.scaling ? [`Cost: ${term.scaling}.`] : []), ...(term.reference ? [`_${term.reference}_`] : [])].join('\n\n'),
+  };
+}
+
 function terms(list: readonly TermInfo[], kind: CompletionItemKind): CompletionItem[] {
-  return list.map((term) => ({ label: term.name, kind, detail: term.summary, ...(term.reference ? { documentation: term.reference } : {}) }));
+  return list.map((term) => ({ label: term.name, kind, detail: term.summary, documentation: termDocumentation(term) }));
 }
 
 function present(statements: readonly Statement[]): Set<string> {
@@ -50,7 +64,7 @@ function keywordItems(context: CursorContext, analysis: DocumentAnalysis): Compl
   const used = present(siblings.filter((s) => s !== context.statement));
   return keywordsFor(context.block)
     .filter((keyword) => REPEATABLE.has(keyword.name) || !used.has(keyword.name))
-    .map((keyword) => ({ label: keyword.name, kind: CompletionItemKind.Keyword, detail: keyword.syntax, documentation: keyword.summary }));
+    .map((keyword) => ({ label: keyword.name, kind: CompletionItemKind.Keyword, detail: keyword.syntax, documentation: { kind: MarkupKind.Markdown, value: `\`${keyword.syntax}\`\n\n${keyword.summary}` } }));
 }
 
 function elementItems(analysis: DocumentAnalysis): CompletionItem[] {
@@ -89,7 +103,7 @@ function fragmentItems(analysis: DocumentAnalysis): CompletionItem[] {
 }
 
 function keywordItem(term: TermInfo): CompletionItem {
-  return { label: term.name, kind: CompletionItemKind.Keyword, detail: term.summary };
+  return { label: term.name, kind: CompletionItemKind.Keyword, detail: term.summary, documentation: termDocumentation(term) };
 }
 
 const SELECTOR_TERMS = SELECTOR_WORDS.filter((term) => term.name !== 'to');
@@ -141,7 +155,11 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
   if (block === 'structure') return [];
   switch (keyword) {
     case 'structure':
-      if (index === 0) return ['in', 'from'].map((word) => ({ label: word, kind: CompletionItemKind.Keyword, detail: word === 'in' ? 'structure in bohr { … }: the length unit' : 'structure from "file.xyz": atoms from an XYZ file (ångström)' }));
+      if (index === 0)
+        return [
+          { name: 'in', summary: '`structure in bohr { … }`: the length unit of the atoms and of every distance in the spec (ångström unless given).' },
+          { name: 'from', summary: '`structure from "file.xyz"`: the atoms of an XYZ file (in ångström, by the XYZ convention), or of another spec.' },
+        ].map(keywordItem);
       return index === 1 && previous === 'in' ? terms(UNIT_TERMS, CompletionItemKind.EnumMember) : [];
     case 'basis':
       if (block !== 'top') return [];
@@ -182,7 +200,10 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
       if (index === 1 || index === 2) return labelItems(analysis);
       const given = new Set(statement.args.map((arg) => arg.text));
       const expectsNumber = ['from', 'to', 'step', 'points'].includes(previous ?? '');
-      return expectsNumber ? [] : ['from', 'to', 'step', 'points'].filter((word) => !given.has(word)).map((word) => ({ label: word, kind: CompletionItemKind.Keyword }));
+      if (expectsNumber) return [];
+      const clauses = SCAN_CLAUSES.filter((clause) => !given.has(clause.name) && !(clause.name === 'points' && given.has('step')) && !(clause.name === 'step' && given.has('points')));
+      // After `moving` the atoms that move, then the clauses not yet given.
+      return given.has('moving') && statement.args.findIndex((arg) => arg.text === 'moving') < index ? [...labelItems(analysis), ...terms(clauses, CompletionItemKind.Keyword)] : terms(clauses, CompletionItemKind.Keyword);
     }
     case 'memory':
       return index === 1 ? Object.keys(MEMORY_UNITS).map((unit) => ({ label: unit, kind: CompletionItemKind.Unit })) : [];
@@ -191,14 +212,41 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
   }
 }
 
-export function doComplete(analysis: DocumentAnalysis, position: Position): CompletionList {
+export interface CompletionOptions {
+  /** Whether the editor expands snippet syntax (LSP `snippetSupport`); without it no snippet is offered. */
+  snippets?: boolean;
+  /** The character whose typing asked for completion, if one did. */
+  triggerCharacter?: string;
+}
+
+/** Snippets that may start a statement in this block, where nothing but blanks precedes the word on its line. */
+function snippetItems(analysis: DocumentAnalysis, context: CursorContext, offset: number): CompletionItem[] {
+  const wordStart = context.token?.index === -1 ? context.token.node.span.start : offset;
+  const lineStart = analysis.text.lastIndexOf('\n', wordStart - 1) + 1;
+  if (analysis.text.slice(lineStart, wordStart).trim() !== '') return [];
+  const emptySpec = analysis.tree.statements.every((statement) => statement === context.statement);
+  return SNIPPETS.filter((snippet) => snippet.blocks.includes(context.block) && (!snippet.emptySpecOnly || emptySpec)).map((snippet, rank) => ({
+    label: snippet.label,
+    kind: CompletionItemKind.Snippet,
+    detail: snippet.description,
+    documentation: { kind: MarkupKind.Markdown, value: `${snippet.description}\n\n\`\`\`tessera\n${snippet.body.replace(/\$\{\d+\|([^,|]*)[^}]*\}/g, '$1').replace(/\$\{\d+:([^}]*)\}/g, '$1').replace(/\$\d+/g, '')}\n\`\`\`` },
+    insertText: snippet.body,
+    insertTextFormat: InsertTextFormat.Snippet,
+    filterText: snippet.label.split(' ').pop()!,
+    sortText: `~${rank}`, // after the keywords
+  }));
+}
+
+export function doComplete(analysis: DocumentAnalysis, position: Position, options: CompletionOptions = {}): CompletionList {
   const offset = toOffset(analysis, position);
   const context = locate(analysis.text, analysis.tree.statements, offset);
   const atStatementStart = !context.statement || context.token?.index === -1;
+  // A space typed where a statement starts is indentation, not a request.
+  if (atStatementStart && options.triggerCharacter === ' ') return { isIncomplete: false, items: [] };
   let items: CompletionItem[];
   if (atStatementStart) {
     if (context.block === 'structure') items = elementItems(analysis);
-    else items = keywordItems(context, analysis);
+    else items = [...keywordItems(context, analysis), ...(options.snippets ? snippetItems(analysis, context, offset) : [])];
   } else {
     items = valueItems(context, analysis);
   }

@@ -156,8 +156,37 @@ export function basisLineCard(analysis: DocumentAnalysis, statement: Statement):
     lines.push(`Override: ${line.set?.displayName ?? `'${line.ast.name?.value ?? '?'}' (not in the library)`} for ${decided.length} atom${decided.length === 1 ? '' : 's'}${decided.length > 0 ? `: ${atomList(analysis, decided)}` : ''}.`);
     if (elsewhere.length > 0) lines.push('', `Selected but decided by another line: ${atomList(analysis, elsewhere)}.`);
   }
-  lines.push('', BASIS_PRECEDENCE);
+  lines.push('', ...basisPerElement(analysis), '', BASIS_PRECEDENCE);
   return lines.join('\n');
+}
+
+/**
+ * Which basis each element of the structure takes, atom by atom, and the spec's own basis (the
+ * main line's): an element split between bases lists each with its atom count, and a basis given
+ * by an override line names that line.
+ */
+export function basisPerElement(analysis: DocumentAnalysis): string[] {
+  const { basis, atoms } = analysis.model;
+  const main = basis.main?.displayName ?? (analysis.ast.basis?.name ? `'${analysis.ast.basis.name.value}' (not in the library)` : 'none');
+  const perElement = new Map<string, Map<number, number>>();
+  for (const atom of atoms) {
+    const byLine = perElement.get(atom.element.symbol) ?? new Map<number, number>();
+    const line = basis.decidedBy[atom.index]!;
+    byLine.set(line, (byLine.get(line) ?? 0) + 1);
+    perElement.set(atom.element.symbol, byLine);
+  }
+  const name = (line: number): string => {
+    if (line < 0) return `${main} (spec’s basis)`;
+    const override = basis.overrides[line]!;
+    return `${override.set?.displayName ?? override.ast.name?.value ?? '?'} (\`on ${override.ast.targets.map(describeTarget).join(' ')}\`)`;
+  };
+  const rows = [...perElement].map(([symbol, byLine]) => {
+    const total = [...byLine.values()].reduce((sum, count) => sum + count, 0);
+    const bases = byLine.size === 1 ? name([...byLine.keys()][0]!) : [...byLine].map(([line, count]) => `${name(line)} × ${count}`).join('; ');
+    return `| ${symbol} | ${total} | ${bases} |`;
+  });
+  if (rows.length === 0) return [`Spec’s basis: ${main}.`];
+  return [`Spec’s basis: ${main}. Per element:`, '', '| element | atoms | basis |', '| --- | ---: | --- |', ...rows];
 }
 
 function termCard(term: TermInfo, kind: string): string {
