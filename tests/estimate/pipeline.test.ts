@@ -155,7 +155,7 @@ describe('scans', () => {
     const scanned = report(`basis sto-3g\n${WATER.replace('}', '  He he 0 0 3.0\n}')}\nfragment w { atoms o h1 h2; tier quantum { method vqe; active 4e 4o } }\nfragment x { atoms he; tier mean-field { method rhf } }\nscan distance o he from 2.5 to 3.5 step 0.25\n`);
     expect(scanned.scan!.points).toBe(5);
     const groups = scanned.fragments[0]!.measurement!.groups;
-    expect(scanned.scan!.totals).toEqual({ fragmentCalculations: 10, measurementCircuits: 5 * (groups as number), peakQubits: 8 });
+    expect(scanned.scan!.totals).toEqual({ fragmentCalculations: 10, measurementCircuits: 5 * (groups as number), measurementCircuitsPerPoint: groups, peakQubits: 8 });
   });
 });
 

@@ -169,7 +169,9 @@ describe('tessera report --format markdown', () => {
     // 7 points (2.3 to 3.5 Å in steps of 0.2) × 3 fragments with a tier, from the sample.
     expect(value('scan.points')).toBe('7');
     expect(value('scan.totals.fragmentCalculations')).toBe('21');
-    expect(value('scan.totals.measurementCircuits')).toBe(String(json.scan!.totals.measurementCircuits));
+    // Per point, not points × per point (the JSON keeps both).
+    expect(value('scan.totals.measurementCircuitsPerPoint')).toBe(String(json.scan!.totals.measurementCircuitsPerPoint));
+    expect(value('scan.totals.measurementCircuits')).toBeUndefined();
     expect(value('scan.totals.peakQubits')).toBe(cellOf(json.scan!.totals.peakQubits));
     expect(value('scan.distances')).toBe('2.300, 2.500, 2.700, 2.900, 3.100, 3.300, 3.500');
   });

@@ -93,8 +93,8 @@ function quantumRows(fragment: FragmentFigures, limit: number | null, computed: 
   if (computed) rows.push(`| measurement | ${computed.groups} qubit-wise commuting groups, computed from the strings (greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum) |`);
   else if (fragment.measurement) {
     const groups = countText(fragment.measurement.groups);
-    const how = fragment.measurement.exact ? 'greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum' : 'extrapolated from explicit groupings';
-    rows.push(`| measurement | ${fragment.measurement.exact || groups.startsWith('≈') ? '' : '≈ '}${groups} qubit-wise commuting groups (${how}) |`);
+    const how = fragment.measurement.explicit ? 'greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum' : fragment.measurement.method;
+    rows.push(`| measurement | ${fragment.measurement.explicit || groups.startsWith('≈') ? '' : '≈ '}${groups} qubit-wise commuting groups (${how}) |`);
   }
   if (fragment.ansatzCost) {
     const unscreened = fragment.ansatzCost.unscreened !== null && countText(fragment.ansatzCost.unscreened) !== countText(fragment.ansatzCost.parameters) ? ` (${countText(fragment.ansatzCost.unscreened)} without point-group screening)` : '';

@@ -68,7 +68,7 @@ const SECTIONS = {
       upperBound: quantum.pauliTerms.upperBound,
     },
   })),
-  measurement: fromQuantum((_figures, quantum) => ({ measurement: { groups: approximateCount(quantum.measurement.groups), exact: quantum.measurement.exact, method: quantum.measurement.method } })),
+  measurement: fromQuantum((_figures, quantum) => ({ measurement: { groups: approximateCount(quantum.measurement.groups), explicit: quantum.measurement.exact, exact: quantum.measurement.exact, method: quantum.measurement.method } })),
   ansatz: fromQuantum((_figures, quantum) => ({ ansatzCost: ansatzFigures(quantum) })),
   circuit: fromQuantum((_figures, quantum) => ({ circuit: circuitFigures(quantum) })),
   classical: fromPlan((_figures, plan) => ({

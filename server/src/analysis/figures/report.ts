@@ -16,7 +16,7 @@ export function scanTotals(points: number, fragments: readonly FragmentFigures[]
   const withTier = fragments.filter((fragment) => fragment.tier !== null).length;
   const groups = fragments.reduce((sum, fragment) => sum + (fragment.tier === 'quantum' && fragment.measurement ? countValue(fragment.measurement.groups) : 0), 0);
   const qubits = fragments.map((fragment) => fragment.qubitsRequired).filter((value): value is number => value !== null);
-  return { fragmentCalculations: points * withTier, measurementCircuits: approximateCount(points * groups), peakQubits: qubits.length > 0 ? qubits.reduce((most, q) => Math.max(most, q), -Infinity) : null };
+  return { fragmentCalculations: points * withTier, measurementCircuits: approximateCount(points * groups), measurementCircuitsPerPoint: approximateCount(groups), peakQubits: qubits.length > 0 ? qubits.reduce((most, q) => Math.max(most, q), -Infinity) : null };
 }
 
 /** The basis as the report names it: the main set, the override lines that decide atoms, the function type. */

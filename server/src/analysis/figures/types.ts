@@ -114,7 +114,12 @@ export interface FragmentFigures extends SpaceFigures {
     reason: string;
   } | null;
   taperingSymmetries: string[];
-  measurement: { groups: Count; exact: boolean; method: string } | null;
+  /**
+   * Qubit-wise commuting groups. `explicit`: counted by grouping the strings themselves (a greedy
+   * heuristic, not the minimum), else extrapolated; `exact` is the same flag under its first name,
+   * kept for readers of earlier output (the count is never exact).
+   */
+  measurement: { groups: Count; explicit: boolean; exact: boolean; method: string } | null;
   ansatzCost: { kind: string; parameters: Count; singles: Count | null; doubles: Count | null; unscreened: Count | null; spinAdapted: Count | null } | null;
   circuit: { construction: string; cnots: Count; rotations: Count | null; depth: Count | null; compactCnots: Count | null } | null;
   classical: {
@@ -195,6 +200,8 @@ export interface ScanTotals {
   fragmentCalculations: number;
   /** Measurement groups summed over quantum fragments, times the points: circuits per energy evaluation over the scan. */
   measurementCircuits: Count;
+  /** Measurement groups summed over quantum fragments: circuits per energy evaluation at each point (counted at the structure's geometry, the same at every point). */
+  measurementCircuitsPerPoint: Count;
   /** The largest qubit count any point needs (the same at every point). */
   peakQubits: number | null;
 }

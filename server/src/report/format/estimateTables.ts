@@ -85,7 +85,7 @@ export function estimateTables(report: EstimateReport): Table[] {
   const quantumRows = rows.filter(({ fragment }) => !fragment || fragment.tier === 'quantum');
   const qubits: Table = {
     title: 'Qubits and Hamiltonian (quantum tiers; the system row is hypothetical: the whole system on one quantum tier)',
-    headers: ['part', 'problem', 'active', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered', 'needed', 'Pauli terms', 'QWC groups'],
+    headers: ['part', 'problem', 'active', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered', 'needed', 'Pauli terms', 'QWC groups (greedy, block order)'],
     numeric: [false, true, true, true, true, true, true, true, true, true],
     rows: quantumRows.map(({ name, figures, fragment }) => [
       fragment ? name : `${name} (hypothetical)`,
@@ -95,16 +95,17 @@ export function estimateTables(report: EstimateReport): Table[] {
       orNone(figures.qubits?.bravyiKitaev),
       orNone(figures.qubits?.parity),
       orNone(figures.qubits?.tapered),
-      fragment?.qubitsRequired !== undefined && fragment.qubitsRequired !== null ? `${fragment.qubitsRequired}` : dash,
+      // Phase estimation needs a phase register and ancillas besides: the figure is the system's register.
+      fragment?.qubitsRequired !== undefined && fragment.qubitsRequired !== null ? `${fragment.qubitsRequired}${fragment.method === 'qpe' ? ' (system register only)' : ''}` : dash,
       figures.pauliTerms ? `${figures.pauliTerms.upperBound ? '≤ ' : ''}${countText(figures.pauliTerms.jordanWigner)}` : dash,
-      fragment?.measurement ? approximately(fragment.measurement.exact, fragment.measurement.groups) : dash,
+      fragment?.measurement ? approximately(fragment.measurement.explicit, fragment.measurement.groups) : dash,
     ]),
   };
   const quantum = report.fragments.filter((fragment) => fragment.tier === 'quantum' && (fragment.ansatzCost || fragment.circuit));
   const tables = [plan, orbitals, qubits];
   if (quantum.length > 0) {
     tables.push({
-      title: 'Ansatz and circuit (one Trotter step)',
+      title: 'Ansatz and circuit (one Trotter step on the untapered Jordan–Wigner register; depth a serial upper estimate)',
       headers: ['part', 'ansatz', 'parameters', 'without symmetry', 'CNOTs', 'compact CNOTs', 'depth', 'statevector'],
       numeric: [false, false, true, true, true, true, true, true],
       rows: quantum.map((fragment) => [
@@ -196,7 +197,7 @@ export function headerLines(report: EstimateReport): string[] {
     const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(approximateCount(countValue(totals.measurementCircuits) / report.scan.points))} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
+        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(totals.measurementCircuitsPerPoint)} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
         : 'scan: no valid points',
     );
   }

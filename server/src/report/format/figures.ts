@@ -64,7 +64,7 @@ export const FIGURE_COLUMNS: readonly FigureColumn[] = [
   { key: 'pauliTerms.parity', label: 'Pauli terms, parity' },
   { key: 'pauliTerms.upperBound', label: 'Pauli terms are an upper bound' },
   { key: 'measurement.groups', label: 'QWC measurement groups' },
-  { key: 'measurement.exact', label: 'measurement groups from explicit greedy grouping (not a minimum; else extrapolated)' },
+  { key: 'measurement.explicit', label: 'measurement groups from grouping the strings, greedy (a heuristic, not the minimum; else extrapolated)' },
   { key: 'ansatzCost.kind', label: 'ansatz (costed)' },
   { key: 'ansatzCost.parameters', label: 'ansatz parameters' },
   { key: 'ansatzCost.singles', label: 'ansatz singles' },
@@ -160,7 +160,7 @@ export function scanTable(report: EstimateReport): Table | null {
       ['points', 'scan.points', String(scan.points)],
       ['distances (Å)', 'scan.distances', distances || '–'],
       ['fragment calculations over the scan', 'scan.totals.fragmentCalculations', String(scan.totals.fragmentCalculations)],
-      ['measurement circuits per energy evaluation, over the scan', 'scan.totals.measurementCircuits', countText(scan.totals.measurementCircuits)],
+      ['measurement circuits per energy evaluation, at each point (the same at every point)', 'scan.totals.measurementCircuitsPerPoint', countText(scan.totals.measurementCircuitsPerPoint)],
       ['most qubits at any point', 'scan.totals.peakQubits', figureText(scan.totals.peakQubits) || '–'],
     ],
   };

@@ -148,7 +148,7 @@ export function hamiltonianTable(parts: readonly HamiltonianPart[], settings: re
   const dash = ['–', '–', '–', '–', '–', '–', '–', '–', '–'];
   return {
     title: 'Active-space Hamiltonian (computed) and its measurement budget (estimates)',
-    headers: ['part', 'space', 'strings JW/BK/parity', 'λ (Ha)', 'constant (Ha)', 'QWC groups JW', 'ε (mHa)', 'shots (λ/ε)²', 'shots grouped', 'VQE run shots (grouped)', 'VQE time', 'QPE Toffolis', 'QPE logical qubits'],
+    headers: ['part', 'space', 'strings JW/BK/parity', 'λ (Ha)', 'constant (Ha)', 'QWC groups JW (sorted insertion, block order)', 'ε (mHa)', 'shots (λ/ε)²', 'shots grouped', 'VQE run shots (grouped)', 'VQE time', 'QPE Toffolis', 'QPE logical qubits (system + ancillas)'],
     numeric: [false, false, true, true, true, true, true, true, true, true, true, true, true],
     rows: parts
       .map((part, k) => ({ ...part, settings: settings[k]! }))
