@@ -263,7 +263,17 @@ export async function runWorkbenchChecks({ page, workspace, shots, reference, lo
     await suggestions.filter({ hasText: 'jordan-wigner' }).first().waitFor({ timeout: WAIT });
     const values = (await allRowLabels(page, '.suggest-widget.visible')).map((label) => label.split(',')[0].trim());
     if (values.slice().sort().join(' ') !== 'bravyi-kitaev jordan-wigner parity') throw new Error(`values after 'mapping ': ${values.join(', ')}`);
-    return `Ctrl+Space in an empty tier line offers ${names.filter((name) => offered.includes(name)).join(', ')} (not method, already given); after 'mapping ' it offers ${values.join(', ')}`;
+    // Enter with the list still open ends the line (Tab accepts): the next statement is not glued on.
+    await page.keyboard.type('parity', { delay: 20 });
+    await suggestions.filter({ hasText: 'parity' }).first().waitFor({ timeout: WAIT });
+    await page.keyboard.press('Enter');
+    await page.keyboard.type('taper on', { delay: 20 });
+    await dismiss(page);
+    await waitForLine(page, (line) => line.trim() === 'taper on').catch(async () => {
+      throw new Error(`Enter did not end the line: ${(await waitForLine(page, (line) => line.includes('parity'), 2000).catch(() => '?')).trim()}`);
+    });
+    await waitForLine(page, (line) => line.trim() === 'mapping parity');
+    return `Ctrl+Space in an empty tier line offers ${names.filter((name) => offered.includes(name)).join(', ')} (not method, already given); after 'mapping ' it offers ${values.join(', ')}; Enter with the list open ends the line ('mapping parity', then 'taper on' on the next)`;
   });
 
   // --- quick fix ------------------------------------------------------------------------------

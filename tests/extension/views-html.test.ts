@@ -10,6 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeDocument } from '../../server/src/analysis';
 import { reportMarkdown } from '../../server/src/services/report';
 import { compareMarkdown } from '../../server/src/services/compare';
+import { costPlots } from '../../server/src/services/views';
 import { contentSecurityPolicy, makeNonce, reportPageHtml, viewPage, withoutInlineStyles, type ViewKind } from '../../client/src/views/html';
 
 const CSP_SOURCE = 'https://file+.vscode-resource.vscode-cdn.net';
@@ -100,6 +101,17 @@ describe('the report panel’s tables', () => {
 
   it('turns other alignments into classes and drops any other inline style', () => {
     expect(withoutInlineStyles('<th style="text-align:center">a</th><td style="text-align: left;">b</td><p style="color:red">c</p>')).toBe('<th class="ts-center">a</th><td class="ts-left">b</td><p>c</p>');
+  });
+});
+
+describe('the cost panel’s charts', () => {
+  it('carry no inline style attribute (the page inserts the server’s SVG as it is)', () => {
+    const SAMPLE = path.resolve(__dirname, '../../samples/zn-site-h2s-scan.tess');
+    const plots = costPlots(analyzeDocument(readFileSync(SAMPLE, 'utf8'), { path: SAMPLE }));
+    for (const [name, svg] of Object.entries(plots.svg)) {
+      expect(svg, name).toMatch(/<svg\b/);
+      expect(svg, name).not.toMatch(/<[a-z][^>]*\sstyle\s*=/i);
+    }
   });
 });
 
