@@ -39,7 +39,7 @@ describe('one active-irreps rule for every figure', () => {
     const hover = doHover(analysis, positionOf(analysis, 'fragment w', 9))!;
     const report = analysis.report();
     expect(JSON.stringify(hover.contents)).toContain(`| tapered | ${report.fragments[0]!.qubits!.tapered} qubits`);
-    expect(JSON.stringify(hover.contents)).toContain(`| Pauli terms | ${report.fragments[0]!.pauliTerms!.jordanWigner} counted (identity included) |`);
+    expect(JSON.stringify(hover.contents)).toContain(`| Pauli terms | ${report.fragments[0]!.pauliTerms!.jordanWigner} counted (identity included) · irreps counted |`);
   });
 });
 

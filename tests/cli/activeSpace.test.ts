@@ -45,4 +45,20 @@ describe('tessera estimate --mean-field: computed active orbitals', () => {
     const text = await run(['estimate', 'w.tess', '--mean-field'], folder);
     expect(text.stdout).toContain('Computed active orbitals');
   });
+
+  it('the figures that read the active irreps are built on the computed orbitals, in JSON and text (water 8e 8o, psi4 irreps in tests/analysis/computedIrreps.test.ts)', async () => {
+    const folder = scratch({ 'w.tess': spec('method vqe; ansatz uccsd; mapping jordan-wigner; active 8e 8o') });
+    const counted = JSON.parse((await run(['estimate', 'w.tess', '--format', 'json'], folder)).stdout) as Json;
+    expect(counted['fragments'][0]['activeIrreps']['source']).toBe('proportional');
+    expect(counted['fragments'][0]['orbitalSources']['figures']['pauliTerms']).toBe('counted');
+    const json = JSON.parse((await run(['estimate', 'w.tess', '--mean-field', '--format', 'json'], folder)).stdout) as Json;
+    const fragment = json['fragments'][0];
+    expect(fragment['activeIrreps']).toEqual({ perIrrep: { A1: 4, B2: 3, B1: 1 }, source: 'computed', occupation: 'computed' });
+    expect(fragment['orbitalSources']['figures']).toMatchObject({ taperedQubits: 'computed', pauliTerms: 'computed', ansatzParameters: 'computed' });
+    // The computed Hamiltonian has as many strings as the count on the computed irreps allows.
+    expect(fragment['pauliTerms']['jordanWigner']).toBe(fragment['hamiltonian']['pauliTerms']['jordanWigner']);
+    expect(counted['fragments'][0]['pauliTerms']['jordanWigner']).not.toBe(fragment['pauliTerms']['jordanWigner']);
+    const text = await run(['estimate', 'w.tess', '--mean-field'], folder);
+    expect(text.stdout).toMatch(/^w +8e 23o +8e 8o +computed +16 /m);
+  });
 });

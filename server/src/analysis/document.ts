@@ -31,7 +31,9 @@ import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
 import { analyseVariants, reportVariantProblems, type VariantAnalysis } from './variants';
-import { partComputation, type BathOrbitals, type HamiltonianSpace, type PartComputation, type RequestOptions } from './computed';
+import { ACTIVE_SPACE_KIND, partComputation, type ActiveSpaceOutcome, type BathOrbitals, type HamiltonianSpace, type PartComputation, type RequestOptions } from './computed';
+import { computedActiveOrbitals } from './computedOrbitals';
+import type { PlanEstimate } from '../chemistry/estimate/plan';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
@@ -59,9 +61,10 @@ export class DocumentAnalysis {
 
   private readonly languageDiagnostics: readonly Diagnostic[];
   private allDiagnostics: Diagnostic[] | undefined;
-  private readonly fragments = new Map<number, FragmentFigures>();
+  /** Each fragment's figures, with the computed active space they were built on (undefined: counted). */
+  private readonly fragments = new Map<number, { figures: FragmentFigures; outcome: ActiveSpaceOutcome | undefined }>();
   private system: SystemFigures | undefined;
-  private whole: EstimateReport | undefined;
+  private whole: { report: EstimateReport; outcomes: (ActiveSpaceOutcome | undefined)[] } | undefined;
   private readonly growths = new Map<string, GrowthPoint[]>();
   private moving: number[] | undefined;
   private readonly computations = new Map<string, PartComputation>();
@@ -118,14 +121,47 @@ export class DocumentAnalysis {
     return this.variantList;
   }
 
-  /** One fragment's figures (its point group and plan estimate only). */
+  /**
+   * One fragment's figures (its point group and plan estimate only). Once the fragment's active
+   * orbitals are computed (a late result under the key of its current inputs), the figures that
+   * depend on the irreps and reference occupation of the active orbitals are built on the computed
+   * ones and say so; they are built again when that result arrives, changes or goes.
+   */
   fragmentFigures(index: number): FragmentFigures {
-    let figures = this.fragments.get(index);
-    if (!figures) {
-      figures = fragmentFigures(this.estimates, index);
-      this.fragments.set(index, figures);
+    const outcome = this.computedActiveSpace(index);
+    let entry = this.fragments.get(index);
+    if (!entry || entry.outcome !== outcome) {
+      entry = { figures: fragmentFigures(this.estimates, index, outcome ? computedActiveOrbitals(outcome) : undefined), outcome };
+      this.fragments.set(index, entry);
     }
-    return figures;
+    return entry.figures;
+  }
+
+  /**
+   * The fragment's computed active space when its result is ready under the key of the fragment's
+   * current inputs (atoms, basis, charge, spin and the active-space choice): a result for other
+   * inputs is never read. Undefined for fragments without an active space or before it arrives.
+   */
+  computedActiveSpace(index: number): ActiveSpaceOutcome | undefined {
+    const tier = this.model.fragments[index]?.tier;
+    if (!tier?.active || tier.level === 'mean-field') return undefined;
+    const key = this.computation({ kind: 'fragment', index }).activeSpaceKey;
+    if (!key) return undefined;
+    const result = this.late.get<ActiveSpaceOutcome>(ACTIVE_SPACE_KIND, key);
+    return result.state === 'ready' ? result.value : undefined;
+  }
+
+  /**
+   * The plan estimate a fragment's figures are built on: from its computed active orbitals when
+   * they are there and can be used (fragmentFigures says which), else the counted one.
+   */
+  fragmentPlan(index: number): PlanEstimate | undefined {
+    const outcome = this.computedActiveSpace(index);
+    if (outcome) {
+      const computed = this.estimates.computedPlan(index, computedActiveOrbitals(outcome));
+      if (computed.plan) return computed.plan;
+    }
+    return this.estimates.plan(index);
   }
 
   /** The system's figures, with its point group (within the size policy of estimates.ts). */
@@ -135,13 +171,17 @@ export class DocumentAnalysis {
 
   /** Every figure under stable keys: the system, each fragment, the scan totals, the limits. */
   report(): EstimateReport {
-    this.whole ??= assembleReport({
-      analysis: this,
-      system: this.systemFigures(),
-      fragments: this.model.fragments.map((fragment) => this.fragmentFigures(fragment.index)),
-      diagnostics: this.counts(),
-    });
-    return this.whole;
+    const outcomes = this.model.fragments.map((fragment) => this.computedActiveSpace(fragment.index));
+    if (!this.whole || this.whole.outcomes.some((outcome, k) => outcome !== outcomes[k])) {
+      const report = assembleReport({
+        analysis: this,
+        system: this.systemFigures(),
+        fragments: this.model.fragments.map((fragment) => this.fragmentFigures(fragment.index)),
+        diagnostics: this.counts(),
+      });
+      this.whole = { report, outcomes };
+    }
+    return this.whole.report;
   }
 
   /** The largest qubit count any quantum-tier fragment needs (only those fragments are estimated). */

@@ -6,7 +6,8 @@
  * policy everywhere (checks and figures alike): SYMMETRY_ATOM_LIMIT.
  */
 import { elementByNumber, frozenCoreShells } from '../chemistry/elements';
-import { activeIrreps, planSymmetryOf, resolveGivenIrreps, symmetryCounts, type PlanSymmetry } from '../chemistry/estimate/activeIrreps';
+import { activeIrreps, planSymmetryOf, resolveGivenIrreps, symmetryCounts, type GivenOccupation, type IrrepShare, type PlanSymmetry } from '../chemistry/estimate/activeIrreps';
+import { CHARACTER_TABLES, type AbelianGroupName } from '../chemistry/symmetry/characterTables';
 import type { PauliTermCounts } from '../chemistry/estimate/pauliTerms';
 import { EMBEDDING_SYMMETRY, embeddingName, type SymmetryScope } from '../chemistry/estimate/embeddingSymmetry';
 import { estimatePlan, type PlanEstimate, type PlanInput } from '../chemistry/estimate/plan';
@@ -30,6 +31,24 @@ export interface SystemCounts {
 }
 
 const PLAN_EMBEDDINGS = new Set(['dmet', 'projection', 'subtractive']);
+
+/**
+ * The active orbitals a mean field chose for a fragment, as the estimates read them: the point
+ * group of the labels, the irrep of each active orbital in register order and the electrons it
+ * holds in the reference determinant (2, 1 or 0). Built from the fragment's active-space result
+ * (analysis/computedOrbitals.ts), which is kept under a key of the fragment's inputs, so a result
+ * for other atoms, basis, charge or spin never reaches here.
+ */
+export interface ComputedActiveOrbitals {
+  readonly pointGroup: string;
+  /** Irrep label of each active orbital; null where the orbital belongs to no irrep. */
+  readonly irreps: readonly (string | null)[];
+  /** Electrons of each active orbital in the reference determinant. */
+  readonly occupations: readonly number[];
+}
+
+/** Whether a fragment's estimates use its computed active orbitals, and why not when they do not. */
+export type ComputedUse = { readonly use: true; readonly input: PlanInput } | { readonly use: false; readonly reason: string };
 
 /** Point groups of atom sets and plan estimates, by their full inputs, across versions and documents. */
 const SYMMETRIES = new InputMemo<OrbitalSymmetry | undefined>(64);
@@ -98,6 +117,54 @@ export class Estimates {
   /** The symmetry a fragment's figures are counted in: its stabiliser in the system when embedded, else its own. */
   countedSymmetry(index: number): OrbitalSymmetry | undefined {
     return this.symmetryScope().scope === 'in-system' ? this.fragmentSymmetryInSystem(index) : this.fragmentSymmetry(index);
+  }
+
+  /**
+   * What a fragment's plan estimate is computed from when its active orbitals are computed: the
+   * counted input with the active space replaced by the computed one (its size, the irrep of each
+   * orbital and the reference occupation), or why the counted input stands.
+   */
+  computedPlanInput(index: number, computed: ComputedActiveOrbitals): ComputedUse {
+    const counted = this.planInput(index);
+    if (!counted) return { use: false, reason: 'the fragment has no plan estimate to refine' };
+    if (counted.embedding === 'dmet') return { use: false, reason: "under embedding dmet the solver's active space lies in the impurity, while the orbitals were chosen from the fragment alone" };
+    if (computed.irreps.some((irrep) => irrep === null)) return { use: false, reason: 'an active orbital of the computed space belongs to no single irrep' };
+    const countedSymmetry = counted.symmetry;
+    let symmetry: PlanSymmetry | undefined;
+    if (countedSymmetry?.group === computed.pointGroup) symmetry = countedSymmetry;
+    else if (this.symmetryScope().scope === 'in-system') {
+      return { use: false, reason: `the orbitals carry irreps of the fragment's own group ${computed.pointGroup}, while its figures are counted in ${countedSymmetry?.group ?? 'C1'}, the symmetry it keeps inside the system` };
+    } else symmetry = groupSymmetry(computed.pointGroup, countedSymmetry);
+    if (!symmetry) return { use: false, reason: `the computed point group ${computed.pointGroup} is not one Tessera counts in` };
+    const counts = (keep: (occupation: number) => boolean) => {
+      const byLabel = new Map<string, number>();
+      computed.irreps.forEach((label, k) => {
+        if (keep(computed.occupations[k]!)) byLabel.set(label!, (byLabel.get(label!) ?? 0) + 1);
+      });
+      return [...byLabel].map(([label, count]) => ({ label, count }));
+    };
+    const perIrrep = resolveGivenIrreps(symmetry.group, counts(() => true));
+    const doubly = resolveGivenIrreps(symmetry.group, counts((occupation) => occupation === 2));
+    const singly = resolveGivenIrreps(symmetry.group, counts((occupation) => occupation === 1));
+    if (!perIrrep || !doubly || !singly) return { use: false, reason: `an irrep label of the computed orbitals is not one of ${symmetry.group}` };
+    const electrons = computed.occupations.reduce((sum, occupation) => sum + occupation, 0);
+    const occupation: GivenOccupation = { doubly, singly };
+    const active: { electrons: number; orbitals: number; perIrrep: IrrepShare[]; occupation: GivenOccupation; origin: 'computed' } = { electrons, orbitals: computed.irreps.length, perIrrep, occupation, origin: 'computed' };
+    return { use: true, input: { ...counted, active, symmetry } };
+  }
+
+  /** The plan estimate of a fragment from its computed active orbitals, or why the counted one stands. */
+  computedPlan(index: number, computed: ComputedActiveOrbitals): { plan: PlanEstimate } | { plan: undefined; reason: string } {
+    const use = this.computedPlanInput(index, computed);
+    if (!use.use) return { plan: undefined, reason: use.reason };
+    const plan = PLANS.get(JSON.stringify(use.input), () => {
+      try {
+        return estimatePlan(use.input);
+      } catch {
+        return undefined;
+      }
+    });
+    return plan ? { plan } : { plan: undefined, reason: 'the computed active space does not fit the problem the solver sees' };
   }
 
   /** What the plan estimate of a fragment is computed from; undefined for fragments that cannot be sized. */
@@ -190,4 +257,16 @@ export class Estimates {
     const key = JSON.stringify([functions, numbers, Array.from(positions), shells, coreShells ?? null]);
     return { atoms: { numbers, positions, shells, coreShells, functions }, key };
   }
+}
+
+/**
+ * The symmetry of a computed group for the estimates, when the counted one is another (the mean
+ * field found the fragment's own group with its own tolerance): its generators; whether the full
+ * group is non-abelian is taken from the counted symmetry, and assumed so without one (the Pauli
+ * count is then said to be an upper bound rather than claimed exact).
+ */
+function groupSymmetry(group: string, counted: PlanSymmetry | undefined): PlanSymmetry | undefined {
+  const table = CHARACTER_TABLES[group as AbelianGroupName];
+  if (!table) return undefined;
+  return { group, generatorCount: table.generators.length, generatorNames: table.generators, available: [], fullGroupNonAbelian: counted?.fullGroupNonAbelian ?? table.generators.length > 0, fullGroup: counted?.fullGroup ?? group };
 }

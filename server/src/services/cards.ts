@@ -31,7 +31,18 @@ export function spaceRows(figures: SpaceFigures): string[] {
 function activeRow(figures: SpaceFigures): string[] {
   const active = figures.active;
   if (!active) return [];
-  const source = active.source === 'given' ? 'as given' : active.source === 'dmet-impurity' ? 'the whole DMET impurity' : active.source === 'outside-frozen-core' ? 'all orbitals outside the frozen core' : 'all orbitals';
+  const source =
+    active.source === 'given'
+      ? 'as given'
+      : active.source === 'computed'
+        ? 'as computed from the mean field'
+        : active.source.startsWith('estimated-')
+          ? 'counted until the suggested orbitals are computed (a planning estimate)'
+          : active.source === 'dmet-impurity'
+            ? 'the whole DMET impurity'
+            : active.source === 'outside-frozen-core'
+              ? 'all orbitals outside the frozen core'
+              : 'all orbitals';
   return [`| active space | ${active.electrons}e ${active.orbitals}o${active.alpha !== null ? ` (α ${active.alpha} / β ${active.beta})` : ''}, ${source} |`];
 }
 
@@ -72,6 +83,22 @@ function problemRow(fragment: FragmentFigures): string[] {
   return [`| solver's problem | ${problem.electrons}e ${problem.orbitals}o (${problem.embedding === 'none' ? "the fragment's own orbitals" : `${problem.embedding} embedding`}) |`];
 }
 
+/** Which orbitals a figure read: `irreps computed` or `irreps counted`. */
+function sourceText(fragment: FragmentFigures, key: string): string {
+  const source = fragment.orbitalSources?.figures[key];
+  return source === 'computed' ? 'irreps computed' : 'irreps counted';
+}
+
+function activeIrrepsRow(fragment: FragmentFigures): string {
+  const irreps = fragment.activeIrreps!;
+  if (irreps.source === 'computed') {
+    const from = fragment.orbitalSources?.computedFrom ?? 'the computed active orbitals';
+    return `| active irreps | ${irrepText(irreps.perIrrep)} (**computed**: ${from}); reference occupation ${irreps.occupation === 'computed' ? 'computed' : 'assumed'} |`;
+  }
+  const reference = irreps.occupation === 'given' ? 'reference occupation as given' : 'reference occupation assumed (the orbitals of each irrep spread evenly, the lowest filled; give `occupied A1=2 …` to set it)';
+  return `| active irreps | ${irrepText(irreps.perIrrep)} (counted: ${irreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}); ${reference} |`;
+}
+
 /** A quantum tier's register first: what decides whether it runs. */
 function quantumRows(fragment: FragmentFigures, limit: number | null, computed: { jordanWigner: number; groups: number } | null): string[] {
   const rows: string[] = [];
@@ -80,16 +107,13 @@ function quantumRows(fragment: FragmentFigures, limit: number | null, computed: 
     const tapered = qubits !== null && fragment.qubitsRequired === qubits.tapered && qubits.tapered !== null;
     rows.push(`| qubits needed | **${fragment.qubitsRequired}** under ${fragment.mapping}${tapered ? ', tapered' : ''}${fragment.method === 'qpe' ? ', the system register only (the phase register and ancillas of the QPE scheme not counted)' : ''}${limit !== null ? ` (limit ${limit})` : ''} |`);
   }
-  if (qubits?.tapered !== null && qubits?.tapered !== undefined) rows.push(`| tapered | ${qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) |`);
+  if (qubits?.tapered !== null && qubits?.tapered !== undefined) rows.push(`| tapered | ${qubits.tapered} qubits (removed: ${fragment.taperingSymmetries.join(', ') || 'none'}) · ${sourceText(fragment, 'taperedQubits')} |`);
   rows.push(...problemRow(fragment), ...activeRow(fragment));
-  if (fragment.activeIrreps) {
-    const reference = fragment.activeIrreps.occupation === 'given' ? 'reference occupation as given' : 'reference occupation assumed (the orbitals of each irrep spread evenly, the lowest filled; give `occupied A1=2 …` to set it)';
-    rows.push(`| active irreps | ${irrepText(fragment.activeIrreps.perIrrep)} (${fragment.activeIrreps.source === 'given' ? 'as given' : 'assumed in proportion to the orbitals of each irrep'}); ${reference} |`);
-  }
+  if (fragment.activeIrreps) rows.push(activeIrrepsRow(fragment));
   if (qubits) rows.push(`| qubits | Jordan–Wigner ${qubits.jordanWigner} · Bravyi–Kitaev ${qubits.bravyiKitaev} · parity ${qubits.parity} |`);
   const counted = fragment.pauliTerms ? `${fragment.pauliTerms.upperBound ? '≤ ' : ''}${countText(fragment.pauliTerms.jordanWigner)}` : null;
   if (computed && counted !== null) rows.push(`| Pauli terms | **${computed.jordanWigner}** computed (counted bound ${counted}; identity included) |`);
-  else if (counted !== null) rows.push(`| Pauli terms | ${counted} counted (identity included) |`);
+  else if (counted !== null) rows.push(`| Pauli terms | ${counted} counted (identity included) · ${sourceText(fragment, 'pauliTerms')} |`);
   if (computed) rows.push(`| measurement | ${computed.groups} qubit-wise commuting groups, computed from the strings (greedy grouping, Jordan–Wigner block order: a heuristic, not the minimum) |`);
   else if (fragment.measurement) {
     const groups = countText(fragment.measurement.groups);
@@ -98,7 +122,8 @@ function quantumRows(fragment: FragmentFigures, limit: number | null, computed: 
   }
   if (fragment.ansatzCost) {
     const unscreened = fragment.ansatzCost.unscreened !== null && countText(fragment.ansatzCost.unscreened) !== countText(fragment.ansatzCost.parameters) ? ` (${countText(fragment.ansatzCost.unscreened)} without point-group screening)` : '';
-    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${countText(fragment.ansatzCost.parameters)} parameters${unscreened} |`);
+    const screening = fragment.ansatzCost.kind === 'uccsd' ? ` · ${sourceText(fragment, 'ansatzParameters')}` : '';
+    rows.push(`| ansatz | ${fragment.ansatzCost.kind}: ${countText(fragment.ansatzCost.parameters)} parameters${unscreened}${screening} |`);
   }
   if (fragment.circuit) {
     const register = fragment.circuit.construction === 'hardware-efficient' ? `on the ${fragment.qubitsRequired ?? fragment.qubits?.jordanWigner} qubits needed` : `untapered Jordan–Wigner on ${fragment.qubits?.jordanWigner} qubits, interleaved order`;
@@ -163,6 +188,7 @@ export function fragmentCard(analysis: DocumentAnalysis, index: number): string 
   if (fragment.pauliTerms) conventions.push(`Pauli terms: ${CONVENTIONS.pauliTerms}`);
   if (fragment.qubits?.tapered !== null && fragment.qubits?.tapered !== undefined) conventions.push(`qubits: ${CONVENTIONS.qubits}`);
   if (fragment.measurement) conventions.push(`measurement: ${fragment.measurement.method}`);
+  if (fragment.orbitalSources) conventions.push(`irreps counted or computed: ${CONVENTIONS.orbitalSources}`);
   if (fragment.solverCost) conventions.push(`solver cost: ${fragment.solverCost.formula} (${fragment.solverCost.references.join('; ')})`);
   const deciding = fragment.tier === 'quantum' ? quantumRows(fragment, analysis.model.limits.qubits ?? null, computedPauliTerms(analysis, index)) : classicalRows(fragment);
   const symmetryRow = pointGroupRow(fragment);

@@ -84,7 +84,7 @@ export function hamiltonianSection(analysis: DocumentAnalysis, part: PartRef): s
   const fragment = analysis.model.fragments[part.kind === 'fragment' ? part.index : -1];
   const tier = fragment?.tier;
   if (tier?.method === 'vqe') {
-    const parameters = analysis.estimates.plan(fragment!.index)?.quantum?.ansatz?.parameters;
+    const parameters = analysis.fragmentPlan(fragment!.index)?.quantum?.ansatz?.parameters;
     if (parameters !== undefined) {
       const shotRate = analysis.model.limits.shotRate;
       const run = vqeRun({ parameters, steps: tier.steps, scanPoints: analysis.model.scan?.distances.length ?? 1, shotsPerEvaluation: jw.shots.groupedEstimate, ...(shotRate ? { shotRate } : {}) });

@@ -9,10 +9,10 @@
 import type { PlanEstimate, QuantumPlan } from '../../chemistry/estimate/plan';
 import type { OrbitalSymmetry } from '../../chemistry/symmetry';
 import type { TierLevel } from '../../language/vocabulary';
-import type { Estimates } from '../estimates';
+import type { ComputedActiveOrbitals, Estimates } from '../estimates';
 import { solverCostFigures } from './solver';
 import { approximateCount, bigFigure, exactCount, spaceFigures } from './space';
-import type { CapFigures, FragmentFigures } from './types';
+import type { CapFigures, FragmentFigures, OrbitalSource, OrbitalSources } from './types';
 import type { FragmentModel } from '../../language/model';
 
 /** Fills one group of keys from the plan (undefined when the fragment has none). */
@@ -96,7 +96,21 @@ export const TIER_SECTIONS: Readonly<Record<TierLevel, readonly FigureSection[]>
   'mean-field': ['solverCost'],
 };
 
-export function fragmentFigures(estimates: Estimates, index: number): FragmentFigures {
+/** The figures of a quantum tier that read the irreps and reference occupation of the active orbitals. */
+const QUANTUM_ORBITAL_FIGURES = ['taperedQubits', 'qubitsRequired', 'pauliTerms', 'measurement', 'ansatzParameters', 'circuit'] as const;
+
+/** Where each orbital-dependent figure comes from, by the tier. */
+function orbitalSources(level: TierLevel, source: OrbitalSource, computedFrom: string | null, note: string | null): OrbitalSources {
+  const keys = ['activeIrreps', 'referenceOccupation', ...(level === 'quantum' ? QUANTUM_ORBITAL_FIGURES : [])];
+  return { figures: Object.fromEntries(keys.map((key) => [key, source])), computedFrom, note };
+}
+
+/**
+ * A fragment's figures; with `computed` (its computed active orbitals, see
+ * DocumentAnalysis.fragmentFigures) the orbital-dependent figures are built on them when they can
+ * be (Estimates.computedPlan says when not, and the figures carry its reason).
+ */
+export function fragmentFigures(estimates: Estimates, index: number, computed?: ComputedActiveOrbitals): FragmentFigures {
   const model = estimates.model;
   const fragment = model.fragments[index]!;
   // The formula is the part the solver sees: the fragment's atoms and its caps.
@@ -116,6 +130,7 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
     caps: capFigures(fragment),
     problem: null,
     activeIrreps: null,
+    orbitalSources: null,
     symmetry: tier ? symmetryFigures(estimates, index) : null,
     taperingSymmetries: [],
     measurement: null,
@@ -129,9 +144,24 @@ export function fragmentFigures(estimates: Estimates, index: number): FragmentFi
     ...(tier?.level === 'mean-field' ? { active: null } : {}),
   };
   if (!tier) return figures;
-  const plan = tier.level === 'mean-field' ? undefined : estimates.plan(index);
+  let plan = tier.level === 'mean-field' ? undefined : estimates.plan(index);
+  let sources: OrbitalSources | null = null;
+  if (plan && tier.active) {
+    sources = orbitalSources(tier.level, 'counted', null, null);
+    if (computed) {
+      const refined = estimates.computedPlan(index, computed);
+      if (refined.plan) {
+        plan = refined.plan;
+        sources = orbitalSources(tier.level, 'computed', `the ${computed.irreps.length} active orbitals chosen from the fragment's own mean field (${computed.pointGroup})`, null);
+      } else sources = orbitalSources(tier.level, 'counted', null, `Computed active orbitals not used: ${refined.reason}.`);
+    }
+  }
   for (const section of TIER_SECTIONS[tier.level]) figures = { ...figures, ...SECTIONS[section](figures, plan, estimates, index) };
-  if (tier.activeSource === 'estimated' && tier.activeChoice && figures.active) {
+  if (sources) figures = { ...figures, orbitalSources: sources, ...(sources.note ? { notes: [...figures.notes, sources.note] } : {}) };
+  if (sources?.computedFrom && figures.active) {
+    // The computed space replaces the counted one, suggestions included (no longer an estimate).
+    figures = { ...figures, active: { ...figures.active, source: 'computed' } };
+  } else if (tier.activeSource === 'estimated' && tier.activeChoice && figures.active) {
     // Counted for a suggestion before its orbitals exist: a planning estimate, and the figures say so.
     const how = tier.activeChoice.kind === 'shells' ? 'the named shells of the free atoms (aufbau)' : 'the minimal-basis valence space';
     figures = {

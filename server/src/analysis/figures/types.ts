@@ -25,6 +25,8 @@ export const CONVENTIONS = {
   fragmentCharge: 'formal charge of the fragment as written in the spec (default 0)',
   caps: 'cut covalent bonds capped with hydrogen link atoms on the kept atom\'s side when the spec says `caps hydrogen fixed|scaled` (Field, Bash & Karplus 1990): fixed at the typical X–H length of the element (common practice), or scaled g · d(X–Y), g = (r_X + r_H)/(r_X + r_Y) with Cordero radii (Dapprich et al. 1999); caps count in the fragment\'s formula, electrons, functions, orbitals, qubits and point group, not in its atom count',
   pointGroup: 'detected with a 0.01 Å tolerance in the system and in each fragment of up to 500 atoms (the near-symmetry search in the system only); larger ones are counted without symmetry (C1)',
+  orbitalSources:
+    'counted: irreps of the active orbitals as the spec gives them, else apportioned in proportion to the orbitals of each irrep, and the reference occupation as given, else assumed (each irrep spread evenly, the lowest filled); computed: the irrep and reference-determinant occupation of each active orbital the fragment\'s own mean field chose (MP2 natural orbitals: the most occupied filled in pairs). Tapering, Pauli terms, measurement groups, screened UCCSD parameters and circuits built on computed irreps are still counting rules applied to them, not a computed Hamiltonian',
   fragmentSymmetry:
     "a fragment that sees its environment (embedding dmet or projection) is counted in the stabiliser of its atoms in the system's point group — the operations of the system that map the fragment onto itself (group theory of stabiliser subgroups); a fragment that stands alone (subtractive, none) in its own point group",
 } as const;
@@ -101,7 +103,15 @@ export interface FragmentFigures extends SpaceFigures {
    * determinant's irreps come from: `given` (`occupied …`), or `assumed` (orbitals of each irrep
    * spread evenly, the lowest filled).
    */
-  activeIrreps: { perIrrep: Record<string, number>; source: string; occupation: 'given' | 'assumed' } | null;
+  activeIrreps: { perIrrep: Record<string, number>; source: string; occupation: 'given' | 'computed' | 'assumed' } | null;
+  /**
+   * Which orbitals each figure that depends on the irreps and reference occupation of the active
+   * orbitals was built on (CONVENTIONS.orbitalSources): `counted` (the spec's per-irrep counts and
+   * occupation, else apportioned and assumed) or `computed` (the active orbitals the fragment's
+   * mean field chose); `note` says why computed orbitals were not used when they exist. Null for
+   * fragments without an active space.
+   */
+  orbitalSources: OrbitalSources | null;
   /**
    * The two point groups of the fragment: its own (its atoms alone) and the one it keeps inside the
    * system (the stabiliser of its atoms in the system's group); `countedIn` says which the figures
@@ -133,6 +143,16 @@ export interface FragmentFigures extends SpaceFigures {
   /** What decides a classical tier's feasibility: scaling, operations, memory and time of its method. */
   solverCost: SolverCostFigures | null;
   notes: string[];
+}
+
+export type OrbitalSource = 'counted' | 'computed';
+
+export interface OrbitalSources {
+  /** By figure key: activeIrreps, referenceOccupation, and for quantum tiers taperedQubits, qubitsRequired, pauliTerms, measurement, ansatzParameters, circuit. */
+  figures: Record<string, OrbitalSource>;
+  /** How the computed orbitals were chosen (point group and source); null when counted. */
+  computedFrom: string | null;
+  note: string | null;
 }
 
 export interface CapFigures {

@@ -12,7 +12,9 @@
  * Pauli-term count read that order. When the spec gives the reference occupation per irrep
  * (`occupied A1=2 open B1=1`), the doubly occupied orbitals come first in the register, then the
  * singly occupied ones, then the rest (`occupation: 'given'`). A computed mean field, where there
- * is one, is a third source for the same order.
+ * is one, is a third source for the same order: the irreps and occupations of the active orbitals
+ * it chose come in through the same per-irrep form, marked `origin: 'computed'` (`source` and
+ * `occupation` then say `computed`).
  */
 import { ABELIAN_GROUPS, CHARACTER_TABLES, findIrrep, type AbelianGroupName } from '../symmetry/characterTables';
 import type { OrbitalSymmetry } from '../symmetry/orbitalSymmetry';
@@ -110,7 +112,7 @@ export const PER_ORBITAL_LIMIT = 10_000;
 export interface ActiveIrreps {
   /** Orbitals per irrep of the active space. */
   readonly irreps: readonly IrrepShare[];
-  readonly source: 'given' | 'proportional' | 'none';
+  readonly source: 'given' | 'computed' | 'proportional' | 'none';
   /** Active orbitals. */
   readonly orbitals: number;
   /** False beyond PER_ORBITAL_LIMIT: counted without symmetry, and orbitalIrreps is empty. */
@@ -120,7 +122,7 @@ export interface ActiveIrreps {
   /** Generators of the group the masks refer to (0 without symmetry). */
   readonly generatorCount: number;
   /** Where the reference determinant's irreps come from. */
-  readonly occupation: 'given' | 'assumed';
+  readonly occupation: 'given' | 'computed' | 'assumed';
 }
 
 /** The reference occupation per irrep as given: doubly and singly occupied orbitals. */
@@ -148,21 +150,22 @@ function occupiedFirst(shares: readonly IrrepShare[], occupation: GivenOccupatio
 export function activeIrreps(
   symmetry: PlanSymmetry | undefined,
   orbitals: number,
-  given?: { readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation },
+  given?: { readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation; readonly origin?: 'spec' | 'computed' },
 ): ActiveIrreps {
   if (orbitals > PER_ORBITAL_LIMIT) {
     return { irreps: [{ label: 'A', mask: 0, count: orbitals }], source: 'none', orbitals, perOrbital: false, orbitalIrreps: [], generatorCount: 0, occupation: 'assumed' };
   }
   if (given?.perIrrep && given.orbitals === orbitals) {
     const ordered = given.occupation ? occupiedFirst(given.perIrrep, given.occupation) : undefined;
+    const computed = given.origin === 'computed';
     return {
       irreps: [...given.perIrrep],
-      source: 'given',
+      source: computed ? 'computed' : 'given',
       orbitals,
       perOrbital: true,
       orbitalIrreps: ordered ?? spreadIrreps(given.perIrrep),
       generatorCount: symmetry?.generatorCount ?? 0,
-      occupation: ordered ? 'given' : 'assumed',
+      occupation: ordered ? (computed ? 'computed' : 'given') : 'assumed',
     };
   }
   // Also for a DMET impurity, whose bath orbitals are taken to split like the fragment's own.

@@ -39,8 +39,11 @@ export interface PlanInput {
   readonly mapping: Mapping | undefined;
   readonly taper: boolean;
   readonly layers: number;
-  /** The active space as written: totals, and per irrep when given. */
-  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation };
+  /**
+   * The active space as written: totals, and per irrep when given; `origin: 'computed'` when the
+   * per-irrep counts and occupation are those of orbitals a mean field chose (not the spec's).
+   */
+  readonly active?: { readonly electrons: number; readonly orbitals: number; readonly perIrrep?: readonly IrrepShare[]; readonly occupation?: GivenOccupation; readonly origin?: 'spec' | 'computed' };
   readonly symmetry?: PlanSymmetry;
 }
 
@@ -52,9 +55,9 @@ export interface ActiveFigures {
   readonly source: 'given' | 'problem';
   /** Orbitals per irrep of the active space, and whether that split was given or assumed. */
   readonly irreps: readonly IrrepShare[];
-  readonly irrepsSource: 'given' | 'proportional' | 'none';
+  readonly irrepsSource: 'given' | 'computed' | 'proportional' | 'none';
   /** Where the reference determinant's irreps come from (activeIrreps.ts). */
-  readonly occupation: 'given' | 'assumed';
+  readonly occupation: 'given' | 'computed' | 'assumed';
 }
 
 export interface QuantumPlan {

@@ -166,7 +166,7 @@ function measurementSettings(analysis: DocumentAnalysis, k: number): Measurement
   const tier = fragment?.tier;
   const epsilon = tier?.accuracy ?? (model.accuracyGiven ? model.accuracy : CHEMICAL_ACCURACY);
   if (!fragment || tier?.level !== 'quantum') return { epsilon, method: null, vqe: null };
-  const parameters = tier.method === 'vqe' ? analysis.estimates.plan(fragment.index)?.quantum?.ansatz?.parameters : undefined;
+  const parameters = tier.method === 'vqe' ? analysis.fragmentPlan(fragment.index)?.quantum?.ansatz?.parameters : undefined;
   return {
     epsilon,
     method: tier.method,
@@ -222,7 +222,7 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
   if (options.active && options.spec) throw new UsageError("--active goes with --xyz; in a spec each quantum fragment's `active` statement gives its active space");
   const prepared = options.spec ? prepareSpec(options.spec, io, options.settings ?? {}) : prepareXyz(options, io);
   if (!prepared) return EXIT_USAGE;
-  const report = prepared.analysis.report();
+  const counted = prepared.analysis.report();
   const errors = prepared.diagnostics.filter((d) => d.severity === 'error').length;
   const activeSpaceOf = options.meanField ? activeSpaces(options, prepared.analysis) : undefined;
   const run = options.meanField
@@ -239,6 +239,8 @@ export async function runEstimate(options: EstimateOptions, io: CliIo): Promise<
         io,
       )
     : undefined;
+  // With computed active orbitals, the figures that read their irreps are built again on them.
+  const report = run ? prepared.analysis.report() : counted;
   const parts = run?.parts;
   const hamiltonians = run && run.hamiltonians.length > 0 ? run.hamiltonians : undefined;
   const settings = hamiltonians ? hamiltonians.map((_, k) => measurementSettings(prepared.analysis, k)) : [];

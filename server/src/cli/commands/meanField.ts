@@ -9,7 +9,6 @@
  */
 import {
   HAMILTONIAN_KIND,
-  LateResults,
   partComputation,
   restrictedMeanField,
   type HamiltonianSpace,
@@ -107,7 +106,9 @@ async function activeSpaceOf(queue: JobQueue, analysis: DocumentAnalysis, comput
 }
 
 export async function computeMeanFields(analysis: DocumentAnalysis, options: MeanFieldOptions, io: CliIo): Promise<MeanFieldRun> {
-  const store = new LateResults();
+  // The results go where the analysis reads them: the figures built on computed active orbitals
+  // (DocumentAnalysis.fragmentFigures) find them under the keys of the spec's own requests.
+  const store = analysis.late;
   const queue = new JobQueue(store, { workers: options.workers ?? 1, ...(options.memoryLimitBytes !== undefined ? { memoryLimitBytes: options.memoryLimitBytes } : {}) });
   queue.onEvent(progressPrinter(io));
   const computations = specParts(analysis.model)

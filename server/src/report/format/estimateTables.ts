@@ -48,6 +48,9 @@ function problemText(fragment: FragmentFigures | undefined): string {
   return `${label}${fragment.problem.electrons}e ${fragment.problem.orbitals}o`;
 }
 
+/** Where the irreps of the active orbitals come from, in the qubits table: counted (given or apportioned) or computed. */
+const IRREP_SOURCE_TEXT: Record<string, string> = { given: 'counted (given)', proportional: 'counted (apportioned)', computed: 'computed' };
+
 export function estimateTables(report: EstimateReport): Table[] {
   const rows = rowsFor(report);
   const plan: Table = {
@@ -85,12 +88,13 @@ export function estimateTables(report: EstimateReport): Table[] {
   const quantumRows = rows.filter(({ fragment }) => !fragment || fragment.tier === 'quantum');
   const qubits: Table = {
     title: 'Qubits and Hamiltonian (quantum tiers; the system row is hypothetical: the whole system on one quantum tier)',
-    headers: ['part', 'problem', 'active', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered', 'needed', 'Pauli terms', 'QWC groups (greedy, block order)'],
-    numeric: [false, true, true, true, true, true, true, true, true, true],
+    headers: ['part', 'problem', 'active', 'irreps', 'Jordan–Wigner', 'Bravyi–Kitaev', 'parity (2q reduced)', 'tapered', 'needed', 'Pauli terms', 'QWC groups (greedy, block order)'],
+    numeric: [false, true, true, false, true, true, true, true, true, true, true],
     rows: quantumRows.map(({ name, figures, fragment }) => [
       fragment ? name : `${name} (hypothetical)`,
       problemText(fragment),
       figures.active ? `${figures.active.electrons}e ${figures.active.orbitals}o` : dash,
+      fragment?.activeIrreps ? IRREP_SOURCE_TEXT[fragment.activeIrreps.source] ?? fragment.activeIrreps.source : dash,
       orNone(figures.qubits?.jordanWigner),
       orNone(figures.qubits?.bravyiKitaev),
       orNone(figures.qubits?.parity),
@@ -163,6 +167,7 @@ export function conventionLines(report: EstimateReport): string[] {
     `orbitals: ${c.orbitals}`,
     `frozen core: ${c.frozenCore}`,
     `active space: ${c.activeSpace}`,
+    `irreps counted or computed: ${c.orbitalSources}`,
     `point group: ${c.pointGroup}`,
     `fragment symmetry: ${c.fragmentSymmetry}`,
     ...(dmet ? [`embedding: ${dmet.replace(/^DMET impurity: [^;]*; /, 'DMET impurity: ')}`] : []),

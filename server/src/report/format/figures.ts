@@ -54,6 +54,8 @@ export const FIGURE_COLUMNS: readonly FigureColumn[] = [
   { key: 'active.alpha', label: 'active alpha electrons' },
   { key: 'active.beta', label: 'active beta electrons' },
   { key: 'active.source', label: 'active space from' },
+  { key: 'activeIrreps.source', label: 'active irreps from (given, proportional or computed)' },
+  { key: 'activeIrreps.occupation', label: 'reference occupation from (given, assumed or computed)' },
   { key: 'qubits.jordanWigner', label: 'qubits, Jordan–Wigner' },
   { key: 'qubits.bravyiKitaev', label: 'qubits, Bravyi–Kitaev' },
   { key: 'qubits.parity', label: 'qubits, parity (2q reduced)' },
