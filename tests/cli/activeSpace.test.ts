@@ -42,6 +42,10 @@ describe('tessera estimate --mean-field: computed active orbitals', () => {
     const active = (JSON.parse(json.stdout) as Json)['fragments'][0]['activeSpace'] as Json;
     expect(active['counted']['source']).toBe('estimated-shells');
     expect(active['source']).toBe('atomic-projection');
+    // The Hamiltonian is built in the projected orbitals the choice picked, as many as it picked.
+    const hamiltonian = (JSON.parse(json.stdout) as Json)['fragments'][0]['hamiltonian'] as Json;
+    expect(hamiltonian['activeSpace']['orbitalKind']).toBe('projected');
+    expect(hamiltonian['activeSpace']['orbitals']).toBe((active['active'] as Json[]).length);
     const text = await run(['estimate', 'w.tess', '--mean-field'], folder);
     expect(text.stdout).toContain('Computed active orbitals');
   });

@@ -110,7 +110,14 @@ function atomRanges(atoms: readonly number[]): string {
  */
 export type HamiltonianSpace =
   | { readonly kind: 'window'; readonly electrons: number; readonly orbitals: number }
-  | { readonly kind: 'indices'; readonly core: readonly number[]; readonly active: readonly number[]; readonly source: string };
+  | { readonly kind: 'indices'; readonly core: readonly number[]; readonly active: readonly number[]; readonly source: string }
+  /**
+   * The orbitals the fragment's active-space job chose (per irrep, projected on named shells, or
+   * MP2 natural orbitals), in the orbitals it chose them in: `HamiltonianRequest.selection` names
+   * that job, whose result arrives as a prerequisite. `window` is used where the part asks for no
+   * active-space job (natural orbitals of an open shell, say).
+   */
+  | { readonly kind: 'selection'; readonly window: { readonly electrons: number; readonly orbitals: number } };
 
 /** The active-space Hamiltonian of a part: always on restricted orbitals (RHF, or ROHF for open shells). */
 export interface HamiltonianRequest {
@@ -118,24 +125,38 @@ export interface HamiltonianRequest {
   /** An RHF or ROHF request (restrictedMeanField makes one from any mean-field request). */
   readonly meanField: MeanFieldRequest;
   readonly space: HamiltonianSpace;
+  /** For a `selection` space: the active-space request whose orbitals the Hamiltonian is built in. */
+  readonly selection?: ActiveSpaceRequest;
+}
+
+/**
+ * The Hamiltonian request of a part in a space: a `selection` space builds on the part's
+ * active-space request, or on its counted window where the part asks for none.
+ */
+export function hamiltonianRequest(meanField: MeanFieldRequest, space: HamiltonianSpace, activeSpace: ActiveSpaceRequest | null): HamiltonianRequest {
+  if (space.kind !== 'selection') return { kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(meanField), space };
+  if (!activeSpace) return { kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(meanField), space: { kind: 'window', ...space.window } };
+  return { kind: HAMILTONIAN_KIND, meanField: activeSpace.meanField, space, selection: activeSpace };
 }
 
 /** The key a request's result is kept under, within its kind. */
 export function requestKey(request: ComputeRequest): string {
   if (request.kind === MP2_KIND) return `fc${request.frozenCore ? 1 : 0};${requestKey(request.meanField)}`;
-  if (request.kind === HAMILTONIAN_KIND) return `${spaceKey(request.space)};${requestKey(request.meanField)}`;
+  if (request.kind === HAMILTONIAN_KIND) return request.selection ? `sel;${requestKey(request.selection)}` : `${spaceKey(request.space)};${requestKey(request.meanField)}`;
   if (request.kind === ACTIVE_SPACE_KIND) return `${JSON.stringify(request.choice)};mo${request.maxOrbitals ?? '-'};${request.mp2 ? requestKey(request.mp2) : requestKey(request.meanField)}`;
   if (request.kind === DMET_BATH_KIND) return `${request.orbitals};t${request.threshold};a${atomRanges(request.fragmentAtoms)};${requestKey(request.meanField)}`;
   return `${request.reference};it${request.maxIterations ?? '-'};${inputKey(request.inputs)}`;
 }
 
 function spaceKey(space: HamiltonianSpace): string {
+  if (space.kind === 'selection') return 'sel';
   return space.kind === 'window' ? `w${space.electrons}e${space.orbitals}o` : `i${space.core.join(',')}|${space.active.join(',')}`;
 }
 
 /** Requests whose results a request needs before it can run. */
 export function prerequisites(request: ComputeRequest): ComputeRequest[] {
   if (request.kind === ACTIVE_SPACE_KIND) return request.mp2 ? [request.meanField, request.mp2] : [request.meanField];
+  if (request.kind === HAMILTONIAN_KIND && request.selection) return [request.meanField, request.selection];
   return request.kind === MEAN_FIELD_KIND ? [] : [request.meanField];
 }
 
@@ -190,13 +211,18 @@ export interface Mp2Summary {
 /** A finished Hamiltonian job: the orbitals it used, the integrals (for exports) and the computed figures. */
 export interface HamiltonianOutcome {
   readonly reference: 'rhf' | 'rohf';
-  /** Zero-based orbital indices of the mean field, energy order. */
+  /**
+   * Zero-based orbital indices: of the mean field's canonical orbitals in energy order, or for a
+   * selection of the orbitals it chose them in (`orbitalKind`).
+   */
   readonly core: readonly number[];
   readonly active: readonly number[];
+  /** Canonical orbitals of the mean field, or the natural or projected orbitals of a selection. */
+  readonly orbitalKind: 'canonical' | 'natural' | 'projected';
   /** How the orbitals were chosen, in words. */
   readonly source: string;
-  /** Orbital energies of the active orbitals (hartree). */
-  readonly activeOrbitalEnergies: readonly number[];
+  /** Orbital energies of the active orbitals (hartree); null for natural orbitals, which have none. */
+  readonly activeOrbitalEnergies: readonly (number | null)[];
   readonly integrals: ActiveSpaceIntegrals;
   /** At chemical accuracy; figuresAtAccuracy gives them at another target. */
   readonly figures: ActiveSpaceFigures | ActiveSpaceTooLargeFigures;
@@ -382,7 +408,7 @@ export function partComputation(model: SpecModel, part: PartRef, options: Reques
     const mp2: Mp2Request | null = meanField.reference === 'rohf' ? null : { kind: MP2_KIND, meanField, frozenCore };
     const activeSpace = activeSpaceRequest(model, part, meanField, frozenCore);
     const space = options.activeSpace;
-    const hamiltonian: HamiltonianRequest | null = space && 'kind' in space ? { kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(meanField), space } : null;
+    const hamiltonian = space && 'kind' in space ? hamiltonianRequest(meanField, space, activeSpace) : null;
     built = { meanField, meanFieldKey: requestKey(meanField), mp2, mp2Key: mp2 ? requestKey(mp2) : null, activeSpace, activeSpaceKey: activeSpace ? requestKey(activeSpace) : null, hamiltonian, hamiltonianKey: hamiltonian ? requestKey(hamiltonian) : null };
     return built;
   };

@@ -225,9 +225,12 @@ export class DocumentAnalysis {
   }
 
   /**
-   * The active space a quantum fragment's Hamiltonian is computed in: the canonical window of its
-   * active space (electrons and orbitals of its plan) on its own restricted mean field; beyond the
-   * explicit limit the counted figures stay, with the reason; null for other fragments.
+   * The active space a quantum fragment's Hamiltonian is computed in: for `active Ne No` the
+   * canonical window of its active space (electrons and orbitals of its plan) on its own restricted
+   * mean field; for the per-irrep form and the suggestions (`active shells …`, `active natural`)
+   * the orbitals its active-space job chose (`selection`: that job is the Hamiltonian's
+   * prerequisite). Beyond the explicit limit the counted figures stay, with the reason (a
+   * suggestion larger than its counted size is refused by the job); null for other fragments.
    */
   activeSpaceChoice(index: number): HamiltonianSpace | { readonly bound: string } | null {
     const fragment = this.model.fragments[index];
@@ -238,7 +241,10 @@ export class DocumentAnalysis {
       return { bound: 'under embedding dmet the active space lies in the impurity (fragment and bath orbitals), whose Hamiltonian needs the embedding; Tessera computes a fragment alone, so the counted figures stand' };
     }
     if (!canBuildExplicitly(plan.active.orbitals)) return { bound: explicitLimitNote(plan.active.orbitals) };
-    return { kind: 'window', electrons: plan.active.electrons, orbitals: plan.active.orbitals };
+    const tier = fragment.tier;
+    const chosen = tier.activeChoice?.kind === 'shells' || tier.activeChoice?.kind === 'natural' || (tier.activeIrreps?.length ?? 0) > 0;
+    const window = { electrons: plan.active.electrons, orbitals: plan.active.orbitals };
+    return chosen ? { kind: 'selection', window } : { kind: 'window', ...window };
   }
 
   /** The atoms a scan moves: those its `moving` clause names, else the second atom's fragment, or its bonded group without fragments. */

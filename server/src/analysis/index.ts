@@ -14,6 +14,7 @@ export {
   DMET_BATH_KIND,
   HAMILTONIAN_KIND,
   hamiltonianFigures,
+  hamiltonianRequest,
   MEAN_FIELD_KIND,
   MP2_KIND,
   partComputation,

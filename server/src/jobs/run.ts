@@ -46,6 +46,7 @@ import { mp2, unrestrictedMp2 } from '../electronic/correlation';
 import { DEFAULT_MINIMAL_BASIS, dmetBath, minimalBasisOverlaps, spinDensity, type DmetBathInput, type SpinBath } from '../electronic/embedding';
 import { coreHamiltonian, createTwoElectronIntegrals, nuclearRepulsionEnergy, overlapMatrix } from '../electronic/integrals';
 import { activeSpaceIntegrals, activeWindow } from '../electronic/hamiltonian';
+import type { RestrictedOrbitals } from '../electronic/hamiltonian/activeSpace';
 import { activeSpaceFigures } from '../electronic/measurement';
 import { buildScfProblem, MINIMUM_NUCLEAR_DISTANCE, runScf, type ScfWavefunction } from '../electronic/scf';
 import type { JobFailure, JobProgress } from './protocol';
@@ -169,22 +170,55 @@ export function runMp2(request: Mp2Request, meanField: MeanFieldOutcome, context
   };
 }
 
+/** How a selection chose its orbitals, for the Hamiltonian's source line. */
+const SELECTION_TEXT: Record<ActiveSelection['source'], string> = {
+  'canonical-window': 'canonical orbitals around the Fermi level',
+  'irrep-window': 'canonical orbitals per irrep, each irrep\'s nearest the Fermi level',
+  'natural-occupations': 'MP2 natural orbitals whose occupation lies inside the window',
+  'atomic-projection': 'orbitals projected onto the named atomic shells (AVAS), canonical within the occupied and the virtual block',
+};
+
+interface ChosenSpace {
+  core: number[];
+  active: number[];
+  source: string;
+  orbitalKind: HamiltonianOutcome['orbitalKind'];
+  /** The orbitals the indices refer to; the mean field's canonical orbitals when absent. */
+  orbitals?: RestrictedOrbitals;
+  energies: (number | null)[];
+}
+
 /** The core and active orbitals a Hamiltonian request names, checked against the mean field. */
-function chooseSpace(request: HamiltonianRequest, meanField: MeanFieldOutcome): { core: number[]; active: number[]; source: string } {
+function chooseSpace(request: HamiltonianRequest, meanField: MeanFieldOutcome, selection: ActiveSpaceOutcome | null): ChosenSpace {
   const { result } = meanField;
   const space = request.space;
-  if (space.kind === 'indices') return { core: [...space.core], active: [...space.active], source: space.source };
+  const canonicalEnergies = (active: readonly number[]) => active.map((p) => result.orbitalEnergies.alpha[p]!);
+  if (space.kind === 'selection') {
+    if (!selection) throw new JobInputError({ code: 'prerequisite', message: 'The Hamiltonian of a chosen active space needs the active-space result; none arrived.' });
+    const electrons = selection.electrons.alpha + selection.electrons.beta;
+    return {
+      core: [...selection.core],
+      active: [...selection.active],
+      orbitals: selection.orbitals,
+      orbitalKind: selection.orbitalKind,
+      energies: selection.details.map((orbital) => orbital.energy),
+      source: `${SELECTION_TEXT[selection.source]}: ${selection.core.length} doubly occupied below frozen, ${selection.active.length} active (${electrons}e, ${selection.active.length}o)`,
+    };
+  }
+  if (space.kind === 'indices') return { core: [...space.core], active: [...space.active], source: space.source, orbitalKind: 'canonical', energies: canonicalEnergies(space.active) };
   const window = activeWindow(result.orbitalCount, result.electrons, space.electrons, space.orbitals);
   const open = result.electrons.alpha !== result.electrons.beta;
   return {
     ...window,
+    orbitalKind: 'canonical',
+    energies: canonicalEnergies(window.active),
     source:
       `canonical ${result.reference.toUpperCase()} orbitals in energy order: ${window.core.length} doubly occupied below frozen, ` +
       `orbitals ${window.active[0]! + 1}–${window.active[window.active.length - 1]! + 1} active (${space.electrons}e, ${space.orbitals}o${open ? '; the singly occupied orbitals inside' : ''})`,
   };
 }
 
-export function runHamiltonian(request: HamiltonianRequest, meanField: MeanFieldOutcome, context: RunContext): HamiltonianOutcome {
+export function runHamiltonian(request: HamiltonianRequest, meanField: MeanFieldOutcome, context: RunContext, selection: ActiveSpaceOutcome | null = null): HamiltonianOutcome {
   const start = performance.now();
   const { result, orbitals } = meanField;
   if (!result.converged) {
@@ -193,7 +227,8 @@ export function runHamiltonian(request: HamiltonianRequest, meanField: MeanField
   if (result.reference !== 'rhf' && result.reference !== 'rohf') {
     throw new JobInputError({ code: 'input', message: `The active-space Hamiltonian needs restricted orbitals (RHF or ROHF), not ${result.reference.toUpperCase()}.` });
   }
-  const { core, active, source } = chooseSpace(request, meanField);
+  const chosen = chooseSpace(request, meanField, selection);
+  const { core, active, source } = chosen;
   throwIfCancelled(context.cancel);
   context.onProgress({ phase: 'integrals' });
   const basis = buildMolecularBasis(atomsInBohr(request.meanField), basisNames(request.meanField), request.meanField.inputs.functions);
@@ -202,7 +237,7 @@ export function runHamiltonian(request: HamiltonianRequest, meanField: MeanField
   const { statistics: _statistics, ...integrals } = activeSpaceIntegrals({
     hCore: coreHamiltonian(basis),
     twoElectron: eri,
-    orbitals: { functionCount: orbitals.functionCount, orbitalCount: orbitals.orbitalCount, coefficients: orbitals.alpha },
+    orbitals: chosen.orbitals ?? { functionCount: orbitals.functionCount, orbitalCount: orbitals.orbitalCount, coefficients: orbitals.alpha },
     nuclearRepulsion: nuclearRepulsionEnergy(basis),
     core,
     active,
@@ -214,8 +249,9 @@ export function runHamiltonian(request: HamiltonianRequest, meanField: MeanField
     reference: result.reference,
     core,
     active,
+    orbitalKind: chosen.orbitalKind,
     source,
-    activeOrbitalEnergies: active.map((p) => result.orbitalEnergies.alpha[p]!),
+    activeOrbitalEnergies: chosen.energies,
     integrals,
     figures: activeSpaceFigures(integrals),
     seconds: (performance.now() - start) / 1000,
@@ -336,6 +372,6 @@ export function runRequest(request: ComputeRequest, inputs: readonly unknown[], 
   if (request.kind === MP2_KIND) return runMp2(request, inputs[0] as MeanFieldOutcome, context);
   if (request.kind === DMET_BATH_KIND) return runDmetBath(request, inputs[0] as MeanFieldOutcome, context);
   if (request.kind === ACTIVE_SPACE_KIND) return runActiveSpace(request, inputs[0] as MeanFieldOutcome, (inputs[1] as Mp2Summary | undefined) ?? null, context);
-  if (request.kind === HAMILTONIAN_KIND) return runHamiltonian(request, inputs[0] as MeanFieldOutcome, context);
+  if (request.kind === HAMILTONIAN_KIND) return runHamiltonian(request, inputs[0] as MeanFieldOutcome, context, (inputs[1] as ActiveSpaceOutcome | undefined) ?? null);
   return runMeanField(request, context);
 }

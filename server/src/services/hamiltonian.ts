@@ -54,6 +54,16 @@ function seconds(value: number): string {
   return `${(value / 86400).toPrecision(3)} days`;
 }
 
+/** Which orbitals the Hamiltonian is in: canonical ones by number, or the kind a selection chose. */
+function orbitalsText(outcome: HamiltonianOutcome): string {
+  const reference = outcome.reference.toUpperCase();
+  if (outcome.orbitalKind === 'natural') return `MP2 natural orbitals of the ${reference} mean field`;
+  if (outcome.orbitalKind === 'projected') return `${reference} orbitals projected onto the named shells`;
+  const sorted = [...outcome.active].sort((a, b) => a - b);
+  const contiguous = sorted.every((p, k) => k === 0 || p === sorted[k - 1]! + 1);
+  return `${reference} orbitals ${contiguous ? `${sorted[0]! + 1}–${sorted[sorted.length - 1]! + 1}` : sorted.map((p) => p + 1).join(', ')}`;
+}
+
 /** The hover section of a fragment's Hamiltonian, or '' when it has none and none is coming. */
 export function hamiltonianSection(analysis: DocumentAnalysis, part: PartRef): string {
   const state = hamiltonianState(analysis, part);
@@ -96,7 +106,7 @@ export function hamiltonianSection(analysis: DocumentAnalysis, part: PartRef): s
   const ft = figures.faultTolerant;
   rows.push(`| phase estimation | ${count(ft.logicalQubits)} logical qubits (${jw.qubits} system + ${ft.ancillaQubits} ancillas) · ${ft.toffolis.toExponential(2)} Toffolis (${count(ft.walkSteps)} walk steps) — an estimate: ${ft.formula}; ${ft.references.join('; ')} |`);
   return [
-    `**Hamiltonian (computed)** · ${space} on ${outcome.reference.toUpperCase()} orbitals ${outcome.active[0]! + 1}–${outcome.active[outcome.active.length - 1]! + 1}`,
+    `**Hamiltonian (computed)** · ${space} on ${orbitalsText(outcome)}`,
     '',
     '| | |',
     '| --- | --- |',

@@ -14,6 +14,7 @@
 import { fcidumpLines, qubitHamiltonianJson } from '../../electronic/handoff';
 import { canBuildExplicitly, explicitLimitNote, qubitHamiltonian } from '../../electronic/hamiltonian/qubitHamiltonian';
 import type { Mapping } from '../../chemistry/qubits';
+import type { HamiltonianSpace } from '../../analysis';
 import { exitCode, EXIT_ERRORS, EXIT_INTERRUPTED, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
 import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, writeOutput, type LoadedSpec } from '../specFile';
 import { computeMeanFields } from './meanField';
@@ -71,10 +72,13 @@ export async function runHamiltonianExport(options: HamiltonianExportOptions, io
     io.stderr(`tessera: fragment ${fragment.name}: ${orbitals} active orbitals; Tessera dumps integrals of up to ${FCIDUMP_ORBITAL_LIMIT} active orbitals.\n`);
     return EXIT_ERRORS;
   }
+  // The orbitals the fragment's active-space job chose (per irrep, shells, natural), else the canonical window.
+  const choice = spec.analysis.activeSpaceChoice(index);
+  const space: HamiltonianSpace = choice && 'kind' in choice && choice.kind === 'selection' ? choice : { kind: 'window', electrons, orbitals };
   const run = await computeMeanFields(
     spec.analysis,
     {
-      activeSpaces: (computation) => (computation.part.kind === 'fragment' && computation.part.index === index ? { kind: 'window', electrons, orbitals } : null),
+      activeSpaces: (computation) => (computation.part.kind === 'fragment' && computation.part.index === index ? space : null),
       onlyParts: (computation) => computation.part.kind === 'fragment' && computation.part.index === index,
     },
     io,

@@ -10,7 +10,7 @@
 import {
   HAMILTONIAN_KIND,
   partComputation,
-  restrictedMeanField,
+  hamiltonianRequest,
   type HamiltonianSpace,
   type HamiltonianOutcome,
   type HamiltonianRequest,
@@ -121,7 +121,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     entries.push({ request: computation.meanField!, label: computation.label, explicit: true });
     if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit: true });
     const space = options.activeSpaces?.(computation) ?? null;
-    const request = space === null || 'refusal' in space || 'bound' in space ? space : ({ kind: HAMILTONIAN_KIND, meanField: restrictedMeanField(computation.meanField!), space } as const);
+    const request = space === null || 'refusal' in space || 'bound' in space ? space : hamiltonianRequest(computation.meanField!, space, computation.activeSpace);
     hamiltonianRequests.set(computation, request);
     if (request && 'kind' in request) entries.push({ request, label: computation.label, explicit: true });
     if (computation.activeSpace) entries.push({ request: computation.activeSpace, label: computation.label, explicit: true });

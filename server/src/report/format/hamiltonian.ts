@@ -90,7 +90,8 @@ export function hamiltonianJson(result: PartHamiltonian, settings: MeasurementSe
     active: outcome.active.map((p) => p + 1),
     orbitalEnergies: outcome.activeOrbitalEnergies,
     source: outcome.source,
-    orbitalNumbering: 'one-based, energy order of the mean field',
+    orbitalKind: outcome.orbitalKind,
+    orbitalNumbering: outcome.orbitalKind === 'canonical' ? 'one-based, energy order of the mean field' : `one-based, the order of the ${outcome.orbitalKind} orbitals the active space was chosen in`,
   };
   const energies = { nuclearRepulsion: outcome.integrals.nuclearRepulsion, coreEnergy: outcome.integrals.coreEnergy };
   if (outcome.figures.status === 'too-large') {
