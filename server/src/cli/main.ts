@@ -79,12 +79,16 @@ Usage:
       energy (nuclear repulsion + frozen core) last, every orbital in irrep 1. pauli: Tessera's
       qubit Hamiltonian JSON (docs/qubit-hamiltonian-json.md) under the fragment's mapping, up to
       16 active orbitals. Exit 1 when the spec has errors or the Hamiltonian cannot be computed.
-  tessera report <file.tess> [--format markdown|html|csv] [--out <file>]
+  tessera report <file.tess> [--format markdown|html|csv] [--out <file>] [--mean-field]
       The resource report as a document (default markdown): every figure of the system and each
       fragment, the conventions, the problems with their lines and the scan totals. html is one
       standalone page with the plots inline as SVG; csv has one row per part, columns spec, then
       the figures' keys in the JSON estimate (part, name, tier, ..., qubits.jordanWigner, ...),
-      then note. Written even when the spec has errors (exit 1).
+      then note. Written even when the spec has errors (exit 1). --mean-field (markdown, html)
+      computes every part's mean field first, as estimate --mean-field does, and adds the
+      computed results (mean field, active orbitals, DMET bath, Hamiltonian and shots, labelled
+      computed); html plots shots against active-space size from computed Hamiltonians. Exit 1
+      when a computation fails or does not converge.
   tessera compare <file.tess> [<file2.tess>] [--format markdown|html|csv] [--out <file>]
       Plans side by side: the spec and each of its variants (variant <name> { ... }), or two
       specs with theirs. Qubits needed, Pauli terms, measurement groups, ansatz parameters, CNOTs,
@@ -279,7 +283,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         args: rest,
         allowPositionals: true,
         strict: true,
-        options: { format: { type: 'string' }, out: { type: 'string' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } },
+        options: { format: { type: 'string' }, out: { type: 'string' }, 'mean-field': { type: 'boolean' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } },
       });
       if (values.help) {
         io.stdout(USAGE);
@@ -291,6 +295,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
           ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),
           format: formatOption<ReportFormat>(values.format, REPORT_FORMATS, 'markdown'),
           ...(values.out !== undefined ? { out: values.out } : {}),
+          ...(values['mean-field'] ? { meanField: true } : {}),
           settings: settingsOption(values),
         },
         io,

@@ -193,3 +193,50 @@ export function scanChartSvg(report: EstimateReport): string {
     '</svg>',
   ].join('');
 }
+
+/** One active-space size of the shots plot: computed figures, or why there are none. */
+export interface ShotPoint {
+  readonly orbitals: number;
+  readonly electrons: number;
+  /** (λ/ε)² from the computed λ: an upper bound for any state; null when not computed. */
+  readonly bound: number | null;
+  /** QWC groups with reference-state variances from the computed strings: an estimate; null when not computed. */
+  readonly grouped: number | null;
+}
+
+/**
+ * Shots per energy evaluation against active-space size for one fragment, log scale: the (λ/ε)²
+ * bound and the grouped estimate, both from Hamiltonians computed on the fragment's own mean field
+ * (canonical windows); sizes without a computed Hamiltonian are marked on the axis as not computed.
+ */
+export function shotsChartSvg(points: readonly ShotPoint[], fragmentName: string, epsilonText: string): string {
+  const title = `Shots against active-space size: ${fragmentName} (computed Hamiltonians)`;
+  const computed = points.filter((p) => p.bound !== null);
+  if (computed.length === 0) return emptyChart(title, 'No Hamiltonian of this fragment is computed yet: its shots need its mean field.');
+  const f = frame();
+  const maxN = points.reduce((most, p) => Math.max(most, p.orbitals), 1);
+  const toX = (n: number) => f.x0 + ((f.x1 - f.x0) * n) / maxN;
+  const values = computed.flatMap((p) => [p.bound!, p.grouped ?? p.bound!]).filter((v) => v > 0);
+  const logMin = Math.floor(Math.log10(Math.min(...values)));
+  const logMax = Math.max(logMin + 1, Math.ceil(Math.log10(Math.max(...values))));
+  const logTicks = Array.from({ length: logMax - logMin + 1 }, (_, k) => logMin + k);
+  const toY = (value: number) => f.y0 - ((f.y0 - f.y1) * (Math.log10(Math.max(value, 10 ** logMin)) - logMin)) / (logMax - logMin);
+  const series = (pick: (p: ShotPoint) => number | null, colour: string, dashed: boolean) => {
+    const xy = computed.flatMap((p) => (pick(p) !== null ? [[toX(p.orbitals), toY(pick(p)!)] as [number, number]] : []));
+    return [polyline(xy, colour, dashed), ...xy.map(([x, y]) => `<circle cx="${x.toFixed(1)}" cy="${y.toFixed(1)}" r="3" fill="${colour}"/>`)].join('');
+  };
+  const missing = points.filter((p) => p.bound === null);
+  const parts = [
+    svgOpen(title),
+    yAxis(f, logTicks, (log) => toY(10 ** log), 'shots (log scale)', (k) => `10^${k}`),
+    xAxisLabel(f, 'active orbitals (canonical window, about half filled)'),
+    xTicks(f, niceTicks(maxN, 4).filter((tick) => tick <= maxN), toX),
+    series((p) => p.bound, SERIES_COLOURS[0]!, true),
+    series((p) => p.grouped, SERIES_COLOURS[1]!, false),
+    ...missing.map((p) => `<text x="${toX(p.orbitals).toFixed(1)}" y="${(f.y0 - 6).toFixed(1)}" ${FONT} font-size="10" fill="#555555" text-anchor="middle">×</text>`),
+    `<text x="${f.x0 + 8}" y="${f.y1 + 4}" ${FONT} font-size="11" fill="#333333">${escape(`at ε = ${epsilonText}${missing.length > 0 ? `; × not computed (${missing.map((p) => p.orbitals).join(', ')} orbitals)` : ''}`)}</text>`,
+    legend(['(λ/ε)² bound, any state (computed λ)', 'QWC groups, reference-state variances (estimate)'], MARGIN.left, HEIGHT - 28, [SERIES_COLOURS[0]!, SERIES_COLOURS[1]!]),
+    '</svg>',
+  ];
+  return parts.join('');
+}

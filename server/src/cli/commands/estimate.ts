@@ -67,7 +67,7 @@ export function parseActiveOption(value: string): { electrons: number; orbitals:
  * every quantum-tier fragment, in the window of its active space (electrons and orbitals of its
  * plan) on its own mean field. Spaces beyond the explicit limit keep the combinatorial bound.
  */
-function activeSpaces(options: EstimateOptions, analysis: DocumentAnalysis): ActiveSpaceOf | undefined {
+export function activeSpaces(options: Pick<EstimateOptions, 'active' | 'spec'>, analysis: DocumentAnalysis): ActiveSpaceOf | undefined {
   if (options.active) {
     const active = options.active;
     return (computation) => {
@@ -160,7 +160,7 @@ function prepareXyz(options: EstimateOptions, io: CliIo): Prepared | undefined {
  * accuracy (the tier's, else the spec's, else 1.6 mHa), and for a variational quantum tier its
  * run (parameters of the ansatz estimate, steps, scan points, shot rate).
  */
-function measurementSettings(analysis: DocumentAnalysis, k: number): MeasurementSettings {
+export function measurementSettings(analysis: DocumentAnalysis, k: number): MeasurementSettings {
   const model = analysis.model;
   const fragment = k > 0 ? model.fragments[k - 1] : undefined;
   const tier = fragment?.tier;
@@ -188,7 +188,7 @@ function bathJsonOf(part: MeanFieldPart): { dmetBath?: Record<string, unknown>; 
 }
 
 /** Why the command ends with errors because of the computed parts: failures and non-convergence count. */
-function meanFieldTrouble(parts: readonly MeanFieldPart[], hamiltonians: readonly HamiltonianPart[]): { errors: number; internal: boolean } {
+export function meanFieldTrouble(parts: readonly MeanFieldPart[], hamiltonians: readonly HamiltonianPart[]): { errors: number; internal: boolean } {
   let errors = 0;
   let internal = false;
   for (const { result, bath } of parts) {

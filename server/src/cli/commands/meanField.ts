@@ -42,12 +42,23 @@ export interface MeanFieldOptions extends RequestOptions {
   readonly activeSpaces?: ActiveSpaceOf;
   /** Only these parts are computed (default: all). */
   readonly onlyParts?: (computation: PartComputation) => boolean;
+  /** Further canonical windows whose Hamiltonians each part gets (the shots-against-size series). */
+  readonly seriesSpaces?: (computation: PartComputation) => readonly HamiltonianSpace[];
+}
+
+/** One part's Hamiltonians over a series of active-space sizes, smallest first. */
+export interface HamiltonianSeries {
+  readonly label: string;
+  readonly part: PartComputation['part'];
+  readonly points: readonly { readonly space: HamiltonianSpace; readonly result: PartHamiltonian }[];
 }
 
 export interface MeanFieldRun {
   readonly parts: MeanFieldPart[];
   /** One per part, in the order of `parts`; empty without `activeSpaces`. */
   readonly hamiltonians: HamiltonianPart[];
+  /** One per part that asked for a series (`seriesSpaces`). */
+  readonly series: HamiltonianSeries[];
   /** True when an interrupt cancelled what was still running. */
   readonly interrupted: boolean;
 }
@@ -116,6 +127,7 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     .filter((computation) => options.onlyParts?.(computation) ?? true);
   const entries: DemandEntry[] = [];
   const hamiltonianRequests = new Map<PartComputation, HamiltonianRequest | { refusal: string } | { bound: string } | null>();
+  const seriesRequests = new Map<PartComputation, HamiltonianRequest[]>();
   for (const computation of computations) {
     if (computation.refusal) continue;
     entries.push({ request: computation.meanField!, label: computation.label, explicit: true });
@@ -125,6 +137,9 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
     hamiltonianRequests.set(computation, request);
     if (request && 'kind' in request) entries.push({ request, label: computation.label, explicit: true });
     if (computation.activeSpace) entries.push({ request: computation.activeSpace, label: computation.label, explicit: true });
+    const series = (options.seriesSpaces?.(computation) ?? []).map((window) => hamiltonianRequest(computation.meanField!, window, null));
+    seriesRequests.set(computation, series);
+    for (const request of series) entries.push({ request, label: computation.label, explicit: true });
   }
   for (const computation of computations) if (computation.bath) entries.push({ request: computation.bath, label: computation.label, explicit: true });
   let interrupted = false;
@@ -160,7 +175,15 @@ export async function computeMeanFields(analysis: DocumentAnalysis, options: Mea
       const activeSpace = computation.activeSpace ? await activeSpaceOf(queue, analysis, computation, () => interrupted) : undefined;
       parts.push({ label: computation.label, result, ...(activeSpace ? { activeSpace } : {}), ...(bath ? { bath } : {}) });
     }
-    return { parts, hamiltonians, interrupted };
+    const series: HamiltonianSeries[] = [];
+    for (const computation of computations) {
+      const requests = seriesRequests.get(computation) ?? [];
+      if (requests.length === 0) continue;
+      const points = [];
+      for (const request of requests) points.push({ space: request.space, result: await hamiltonianOf(queue, computation, request, interrupted) });
+      series.push({ label: computation.label, part: computation.part, points });
+    }
+    return { parts, hamiltonians, series, interrupted };
   } finally {
     stopListening?.();
     await queue.dispose();

@@ -59,7 +59,7 @@ export function activeSpaceJson(part: PartActiveSpace): Record<string, unknown> 
   };
 }
 
-function table(parts: readonly ActiveSpacePart[]): Table {
+export function activeSpaceTable(parts: readonly ActiveSpacePart[]): Table {
   const rows: string[][] = [];
   for (const { label, activeSpace } of parts) {
     if (activeSpace.state === 'failed') {
@@ -79,9 +79,9 @@ export const ACTIVE_SPACE_NOTE =
   "Computed from each fragment's own restricted mean field (ROHF for open shells; no embedding): a result. The plan's figures above count the active space (`counted` in JSON); main character is the atom (numbered in the part's order) and l with the largest Mulliken share.";
 
 export function renderActiveSpaceText(parts: readonly ActiveSpacePart[]): string {
-  return [renderTextTable(table(parts)), ACTIVE_SPACE_NOTE, ''].join('\n');
+  return [renderTextTable(activeSpaceTable(parts)), ACTIVE_SPACE_NOTE, ''].join('\n');
 }
 
 export function renderActiveSpaceMarkdown(parts: readonly ActiveSpacePart[], heading = '###'): string {
-  return [renderMarkdownTable(table(parts), heading), '', `_${ACTIVE_SPACE_NOTE}_`, ''].join('\n');
+  return [renderMarkdownTable(activeSpaceTable(parts), heading), '', `_${ACTIVE_SPACE_NOTE}_`, ''].join('\n');
 }

@@ -5,7 +5,8 @@
  * escaped.
  */
 import { PLANNING_NOTE, type EstimateReport } from '../../analysis';
-import { growthChartSvg, qubitsChartSvg, scanChartSvg } from '../plots';
+import { growthChartSvg, qubitsChartSvg, scanChartSvg, shotsChartSvg, type ShotPoint } from '../plots';
+import type { ComputedSection } from './computedSections';
 import type { GrowthPoint } from '../../analysis';
 import { conventionLines, headerLines } from './estimateTables';
 import { reportTables, reportTitle, type ProblemLine } from './render';
@@ -18,6 +19,17 @@ export interface HtmlReportOptions {
   readonly growth?: readonly { readonly fragment: string; readonly points: readonly GrowthPoint[] }[];
   /** Who made the page, for the footer (for example `Tessera 0.1.0`). */
   readonly generator?: string;
+  /** Computed results (`report --mean-field`): tables with their notes, after the planning tables. */
+  readonly computed?: readonly ComputedSection[];
+  /** Shots against active-space size per quantum fragment, from computed Hamiltonians. */
+  readonly shots?: readonly ShotSeries[];
+}
+
+export interface ShotSeries {
+  readonly fragment: string;
+  /** Target accuracy (hartree). */
+  readonly epsilon: number;
+  readonly points: readonly ShotPoint[];
 }
 
 import { escapeHtml } from './escape';
@@ -63,6 +75,15 @@ function plots(report: EstimateReport, options: HtmlReportOptions): string[] {
     for (const fragment of quantum) {
       const points = options.growth?.find((entry) => entry.fragment === fragment.name)?.points ?? [];
       parts.push(figure(growthChartSvg(points, fragment.name), `How qubits and Pauli terms of '${fragment.name}' grow with the number of active orbitals (half filled).`));
+      const shots = options.shots?.find((entry) => entry.fragment === fragment.name);
+      if (shots) {
+        parts.push(
+          figure(
+            shotsChartSvg(shots.points, fragment.name, `${(shots.epsilon * 1000).toPrecision(3)} mHa`),
+            `Shots per energy evaluation of '${fragment.name}' against active-space size, from Hamiltonians computed on its own mean field in canonical windows: the (λ/ε)² bound (any state, computed λ) and the QWC grouped estimate (reference-state variances). Both are estimates built on computed Hamiltonians; sizes marked × were not computed.`,
+          ),
+        );
+      } else if (!options.computed) parts.push(absent(`No shots plot for '${fragment.name}': shots need computed Hamiltonians (tessera report --mean-field).`));
     }
   }
   if (report.scan && report.scan.points > 0) {
@@ -89,7 +110,8 @@ export function renderReportHtml(report: EstimateReport, options: HtmlReportOpti
     `<ul>\n${headerLines(report).map((line) => `<li>${escapeHtml(line)}</li>`).join('\n')}\n</ul>`,
     ...(options.problems ? [problemsSection(options.problems)] : []),
     ...reportTables(report, true).map(renderHtmlTable),
-    '<h2>Plots (planning estimates)</h2>',
+    ...(options.computed ? ['<h2>Computed results (Tessera\'s engine)</h2>', ...options.computed.flatMap((section) => [renderHtmlTable(section.table), `<ul>\n${section.notes.map((note) => `<li>${escapeHtml(note)}</li>`).join('\n')}\n</ul>`])] : []),
+    `<h2>Plots (planning estimates${options.shots ? '; shots from computed Hamiltonians' : ''})</h2>`,
     ...plots(report, options),
     '<h2>Conventions</h2>',
     `<ul>\n${conventionLines(report).map((line) => `<li>${escapeHtml(line)}</li>`).join('\n')}\n</ul>`,
