@@ -109,11 +109,13 @@ function drawCaps(structure: ViewStructure): void {
   }
 }
 
-function scanRange(distances: readonly number[]): string {
-  if (distances.length === 0) return 'no points';
-  const low = Math.min(...distances);
-  const high = Math.max(...distances);
-  return `${low.toFixed(2)}–${high.toFixed(2)} Å, ${distances.length} point${distances.length === 1 ? '' : 's'}`;
+function scanRange(scan: NonNullable<ViewStructure['scan']>): string {
+  const values = scan.values;
+  if (values.length === 0) return 'no points';
+  const low = Math.min(...values);
+  const high = Math.max(...values);
+  const range = scan.coordinate === 'distance' ? `${low.toFixed(2)}–${high.toFixed(2)} Å` : `${scan.coordinate} ${low.toFixed(1)}–${high.toFixed(1)}°`;
+  return `${range}, ${values.length} point${values.length === 1 ? '' : 's'}`;
 }
 
 function drawScan(structure: ViewStructure): void {
@@ -126,7 +128,7 @@ function drawScan(structure: ViewStructure): void {
   const first = structure.atoms[structure.scan.first]!;
   const second = structure.atoms[structure.scan.second]!;
   viewer.addArrow({ start: point(first), end: point(second), radius: 0.09, radiusRatio: 2.2, mid: 0.86, color: SCAN });
-  detail.textContent = `Scan: ${atomName(first)} → ${atomName(second)}, ${scanRange(structure.scan.distances)}; moves ${structure.scan.moving.length} atom${structure.scan.moving.length === 1 ? '' : 's'}.`;
+  detail.textContent = `Scan: ${atomName(first)} → ${atomName(second)}, ${scanRange(structure.scan)}; moves ${structure.scan.moving.length} atom${structure.scan.moving.length === 1 ? '' : 's'}.`;
   detail.hidden = false;
 }
 
@@ -137,7 +139,7 @@ function drawLabels(structure: ViewStructure): void {
     const first = structure.atoms[structure.scan.first]!;
     const second = structure.atoms[structure.scan.second]!;
     const style = { position: middle(first, second), fontSize: 12, fontColor: '#ffffff', backgroundColor: SCAN, backgroundOpacity: 0.88, borderThickness: 0, inFront: true, alignment: 'topCenter', screenOffset: new Vector2(0, -14) };
-    viewer.addLabel(`scan ${scanRange(structure.scan.distances)}`, style, undefined, true);
+    viewer.addLabel(`scan ${scanRange(structure.scan)}`, style, undefined, true);
   }
   if (!labelsToggle.checked) return;
   for (const atom of structure.atoms) {

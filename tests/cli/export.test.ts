@@ -73,7 +73,7 @@ interface QcExport {
   spec: string;
   system: Molecule;
   fragments: Molecule[];
-  scan: { first_atom: number; second_atom: number; moving_atoms: number[]; distances_angstrom: number[]; molecules: Molecule[] } | null;
+  scan: { coordinate: string; atoms: number[]; first_atom: number; second_atom: number; moving_atoms: number[]; values: number[]; unit: string; distances_angstrom: number[]; molecules: Molecule[] } | null;
 }
 
 function specAnalysis(file: string) {
@@ -119,7 +119,7 @@ describe('tessera export --to xyz', () => {
     expect(result.code, result.stderr).toBe(0);
     const { model } = specAnalysis(file);
     const frames = splitFrames(result.stdout);
-    expect(frames).toHaveLength(model.scan ? model.scan.distances.length : 1);
+    expect(frames).toHaveLength(model.scan ? model.scan.values.length : 1);
     const first = parseXyz(frames[0]!);
     expect(first.problems).toEqual([]);
     expect(first.atoms.map((atom) => atom.symbol)).toEqual(model.atoms.map((atom) => atom.element.symbol));
@@ -222,7 +222,7 @@ describe('tessera export --to qcschema', () => {
     for (const molecule of qc.scan?.molecules ?? []) expectValidMolecule(molecule, molecule.name);
     const { model } = specAnalysis(file);
     expect(qc.fragments).toHaveLength(model.fragments.length);
-    expect(qc.scan?.molecules.length ?? 0).toBe(model.scan?.distances.length ?? 0);
+    expect(qc.scan?.molecules.length ?? 0).toBe(model.scan?.values.length ?? 0);
   });
 
   it.each(cleanSamples())('%s: atoms grouped by fragment, each mapped back to the spec with its element and position', async (file) => {
@@ -325,7 +325,7 @@ describe('tessera export --to qcschema', () => {
     scan.molecules.forEach((molecule, k) => {
       const d = distance(molecule.geometry, scan.first_atom, scan.second_atom) * BOHR_ANGSTROM_CODATA_2018;
       expect(Math.abs(d - scan.distances_angstrom[k]!)).toBeLessThanOrEqual(1e-9);
-      expect(molecule.extras.tessera.scan_point).toEqual({ point: k + 1, points: 7, distance_angstrom: scan.distances_angstrom[k] });
+      expect(molecule.extras.tessera.scan_point).toEqual({ point: k + 1, points: 7, coordinate: 'distance', value: scan.distances_angstrom[k], unit: 'angstrom', distance_angstrom: scan.distances_angstrom[k] });
       expect(molecule.fragments).toEqual(qc.system.fragments);
     });
   });

@@ -60,7 +60,7 @@ describe('tessera export --to qcschema-input', () => {
     expect(exported.format).toBe('tessera-qcschema-input-export');
     const { model } = specAnalysis(file);
     const tiered = model.fragments.filter((fragment) => fragment.tier);
-    const points = Math.max(1, model.scan?.distances.length ?? 0);
+    const points = Math.max(1, model.scan?.values.length ?? 0);
     expect(exported.records).toHaveLength(tiered.length * points);
     expect(exported.skipped.map((entry) => entry.fragment)).toEqual(model.fragments.filter((fragment) => !fragment.tier).map((fragment) => fragment.name));
     exported.records.forEach((record, k) => {
@@ -91,7 +91,7 @@ describe('tessera export --to qcschema-input', () => {
       const capDistance = Math.hypot(geometry[12]! - geometry[0]!, geometry[13]! - geometry[1]!, geometry[14]! - geometry[2]!);
       // Scaled link atom: g · d(C–C), g = (r_C + r_H)/(r_C + r_C) with Cordero radii 0.76 and 0.31 Å
       // (Cordero et al., Dalton Trans. 2008, 2832).
-      expect(capDistance).toBeCloseTo((1.07 / 1.52) * point.distance_angstrom, 9);
+      expect(capDistance).toBeCloseTo((1.07 / 1.52) * point.distance_angstrom!, 9);
     }
     const left = exported.records[0]!;
     // The quantum tier runs on the mean field of a closed-shell CH4-like fragment.

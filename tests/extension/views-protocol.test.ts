@@ -32,7 +32,7 @@ function structure(): ViewStructure {
     fragments: [{ name: 'w', tier: 'quantum', colour: '#e69f00', cost: '12 qubits', atoms: 2, line: 7 }],
     bonds: [{ i: 0, j: 1, cut: false }],
     caps: [{ fragment: 0, host: 0, partner: 2, element: 'H', x: 0.9, y: 0, z: 0 }],
-    scan: { first: 0, second: 2, distances: [2, 2.5], moving: [2] },
+    scan: { coordinate: 'distance', atoms: [0, 2], first: 0, second: 2, values: [2, 2.5], moving: [2] },
     unassignedColour: '#bbbbbb',
     note: 'Planning estimates.',
   };
@@ -68,8 +68,9 @@ describe('structure data', () => {
     ['a negative line other than −1', () => ({ ...structure(), atoms: structure().atoms.map((a, k) => (k === 1 ? { ...a, line: -2 } : a)) })],
     ['a bond to a missing atom', () => ({ ...structure(), bonds: [{ i: 0, j: 3, cut: false }] })],
     ['a bond whose cut flag is not boolean', () => ({ ...structure(), bonds: [{ i: 0, j: 1, cut: 1 }] })],
-    ['a scan of a missing atom', () => ({ ...structure(), scan: { first: 0, second: 9, distances: [2], moving: [] } })],
-    ['a scan distance that is not a number', () => ({ ...structure(), scan: { first: 0, second: 2, distances: [2, null], moving: [] } })],
+    ['a scan of a missing atom', () => ({ ...structure(), scan: { coordinate: 'distance', atoms: [0, 9], first: 0, second: 9, values: [2], moving: [] } })],
+    ['an unknown scan coordinate', () => ({ ...structure(), scan: { coordinate: 'volume', atoms: [0, 2], first: 0, second: 2, values: [2], moving: [] } })],
+    ['a scan distance that is not a number', () => ({ ...structure(), scan: { coordinate: 'distance', atoms: [0, 2], first: 0, second: 2, values: [2, null], moving: [] } })],
     ['a fragment name too long', () => ({ ...structure(), fragments: [{ ...structure().fragments[0]!, name: 'x'.repeat(201) }] })],
   ])('is refused with %s', (_, make) => {
     expect(verdict(checkStructure(make()))).not.toBe('ok');

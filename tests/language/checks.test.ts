@@ -810,9 +810,9 @@ describe('scans', () => {
     expect(analysis.model.scan?.moving).toEqual([1]); // h1 is atom #2 (by construction)
   });
 
-  it('asks the moving atoms to hold the second scanned atom and not the first (by construction)', () => {
+  it('asks the moving atoms to hold the last scanned atom and not the first (by construction)', () => {
     const base = water(SPLIT_WATER, '', 'basis sto-3g');
-    expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h2⟧\n', 'invalid-scan').diagnostic.message).toContain('must include the second scanned atom');
+    expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h2⟧\n', 'invalid-scan').diagnostic.message).toContain('must include the last scanned atom');
     expect(expectDiagnostic(base + 'scan distance o h1 from 0.9 to 1.5 step 0.2 ⟦moving h1 o⟧\n', 'invalid-scan').diagnostic.message).toContain('must not include the first scanned atom');
   });
 
@@ -825,7 +825,7 @@ describe('scans', () => {
     expect(diagnostic.message).toBe('The scan reaches 0.423 Å (0.8 bohr, the structure\'s unit), closer than 0.5 Å.');
     const fine = analyzeMarked(water(SPLIT_WATER, '', 'basis sto-3g', WATER_IN_BOHR, 'structure in bohr') + 'scan distance o h2 from 1.0 to 2.0 step 0.5\n');
     expect(fine.diagnostics.filter((d) => d.code !== 'bond-cut')).toEqual([]);
-    expect(fine.model.scan?.distances.map((d) => Number((d / BOHR).toFixed(9)))).toEqual([1, 1.5, 2]);
+    expect(fine.model.scan?.values.map((d) => Number((d / BOHR).toFixed(9)))).toEqual([1, 1.5, 2]);
   });
 
   it('reports what a scan statement is missing', () => {

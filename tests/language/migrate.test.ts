@@ -22,7 +22,7 @@ function meaning(analysis: Analysis) {
     fragments: model.fragments.map((fragment) => [fragment.name, fragment.atoms]),
     basis: model.basis.atomSets.map((set) => set?.displayName ?? null),
     functions: model.basis.functions,
-    scan: model.scan?.distances.map((distance) => Number(distance.toFixed(6))) ?? null,
+    scan: model.scan?.values.map((distance) => Number(distance.toFixed(6))) ?? null,
   };
 }
 

@@ -238,14 +238,14 @@ limits {
     const { model } = tour;
     expect(model.scan?.first).toBe(0);
     expect(model.scan?.second).toBe(4);
-    expect(model.scan?.distances).toEqual([2.6, 2.8, 3, 3.2, 3.4]);
+    expect(model.scan?.values).toEqual([2.6, 2.8, 3, 3.2, 3.4]);
     expect(model.limits).toEqual({ qubits: 24, qubitsFromSpec: true, memoryBytes: 16 * 1024 ** 3 });
   });
 
   it('reads `scan ... points n` as n evenly spaced distances', () => {
     const analysis = analyze(TOUR.replace('step 0.2', 'points 3'));
     expect(analysis.ast.scan?.points?.value).toBe(3);
-    expect(analysis.model.scan?.distances).toEqual([2.6, 3, 3.4]);
+    expect(analysis.model.scan?.values).toEqual([2.6, 3, 3.4]);
     expect(analysis.diagnostics).toEqual([]);
   });
 

@@ -177,13 +177,17 @@ describe('multiplicities valid for the electron count', () => {
 describe('scan', () => {
   const scan = (rest: string) => spec(`fragment f { atoms rest; tier mean-field { method rhf } }\nscan ${rest}\n`);
   const cases: { name: string; text: string; expected: string[] }[] = [
-    { name: 'the coordinate kind', text: scan('$0'), expected: ['distance'] },
+    { name: 'the coordinate kind', text: scan('$0'), expected: ['distance', 'angle', 'dihedral'] },
     { name: 'the first atom', text: scan('distance $0'), expected: ['zn', 's', 'h1', 'h2'] },
     { name: 'the second atom', text: scan('distance zn $0'), expected: ['zn', 's', 'h1', 'h2'] },
     { name: 'the range keywords', text: scan('distance zn s $0'), expected: ['from', 'to', 'step', 'points', 'moving'] },
     { name: 'the range keywords not yet given', text: scan('distance zn s from 2 to 3 $0'), expected: ['step', 'points', 'moving'] },
     { name: 'no `points` once a step is given', text: scan('distance zn s from 2 to 3 step 0.5 $0'), expected: ['moving'] },
     { name: 'the atoms after `moving`, then the clauses left', text: scan('distance zn s from 2 to 3 step 0.5 moving $0'), expected: ['zn', 's', 'h1', 'h2'] },
+    { name: 'the third atom of an angle', text: scan('angle h1 s $0'), expected: ['zn', 's', 'h1', 'h2'] },
+    { name: 'the fourth atom of a dihedral', text: scan('dihedral h1 s zn $0'), expected: ['zn', 's', 'h1', 'h2'] },
+    { name: 'the range keywords after a dihedral\'s four atoms', text: scan('dihedral h1 s zn h2 $0'), expected: ['from', 'to', 'step', 'points', 'moving'] },
+    { name: 'more moving atoms, or the range', text: scan('angle h1 s h2 moving h2 $0'), expected: ['zn', 's', 'h1', 'h2', 'from', 'to', 'step', 'points'] },
     { name: 'nothing where a number belongs', text: scan('distance zn s from $0'), expected: [] },
   ];
   for (const c of cases) {

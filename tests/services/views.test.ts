@@ -31,7 +31,7 @@ describe('structure data for the view', () => {
     expect(data.unassignedColour).toMatch(/^#[0-9a-f]{6}$/i);
     expect(data.fragments.map((f) => f.colour)).not.toContain(data.unassignedColour);
     expect(data.note).toMatch(/planning estimates/i);
-    expect(data.scan).toMatchObject({ first: 0, second: 17, distances: [2.3, 2.5, 2.7, 2.9, 3.1, 3.3, 3.5] });
+    expect(data.scan).toMatchObject({ coordinate: 'distance', first: 0, second: 17, values: [2.3, 2.5, 2.7, 2.9, 3.1, 3.3, 3.5] });
     expect(data.bonds.some((bond) => bond.cut)).toBe(true);
   });
 });

@@ -82,7 +82,8 @@ export interface ViewStructure {
   bonds: { i: number; j: number; cut: boolean }[];
   /** Hydrogen caps on cut bonds: the fragment that has each, its host and partner atoms, its position (Å). */
   caps: ViewCap[];
-  scan: { first: number; second: number; distances: number[]; moving: number[] } | null;
+  /** `values` in ångström for a distance, degrees for an angle or dihedral. */
+  scan: { coordinate: 'distance' | 'angle' | 'dihedral'; atoms: number[]; first: number; second: number; values: number[]; moving: number[] } | null;
   unassignedColour: string;
   note: string;
 }
@@ -230,11 +231,14 @@ export function checkStructure(raw: unknown): Checked<ViewStructure> {
     if (!isFiniteNumber(cap['x']) || !isFiniteNumber(cap['y']) || !isFiniteNumber(cap['z'])) return fail('cap coordinates are not finite numbers');
   }
   if (scan !== null) {
-    if (!isRecord(scan) || !hasKeys(scan, ['first', 'second', 'distances', 'moving'])) return fail('scan has the wrong fields');
+    if (!isRecord(scan) || !hasKeys(scan, ['coordinate', 'atoms', 'first', 'second', 'values', 'moving'])) return fail('scan has the wrong fields');
+    if (!['distance', 'angle', 'dihedral'].includes(scan['coordinate'] as string)) return fail('scan coordinate unknown');
     if (!isIndex(scan['first'], atoms.length) || !isIndex(scan['second'], atoms.length)) return fail('scan atoms out of range');
-    const { distances, moving } = scan;
-    if (Array.isArray(distances) && distances.length > MAX_SCAN_POINTS) return fail(`${distances.length} scan points, more than the ${MAX_SCAN_POINTS} the view shows`);
-    if (!Array.isArray(distances) || !distances.every(isFiniteNumber)) return fail('scan distances malformed');
+    const named = scan['atoms'];
+    if (!Array.isArray(named) || named.length < 2 || named.length > 4 || !named.every((atom) => isIndex(atom, atoms.length))) return fail('scan atoms out of range');
+    const { values, moving } = scan;
+    if (Array.isArray(values) && values.length > MAX_SCAN_POINTS) return fail(`${values.length} scan points, more than the ${MAX_SCAN_POINTS} the view shows`);
+    if (!Array.isArray(values) || !values.every(isFiniteNumber)) return fail('scan values malformed');
     if (!Array.isArray(moving) || moving.length > atoms.length || !moving.every((m) => isIndex(m, atoms.length))) return fail('scan moving atoms malformed');
   }
   return { ok: true, value: raw as unknown as ViewStructure };

@@ -10,12 +10,11 @@
  * object: whoever shows figures is told, and asks again.
  */
 import { canBuildExplicitly, explicitLimitNote } from '../electronic/hamiltonian/qubitHamiltonian';
-import { bondedGroup } from '../chemistry/scan';
 import type { SpecAst } from '../language/ast';
 import { analyze, checkName, contained, type Analysis, type AnalyzeOptions } from '../language/analyze';
 import type { Diagnostic } from '../language/diagnostics';
 import { DiagnosticSink, finishDiagnostics } from '../language/diagnostics';
-import type { SpecModel } from '../language/model';
+import { defaultScanMoving, type SpecModel } from '../language/model';
 import type { SyntaxTree } from '../language/syntax';
 import type { LineIndex } from '../language/text';
 import { checkImpurityActiveSpaces } from './checks/impurity';
@@ -247,15 +246,19 @@ export class DocumentAnalysis {
     return chosen ? { kind: 'selection', window } : { kind: 'window', ...window };
   }
 
-  /** The atoms a scan moves: those its `moving` clause names, else the second atom's fragment, or its bonded group without fragments. */
+  /**
+   * The atoms a scan moves: those its `moving` clause names, else for a distance the second atom's
+   * fragment (its bonded group without fragments), for an angle or dihedral the last atom's side of
+   * the molecule (the last atom alone when a ring leaves no side; the checks report that).
+   */
   scanMovingAtoms(): number[] {
     if (!this.moving) {
       const model = this.model;
       const scan = model.scan;
       if (!scan) this.moving = [];
       else {
-        const owner = model.owner[scan.second] ?? -1;
-        this.moving = scan.moving ? [...scan.moving] : owner >= 0 ? [...model.fragments[owner]!.atoms] : bondedGroup(model.atoms.length, model.contacts.bonds, scan.first, scan.second);
+        const side = scan.moving ? undefined : defaultScanMoving(model, scan);
+        this.moving = scan.moving ? [...scan.moving] : side && 'atoms' in side ? side.atoms : [scan.second];
       }
     }
     return this.moving;

@@ -276,14 +276,17 @@ export interface CapsAst {
 
 export interface ScanAst {
   readonly statement: Statement;
-  readonly kind: Located<'distance'>;
+  readonly kind: Located<'distance' | 'angle' | 'dihedral'>;
+  /** The named atoms in order (as many as were readable). */
+  readonly atoms: readonly AtomRef[];
   readonly first?: AtomRef;
+  /** The last named atom: the one that moves. */
   readonly second?: AtomRef;
   readonly from?: Located<number>;
   readonly to?: Located<number>;
   readonly step?: Located<number>;
   readonly points?: Located<number>;
-  /** `moving <atom> …`: the atoms that move with the second one, when given. */
+  /** `moving <atom> …`: the atoms that move with the last named one, when given. */
   readonly moving?: { readonly atoms: readonly AtomRef[]; readonly span: Span };
 }
 

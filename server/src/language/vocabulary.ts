@@ -73,7 +73,13 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   },
   { name: 'steps', blocks: ['tier'], syntax: 'steps <n>', summary: 'Optimisation steps of a variational run, for its shot count: each step evaluates the energy 2 × parameters + 1 times (parameter shift). Default 100 (an assumption).' },
   { name: 'embedding', blocks: ['top', 'variant'], syntax: 'embedding dmet|projection|subtractive|none', summary: 'How fragments are coupled to their environment (default none).' },
-  { name: 'scan', blocks: ['top'], syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  … points <n>, then optionally moving <atom> …', summary: 'Repeat the plan along a coordinate: the second atom\'s fragment (or the atoms after `moving`) moves along the line joining the two atoms. Distances are in the structure\'s unit.' },
+  {
+    name: 'scan',
+    blocks: ['top'],
+    syntax: 'scan distance <atom> <atom> from <d> to <d> step <d>  or  scan angle <atom> <vertex> <atom> …  or  scan dihedral <atom> <atom> <atom> <atom> …  (… points <n> instead of step), then optionally moving <atom> …',
+    summary:
+      'Repeat the plan along a coordinate, every point checked as a geometry of its own. A distance: the second atom\'s fragment (or the atoms after `moving`) moves along the line joining the two atoms, in the structure\'s unit. An angle (degrees): the third atom\'s side of the molecule turns about the vertex, in the plane of the three atoms. A dihedral (degrees): the fourth atom\'s side turns about the bond between the middle two.',
+  },
   { name: 'limits', blocks: ['top', 'variant'], syntax: 'limits { qubits <n>; memory <size> GiB; rate <n> Gflops; shot-rate <n> }', summary: 'Resources available: qubits and memory checked against every fragment, the rate used for the time of classical solvers, the shot rate for the time of a variational run.', opens: 'limits' },
   {
     name: 'variant',
@@ -217,16 +223,22 @@ export const CAP_RULES: readonly TermInfo[] = [
 ];
 
 export const SCAN_KINDS: readonly TermInfo[] = [
-  { name: 'distance', summary: 'A distance between two atoms.' },
+  { name: 'distance', summary: 'A distance between two atoms, in the structure\'s length unit.' },
+  { name: 'angle', summary: 'A bond angle A–B–C at the vertex B (the middle atom), in degrees between 0 and 180; the third atom\'s side turns in the plane of the three atoms.' },
+  {
+    name: 'dihedral',
+    summary: 'A dihedral (torsion) angle A–B–C–D, in degrees: the fourth atom\'s side turns about the B–C bond. Positive when, seen along B→C, A–B turns clockwise to eclipse C–D.',
+    reference: 'IUPAC Compendium of Chemical Terminology (Gold Book), "torsion angle"',
+  },
 ];
 
 /** The clauses of a `scan` line after its two atoms. */
 export const SCAN_CLAUSES: readonly TermInfo[] = [
-  { name: 'from', summary: '`from <d>`: the first value of the scanned distance, in the structure\'s unit.' },
+  { name: 'from', summary: '`from <d>`: the first value of the scanned coordinate: a distance in the structure\'s unit, an angle or dihedral in degrees.' },
   { name: 'to', summary: '`to <d>`: the last value; the step must land on it.' },
-  { name: 'step', summary: '`step <d>`: the change from one point to the next (negative to shorten the distance).' },
+  { name: 'step', summary: '`step <d>`: the change from one point to the next (negative to shorten a distance or close an angle).' },
   { name: 'points', summary: '`points <n>`: n evenly spaced points from the first value to the last, instead of a step.' },
-  { name: 'moving', summary: '`moving <atom> …`: the atoms that move with the second scanned atom, instead of its whole fragment.' },
+  { name: 'moving', summary: '`moving <atom> …`: the atoms that move with the last scanned atom, instead of its whole fragment (a distance) or its side of the molecule (an angle or dihedral).' },
 ];
 
 export const SELECTOR_WORDS: readonly TermInfo[] = [

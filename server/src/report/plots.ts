@@ -7,6 +7,7 @@
 import { countValue, type EstimateReport } from '../analysis';
 import { escapeHtml } from './format/escape';
 import type { GrowthPoint } from '../analysis';
+import type { ScanCoordinate } from '../chemistry/scan';
 
 const WIDTH = 640;
 const HEIGHT = 340;
@@ -164,7 +165,14 @@ export function growthChartSvg(points: readonly GrowthPoint[], fragmentName: str
   return parts.join('');
 }
 
-/** Cumulative measurement circuits along the scan, one point per scanned distance. */
+/** The x axis of the scan chart, by coordinate. */
+const SCAN_AXIS_LABELS: Readonly<Record<ScanCoordinate, string>> = {
+  distance: 'scanned distance (Å), in scan order',
+  angle: 'scanned angle (degrees), in scan order',
+  dihedral: 'scanned dihedral (degrees), in scan order',
+};
+
+/** Cumulative measurement circuits along the scan, one point per scanned value. */
 export function scanChartSvg(report: EstimateReport): string {
   const title = 'Cumulative cost along the scan (planning estimate)';
   const scan = report.scan;
@@ -174,19 +182,20 @@ export function scanChartSvg(report: EstimateReport): string {
   const perPointCircuits = circuits / scan.points;
   const f = frame();
   // Scan order left to right: the first distance at the left edge, also for a descending scan.
-  const first = scan.distances[0]!;
-  const span = scan.distances[scan.distances.length - 1]! - first || 1;
+  const values = scan.values;
+  const first = values[0]!;
+  const span = values[values.length - 1]! - first || 1;
   const toX = (d: number) => f.x0 + ((f.x1 - f.x0) * (d - first)) / span;
   const ticks = niceTicks(Math.max(circuits, 1));
   const yTop = ticks[ticks.length - 1]!;
   const toY = (value: number) => f.y0 - ((f.y0 - f.y1) * value) / yTop;
-  const cumulative = scan.distances.map((distance, k) => [toX(distance), toY((k + 1) * perPointCircuits)] as [number, number]);
+  const cumulative = values.map((value, k) => [toX(value), toY((k + 1) * perPointCircuits)] as [number, number]);
   const step = Math.ceil(scan.points / 12);
   return [
     svgOpen(title),
     yAxis(f, ticks, toY, 'measurement circuits'),
-    xAxisLabel(f, 'scanned distance (Å), in scan order'),
-    xTicks(f, scan.distances.filter((_, k) => k % step === 0), toX, (d) => d.toFixed(2)),
+    xAxisLabel(f, SCAN_AXIS_LABELS[scan.coordinate]),
+    xTicks(f, values.filter((_, k) => k % step === 0), toX, scan.coordinate === 'distance' ? (d) => d.toFixed(2) : (d) => `${d.toFixed(1)}°`),
     polyline(cumulative, SERIES_COLOURS[0]!),
     ...cumulative.map(([x, y]) => `<circle cx="${x.toFixed(1)}" cy="${y.toFixed(1)}" r="3" fill="${SERIES_COLOURS[0]}"/>`),
     `<text x="${f.x0 + 8}" y="${f.y1 + 4}" ${FONT} font-size="11" fill="#333333">per point: ${perPointCalculations} fragment calculations, ${perPointCircuits} measurement circuits per energy evaluation; ${scan.points} points</text>`,

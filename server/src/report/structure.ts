@@ -4,6 +4,7 @@
  * analysis). The structure view and the exports read it.
  */
 import type { DocumentAnalysis, FragmentFigures } from '../analysis';
+import type { ScanCoordinate } from '../chemistry/scan';
 
 /**
  * Fragment colours: the first seven are the colour-universal-design palette of Okabe & Ito,
@@ -45,7 +46,8 @@ export interface StructureData {
   bonds: { i: number; j: number; cut: boolean }[];
   /** Hydrogen caps of cut bonds (model/caps.ts): the fragment that has it, its host atom, its position (Å). */
   caps: StructureCap[];
-  scan: { first: number; second: number; distances: number[]; moving: number[] } | null;
+  /** `values` in ångström for a distance, degrees for an angle or dihedral; `atoms` all the named atoms, `second` the last. */
+  scan: { coordinate: ScanCoordinate; atoms: number[]; first: number; second: number; values: number[]; moving: number[] } | null;
 }
 
 function costLabel(fragment: FragmentFigures): string {
@@ -85,6 +87,8 @@ export function structureData(analysis: DocumentAnalysis): StructureData {
     caps: model.fragments.flatMap((fragment, index) =>
       fragment.caps.map((cap) => ({ fragment: index, host: cap.host, partner: cap.partner, element: 'H', x: cap.position[0], y: cap.position[1], z: cap.position[2] })),
     ),
-    scan: model.scan ? { first: model.scan.first, second: model.scan.second, distances: [...model.scan.distances], moving: analysis.scanMovingAtoms() } : null,
+    scan: model.scan
+      ? { coordinate: model.scan.coordinate, atoms: [...model.scan.atoms], first: model.scan.first, second: model.scan.second, values: [...model.scan.values], moving: analysis.scanMovingAtoms() }
+      : null,
   };
 }

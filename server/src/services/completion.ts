@@ -11,6 +11,7 @@ import { CompletionItemKind, InsertTextFormat, MarkupKind, type CompletionItem, 
 import { allBasisSets } from '../chemistry/basis/library';
 import { ELEMENTS } from '../chemistry/elements';
 import { MEMORY_UNITS } from '../chemistry/units';
+import { SCAN_ATOM_COUNTS } from '../chemistry/scan';
 import type { DocumentAnalysis } from '../analysis';
 import type { Statement } from '../language/syntax';
 import {
@@ -197,7 +198,10 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
       return selectorItems(analysis, statement.args, index, 0, false);
     case 'scan': {
       if (index === 0) return terms(SCAN_KINDS, CompletionItemKind.EnumMember);
-      if (index === 1 || index === 2) return labelItems(analysis);
+      // A distance names two atoms, an angle three, a dihedral four.
+      const kind = statement.args[0]?.text;
+      const atomCount = kind === 'angle' || kind === 'dihedral' || kind === 'distance' ? SCAN_ATOM_COUNTS[kind] : 2;
+      if (index >= 1 && index <= atomCount) return labelItems(analysis);
       const given = new Set(statement.args.map((arg) => arg.text));
       const expectsNumber = ['from', 'to', 'step', 'points'].includes(previous ?? '');
       if (expectsNumber) return [];

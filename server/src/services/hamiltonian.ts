@@ -97,9 +97,9 @@ export function hamiltonianSection(analysis: DocumentAnalysis, part: PartRef): s
     const parameters = analysis.fragmentPlan(fragment!.index)?.quantum?.ansatz?.parameters;
     if (parameters !== undefined) {
       const shotRate = analysis.model.limits.shotRate;
-      const run = vqeRun({ parameters, steps: tier.steps, scanPoints: analysis.model.scan?.distances.length ?? 1, shotsPerEvaluation: jw.shots.groupedEstimate, ...(shotRate ? { shotRate } : {}) });
+      const run = vqeRun({ parameters, steps: tier.steps, scanPoints: analysis.model.scan?.values.length ?? 1, shotsPerEvaluation: jw.shots.groupedEstimate, ...(shotRate ? { shotRate } : {}) });
       rows.push(
-        `| VQE run | ${run.evaluationsPerStep} evaluations per step × ${tier.steps} steps${tier.stepsGiven ? '' : ' (default, an assumption)'} × ${analysis.model.scan?.distances.length ?? 1} scan points ≈ ${run.shots.toExponential(2)} shots${run.seconds !== undefined ? `, ${seconds(run.seconds)} at ${count(shotRate!)} shots/s` : ' (a `shot-rate` in `limits` gives the time)'} (estimate) |`,
+        `| VQE run | ${run.evaluationsPerStep} evaluations per step × ${tier.steps} steps${tier.stepsGiven ? '' : ' (default, an assumption)'} × ${analysis.model.scan?.values.length ?? 1} scan points ≈ ${run.shots.toExponential(2)} shots${run.seconds !== undefined ? `, ${seconds(run.seconds)} at ${count(shotRate!)} shots/s` : ' (a `shot-rate` in `limits` gives the time)'} (estimate) |`,
       );
     }
   }

@@ -90,7 +90,7 @@ export function getCodeLenses(analysis: DocumentAnalysis): CodeLens[] {
     `${model.fragments.length} fragment${model.fragments.length === 1 ? '' : 's'}`,
   ];
   if (largest) parts.push(`largest quantum fragment ${largest.qubits} qubits (${largest.fragment})`);
-  if (model.scan) parts.push(`× ${model.scan.distances.length} scan points`);
+  if (model.scan) parts.push(`× ${model.scan.values.length} scan points`);
   const range = toRange(analysis, first.keyword.span);
   return [{ range, command: { title: parts.join(' · '), command: 'tessera.showReport', arguments: [] } }];
 }

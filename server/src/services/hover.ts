@@ -32,6 +32,7 @@ import {
   type TermInfo,
 } from '../language/vocabulary';
 import { fragmentCard } from './cards';
+import { scanCard } from './scanCard';
 import { meanFieldSection, NO_COMPUTE_POLICY, type ComputePolicy } from './computed';
 import { hamiltonianSection } from './hamiltonian';
 import { bathSection } from './computedBath';
@@ -264,7 +265,7 @@ export function doHover(analysis: DocumentAnalysis, position: Position, policy: 
     const keyword = findKeyword(keywordText, context.block);
     if (keyword) {
       const unit = keyword.name === 'structure' || keyword.name === 'scan' ? `\n\nLength unit of this spec: ${unitName(analysis)}.` : '';
-      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : keyword.name === 'active' ? activeLineCard(analysis, statement) : undefined;
+      const line = keyword.name === 'basis' ? basisLineCard(analysis, statement) : keyword.name === 'active' ? activeLineCard(analysis, statement) : keyword.name === 'scan' ? scanCard(analysis) : undefined;
       return markdown(`**${keyword.name}**\n\n${keyword.summary}\n\n\`${keyword.syntax}\`${unit}${line ? `\n\n${line}` : ''}`, analysis, token.node);
     }
     const retired = context.block === 'top' ? RETIRED_SPELLINGS.find((entry) => entry.name === keywordText || (entry.name === 'basis block' && keywordText === 'basis')) : undefined;

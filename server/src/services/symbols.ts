@@ -28,7 +28,7 @@ function detailOf(analysis: DocumentAnalysis, statement: Statement): string {
       return `${fragment.tier?.level ?? 'no tier'} · ${fragment.atoms.length} atoms · ${fragmentCostLabel(analysis, fragment.index)}`;
     }
     case 'scan':
-      return model.scan ? `${model.scan.distances.length} points` : '';
+      return model.scan ? `${model.scan.values.length} points` : '';
     default:
       return statement.args.map((arg) => arg.text).join(' ');
   }

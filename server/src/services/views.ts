@@ -54,7 +54,7 @@ export function structureAnswer(analysis: DocumentAnalysis): StructureView | Vie
     ['atoms', model.atoms.length, VIEW_LIMITS.atoms],
     ['bonds', model.contacts.bonds.length, VIEW_LIMITS.bonds],
     ['fragments', model.fragments.length, VIEW_LIMITS.fragments],
-    ['scan points', model.scan?.distances.length ?? 0, VIEW_LIMITS.scanPoints],
+    ['scan points', model.scan?.values.length ?? 0, VIEW_LIMITS.scanPoints],
   ]);
   return beyond ? { unavailable: `This spec is too large for the structure view: ${beyond}.` } : structureOf(analysis);
 }

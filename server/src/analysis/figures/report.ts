@@ -3,6 +3,7 @@ import { DEFAULT_FLOPS } from '../../chemistry/cost/solvers';
 import { describeTarget } from '../../language/ast';
 import type { Analysis } from '../../language/analyze';
 import { approximateCount, countValue } from './space';
+import { SCAN_UNITS } from '../../chemistry/scan';
 import { CONVENTIONS, PLANNING_NOTE, type BasisOverrideFigure, type EstimateReport, type FragmentFigures, type ScanTotals, type SystemFigures } from './types';
 
 export interface ReportParts {
@@ -44,7 +45,16 @@ export function assembleReport(parts: ReportParts): EstimateReport {
     conventions: CONVENTIONS,
     system: parts.system,
     fragments,
-    scan: model.scan ? { points: model.scan.distances.length, distances: model.scan.distances, totals: scanTotals(model.scan.distances.length, fragments) } : null,
+    scan: model.scan
+      ? {
+          coordinate: model.scan.coordinate,
+          unit: SCAN_UNITS[model.scan.coordinate],
+          points: model.scan.values.length,
+          values: model.scan.values,
+          ...(model.scan.coordinate === 'distance' ? { distances: model.scan.values } : {}),
+          totals: scanTotals(model.scan.values.length, fragments),
+        }
+      : null,
     limits: {
       qubits: model.limits.qubits ?? null,
       memoryBytes: model.limits.memoryBytes ?? null,

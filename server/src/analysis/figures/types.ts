@@ -3,6 +3,7 @@
  * the CLI's JSON, hover cards, hints, reports and plots all read, so they cannot disagree. All
  * counted figures are planning estimates; results of the engine are marked computed where shown.
  */
+import type { ScanCoordinate } from '../../chemistry/scan';
 export const PLANNING_NOTE =
   'Planning estimates from counting rules, not results of a calculation: use them to size a study, not as guarantees. Figures marked computed are results of Tessera\'s own mean-field engine.';
 
@@ -209,9 +210,22 @@ export interface EstimateReport {
   conventions: typeof CONVENTIONS;
   system: SystemFigures;
   fragments: FragmentFigures[];
-  scan: { points: number; distances: number[]; totals: ScanTotals } | null;
+  scan: ScanFigures | null;
   limits: { qubits: number | null; memoryBytes: number | null; flopsPerSecond: number; flopsFrom: 'limits' | 'default' };
   diagnostics: { errors: number; warnings: number };
+}
+
+/**
+ * The scan: the coordinate, its values in scan order (ångström for a distance, degrees for an angle
+ * or dihedral; `distances` repeats them under the older key for distance scans) and its costs.
+ */
+export interface ScanFigures {
+  coordinate: ScanCoordinate;
+  unit: 'angstrom' | 'degree';
+  points: number;
+  values: number[];
+  distances?: number[];
+  totals: ScanTotals;
 }
 
 /** Costs along a scan: each point repeats every fragment's calculation. */

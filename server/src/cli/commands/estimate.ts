@@ -173,7 +173,7 @@ export function measurementSettings(analysis: DocumentAnalysis, k: number): Meas
     vqe:
       parameters === undefined
         ? null
-        : { parameters, steps: tier.steps, stepsGiven: tier.stepsGiven, scanPoints: model.scan?.distances.length ?? 1, shotRate: model.limits.shotRate ?? null },
+        : { parameters, steps: tier.steps, stepsGiven: tier.stepsGiven, scanPoints: model.scan?.values.length ?? 1, shotRate: model.limits.shotRate ?? null },
   };
 }
 

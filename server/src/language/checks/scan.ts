@@ -1,24 +1,41 @@
 /**
- * Scans: two different atoms, a range that runs the way the step goes and lands on its end, and
- * the atoms that move — the second atom's fragment, which must not hold the first, or the atoms a
- * `moving` clause names (then a stretch inside one fragment is fine). Every point is checked as a
- * geometry of its own: no clash, and no bond formed across a fragment boundary (one the structure
- * already has is the bond-cut check's).
+ * Scans: different atoms, a range that runs the way the step goes and lands on its end, values the
+ * coordinate can take (positive distances, angles between 0° and 180°), a motion that is defined in
+ * the structure as written, and the atoms that move — for a distance the second atom's fragment,
+ * which must not hold the first, for an angle or dihedral the last atom's side of the molecule, or
+ * the atoms a `moving` clause names (then a stretch inside one fragment is fine). Every point is
+ * checked as a geometry of its own: no clash, and no bond formed across a fragment boundary (one
+ * the structure already has is the bond-cut check's).
  */
 import { BOND_TOLERANCE_FACTOR, CLASH_DISTANCE } from '../../chemistry/geometry';
+import { ScanMotion, type ScanCoordinate, type ScanGeometry } from '../../chemistry/scan';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
-import { claimsOf, MAX_SCAN_POINTS, scanPointCount } from '../model';
+import { claimsOf, defaultScanMoving, MAX_SCAN_POINTS, scanPointCount } from '../model';
 import { describeRef } from '../ast';
 import type { CheckContext } from './context';
+
+/** A scanned value as messages write it: degrees with their sign, distances as written. */
+export function scanValueText(value: number, coordinate: ScanCoordinate): string {
+  return coordinate === 'distance' ? `${value}` : `${value}°`;
+}
 
 export function checkScan(context: CheckContext): void {
   const { ast, model, sink } = context;
   const scan = ast.scan;
   if (!scan?.from || !scan.to) return;
+  const coordinate = scan.kind.value;
   const from = scan.from.value;
   const to = scan.to.value;
-  if (from <= 0 || to <= 0) {
+  if (coordinate === 'distance' && (from <= 0 || to <= 0)) {
     sink.report('invalid-scan', from <= 0 ? scan.from.span : scan.to.span, 'Scanned distances must be positive.');
+    return;
+  }
+  if (coordinate === 'angle' && !(from > 0 && from <= 180 && to > 0 && to <= 180)) {
+    sink.report('invalid-scan', from > 0 && from <= 180 ? scan.to.span : scan.from.span, 'A bond angle lies above 0° and at most 180°.');
+    return;
+  }
+  if (coordinate === 'dihedral' && Math.abs(to - from) > 360) {
+    sink.report('invalid-scan', scan.to.span, `A dihedral repeats every 360°; the scan from ${from}° to ${to}° covers ${Math.abs(to - from)}°.`);
     return;
   }
   if (scan.step) {
@@ -54,21 +71,22 @@ export function checkScan(context: CheckContext): void {
   }
   const resolved = model.scan;
   if (!resolved) return;
-  if (resolved.first === resolved.second) {
-    sink.report('invalid-scan', scan.second!.span, 'The scan needs two different atoms.');
+  if (new Set(resolved.atoms).size < resolved.atoms.length) {
+    const count = ['', '', 'two', 'three', 'four'][resolved.atoms.length];
+    sink.report('invalid-scan', scan.second!.span, `The scan needs ${count} different atoms.`);
     return;
   }
   const owners = (atom: number) => claimsOf(model, atom);
   if (resolved.moving && scan.moving) {
     if (!resolved.moving.includes(resolved.second)) {
-      sink.report('invalid-scan', scan.moving.span, `The moving atoms must include the second scanned atom, ${scan.second ? describeRef(scan.second) : 'the second atom'}: it is the one that moves.`);
+      sink.report('invalid-scan', scan.moving.span, `The moving atoms must include the last scanned atom, ${scan.second ? describeRef(scan.second) : 'the last atom'}: it is the one that moves.`);
       return;
     }
     if (resolved.moving.includes(resolved.first)) {
-      sink.report('invalid-scan', scan.moving.span, `The moving atoms must not include the first scanned atom, ${scan.first ? describeRef(scan.first) : 'the first atom'}: the distance is measured from it.`);
+      sink.report('invalid-scan', scan.moving.span, `The moving atoms must not include the first scanned atom, ${scan.first ? describeRef(scan.first) : 'the first atom'}: the ${coordinate} is measured from it.`);
       return;
     }
-  } else {
+  } else if (coordinate === 'distance') {
     const shared = owners(resolved.first).find((fragment) => owners(resolved.second).includes(fragment));
     if (shared !== undefined) {
       const name = model.fragments[shared]!.name;
@@ -76,66 +94,76 @@ export function checkScan(context: CheckContext): void {
       return;
     }
   }
-  const shortest = resolved.distances.reduce((least, d) => Math.min(least, d), Infinity);
-  if (resolved.distances.length > 0 && shortest < CLASH_DISTANCE) {
-    // Written in the structure's unit; said in ångström, the unit of the clash distance, and in bohr too when the spec uses it.
-    const asWritten = model.units === 'bohr' ? ` (${Number((shortest / BOHR_IN_ANGSTROM).toPrecision(6))} bohr, the structure's unit)` : '';
-    sink.report('invalid-scan', scan.from.span, `The scan reaches ${shortest.toFixed(3)} Å${asWritten}, closer than ${CLASH_DISTANCE} Å.`);
+  let moving = resolved.moving;
+  if (!moving) {
+    const side = defaultScanMoving(model, resolved);
+    if ('problem' in side) {
+      sink.report('invalid-scan', scan.statement.keyword.span, `${side.problem}: name the atoms that turn, \`moving ${scan.second ? describeRef(scan.second) : '<atom>'} …\`.`);
+      return;
+    }
+    // A distance scan without a moving clause moves the second atom's fragment; without fragments there is nothing to check across.
+    moving = coordinate === 'distance' && (model.owner[resolved.second] ?? -1) < 0 ? undefined : side.atoms;
   }
-  const moving = resolved.moving ?? movingFragment(context, resolved.second);
-  if (moving) checkPoints(context, resolved.first, resolved.second, moving, resolved.distances);
-}
-
-/** The atoms of the second atom's fragment, which move by default; undefined when no fragment holds it. */
-function movingFragment(context: CheckContext, second: number): readonly number[] | undefined {
-  const owner = context.model.owner[second] ?? -1;
-  return owner >= 0 ? context.model.fragments[owner]!.atoms : undefined;
+  let motion: ScanMotion;
+  try {
+    motion = new ScanMotion(model.coordinates, resolved);
+  } catch (error) {
+    sink.report('invalid-scan', scan.statement.keyword.span, (error as Error).message);
+    return;
+  }
+  if (coordinate === 'distance') {
+    const shortest = resolved.values.reduce((least, d) => Math.min(least, d), Infinity);
+    if (resolved.values.length > 0 && shortest < CLASH_DISTANCE) {
+      // Written in the structure's unit; said in ångström, the unit of the clash distance, and in bohr too when the spec uses it.
+      const asWritten = model.units === 'bohr' ? ` (${Number((shortest / BOHR_IN_ANGSTROM).toPrecision(6))} bohr, the structure's unit)` : '';
+      sink.report('invalid-scan', scan.from.span, `The scan reaches ${shortest.toFixed(3)} Å${asWritten}, closer than ${CLASH_DISTANCE} Å.`);
+    }
+  }
+  if (moving) checkPoints(context, resolved, motion, moving, resolved.values);
 }
 
 /** Pairs × points examined at most; beyond, only the two ends of the scan are checked. */
 const MAX_POINT_PAIRS = 20_000_000;
 
 /**
- * Each scan point as a geometry: the moving atoms translated along the line from the first atom to
- * the second. Reports the first point where a moving atom comes closer than CLASH_DISTANCE to one
- * that stays, and where a bond (d < 1.2 × the sum of covalent radii, as for the structure) forms
- * between two fragments. The moving atoms keep their distances among themselves.
+ * Each scan point as a geometry: the moving atoms carried by the scan's rigid motion. Reports the
+ * first point where a moving atom comes closer than CLASH_DISTANCE to one that stays, and where a
+ * bond (d < 1.2 × the sum of covalent radii, as for the structure) forms between two fragments.
+ * The moving atoms keep their distances among themselves.
  */
-function checkPoints(context: CheckContext, first: number, second: number, moving: readonly number[], distances: readonly number[]): void {
+function checkPoints(context: CheckContext, geometry: ScanGeometry & { first: number; second: number }, motion: ScanMotion, moving: readonly number[], values: readonly number[]): void {
   const { ast, model, sink } = context;
   const span = ast.scan!.statement.keyword.span;
   const c = model.coordinates;
-  const dx = c[3 * second]! - c[3 * first]!;
-  const dy = c[3 * second + 1]! - c[3 * first + 1]!;
-  const dz = c[3 * second + 2]! - c[3 * first + 2]!;
-  const current = Math.hypot(dx, dy, dz);
-  if (current === 0 || distances.length === 0) return;
-  const ux = dx / current;
-  const uy = dy / current;
-  const uz = dz / current;
+  if (values.length === 0) return;
+  const { first, second, coordinate } = geometry;
   const isMoving = new Uint8Array(model.atoms.length);
   for (const atom of moving) isMoving[atom] = 1;
   const staying: number[] = [];
   for (let atom = 0; atom < model.atoms.length; atom++) if (!isMoving[atom]) staying.push(atom);
   const pairs = moving.length * staying.length;
-  const points = pairs * distances.length > MAX_POINT_PAIRS ? [distances[0]!, distances[distances.length - 1]!] : distances;
+  const points = pairs * values.length > MAX_POINT_PAIRS ? [values[0]!, values[values.length - 1]!] : values;
   const radius = (atom: number) => model.atoms[atom]!.element.covalentRadius ?? 1.5;
   const name = (atom: number) => model.atoms[atom]!.label ?? `#${atom + 1}`;
   const fragmentOf = (atom: number) => model.owner[atom] ?? -1;
+  const map = new Float64Array(12);
+  const moved = new Float64Array(3);
   let clashReported = false;
   const bondsReported = new Set<string>();
-  for (const distance of points) {
-    const shift = distance - current;
+  for (const value of points) {
+    motion.transform(value, map);
+    const at = scanValueText(value, coordinate);
     for (const m of moving) {
-      const mx = c[3 * m]! + shift * ux;
-      const my = c[3 * m + 1]! + shift * uy;
-      const mz = c[3 * m + 2]! + shift * uz;
+      ScanMotion.apply(map, c, m, moved, 0);
+      const mx = moved[0]!;
+      const my = moved[1]!;
+      const mz = moved[2]!;
       for (const s of staying) {
         const d = Math.hypot(mx - c[3 * s]!, my - c[3 * s + 1]!, mz - c[3 * s + 2]!);
-        // The scanned pair itself is checked above, against the shortest distance of the range.
-        if (!clashReported && d < CLASH_DISTANCE && !(m === second && s === first)) {
+        // The scanned pair of a distance scan is checked above, against the shortest distance of the range.
+        if (!clashReported && d < CLASH_DISTANCE && !(coordinate === 'distance' && m === second && s === first)) {
           clashReported = true;
-          sink.report('invalid-scan', span, `At ${distance} the moving ${name(m)} comes within ${d.toFixed(3)} Å of ${name(s)}, closer than ${CLASH_DISTANCE} Å.`);
+          sink.report('invalid-scan', span, `At ${at} the moving ${name(m)} comes within ${d.toFixed(3)} Å of ${name(s)}, closer than ${CLASH_DISTANCE} Å.`);
         }
         const fm = fragmentOf(m);
         const fs = fragmentOf(s);
@@ -151,7 +179,7 @@ function checkPoints(context: CheckContext, first: number, second: number, movin
           sink.report(
             'scan-bond-change',
             span,
-            `At ${distance} a bond ${name(m)}–${name(s)} forms between fragments '${model.fragments[fm]!.name}' and '${model.fragments[fs]!.name}' (${d.toFixed(2)} Å, under 1.2 × the sum of covalent radii): at that point the boundary cuts a bond the structure does not have.`,
+            `At ${at} a bond ${name(m)}–${name(s)} forms between fragments '${model.fragments[fm]!.name}' and '${model.fragments[fs]!.name}' (${d.toFixed(2)} Å, under 1.2 × the sum of covalent radii): at that point the boundary cuts a bond the structure does not have.`,
           );
         }
       }

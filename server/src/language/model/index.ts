@@ -25,7 +25,7 @@ export type { AtomModel, AtomReference, BasisModel, CapModel, BasisOverrideModel
 export { BASIS_RANK, BASIS_RANK_NAMES } from './basis';
 export { fragmentCapsAt } from './caps';
 export { claimsOf } from './ownership';
-export { MAX_SCAN_POINTS, scanPointCount } from './scan';
+export { defaultScanMoving, MAX_SCAN_POINTS, scanPointCount } from './scan';
 export { SelectorResolver, type Selection } from './selectors';
 
 export function buildModel(ast: SpecAst, sink: DiagnosticSink, options: ModelOptions): SpecModel {

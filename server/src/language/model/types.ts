@@ -6,6 +6,7 @@ import type { OrbitalSpace } from '../../chemistry/counting';
 import type { Element } from '../../chemistry/elements';
 import type { ContactAnalysis } from '../../chemistry/geometry';
 import type { Mapping } from '../../chemistry/qubits';
+import type { ScanCoordinate } from '../../chemistry/scan';
 import type { LengthUnit } from '../../chemistry/units';
 import type { BasisOverrideAst, FragmentAst, TierAst } from '../ast';
 import type { FileHost } from '../files';
@@ -125,10 +126,16 @@ export interface BasisModel {
 }
 
 export interface ScanModel {
+  /** What is scanned: a distance, a bond angle or a dihedral. */
+  readonly coordinate: ScanCoordinate;
+  /** The named atoms in order: 2 for a distance, 3 for an angle (vertex in the middle), 4 for a dihedral. */
+  readonly atoms: readonly number[];
+  /** The first named atom (the one the coordinate is measured from). */
   readonly first: number;
+  /** The last named atom: the one that moves. */
   readonly second: number;
-  /** Distances in ångström, one per point. */
-  readonly distances: number[];
+  /** One value per point: ångström for a distance, degrees for an angle or dihedral. */
+  readonly values: number[];
   /** The atoms `moving` names (sorted, unique), when the spec gives them. */
   readonly moving?: readonly number[];
 }

@@ -7,7 +7,12 @@
  *
  *   { format: "tessera-qcschema-export", format_version: 1, spec,
  *     system: <molecule>, fragments: [<molecule>, ...],
- *     scan: null | { first_atom, second_atom, moving_atoms, distances_angstrom, molecules: [<molecule>, ...] } }
+ *     scan: null | { coordinate, atoms, first_atom, second_atom, moving_atoms, values, unit,
+ *                    distances_angstrom (distance scans only), molecules: [<molecule>, ...] } }
+ *
+ * `coordinate` is "distance", "angle" or "dihedral"; `atoms` the named atoms in order (the vertex in
+ * the middle of an angle), `second_atom` the last of them (the one that moves); `values` one per
+ * point, in `unit` ("angstrom" for a distance, "degree" for an angle or dihedral).
  *
  * Atom order: QCSchema lists the atoms of each fragment contiguously, fragments in order (the
  * reference implementation, QCElemental, refuses fragments it would have to reorder), so the
@@ -23,7 +28,7 @@
  * atoms, with the label `cap`; `extras.tessera.caps` says which bond each one caps (`spec_atom_numbers`
  * covers the fragment's own atoms only). The system and scan-point molecules carry no caps.
  */
-import { eachScanFrame } from '../../chemistry/scan';
+import { eachScanFrame, SCAN_UNITS, type ScanCoordinate } from '../../chemistry/scan';
 import { safeJsonStringify } from '../../language/printable';
 import { BOHR_IN_ANGSTROM } from '../../chemistry/units';
 import { elementBySymbol } from '../../chemistry/elements';
@@ -75,7 +80,7 @@ export interface TesseraExtras {
   fragment?: string;
   fragment_index?: number;
   tier?: TierExtras | null;
-  scan_point?: { point: number; points: number; distance_angstrom: number };
+  scan_point?: ScanPointExtras;
   /** The fragment's hydrogen caps, after its atoms: the bond each caps (spec numbers `#n`), rule, X–H length. */
   caps?: CapExtras[];
 }
@@ -123,10 +128,14 @@ export interface QcSchemaExport {
   system: QcMolecule;
   fragments: QcMolecule[];
   scan: {
+    coordinate: ScanCoordinate;
+    atoms: number[];
     first_atom: number;
     second_atom: number;
     moving_atoms: number[];
-    distances_angstrom: number[];
+    values: number[];
+    unit: 'angstrom' | 'degree';
+    distances_angstrom?: number[];
     molecules: QcMolecule[];
   } | null;
 }
@@ -169,6 +178,21 @@ export function qcAtomOrder(data: StructureData, fragmentAtoms: readonly (readon
 
 function toBohr(value: number): number {
   return value / BOHR_IN_ANGSTROM;
+}
+
+/** A scan point as the exports describe it: its number, the coordinate's value and unit (and the distance under its old key). */
+export interface ScanPointExtras {
+  point: number;
+  points: number;
+  coordinate: ScanCoordinate;
+  value: number;
+  unit: 'angstrom' | 'degree';
+  /** Distance scans only. */
+  distance_angstrom?: number;
+}
+
+export function scanPointExtras(point: number, points: number, coordinate: ScanCoordinate, value: number): ScanPointExtras {
+  return { point, points, coordinate, value, unit: SCAN_UNITS[coordinate], ...(coordinate === 'distance' ? { distance_angstrom: value } : {}) };
 }
 
 /** Builds the export. The spec should be free of errors: the CLI refuses to export one that is not. */
@@ -248,20 +272,25 @@ export function qcSchemaExportParts(analysis: DocumentAnalysis, data: StructureD
   let scan: QcSchemaExport['scan'] = null;
   let scanMolecules: Iterable<QcMolecule> = [];
   if (data.scan) {
-    const frames = eachScanFrame(coordinates, data.scan.first, data.scan.second, data.scan.moving, data.scan.distances);
-    const points = data.scan.distances.length;
+    const { coordinate, values } = data.scan;
+    const frames = eachScanFrame(coordinates, data.scan, data.scan.moving, values);
+    const points = values.length;
     scan = {
+      coordinate,
+      atoms: data.scan.atoms.map((atom) => position[atom]!),
       first_atom: position[data.scan.first]!,
       second_atom: position[data.scan.second]!,
       moving_atoms: data.scan.moving.map((atom) => position[atom]!).sort((a, b) => a - b),
-      distances_angstrom: [...data.scan.distances],
+      values: [...values],
+      unit: SCAN_UNITS[coordinate],
+      ...(coordinate === 'distance' ? { distances_angstrom: [...values] } : {}),
       molecules: [],
     };
     scanMolecules = (function* molecules(): Generator<QcMolecule> {
       let k = 0;
       for (const frame of frames) {
         k++;
-        yield systemMolecule(`${options.title}/scan-${k}`, frame.coordinates, { scan_point: { point: k, points, distance_angstrom: frame.distance } }, 'scan-point');
+        yield systemMolecule(`${options.title}/scan-${k}`, frame.coordinates, { scan_point: scanPointExtras(k, points, coordinate, frame.value) }, 'scan-point');
       }
     })();
   }

@@ -7,7 +7,7 @@
  * Layout of the exported document (stable; `format_version` changes when it does):
  *
  *   { format: "tessera-qcschema-input-export", format_version: 1, spec,
- *     manifest: [{ record, id, fragment, fragment_index, scan_point, distance_angstrom, driver, method, basis, caps }, ...],
+ *     manifest: [{ record, id, fragment, fragment_index, scan_point, scan_value, scan_unit, distance_angstrom, driver, method, basis, caps }, ...],
  *     skipped: [{ fragment, reason }, ...],
  *     records: [<qcschema_input>, ...] }
  *
@@ -34,7 +34,7 @@ import { basisFigures, type DocumentAnalysis } from '../../analysis';
 import { fragmentCapsAt, type CapModel, type FragmentModel } from '../../language/model';
 import { loadBasisSetData, type ElementBasisData } from '../../electronic/basis/data';
 import type { StructureData } from '../structure';
-import { fragmentMolecule, tierExtras, type FragmentMoleculeContext, type QcMolecule, type QcProvenance, type TierExtras } from './qcschema';
+import { fragmentMolecule, scanPointExtras, tierExtras, type FragmentMoleculeContext, type QcMolecule, type QcProvenance, type ScanPointExtras, type TierExtras } from './qcschema';
 import { coordinatesOf } from './xyz';
 
 export const QCSCHEMA_INPUT_EXPORT_FORMAT = 'tessera-qcschema-input-export';
@@ -77,7 +77,7 @@ export interface InputExtras {
   tier: TierExtras;
   embedding: string;
   caps: number;
-  scan_point: { point: number; points: number; distance_angstrom: number } | null;
+  scan_point: ScanPointExtras | null;
   /** The basis of each atom of the molecule, in its order (caps last). */
   atom_basis: (string | null)[];
 }
@@ -100,6 +100,10 @@ export interface ManifestEntry {
   fragment: string;
   fragment_index: number;
   scan_point: number | null;
+  /** The scanned coordinate's value at this point, in `scan_unit` (ångström or degrees). */
+  scan_value: number | null;
+  scan_unit: 'angstrom' | 'degree' | null;
+  /** Distance scans only (null otherwise). */
   distance_angstrom: number | null;
   driver: 'energy';
   method: string;
@@ -208,9 +212,10 @@ export function buildQcInputExport(analysis: DocumentAnalysis, data: StructureDa
   const provenance: QcProvenance = { creator: 'Tessera', version: options.version, routine: 'tessera export --to qcschema-input' };
   const context: FragmentMoleculeContext = { analysis, data, title: options.title, provenance, basis: { name: named.name, overrides: named.overrides.map((line) => ({ ...line })), functions: named.functions } };
   const coordinates = coordinatesOf(data);
-  const frames = data.scan ? scanFrames(coordinates, data.scan.first, data.scan.second, data.scan.moving, data.scan.distances) : [];
+  const scan = data.scan;
+  const frames = scan ? scanFrames(coordinates, scan, scan.moving, scan.values) : [];
   const points: { coordinates: Float64Array; point: InputExtras['scan_point'] }[] =
-    frames.length > 0 ? frames.map((frame, k) => ({ coordinates: frame.coordinates, point: { point: k + 1, points: frames.length, distance_angstrom: frame.distance } })) : [{ coordinates, point: null }];
+    scan && frames.length > 0 ? frames.map((frame, k) => ({ coordinates: frame.coordinates, point: scanPointExtras(k + 1, frames.length, scan.coordinate, frame.value) })) : [{ coordinates, point: null }];
 
   const records: QcInputRecord[] = [];
   const manifest: ManifestEntry[] = [];
@@ -255,6 +260,8 @@ export function buildQcInputExport(analysis: DocumentAnalysis, data: StructureDa
         fragment: fragment.name,
         fragment_index: index,
         scan_point: point?.point ?? null,
+        scan_value: point?.value ?? null,
+        scan_unit: point?.unit ?? null,
         distance_angstrom: point?.distance_angstrom ?? null,
         driver: 'energy',
         method,

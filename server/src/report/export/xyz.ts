@@ -1,7 +1,8 @@
 /**
  * The geometry of a spec as plain XYZ text (ångström): one frame, or one frame per scan point with
  * the moving atoms shifted as the scan says. XYZ has no labels, so each line keeps only the element
- * symbol. The comment line of each frame names the spec and, for a scan, the point and the distance.
+ * symbol. The comment line of each frame names the spec and, for a scan, the point and the scanned
+ * coordinate's value (a distance in angstrom, an angle or dihedral in degrees).
  */
 import { plainText } from '../format/escape';
 import { eachScanFrame } from '../../chemistry/scan';
@@ -21,8 +22,8 @@ export interface XyzFrame {
   readonly comment: string;
   /** x, y, z of every atom in ångström, in the spec's atom order. */
   readonly coordinates: Float64Array;
-  /** The scanned distance in ångström, or null for a spec without a scan. */
-  readonly distance: number | null;
+  /** The scanned value (ångström for a distance, degrees for an angle or dihedral), or null for a spec without a scan. */
+  readonly value: number | null;
 }
 
 /** One line of text: XYZ comment lines cannot hold a line break. */
@@ -66,19 +67,19 @@ export function eachXyzFrame(data: StructureData, options: XyzExportOptions): It
   const coordinates = coordinatesOf(data);
   const scan = data.scan;
   if (!scan) {
-    return [{ comment: `${title}; coordinates in angstrom; exported by Tessera ${options.version}`, coordinates, distance: null }];
+    return [{ comment: `${title}; coordinates in angstrom; exported by Tessera ${options.version}`, coordinates, value: null }];
   }
-  const first = atomName(data.atoms[scan.first]!);
-  const second = atomName(data.atoms[scan.second]!);
-  const points = scan.distances.length;
-  const frames = eachScanFrame(coordinates, scan.first, scan.second, scan.moving, scan.distances);
+  const atomNames = scan.atoms.map((atom) => atomName(data.atoms[atom]!)).join('-');
+  const points = scan.values.length;
+  const frames = eachScanFrame(coordinates, scan, scan.moving, scan.values);
+  const value = (v: number) => (scan.coordinate === 'distance' ? `${v.toFixed(6)} angstrom` : `${v.toFixed(6)} degree`);
   return (function* named(): Generator<XyzFrame> {
     let k = 0;
     for (const frame of frames) {
       yield {
-        comment: `${title}; scan point ${++k} of ${points}; distance ${first}-${second} ${frame.distance.toFixed(6)} angstrom; exported by Tessera ${options.version}`,
+        comment: `${title}; scan point ${++k} of ${points}; ${scan.coordinate} ${atomNames} ${value(frame.value)}; exported by Tessera ${options.version}`,
         coordinates: frame.coordinates,
-        distance: frame.distance,
+        value: frame.value,
       };
     }
   })();

@@ -197,12 +197,14 @@ export function headerLines(report: EstimateReport): string[] {
   }
   if (system.nearSymmetry) lines.push(`near symmetry: ${system.nearSymmetry.group} within ${system.nearSymmetry.within.toFixed(3)} Å`);
   if (report.scan) {
-    const first = report.scan.distances[0];
-    const last = report.scan.distances[report.scan.distances.length - 1];
+    const values = report.scan.values;
+    const unit = report.scan.coordinate === 'distance' ? ' Å' : '°';
+    const first = values[0];
+    const last = values[values.length - 1];
     const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${first!.toFixed(3)} to ${last!.toFixed(3)} Å: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(totals.measurementCircuitsPerPoint)} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
+        ? `scan ${report.scan.points} points, ${report.scan.coordinate === 'distance' ? '' : `${report.scan.coordinate} `}${first!.toFixed(3)} to ${last!.toFixed(3)}${unit}: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(totals.measurementCircuitsPerPoint)} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
         : 'scan: no valid points',
     );
   }

@@ -153,14 +153,16 @@ export function figuresTable(report: EstimateReport): Table {
 export function scanTable(report: EstimateReport): Table | null {
   const scan = report.scan;
   if (!scan) return null;
-  const distances = scan.distances.map((distance) => distance.toFixed(3)).join(', ');
+  const values = scan.values.map((value) => value.toFixed(3)).join(', ');
+  const valuesRow = scan.coordinate === 'distance' ? ['distances (Å)', 'scan.distances', values || '–'] : [`${scan.coordinate}s (°)`, 'scan.values', values || '–'];
   return {
     title: 'Scan totals',
     headers: ['figure', 'key', 'value'],
     numeric: [false, false, true],
     rows: [
       ['points', 'scan.points', String(scan.points)],
-      ['distances (Å)', 'scan.distances', distances || '–'],
+      ['coordinate', 'scan.coordinate', scan.coordinate],
+      valuesRow,
       ['fragment calculations over the scan', 'scan.totals.fragmentCalculations', String(scan.totals.fragmentCalculations)],
       ['measurement circuits per energy evaluation, at each point (the same at every point)', 'scan.totals.measurementCircuitsPerPoint', countText(scan.totals.measurementCircuitsPerPoint)],
       ['most qubits at any point', 'scan.totals.peakQubits', figureText(scan.totals.peakQubits) || '–'],
