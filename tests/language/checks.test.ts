@@ -344,6 +344,14 @@ const CASES: { readonly [C in DiagnosticCode]: Case } = {
     nearMiss: water(ONE_FRAGMENT),
     message: [/^The geometry is C2v within 0\.0\d\d Å, but Cs at the 0\.01 Å tolerance/],
   },
+  'scan-symmetry-change': {
+    // Water's O–h2 stretched alone: the two O–H differ (Cs) except where O–h2 equals O–h1, 0.9572 Å
+    // (C2v); bending h2 keeps both O–H equal, an isosceles triangle, C2v throughout (by definition
+    // of the groups).
+    trigger: water(`${ONE_FRAGMENT}\n⟦scan⟧ distance o h2 from 0.9172 to 1.0572 step 0.02 moving h2`),
+    nearMiss: water(`${ONE_FRAGMENT}\nscan angle h1 o h2 from 100 to 110 step 5`),
+    message: [/^The point group changes along the scan: Cs from 0\.9172 Å to 0\.9372 Å \(2 points\); C2v at 0\.9572 Å; Cs from 0\.9772 Å to 1\.0572 Å \(5 points\)\./],
+  },
   'active-space-invalid': {
     trigger: water('fragment w { atoms rest; tier quantum { ⟦active 6e 2o⟧ } }'),
     nearMiss: water('fragment w { atoms rest; tier quantum { active 4e 2o } }'),

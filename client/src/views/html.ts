@@ -169,7 +169,7 @@ function structureBody(): string {
       <li id="mark-unassigned"><span class="swatch"><span class="dot" id="unassigned-dot"></span></span><span>in no fragment</span></li>
       <li id="mark-cut"><span class="swatch dash"></span><span>bond cut by a fragment boundary</span></li>
       <li id="mark-cap"><span class="swatch"><span class="dot cap"></span></span><span>hydrogen cap on a cut bond, in its fragment's colour</span></li>
-      <li id="mark-scan"><span class="swatch arrow"></span><span>scanned distance</span></li>
+      <li id="mark-scan"><span class="swatch arrow"></span><span>scanned coordinate (first to last atom)</span></li>
     </ul>
     <p id="scan-detail" hidden></p>
   </aside>

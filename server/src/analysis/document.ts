@@ -22,7 +22,9 @@ import { checkActiveIrreps } from './checks/activeIrreps';
 import type { EstimateCheck } from './checks/context';
 import { checkLimits } from './checks/limits';
 import { checkNearSymmetry } from './checks/nearSymmetry';
+import { checkScanSymmetry } from './checks/scanSymmetry';
 import { Estimates } from './estimates';
+import { scanSymmetryOf, type ScanSymmetry } from './scanSymmetry';
 import { fragmentFigures } from './figures/fragment';
 import { activeSpaceGrowth, GROWTH_MAX_ORBITALS, type GrowthPoint } from './figures/growth';
 import { assembleReport } from './figures/report';
@@ -36,7 +38,7 @@ import type { PlanEstimate } from '../chemistry/estimate/plan';
 import type { PartRef } from './inputKey';
 
 /** The checks that read the estimates, after the language checks. */
-export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkImpurityActiveSpaces, checkLimits];
+export const ESTIMATE_CHECKS: readonly EstimateCheck[] = [checkNearSymmetry, checkActiveIrreps, checkImpurityActiveSpaces, checkLimits, checkScanSymmetry];
 
 /** The language options, and the settings of computations that the text does not hold. */
 export interface AnalysisOptions extends AnalyzeOptions {
@@ -177,6 +179,7 @@ export class DocumentAnalysis {
         system: this.systemFigures(),
         fragments: this.model.fragments.map((fragment) => this.fragmentFigures(fragment.index)),
         diagnostics: this.counts(),
+        scanSymmetry: this.scanSymmetry(),
       });
       this.whole = { report, outcomes };
     }
@@ -244,6 +247,11 @@ export class DocumentAnalysis {
     const chosen = tier.activeChoice?.kind === 'shells' || tier.activeChoice?.kind === 'natural' || (tier.activeIrreps?.length ?? 0) > 0;
     const window = { electrons: plan.active.electrons, orbitals: plan.active.orbitals };
     return chosen ? { kind: 'selection', window } : { kind: 'window', ...window };
+  }
+
+  /** The point group at every scan point and the figures that depend on it; undefined without a scan that resolves. */
+  scanSymmetry(): ScanSymmetry | undefined {
+    return scanSymmetryOf(this.estimates);
   }
 
   /**

@@ -61,7 +61,11 @@ export class Estimates {
   private readonly plans = new Map<number, PlanEstimate | undefined>();
   private systemCountsCache: SystemCounts | undefined;
 
-  constructor(readonly model: SpecModel) {}
+  /** `nearSymmetry: false` skips the near-symmetry search of the system (scan points need only the exact group). */
+  constructor(
+    readonly model: SpecModel,
+    private readonly options: { readonly nearSymmetry?: boolean } = {},
+  ) {}
 
   /** Whether an atom set of this size gets a point group (see SYMMETRY_ATOM_LIMIT). */
   static symmetryApplies(atoms: number): boolean {
@@ -72,7 +76,7 @@ export class Estimates {
   systemSymmetry(): OrbitalSymmetry | undefined {
     if (this.systemSymmetryCache === null) {
       const atoms = this.model.atoms.map((atom) => atom.index);
-      this.systemSymmetryCache = this.symmetryOf(atoms, this.model.frozenCore, true);
+      this.systemSymmetryCache = this.symmetryOf(atoms, this.model.frozenCore, this.options.nearSymmetry !== false);
     }
     return this.systemSymmetryCache;
   }

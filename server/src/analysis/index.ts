@@ -46,7 +46,7 @@ export {
 export { computeCost, costText, DEFAULT_MEMORY_LIMIT_BYTES, formatDuration, formatMemory, type ComputeCost } from './computeCost';
 export { LateResults, type LateResult, type LateResultChange } from './late';
 export { CONVENTIONS, PLANNING_NOTE, SYSTEM_QUBITS_SCOPE } from './figures/types';
-export type { BigFigure, CapFigures, Count, EstimateReport, FragmentFigures, PauliFigures, ScanFigures, ScanTotals, SolverCostFigures, SpaceFigures, SystemFigures } from './figures/types';
+export type { BigFigure, CapFigures, Count, EstimateReport, FragmentFigures, PauliFigures, ScanFigures, ScanSymmetryFigures, ScanTotals, SolverCostFigures, SpaceFigures, SystemFigures } from './figures/types';
 export { TIER_SECTIONS, type FigureSection } from './figures/fragment';
 export { GROWTH_MAX_ORBITALS, type GrowthPoint } from './figures/growth';
 export { AnalysisHost, type AnalysisSettings, type DocumentSource, type OpenDocument } from './host';

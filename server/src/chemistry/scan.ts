@@ -254,3 +254,9 @@ export function bondedSide(atomCount: number, bonds: readonly { i: number; j: nu
   }
   return group.sort((a, b) => a - b);
 }
+
+/** A scanned value with its unit, to six decimals at most: `0.9572 Å`, `104.5°`. */
+export function formatScanValue(value: number, coordinate: ScanCoordinate): string {
+  const text = Number(value.toFixed(6)).toString();
+  return coordinate === 'distance' ? `${text} Å` : `${text}°`;
+}

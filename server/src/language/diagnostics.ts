@@ -67,6 +67,7 @@ export const DIAGNOSTIC_CODES = {
   'units-suspect': { severity: 'warning', title: 'Distances that look typed in the other length unit' },
   'bond-cut': { severity: 'warning', title: 'Covalent bonds cut by a fragment boundary' },
   'near-symmetry': { severity: 'information', title: 'A geometry a small distance away from a higher point group' },
+  'scan-symmetry-change': { severity: 'information', title: 'A scan along which the point group (and the figures counted in it) changes' },
   // Basis
   'missing-basis': { severity: 'error', title: 'No basis set chosen' },
   'basis-missing-element': { severity: 'error', title: 'An element the chosen basis does not define' },

@@ -172,6 +172,16 @@ const SCAN_AXIS_LABELS: Readonly<Record<ScanCoordinate, string>> = {
   dihedral: 'scanned dihedral (degrees), in scan order',
 };
 
+/** A point's tooltip: its value, its point group and the qubits each quantum fragment needs there. */
+function pointTitle(scan: NonNullable<EstimateReport['scan']>, k: number): string {
+  const value = scan.values[k]!;
+  const text = scan.coordinate === 'distance' ? `${Number(value.toFixed(6))} Å` : `${Number(value.toFixed(6))}°`;
+  const point = scan.symmetry.points[k];
+  if (!point) return `point ${k + 1}: ${text}`;
+  const qubits = point.fragments.filter((fragment) => fragment.qubitsRequired !== null).map((fragment) => `${fragment.fragment} ${fragment.qubitsRequired} qubits`);
+  return `point ${k + 1}: ${text}, ${point.fullPointGroup ?? 'C1'}${qubits.length > 0 ? `; needs ${qubits.join(', ')}` : ''}`;
+}
+
 /** Cumulative measurement circuits along the scan, one point per scanned value. */
 export function scanChartSvg(report: EstimateReport): string {
   const title = 'Cumulative cost along the scan (planning estimate)';
@@ -197,7 +207,7 @@ export function scanChartSvg(report: EstimateReport): string {
     xAxisLabel(f, SCAN_AXIS_LABELS[scan.coordinate]),
     xTicks(f, values.filter((_, k) => k % step === 0), toX, scan.coordinate === 'distance' ? (d) => d.toFixed(2) : (d) => `${d.toFixed(1)}°`),
     polyline(cumulative, SERIES_COLOURS[0]!),
-    ...cumulative.map(([x, y]) => `<circle cx="${x.toFixed(1)}" cy="${y.toFixed(1)}" r="3" fill="${SERIES_COLOURS[0]}"/>`),
+    ...cumulative.map(([x, y], k) => `<circle cx="${x.toFixed(1)}" cy="${y.toFixed(1)}" r="3" fill="${SERIES_COLOURS[0]}"><title>${escapeHtml(pointTitle(scan, k))}</title></circle>`),
     `<text x="${f.x0 + 8}" y="${f.y1 + 4}" ${FONT} font-size="11" fill="#333333">per point: ${perPointCalculations} fragment calculations, ${perPointCircuits} measurement circuits per energy evaluation; ${scan.points} points</text>`,
     '</svg>',
   ].join('');

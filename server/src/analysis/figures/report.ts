@@ -4,13 +4,32 @@ import { describeTarget } from '../../language/ast';
 import type { Analysis } from '../../language/analyze';
 import { approximateCount, countValue } from './space';
 import { SCAN_UNITS } from '../../chemistry/scan';
-import { CONVENTIONS, PLANNING_NOTE, type BasisOverrideFigure, type EstimateReport, type FragmentFigures, type ScanTotals, type SystemFigures } from './types';
+import { CONVENTIONS, PLANNING_NOTE, type BasisOverrideFigure, type EstimateReport, type FragmentFigures, type ScanSymmetryFigures, type ScanTotals, type SystemFigures } from './types';
+import type { ScanSymmetry } from '../scanSymmetry';
 
 export interface ReportParts {
   readonly analysis: Pick<Analysis, 'ast' | 'model' | 'path'>;
   readonly system: SystemFigures;
   readonly fragments: readonly FragmentFigures[];
   readonly diagnostics: { errors: number; warnings: number };
+  /** Per-point symmetry of the scan, when it has one that resolves. */
+  readonly scanSymmetry?: ScanSymmetry | undefined;
+}
+
+function scanSymmetryFigures(symmetry: ScanSymmetry | undefined): ScanSymmetryFigures {
+  if (!symmetry) return { notLookedFor: 'the scan does not resolve', groupChanges: false, figuresChange: false, points: [] };
+  return {
+    notLookedFor: symmetry.notLookedFor,
+    groupChanges: symmetry.groupChanges,
+    figuresChange: symmetry.figuresChange,
+    points: symmetry.points.map((point) => ({ value: point.value, fullPointGroup: point.fullPointGroup, pointGroup: point.pointGroup, fragments: point.fragments.map((fragment) => ({ ...fragment })) })),
+  };
+}
+
+/** The most qubits any point needs, each in its own group; the structure's figure when the points were not looked at. */
+function peakOverPoints(totals: ScanTotals, symmetry: ScanSymmetryFigures): ScanTotals {
+  const perPoint = symmetry.points.flatMap((point) => point.fragments.map((fragment) => fragment.qubitsRequired)).filter((value): value is number => value !== null);
+  return perPoint.length > 0 ? { ...totals, peakQubits: perPoint.reduce((most, q) => Math.max(most, q), -Infinity) } : totals;
 }
 
 export function scanTotals(points: number, fragments: readonly FragmentFigures[]): ScanTotals {
@@ -52,7 +71,8 @@ export function assembleReport(parts: ReportParts): EstimateReport {
           points: model.scan.values.length,
           values: model.scan.values,
           ...(model.scan.coordinate === 'distance' ? { distances: model.scan.values } : {}),
-          totals: scanTotals(model.scan.values.length, fragments),
+          totals: peakOverPoints(scanTotals(model.scan.values.length, fragments), scanSymmetryFigures(parts.scanSymmetry)),
+          symmetry: scanSymmetryFigures(parts.scanSymmetry),
         }
       : null,
     limits: {

@@ -226,6 +226,24 @@ export interface ScanFigures {
   values: number[];
   distances?: number[];
   totals: ScanTotals;
+  /** The point group at every point and the figures that depend on it (analysis/scanSymmetry.ts). */
+  symmetry: ScanSymmetryFigures;
+}
+
+/** Per-point symmetry of a scan: each point's groups and, for quantum tiers, tapered qubits and qubits needed in that point's group. */
+export interface ScanSymmetryFigures {
+  /** Null when every point was looked at; else why not (then `points` is empty and the structure's figures hold). */
+  notLookedFor: string | null;
+  /** Whether the system's full point group changes along the scan. */
+  groupChanges: boolean;
+  /** Whether a fragment's counted group, tapered qubits or qubits needed change along the scan. */
+  figuresChange: boolean;
+  points: {
+    value: number;
+    fullPointGroup: string | null;
+    pointGroup: string | null;
+    fragments: { fragment: string; pointGroup: string | null; taperedQubits: number | null; qubitsRequired: number | null }[];
+  }[];
 }
 
 /** Costs along a scan: each point repeats every fragment's calculation. */
@@ -236,7 +254,7 @@ export interface ScanTotals {
   measurementCircuits: Count;
   /** Measurement groups summed over quantum fragments: circuits per energy evaluation at each point (counted at the structure's geometry, the same at every point). */
   measurementCircuitsPerPoint: Count;
-  /** The largest qubit count any point needs (the same at every point). */
+  /** The largest qubit count any point needs, each point counted in its own point group when the points were looked at. */
   peakQubits: number | null;
 }
 

@@ -2,6 +2,7 @@
 import { formatRate } from '../../chemistry/cost/format';
 import { approximateCount, countText, countValue, SYMMETRY_ATOM_LIMIT, type Count, type EstimateReport, type FragmentFigures, type SpaceFigures } from '../../analysis';
 import type { Table } from './table';
+import { scanSymmetryText } from './figures';
 
 const dash = '–';
 
@@ -207,6 +208,7 @@ export function headerLines(report: EstimateReport): string[] {
         ? `scan ${report.scan.points} points, ${report.scan.coordinate === 'distance' ? '' : `${report.scan.coordinate} `}${first!.toFixed(3)} to ${last!.toFixed(3)}${unit}: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(totals.measurementCircuitsPerPoint)} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
         : 'scan: no valid points',
     );
+    if (report.scan.points > 0) lines.push(`scan point groups: ${scanSymmetryText(report.scan)}`);
   }
   return lines;
 }

@@ -149,6 +149,32 @@ export function figuresTable(report: EstimateReport): Table {
   };
 }
 
+/**
+ * The point groups along a scan as text: runs of consecutive points that agree, each with its group
+ * and the qubits each quantum fragment needs there (`Cs at 0.9372 Å: w 11; C2v at 0.9572 Å: w 10`).
+ */
+export function scanSymmetryText(scan: NonNullable<EstimateReport['scan']>): string {
+  const symmetry = scan.symmetry;
+  if (symmetry.notLookedFor) return `not looked for: ${symmetry.notLookedFor}`;
+  const unit = scan.coordinate === 'distance' ? ' Å' : '°';
+  const value = (v: number) => `${Number(v.toFixed(6))}${unit}`;
+  const runs: { first: number; last: number; key: string }[] = [];
+  symmetry.points.forEach((point, index) => {
+    const key = JSON.stringify([point.fullPointGroup, point.fragments]);
+    const last = runs[runs.length - 1];
+    if (last && last.key === key) last.last = index;
+    else runs.push({ first: index, last: index, key });
+  });
+  return runs
+    .map((run) => {
+      const point = symmetry.points[run.first]!;
+      const where = run.first === run.last ? `at ${value(point.value)}` : `${value(point.value)} to ${value(symmetry.points[run.last]!.value)}`;
+      const qubits = point.fragments.filter((fragment) => fragment.qubitsRequired !== null).map((fragment) => `${fragment.fragment} ${fragment.qubitsRequired}`);
+      return `${point.fullPointGroup ?? 'C1'} ${where}${qubits.length > 0 ? `: qubits needed ${qubits.join(', ')}` : ''}`;
+    })
+    .join('; ');
+}
+
 /** The scan: its points and what the whole scan costs; null without a scan. */
 export function scanTable(report: EstimateReport): Table | null {
   const scan = report.scan;
@@ -165,7 +191,8 @@ export function scanTable(report: EstimateReport): Table | null {
       valuesRow,
       ['fragment calculations over the scan', 'scan.totals.fragmentCalculations', String(scan.totals.fragmentCalculations)],
       ['measurement circuits per energy evaluation, at each point (the same at every point)', 'scan.totals.measurementCircuitsPerPoint', countText(scan.totals.measurementCircuitsPerPoint)],
-      ['most qubits at any point', 'scan.totals.peakQubits', figureText(scan.totals.peakQubits) || '–'],
+      ['most qubits at any point (each point in its own point group)', 'scan.totals.peakQubits', figureText(scan.totals.peakQubits) || '–'],
+      ['point group and qubits needed along the scan', 'scan.symmetry.points', scanSymmetryText(scan) || '–'],
     ],
   };
 }
