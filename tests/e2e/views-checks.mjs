@@ -260,9 +260,9 @@ export async function runViewChecks({ root, runDir, shots, toolsDir, webviewDir,
       const expected = structure.fragments.map((f) => ({ name: f.name, cost: f.cost, chip: rgb(f.colour) }));
       if (JSON.stringify(items) !== JSON.stringify(expected)) throw new Error(`key shows ${JSON.stringify(items)}, expected ${JSON.stringify(expected)}`);
       const scanText = await page.locator('#scan-detail').innerText();
-      const low = Math.min(...structure.scan.distances).toFixed(2);
-      const high = Math.max(...structure.scan.distances).toFixed(2);
-      if (!scanText.includes(`${low}–${high} Å`) || !scanText.includes(`${structure.scan.distances.length} points`)) throw new Error(`scan line reads '${scanText}'`);
+      const low = Math.min(...structure.scan.values).toFixed(2);
+      const high = Math.max(...structure.scan.values).toFixed(2);
+      if (!scanText.includes(`${low}–${high} Å`) || !scanText.includes(`${structure.scan.values.length} points`)) throw new Error(`scan line reads '${scanText}'`);
       const note = await page.locator('#note').innerText();
       if (!/planning estimates/i.test(note)) throw new Error(`no planning-estimate note: '${note}'`);
       await cleanPage();
