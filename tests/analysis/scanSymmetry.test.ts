@@ -25,6 +25,17 @@ structure {
 fragment w { atoms rest; tier quantum { method vqe; mapping jordan-wigner; taper on } }
 `;
 
+/** H2O2 (gas phase, from memory: O–O 1.475 Å, O–H 0.950 Å, O–O–H 94.8°, H–O–O–H 111.5°), six decimals. */
+const PEROXIDE = `basis sto-3g
+structure {
+  H h1 0.946668 0.000000 -0.079494
+  O o1 0.000000 0.000000 0.000000
+  O o2 0.000000 0.000000 1.475000
+  H h2 -0.346955 0.880797 1.554494
+}
+fragment p { atoms rest; tier quantum { method vqe; mapping jordan-wigner; taper on } }
+`;
+
 describe('per-point symmetry of a scan', () => {
   it('keeps C2v at every point of a bend (both O–H stay equal, by definition) and 10 qubits needed (Bravyi et al. 2017)', () => {
     const analysis = analyzeDocument(`${WATER}scan angle h1 o h2 from 100 to 120 step 5\n`);
@@ -51,6 +62,15 @@ describe('per-point symmetry of a scan', () => {
     const note = analysis.diagnostics.find((d) => d.code === 'scan-symmetry-change')!;
     expect(note.message).toContain("tapering follows it: fragment 'w' needs 11 in Cs, then 10 in C2v, then 11 in Cs");
     expect(scanSymmetryText(report.scan!)).toBe('Cs at 0.9372 Å: qubits needed w 11; C2v at 0.9572 Å: qubits needed w 10; Cs at 0.9772 Å: qubits needed w 11');
+  });
+
+  it('turns H2O2 through cis (C2v), skew (C2) and trans (C2h), textbook groups (from memory), and tapers 20 spin orbitals to 16, 17, 16 qubits (Bravyi et al. 2017)', () => {
+    // STO-3G H2O2: 12 orbitals, the two O 1s frozen by default (common practice): 10 orbitals,
+    // 20 spin orbitals; the order-4 groups remove 2 qubits and C2 1, besides the two parities.
+    const analysis = analyzeDocument(`${PEROXIDE}scan dihedral h1 o1 o2 h2 from 0 to 180 step 45\n`);
+    const points = analysis.report().scan!.symmetry.points;
+    expect(points.map((point) => point.fullPointGroup)).toEqual(['C2v', 'C2', 'C2', 'C2', 'C2h']);
+    expect(points.map((point) => point.fragments[0]!.qubitsRequired)).toEqual([16, 17, 17, 17, 16]);
   });
 
   it('names each point\'s group and qubits in the scan chart\'s tooltips, which the view accepts (by construction of the scan above)', () => {
