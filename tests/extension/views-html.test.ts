@@ -145,8 +145,8 @@ describe('the pages', () => {
     const structure = page('structure');
     for (const id of ['viewer', 'fragments', 'labels', 'fit', 'status', 'scan-detail', 'mark-cut', 'mark-scan', 'mark-unassigned', 'unassigned-dot', 'title']) expect(structure).toContain(`id="${id}"`);
     const costs = page('costs');
-    for (const id of ['plot-qubits', 'plot-growth', 'plot-scan', 'fragment', 'message', 'plots', 'title']) expect(costs).toContain(`id="${id}"`);
-    expect(costs.match(/data-export="(svg|png)"/g)).toHaveLength(6);
+    for (const id of ['plot-qubits', 'plot-growth', 'plot-shots', 'plot-scan', 'fragment', 'message', 'plots', 'title']) expect(costs).toContain(`id="${id}"`);
+    expect(costs.match(/data-export="(svg|png)"/g)).toHaveLength(8);
   });
 });
 

@@ -39,7 +39,7 @@ function structure(): ViewStructure {
 }
 
 function costs(): ViewCosts {
-  return { spec: 'test', svg: { qubits: SVG, growth: SVG, scan: SVG }, fragments: [{ index: 0, name: 'w' }, { index: 2, name: 'v' }], selected: 2, note: 'Planning estimates.' };
+  return { spec: 'test', svg: { qubits: SVG, growth: SVG, shots: SVG, scan: SVG }, fragments: [{ index: 0, name: 'w' }, { index: 2, name: 'v' }], selected: 2, note: 'Planning estimates.' };
 }
 
 /** The reason a check gave, or 'ok'. */

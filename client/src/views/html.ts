@@ -191,6 +191,7 @@ function costsBody(): string {
 <main id="plots">
   ${plot('qubits', 'Qubits per fragment')}
   ${plot('growth', 'Growth with the active space', '<label for="fragment">Fragment</label> <select id="fragment"></select>')}
+  ${plot('shots', 'Shots against active-space size (the fragment above)')}
   ${plot('scan', 'Along the scan')}
 </main>`;
 }

@@ -234,7 +234,7 @@ export class StructurePanel extends SpecPanel<StructureHostMessage> {
   }
 }
 
-const PLOT_TITLES: Record<PlotName, string> = { qubits: 'qubits per fragment', growth: 'active-space growth', scan: 'scan' };
+const PLOT_TITLES: Record<PlotName, string> = { qubits: 'qubits per fragment', growth: 'active-space growth', shots: 'shots against active-space size', scan: 'scan' };
 
 export class CostsPanel extends SpecPanel<CostsHostMessage> {
   private data: ViewCosts | undefined;

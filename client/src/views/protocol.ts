@@ -38,7 +38,7 @@ export const MAX_SVG_CHARS = 2_000_000;
 /** Largest PNG data URL the extension accepts from the cost panel. */
 export const MAX_PNG_DATA_URL_CHARS = 32 * 1024 * 1024;
 
-export const PLOTS = ['qubits', 'growth', 'scan'] as const;
+export const PLOTS = ['qubits', 'growth', 'shots', 'scan'] as const;
 export type PlotName = (typeof PLOTS)[number];
 
 // --- data ------------------------------------------------------------------------------------

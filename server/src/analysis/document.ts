@@ -32,7 +32,8 @@ import { systemFigures } from './figures/system';
 import type { EstimateReport, FragmentFigures, SystemFigures } from './figures/types';
 import { LateResults } from './late';
 import { analyseVariants, reportVariantProblems, type VariantAnalysis } from './variants';
-import { ACTIVE_SPACE_KIND, partComputation, type ActiveSpaceOutcome, type BathOrbitals, type HamiltonianSpace, type PartComputation, type RequestOptions } from './computed';
+import { ACTIVE_SPACE_KIND, hamiltonianRequest, partComputation, type ActiveSpaceOutcome, type BathOrbitals, type HamiltonianRequest, type HamiltonianSpace, type PartComputation, type RequestOptions } from './computed';
+import { shotSeriesWindows } from './figures/shotSeries';
 import { computedActiveOrbitals } from './computedOrbitals';
 import type { PlanEstimate } from '../chemistry/estimate/plan';
 import type { PartRef } from './inputKey';
@@ -69,6 +70,7 @@ export class DocumentAnalysis {
   private readonly growths = new Map<string, GrowthPoint[]>();
   private moving: number[] | undefined;
   private readonly computations = new Map<string, PartComputation>();
+  private readonly series = new Map<number, HamiltonianRequest[]>();
 
   /**
    * The options the document was analysed with, less the previous version (kept, it would hold
@@ -150,6 +152,22 @@ export class DocumentAnalysis {
     if (!key) return undefined;
     const result = this.late.get<ActiveSpaceOutcome>(ACTIVE_SPACE_KIND, key);
     return result.state === 'ready' ? result.value : undefined;
+  }
+
+  /**
+   * The Hamiltonians of a quantum fragment's shot series (figures/shotSeries.ts: canonical windows
+   * of 2, 4, … orbitals and its own active space) on its own restricted mean field; empty when the
+   * fragment cannot be computed or has no series.
+   */
+  shotSeriesRequests(index: number): HamiltonianRequest[] {
+    let requests = this.series.get(index);
+    if (!requests) {
+      const computation = this.computation({ kind: 'fragment', index });
+      const meanField = computation.refusal ? null : computation.meanField;
+      requests = meanField ? shotSeriesWindows(this.estimates, index).map((window) => hamiltonianRequest(meanField, { kind: 'window', ...window }, null)) : [];
+      this.series.set(index, requests);
+    }
+    return requests;
   }
 
   /**

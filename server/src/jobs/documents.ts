@@ -3,7 +3,9 @@
  *
  * - A part (the system or a fragment) with at most `autoFunctionLimit` basis functions (default
  *   150) is computed by itself: its mean field, and MP2 after it for RHF and UHF references, and
- *   for a fragment with an active space its active orbitals (analysis/computed.ts).
+ *   for a fragment with an active space its active orbitals (analysis/computed.ts), and for a
+ *   quantum fragment its Hamiltonian and, last, the Hamiltonians of its shot series (the cost
+ *   panel's plot of shots against active-space size).
  *   150) is computed by itself: its mean field, and MP2 after it for RHF and UHF references.
  * - Under `embedding dmet`, whenever the system's mean field is computed, so is every fragment's
  *   bath after it.
@@ -94,6 +96,8 @@ export class DocumentComputations {
       if (computation.mp2) entries.push({ request: computation.mp2, label: computation.label, explicit });
       if (computation.activeSpace) entries.push({ request: computation.activeSpace, label: computation.label, explicit });
       if (computation.hamiltonian) entries.push({ request: computation.hamiltonian, label: computation.label, explicit });
+      // The shot series of the cost panel, after everything the part's own figures need.
+      if (part.kind === 'fragment') for (const request of analysis.shotSeriesRequests(part.index)) entries.push({ request, label: computation.label, explicit: false });
     }
     // Requests whose inputs left the document lapse: an edit that restores them offers them again.
     for (const key of state.asked) if (!present.has(key)) state.asked.delete(key);

@@ -5,7 +5,9 @@
  */
 import type { Position } from 'vscode-languageserver-types';
 import { PLANNING_NOTE, type DocumentAnalysis } from '../analysis';
-import { growthChartSvg, qubitsChartSvg, scanChartSvg } from '../report/plots';
+import { growthChartSvg, qubitsChartSvg, scanChartSvg, shotsChartSvg, type ShotPoint } from '../report/plots';
+import { HAMILTONIAN_KIND, hamiltonianFigures, requestKey, type HamiltonianOutcome } from '../analysis';
+import { fragmentAccuracy } from './hamiltonian';
 import { structureData, UNASSIGNED_COLOUR, type StructureData } from '../report/structure';
 import { locate } from './locate';
 import { toOffset } from './positions';
@@ -80,7 +82,7 @@ export function structureOf(analysis: DocumentAnalysis): StructureView {
 export interface CostPlots {
   spec: string | null;
   /** The three charts, standalone SVG documents. */
-  svg: { qubits: string; growth: string; scan: string };
+  svg: { qubits: string; growth: string; shots: string; scan: string };
   /** Fragments with a sized quantum or correlated problem: the ones the growth chart can show. */
   fragments: { index: number; name: string }[];
   /** The fragment the growth chart shows, or null when no fragment can be shown. */
@@ -105,6 +107,26 @@ export function costsAnswer(analysis: DocumentAnalysis, fragment?: number | null
   return beyond ? { unavailable: `This spec is too large for the cost plots: ${beyond}.` } : costPlots(analysis, fragment);
 }
 
+/**
+ * Shots against active-space size of the selected fragment, from the Hamiltonians of its shot
+ * series that have arrived (the editor computes them after the fragment's own figures).
+ */
+function shotsChart(analysis: DocumentAnalysis, selected: number | null): string {
+  const fragment = selected === null ? undefined : analysis.model.fragments[selected];
+  const name = fragment?.name ?? 'no fragment';
+  if (!fragment || fragment.tier?.level !== 'quantum') return shotsChartSvg([], name, '');
+  const epsilon = fragmentAccuracy(analysis, fragment.index);
+  const points: ShotPoint[] = analysis.shotSeriesRequests(fragment.index).map((request) => {
+    const size = request.space.kind === 'window' ? { orbitals: request.space.orbitals, electrons: request.space.electrons } : { orbitals: 0, electrons: 0 };
+    const result = analysis.late.get<HamiltonianOutcome>(HAMILTONIAN_KIND, requestKey(request));
+    if (result.state !== 'ready') return { ...size, bound: null, grouped: null };
+    const figures = hamiltonianFigures(result.value, epsilon);
+    if (figures.status !== 'computed') return { ...size, bound: null, grouped: null };
+    return { ...size, bound: figures.mappings.jordanWigner.shots.separateBound, grouped: figures.mappings.jordanWigner.shots.groupedEstimate };
+  });
+  return shotsChartSvg(points, shortened(name, VIEW_LIMITS.fragmentName), `${(epsilon * 1000).toPrecision(3)} mHa`);
+}
+
 export function costPlots(analysis: DocumentAnalysis, fragment?: number | null): CostPlots {
   const report = analysis.report();
   const fragments = growthFragments(analysis);
@@ -119,7 +141,7 @@ export function costPlots(analysis: DocumentAnalysis, fragment?: number | null):
       : growthChartSvg(analysis.growth(selected), report.fragments[selected]!.name);
   return {
     spec: report.spec.name === null ? null : shortened(report.spec.name, VIEW_LIMITS.text),
-    svg: { qubits: qubitsChartSvg(report), growth, scan: scanChartSvg(report) },
+    svg: { qubits: qubitsChartSvg(report), growth, shots: shotsChart(analysis, selected), scan: scanChartSvg(report) },
     fragments: fragments.map((entry) => ({ index: entry.index, name: shortened(entry.name, VIEW_LIMITS.fragmentName) })),
     selected,
     note: PLANNING_NOTE,
