@@ -139,3 +139,27 @@ describe('figures on computed active orbitals (water cc-pVDZ, active 8e 8o)', ()
     expect(edited.fragmentFigures(0).activeIrreps?.source).toBe('proportional');
   });
 });
+
+describe('figures on computed MP2 natural orbitals (water cc-pVDZ, active natural, all electrons)', () => {
+  it('the reference fills the most occupied natural orbitals in pairs, and the figures read their irreps', () => {
+    const { analysis, outcome } = computeActive(spec('frozen-core off; active natural'));
+    const figures = analysis.fragmentFigures(0);
+    expect(outcome.orbitalKind).toBe('natural');
+    // Natural orbitals of a closed shell carry irreps (their density is totally symmetric).
+    expect(outcome.details.every((d) => d.irrep !== null)).toBe(true);
+    expect(figures.activeIrreps?.source).toBe('computed');
+    expect(figures.active).toMatchObject({ orbitals: outcome.active.length, source: 'computed' });
+    const electrons = outcome.electrons.alpha;
+    const doubly = outcome.details.map((d) => ({ irrep: d.irrep!, n: d.occupation })).sort((a, b) => b.n - a.n).slice(0, electrons);
+    const occupiedIrreps = doubly.map((d) => d.irrep).sort();
+    const allIrreps = outcome.details.map((d) => d.irrep!).sort();
+    expect(figures.ansatzCost?.parameters).toBe(screenedUccsdOrdered(allIrreps, occupiedIrreps));
+  });
+});
+
+/** screenedUccsd with the occupied irreps named (the register's order does not matter to the count). */
+function screenedUccsdOrdered(all: readonly string[], occupied: readonly string[]): number {
+  const rest = [...all];
+  for (const irrep of occupied) rest.splice(rest.indexOf(irrep), 1);
+  return screenedUccsd([...occupied, ...rest], occupied.length);
+}
