@@ -163,3 +163,17 @@ function screenedUccsdOrdered(all: readonly string[], occupied: readonly string[
   for (const irrep of occupied) rest.splice(rest.indexOf(irrep), 1);
   return screenedUccsd([...occupied, ...rest], occupied.length);
 }
+
+describe('a correlated fragment with a suggested active space', () => {
+  it('its solver cost follows the computed space, as its active-space row does (counts of the psi4 AVAS fixture)', () => {
+    const text = `basis cc-pvdz\nstructure {\n${WATER}\n}\nfragment w { atoms rest; tier correlated { method ccsd; active shells o 2s 2p all h 1s } }\n`;
+    const { analysis, counted, outcome } = computeActive(text);
+    const figures = analysis.fragmentFigures(0);
+    // tests/fixtures/active-space.psi4.json, water 'O 2s 2p, H 1s': 4 occupied and 2 virtual orbitals.
+    expect(outcome.active).toHaveLength(6);
+    expect(figures.active).toMatchObject({ orbitals: 6, source: 'computed' });
+    expect(figures.solverCost).toMatchObject({ orbitals: 6, occupied: 4, virtual: 2, on: 'active-space' });
+    expect(counted.active?.source).toBe('estimated-shells');
+    expect(figures.orbitalSources?.figures).toEqual({ activeIrreps: 'computed', referenceOccupation: 'computed' });
+  });
+});

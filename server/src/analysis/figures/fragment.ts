@@ -80,7 +80,7 @@ const SECTIONS = {
       statevectorBytes: plan.quantum ? bigFigure(plan.quantum.statevectorBytes, true) : null,
     },
   })),
-  solverCost: (_figures, _plan, estimates, index) => ({ solverCost: solverCostFigures(estimates, index) }),
+  solverCost: (_figures, plan, estimates, index) => ({ solverCost: solverCostFigures(estimates, index, plan) }),
 } satisfies Record<string, Section>;
 
 export type FigureSection = keyof typeof SECTIONS;

@@ -5,6 +5,7 @@
  * fragment's own basis functions. The time is taken at `limits { rate }`, or at DEFAULT_FLOPS.
  */
 import { DEFAULT_FLOPS, solverCost, solverTime, type SolverSpace } from '../../chemistry/cost/solvers';
+import type { PlanEstimate } from '../../chemistry/estimate/plan';
 import type { Estimates } from '../estimates';
 import { bigFigure } from './space';
 import type { SolverCostFigures } from './types';
@@ -15,7 +16,7 @@ export function solverRate(estimates: Estimates): { flopsPerSecond: number; from
   return given !== undefined ? { flopsPerSecond: given, from: 'limits' } : { flopsPerSecond: DEFAULT_FLOPS, from: 'default' };
 }
 
-function solverSpace(estimates: Estimates, index: number): { space: SolverSpace; on: SolverCostFigures['on'] } | undefined {
+function solverSpace(estimates: Estimates, index: number, given?: PlanEstimate): { space: SolverSpace; on: SolverCostFigures['on'] } | undefined {
   const fragment = estimates.model.fragments[index]!;
   const tier = fragment.tier;
   if (!tier || fragment.atoms.length === 0 || fragment.space.atomsWithoutBasis > 0) return undefined;
@@ -28,19 +29,21 @@ function solverSpace(estimates: Estimates, index: number): { space: SolverSpace;
     };
   }
   if (tier.level !== 'correlated') return undefined;
-  const plan = estimates.plan(index);
+  const plan = given ?? estimates.plan(index);
   if (!plan) return undefined;
   const basis = plan.problem.orbitals + fragment.space.frozenCore.orbitals;
   return {
     space: { basisFunctions: basis, orbitals: plan.active.orbitals, alpha: plan.active.alpha, beta: plan.active.beta, atoms: fragment.space.atomCount },
+    // A computed active space (its size from the mean field) is given too.
     on: plan.active.source === 'given' ? 'active-space' : plan.problem.embedding === 'dmet' ? 'dmet-impurity' : 'fragment',
   };
 }
 
 /** The solver cost figures of a classical-tier fragment; null for quantum tiers and parts that cannot be sized. */
-export function solverCostFigures(estimates: Estimates, index: number): SolverCostFigures | null {
+/** `plan`: the plan the fragment's other figures use (built on computed active orbitals, when they are there). */
+export function solverCostFigures(estimates: Estimates, index: number, plan?: PlanEstimate): SolverCostFigures | null {
   const fragment = estimates.model.fragments[index]!;
-  const found = solverSpace(estimates, index);
+  const found = solverSpace(estimates, index, plan);
   if (!found) return null;
   const cost = solverCost(fragment.tier!.method, found.space);
   if (!cost) return null;
