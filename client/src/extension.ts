@@ -9,6 +9,7 @@ import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerO
 import { makeNonce, reportPageHtml } from './views/html';
 import { CostsPanel, LevelsPanel, StructurePanel, type ViewHost } from './views/panels';
 import { RefreshScheduler } from './views/refresh';
+import { comparePageHtml } from './views/compare';
 
 let client: LanguageClient | undefined;
 let statusItem: vscode.StatusBarItem | undefined;
@@ -135,9 +136,10 @@ async function showComparison(): Promise<void> {
     void vscode.window.showInformationMessage('Tessera: open a .tess spec to compare its plan variants.');
     return;
   }
-  const result = await client.sendRequest<{ markdown: string } | null>('tessera/compare', { uri: document.uri.toString() });
+  const result = await client.sendRequest<{ cost: string; inputs: string; chart: string } | null>('tessera/compare', { uri: document.uri.toString() });
   if (!result) return;
-  const html = await vscode.commands.executeCommand<string>('markdown.api.render', result.markdown);
+  const render = (markdown: string) => vscode.commands.executeCommand<string>('markdown.api.render', markdown);
+  const page = { cost: await render(result.cost), inputs: await render(result.inputs), chart: typeof result.chart === 'string' ? result.chart : '' };
   if (!comparePanel) {
     comparePanel = vscode.window.createWebviewPanel('tessera.compare', 'Tessera plans', { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, { enableScripts: false, localResourceRoots: [] });
     comparePanel.onDidDispose(() => {
@@ -145,7 +147,7 @@ async function showComparison(): Promise<void> {
     });
   }
   comparePanel.title = `Plans: ${document.uri.path.split('/').pop() ?? 'spec'}`;
-  comparePanel.webview.html = reportPageHtml(comparePanel.webview.cspSource, makeNonce(), html);
+  comparePanel.webview.html = comparePageHtml(comparePanel.webview.cspSource, makeNonce(), page);
   comparePanel.reveal(vscode.ViewColumn.Beside, true);
 }
 

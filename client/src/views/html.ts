@@ -70,6 +70,7 @@ td { font-variant-numeric: tabular-nums; }
 .ts-left { text-align: left; }
 blockquote { border-left: 3px solid var(--vscode-textLink-foreground); margin: 0.5em 0; padding-left: 0.8em; }
 code { font-family: var(--vscode-editor-font-family); }
+.ts-chart { margin: 0.5em 0 1.2em; } .ts-chart svg { max-width: 100%; height: auto; }
 </style></head><body>${withoutInlineStyles(body)}</body></html>`;
 }
 

@@ -392,7 +392,7 @@ export function startLanguageServer(given?: Connection): Connection {
   }));
   connection.onRequest('tessera/compare', failures.guard('the plan comparison', documentOf, (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);
-    return analysis ? { markdown: service.compareMarkdown(analysis, params.uri.split('/').pop() ?? 'spec') } : null;
+    return analysis ? service.compareAnswer(analysis, params.uri.split('/').pop() ?? 'spec') : null;
   }));
   connection.onRequest('tessera/summary', failures.guard('the status bar summary', documentOf, (params: { uri: string }) => {
     const analysis = analysisOf(params.uri);

@@ -15,7 +15,7 @@ export { getFoldingRanges, getSelectionRanges } from './structure';
 export { findDocumentSymbols, findWorkspaceSymbols } from './symbols';
 export { fragmentCard } from './cards';
 export { reportMarkdown } from './report';
-export { compareMarkdown } from './compare';
+export { compareAnswer, compareMarkdown, type CompareAnswer } from './compare';
 export { costPlots, costsAnswer, growthFragments, structureAnswer, structureOf, viewTargetAt, VIEW_LIMITS, type CostPlots, type StructureView, type ViewUnavailable } from './views';
 export {
   computeLenses,

@@ -51,6 +51,15 @@ function inputKeys(comparison: PlanComparison): string[] {
 }
 
 export function renderCompareMarkdown(comparison: PlanComparison): string {
+  const sections = compareMarkdownSections(comparison);
+  return `${sections.cost}\n${sections.inputs}`;
+}
+
+/**
+ * The Markdown in two parts, so that the editor's comparison panel can put the chart
+ * (`compareChartSvg`, the one the HTML output holds) between them, where the HTML output has it.
+ */
+export function compareMarkdownSections(comparison: PlanComparison): { readonly cost: string; readonly inputs: string } {
   const plans = comparison.plans;
   const head = `| | ${plans.map((plan) => markdownText(header(plan))).join(' | ')} |`;
   const rule = `| --- |${plans.map(() => ' ---: ').join('|')}|`;
@@ -61,26 +70,9 @@ export function renderCompareMarkdown(comparison: PlanComparison): string {
     return `| ${mark(markdownText(key))} | ${plans.map((plan) => mark(markdownText(plan.inputs[key] ?? '—'))).join(' | ')} |`;
   });
   const best = comparison.best === null ? 'No plan is free of errors and within its limits.' : `Best under the limits: ${markdownText(plans[comparison.best]!.label)} (${markdownText(comparison.rule)}).`;
-  return [
-    '# Plans compared',
-    '',
-    `_${markdownText(PLANNING_NOTE)}_`,
-    '',
-    '## Cost',
-    '',
-    head,
-    rule,
-    ...metrics,
-    '',
-    '## Inputs (differing ones in bold)',
-    '',
-    head,
-    `| --- |${plans.map(() => ' --- ').join('|')}|`,
-    ...inputs,
-    '',
-    best,
-    '',
-  ].join('\n');
+  const cost = ['# Plans compared', '', `_${markdownText(PLANNING_NOTE)}_`, '', '## Cost', '', head, rule, ...metrics, ''];
+  const inputTable = ['## Inputs (differing ones in bold)', '', head, `| --- |${plans.map(() => ' --- ').join('|')}|`, ...inputs, '', best, ''];
+  return { cost: cost.join('\n'), inputs: inputTable.join('\n') };
 }
 
 export const COMPARE_CSV_COLUMNS: readonly string[] = ['plan', 'spec', 'variant', 'best', ...COMPARE_METRICS.map((metric) => metric.key), 'differing inputs', 'note'];
