@@ -192,6 +192,57 @@ describe('tessera export --to xyz', () => {
   });
 });
 
+describe('tessera export --to xyz with fragments and their caps', () => {
+  // samples/launch/ethane-capped-methyls.tess: `caps hydrogen scaled`, `scan distance c1 c2 from 1.4
+  // to 2.2 step 0.2`, c1 at z = −0.7675 Å, the right methyl moving along +z. A scaled cap sits at
+  // g · d(C–C) from its carbon on the C–C line, g = (r_C + r_H)/(r_C + r_C) with Cordero's covalent
+  // radii C(sp3) 0.76 Å, H 0.31 Å (Cordero et al., Dalton Trans. 2008, 2832; from memory), the
+  // scaled link atom of Dapprich et al. (1999).
+  const file = 'samples/launch/ethane-capped-methyls.tess';
+  const g = (0.76 + 0.31) / (0.76 + 0.76);
+  const distances = [1.4, 1.6, 1.8, 2.0, 2.2];
+  const c1 = -0.7675;
+
+  it('--fragment left: its four atoms then its cap, one frame per scan point, the cap on the stretched bond', async () => {
+    const result = await run(['export', file, '--to', 'xyz', '--fragment', 'left']);
+    expect(result.code, result.stderr).toBe(0);
+    const frames = splitFrames(result.stdout);
+    expect(frames).toHaveLength(distances.length);
+    frames.forEach((text, k) => {
+      const frame = parseXyz(text);
+      expect(frame.problems).toEqual([]);
+      expect(frame.atoms.map((atom) => atom.symbol)).toEqual(['C', 'H', 'H', 'H', 'H']);
+      const cap = frame.atoms[4]!;
+      expect(Math.hypot(cap.x, cap.y)).toBeLessThanOrEqual(XYZ_TOLERANCE);
+      expect(Math.abs(cap.z - (c1 + g * distances[k]!))).toBeLessThanOrEqual(1e-6);
+      expect(frame.comment).toMatch(new RegExp(`^ethane-capped-methyls; fragment left: 4 atoms then 1 hydrogen cap \\(link atoms, scaled placement\\): atom 5 H caps c1-c2; scan point ${k + 1} of 5; distance c1-c2 `));
+    });
+  });
+
+  it('--fragments: every fragment in turn, the right cap on its own carbon toward c1', async () => {
+    const result = await run(['export', file, '--to', 'xyz', '--fragments']);
+    expect(result.code, result.stderr).toBe(0);
+    const frames = splitFrames(result.stdout).map((text) => parseXyz(text));
+    expect(frames).toHaveLength(2 * distances.length);
+    frames.slice(distances.length).forEach((frame, k) => {
+      expect(frame.comment).toMatch(/; fragment right: 4 atoms then 1 hydrogen cap .*: atom 5 H caps c2-c1;/);
+      // c2 moved to c1 + d; its cap lies g · d back toward c1.
+      expect(Math.abs(frame.atoms[4]!.z - (c1 + (1 - g) * distances[k]!))).toBeLessThanOrEqual(1e-6);
+    });
+  });
+
+  it('a fragment without caps says so; a name the spec lacks, or --fragments with another format, is a usage error', async () => {
+    const water = await run(['export', 'samples/molecules/water-cc-pvdz.tess', '--to', 'xyz', '--fragments']);
+    expect(water.code, water.stderr).toBe(0);
+    expect(parseXyz(water.stdout).comment).toMatch(/fragment \S+: 3 atoms, no caps/);
+    const unknown = await run(['export', file, '--to', 'xyz', '--fragment', 'middle']);
+    expect(unknown.code).toBe(2);
+    expect(unknown.stderr).toMatch(/no fragment of that name \(its fragments: left, right\)/);
+    expect((await run(['export', file, '--to', 'qcschema', '--fragments'])).code).toBe(2);
+    expect((await run(['export', file, '--to', 'pauli', '--fragments'])).code).toBe(2);
+  });
+});
+
 describe('the QCSchema schema fixture', () => {
   it('is the file its origin note describes (SHA-256), from python3-qcelemental', () => {
     const origin = readFileSync(path.join(root, 'tests', 'fixtures', 'qcschema-molecule.schema.origin.md'), 'utf8');

@@ -56,10 +56,14 @@ Usage:
       mean field (JSON: dmetBath { bath.computed, bath.counted, singularValues,
       impurity.electrons, coreElectrons, ... } under each fragment).
   tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]
+  tessera export <file.tess> --to xyz --fragment <name> | --fragments [--out <file>]
       The geometry for other programs; standard output unless --out. A spec with errors is not
       exported (exit 1, the diagnostics on standard error).
       xyz: ångström, element symbols only (no labels); one frame per scan point when the spec
-        scans, the comment line naming the spec, the point and the scanned distance.
+        scans, the comment line naming the spec, the point and the scanned distance. With
+        --fragment <name> (or --fragments: every fragment, one after the other) the fragment's
+        atoms then its hydrogen caps, per scan point too; the comment line says which atoms are
+        caps and which bond each caps.
       qcschema: one JSON object { format: "tessera-qcschema-export", format_version: 1, spec,
         system, fragments: [...], scan: null | { first_atom, second_atom, moving_atoms,
         distances_angstrom, molecules: [...] } } whose system, fragments[] and scan.molecules[]
@@ -230,7 +234,7 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
         args: rest,
         allowPositionals: true,
         strict: true,
-        options: { to: { type: 'string' }, out: { type: 'string' }, fragment: { type: 'string' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } },
+        options: { to: { type: 'string' }, out: { type: 'string' }, fragment: { type: 'string' }, fragments: { type: 'boolean' }, ...SETTING_OPTIONS, help: { type: 'boolean', short: 'h' } },
       });
       if (values.help) {
         io.stdout(USAGE);
@@ -241,18 +245,21 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
       if (to !== undefined && (HAMILTONIAN_TARGETS as readonly string[]).includes(to)) {
         if (positionals[0] === undefined) throw new UsageError(`export needs a spec file: tessera export <file.tess> --to ${to} [--fragment <name>] [--out <file>]`);
         if (values.out === '') throw new UsageError('--out needs a file name');
+        if (values.fragments) throw new UsageError(`--fragments goes with --to xyz; --to ${to} exports one fragment (--fragment <name>)`);
         return runHamiltonianExport(
           { spec: positionals[0], to: to as HamiltonianTarget, ...(values.out !== undefined ? { out: values.out } : {}), ...(values.fragment !== undefined ? { fragment: values.fragment } : {}) },
           io,
         );
       }
-      if (values.fragment !== undefined) throw new UsageError(`--fragment goes with --to ${HAMILTONIAN_TARGETS.join(' or --to ')}`);
+      if ((values.fragment !== undefined || values.fragments) && to !== 'xyz') throw new UsageError(`--fragment goes with --to xyz, ${HAMILTONIAN_TARGETS.map((target) => `--to ${target}`).join(' or ')}; --fragments with --to xyz`);
+      if (values.fragment !== undefined && values.fragments) throw new UsageError('give --fragment <name> or --fragments, not both');
       if (to !== undefined && !(EXPORT_TARGETS as readonly string[]).includes(to)) throw new UsageError(`--to must be one of ${[...EXPORT_TARGETS, ...HAMILTONIAN_TARGETS].join(', ')}; got '${to}'`);
       return runExport(
         {
           ...(positionals[0] !== undefined ? { spec: positionals[0] } : {}),
           ...(to !== undefined ? { to: to as ExportTarget } : {}),
           ...(values.out !== undefined ? { out: values.out } : {}),
+          ...(values.fragment !== undefined ? { fragments: [values.fragment] } : values.fragments ? { fragments: 'all' as const } : {}),
           settings: settingsOption(values),
         },
         io,

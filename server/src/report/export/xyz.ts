@@ -3,7 +3,14 @@
  * the moving atoms shifted as the scan says. XYZ has no labels, so each line keeps only the element
  * symbol. The comment line of each frame names the spec and, for a scan, the point and the scanned
  * coordinate's value (a distance in angstrom, an angle or dihedral in degrees).
+ *
+ * Fragments (`fragmentXyzChunks`): one frame per fragment (and scan point), its atoms in spec order
+ * followed by its hydrogen caps (link atoms on the bonds its boundary cuts, model/caps.ts, placed
+ * again for each scan point's coordinates); the comment line says which lines are caps and which
+ * bond each one caps, since XYZ itself cannot.
  */
+import type { DocumentAnalysis } from '../../analysis';
+import { fragmentCapsAt, type CapModel } from '../../language/model';
 import { plainText } from '../format/escape';
 import { eachScanFrame } from '../../chemistry/scan';
 import type { StructureAtom, StructureData } from '../structure';
@@ -109,4 +116,58 @@ export function xyzChunks(data: StructureData, options: XyzExportOptions): Itera
 /** XYZ text: for each frame the atom count, the comment line and one `symbol x y z` line per atom. */
 export function renderXyz(data: StructureData, options: XyzExportOptions): string {
   return [...xyzChunks(data, options)].join('');
+}
+
+/** What a fragment frame holds: the fragment's atoms (spec indices) and its caps at that frame's coordinates. */
+interface FragmentFrame {
+  readonly comment: string;
+  readonly coordinates: Float64Array;
+  readonly atoms: readonly number[];
+  readonly caps: readonly CapModel[];
+}
+
+/** The comment line's account of a fragment frame: its atoms, then each cap by its line and the bond it caps. */
+function fragmentNote(data: StructureData, name: string, atoms: readonly number[], caps: readonly CapModel[], rule: string | undefined): string {
+  const own = `fragment ${name}: ${atoms.length} atom${atoms.length === 1 ? '' : 's'}`;
+  if (caps.length === 0) return `${own}, no caps`;
+  const listed = caps.map((cap, k) => `atom ${atoms.length + k + 1} H caps ${atomName(data.atoms[cap.host]!)}-${atomName(data.atoms[cap.partner]!)}`);
+  return `${own} then ${caps.length} hydrogen cap${caps.length === 1 ? '' : 's'} (link atoms, ${rule ?? 'hydrogen'} placement): ${listed.join(', ')}`;
+}
+
+/**
+ * Frames of the given fragments with their caps: fragment by fragment, each over every scan point
+ * (so that one fragment's frames have one atom count). Throws as xyzFrames does.
+ */
+export function eachFragmentXyzFrame(analysis: DocumentAnalysis, data: StructureData, fragments: readonly number[], options: XyzExportOptions): Iterable<FragmentFrame> {
+  const model = analysis.model;
+  const title = oneLine(options.title);
+  // Made once, at once, so that coinciding scan atoms throw before the first chunk.
+  eachXyzFrame(data, options);
+  return (function* framesOfFragments(): Generator<FragmentFrame> {
+    for (const index of fragments) {
+      const fragment = model.fragments[index]!;
+      for (const frame of eachXyzFrame(data, options)) {
+        const caps = frame.value === null ? fragment.caps : fragmentCapsAt(model, index, frame.coordinates);
+        const note = fragmentNote(data, fragment.name, fragment.atoms, caps, fragment.capRule);
+        const rest = frame.comment.startsWith(title) ? frame.comment.slice(title.length) : `; ${frame.comment}`;
+        yield { comment: `${title}; ${note}${rest}`, coordinates: frame.coordinates, atoms: fragment.atoms, caps };
+      }
+    }
+  })();
+}
+
+function fragmentFrameText(data: StructureData, frame: FragmentFrame): string {
+  const lines: string[] = [String(frame.atoms.length + frame.caps.length), oneLine(frame.comment)];
+  const row = (symbol: string, xyz: readonly number[]) => `${symbol.padEnd(2)} ${xyz.map((value) => formatCoordinate(value).padStart(XYZ_DECIMALS + 8)).join(' ')}`;
+  for (const atom of frame.atoms) lines.push(row(data.atoms[atom]!.element, [0, 1, 2].map((k) => frame.coordinates[3 * atom + k]!)));
+  for (const cap of frame.caps) lines.push(row('H', cap.position));
+  return `${lines.join('\n')}\n`;
+}
+
+/** XYZ text of the given fragments, each with its caps, one frame at a time. */
+export function fragmentXyzChunks(analysis: DocumentAnalysis, data: StructureData, fragments: readonly number[], options: XyzExportOptions): Iterable<string> {
+  const frames = eachFragmentXyzFrame(analysis, data, fragments, options);
+  return (function* chunks(): Generator<string> {
+    for (const frame of frames) yield fragmentFrameText(data, frame);
+  })();
 }
