@@ -107,8 +107,8 @@ async function exportQc(file: string): Promise<QcExport> {
 }
 
 describe('the sample list', () => {
-  it('has the eleven clean samples and the mistakes', () => {
-    expect(cleanSamples()).toHaveLength(11);
+  it('has the thirteen clean samples and the mistakes', () => {
+    expect(cleanSamples()).toHaveLength(13);
     expect(allSamples()).toContain('samples/mistakes.tess');
   });
 });
