@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeDocument } from '../../server/src/analysis';
-import { doHover, findDefinition, getCodeActions, prepareRename, toLspDiagnostic } from '../../server/src/services';
+import { computeLenses, doHover, findDefinition, getCodeActions, NO_COMPUTE_POLICY, prepareRename, toLspDiagnostic } from '../../server/src/services';
 import { markdownOf, positionOf } from '../services/service';
 import { memoryFiles } from './fixture';
 
@@ -188,6 +188,15 @@ describe('included fragment names in the editor', () => {
     const fromBasis = findDefinition(analysis, uri, positionOf(analysis, 'fragment right', 10));
     expect(fromBasis).toEqual({ uri: 'file:///work/specs/family/base.tess', range: { start: { line: 17, character: 9 }, end: { line: 17, character: 14 } } });
     expect(prepareRename(analysis, positionOf(analysis, 'fragment right', 10))).toMatchObject({ ok: false, message: expect.stringMatching(/rename it there/) });
+  });
+
+  it('names the fragment in the lenses that share the `with fragments` line, not in those of a patching fragment', () => {
+    const lenses = computeLenses(analysis, uri, NO_COMPUTE_POLICY).map((lens) => ({ line: lens.range.start.line, title: lens.command?.title ?? '' }));
+    const includeLine = positionOf(analysis, 'with fragments').line;
+    const onInclude = lenses.filter((lens) => lens.line === includeLine);
+    expect(onInclude.map((lens) => /mean field of (\w+)/.exec(lens.title)?.[1])).toEqual(['right']);
+    const patchLine = positionOf(analysis, 'fragment left').line;
+    expect(lenses.find((lens) => lens.line === patchLine)?.title).toMatch(/^Compute the mean field \(/);
   });
 
   it('hovers with the fragment card and where it comes from', () => {

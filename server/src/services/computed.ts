@@ -25,6 +25,7 @@ import {
 import { hartree } from '../jobs/progressText';
 import { levelDiagramSvg } from '../report/levels';
 import { toRange } from './positions';
+import { onlyIncluded } from './includedFragments';
 
 /** CODATA 2018: 1 hartree = 27.211386245988 eV. */
 const HARTREE_IN_EV = 27.211386245988;
@@ -214,7 +215,9 @@ export function partLenses(analysis: DocumentAnalysis, uri: string, part: PartRe
   const state = meanFieldState(analysis, part, policy);
   const computation = analysis.computation(part);
   const args = [uri, partArgument(part)];
-  const who = part.kind === 'system' ? 'System mean field' : 'Mean field';
+  // Fragments taken from another spec share the `with fragments` line: their lenses say whose they are.
+  const included = part.kind === 'fragment' && onlyIncluded(analysis.model.fragments[part.index]!) ? analysis.model.fragments[part.index]!.name : undefined;
+  const who = part.kind === 'system' ? 'System mean field' : included ? `Mean field of ${included}` : 'Mean field';
   const lens = (title: string, command = '') => ({ range, command: { title, command, ...(command ? { arguments: args } : {}) } });
   switch (state.kind) {
     case 'refused':
@@ -222,7 +225,7 @@ export function partLenses(analysis: DocumentAnalysis, uri: string, part: PartRe
     case 'too-large':
       return [lens(`${who}: too large for the memory limit (${formatMemory(state.cost.requiredBytes)} needed, limit ${formatMemory(state.cost.memoryLimitBytes)}; an estimate)`)];
     case 'offered':
-      return [lens(`Compute ${part.kind === 'system' ? 'the system\'s' : 'the'} mean field (${costText(state.cost, computation.mp2 !== null)})`, COMPUTE_COMMAND)];
+      return [lens(`Compute ${part.kind === 'system' ? 'the system\'s' : 'the'} mean field${included ? ` of ${included}` : ''} (${costText(state.cost, computation.mp2 !== null)})`, COMPUTE_COMMAND)];
     case 'pending':
       return [lens(`${who}: computing, ${state.detail}`, LEVELS_COMMAND), lens('Stop', STOP_COMMAND)];
     case 'failed':
