@@ -124,6 +124,16 @@ describe('fragments taken from another spec', () => {
     ]);
   });
 
+  it('lets a variant of this spec move the included cut: its fragment patches the included one too', () => {
+    const analysis = analyse(member('variant shifted {\n  fragment left { atoms c1 a1 a2 a3 c2 }\n  fragment right { atoms b1 b2 b3 }\n}\n'));
+    const shifted = analysis.variants()[0]!.analysis;
+    expect(shifted.model.fragments.map((f) => f.atoms)).toEqual([[0, 1, 2, 3, 4], [5, 6, 7]]);
+    // Right is now the three hydrogens of c2 (a check of the mechanism, not a cut anyone would plan),
+    // each cut from c2 and capped: 3 + 3 electrons.
+    expect(shifted.fragmentFigures(1).electrons).toBe(6);
+    expect(shifted.fragmentFigures(1).caps?.count).toBe(3);
+  });
+
   it('follows this spec\'s top-level caps line over the other spec\'s', () => {
     const analysis = analyse(member('caps none\n'));
     // Without a cap a methyl group is CH3: 9 electrons, a doublet (lowest multiplicity of an odd count).
