@@ -320,6 +320,9 @@ describe('tessera export --to qcschema', () => {
       'samples/launch/ethane-capped-methyls.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
       'samples/launch/ethane-plan-variants.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
       'samples/launch/ethane-shared-structure.tess': { system: [0, 1], fragments: { left: [0, 1], right: [0, 1] } },
+      // Ethanol cut at C–C: capped methyl (10 electrons) and capped CH2OH (18), singlets; the reuse takes the same cut.
+      'samples/launch/ethanol-two-cuts.tess': { system: [0, 1], fragments: { tail: [0, 1], head: [0, 1] } },
+      'samples/launch/ethanol-cut-reuse.tess': { system: [0, 1], fragments: { tail: [0, 1], head: [0, 1] } },
     };
     expect(Object.keys(expected).sort()).toEqual(cleanSamples());
     for (const [file, want] of Object.entries(expected)) {

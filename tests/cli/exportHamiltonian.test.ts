@@ -131,12 +131,12 @@ describe('refusals', () => {
     expect((JSON.parse(chosen.stdout) as Json)['termCount']).toBe(15); // Seeley, Richard & Love 2012
   });
 
-  it('never writes over the spec (exit 2), and --fragment goes only with the Hamiltonian exports', async () => {
+  it('never writes over the spec (exit 2), and --fragment goes only with the Hamiltonian exports and xyz', async () => {
     const folder = scratch({ 'h2.tess': specOf('h2-sto3g', 'STO-3G', '2e 2o') });
     const over = await run(['export', 'h2.tess', '--to', 'fcidump', '--out', 'h2.tess'], folder);
     expect(over.code).toBe(2);
     expect(readFileSync(path.join(folder, 'h2.tess'), 'utf8')).toContain('spec "h2-sto3g"');
-    const misplaced = await run(['export', 'h2.tess', '--to', 'xyz', '--fragment', 'site'], folder);
+    const misplaced = await run(['export', 'h2.tess', '--to', 'qcschema', '--fragment', 'site'], folder);
     expect(misplaced.code).toBe(2);
   });
 });

@@ -36,9 +36,9 @@ export const KEYWORDS: readonly KeywordInfo[] = [
   {
     name: 'structure',
     blocks: ['top'],
-    syntax: 'structure [in angstrom|bohr] { <Element> [label] x y z ... }  or  structure from "file.xyz"',
+    syntax: 'structure [in angstrom|bohr] { <Element> [label] x y z ... }  or  structure from "file.xyz"  or  structure from "base.tess" [with fragments]',
     summary:
-      'The atoms: element, optional label and x y z, in the unit its header names (ångström unless `in bohr`); or a plain XYZ file, in ångström by the XYZ convention; or the atoms and labels of another spec (`structure from "base.tess"`), in ångström. Every other distance in the spec (scan ranges, `closer-than`) is in this unit.',
+      'The atoms: element, optional label and x y z, in the unit its header names (ångström unless `in bohr`); or a plain XYZ file, in ångström by the XYZ convention; or the atoms and labels of another spec (`structure from "base.tess"`), in ångström, and with `with fragments` its fragments too (a `fragment` of the same name here patches one). Every other distance in the spec (scan ranges, `closer-than`) is in this unit.',
     opens: 'structure',
   },
   { name: 'frozen-core', blocks: ['top', 'tier', 'variant'], syntax: 'frozen-core on|off', summary: 'Keep the noble-gas core orbitals of each element doubly occupied and out of the correlation treatment (default on).' },
