@@ -93,6 +93,9 @@ describe('values after a keyword', () => {
   const cases: { name: string; text: string; expected: string[] }[] = [
     { name: 'the structure header', text: 'structure $0', expected: ['in', 'from'] },
     { name: 'the structure\'s unit', text: 'structure in $0', expected: ['angstrom', 'bohr'] },
+    { name: '`with` after another spec\'s name', text: 'structure from "base.tess" $0', expected: ['with'] },
+    { name: '`fragments` after `with`', text: 'structure from "base.tess" with $0', expected: ['fragments'] },
+    { name: 'nothing after an XYZ file', text: 'structure from "atoms.xyz" $0', expected: [] },
     { name: 'functions', text: spec('functions $0\n'), expected: ['spherical', 'cartesian'] },
     { name: '`on` after the basis name', text: spec('basis def2-tzvp $0\n'), expected: ['on'] },
     { name: 'frozen-core', text: spec('frozen-core $0\n'), expected: ['on', 'off'] },

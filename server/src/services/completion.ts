@@ -41,6 +41,12 @@ import { toOffset, toRange } from './positions';
 /** Keywords that may appear more than once in their block (basis: one main line and its overrides). */
 const REPEATABLE = new Set(['fragment', 'basis']);
 
+/** The two words after another spec's name in `structure from "base.tess" with fragments`. */
+const WITH_FRAGMENTS_WORDS = [
+  { name: 'with', summary: '`structure from "base.tess" with fragments`: take the other spec\'s fragments as well as its atoms; a `fragment` of the same name here patches one.' },
+  { name: 'fragments', summary: '`with fragments`: the other spec\'s fragments come first, then this spec\'s; a fragment of the same name patches the included one statement by statement.' },
+] as const;
+
 /** Elements offered in a structure block before any atom is written: the common ones first. */
 const COMMON_ELEMENTS = ['H', 'C', 'N', 'O', 'F', 'P', 'S', 'Cl', 'Br', 'I', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Mn', 'Cr', 'Ti', 'Pd', 'Pt'];
 
@@ -161,7 +167,13 @@ function valueItems(context: CursorContext, analysis: DocumentAnalysis): Complet
           { name: 'in', summary: '`structure in bohr { … }`: the length unit of the atoms and of every distance in the spec (ångström unless given).' },
           { name: 'from', summary: '`structure from "file.xyz"`: the atoms of an XYZ file (in ångström, by the XYZ convention), or of another spec.' },
         ].map(keywordItem);
-      return index === 1 && previous === 'in' ? terms(UNIT_TERMS, CompletionItemKind.EnumMember) : [];
+      if (index === 1 && previous === 'in') return terms(UNIT_TERMS, CompletionItemKind.EnumMember);
+      // After another spec's name: `with fragments` takes its fragments too.
+      if (statement.args[0]?.text === 'from' && /\.tess"?$/i.test(statement.args[1]?.text ?? '')) {
+        if (index === 2) return [keywordItem(WITH_FRAGMENTS_WORDS[0]!)];
+        if (index === 3 && previous === 'with') return [keywordItem(WITH_FRAGMENTS_WORDS[1]!)];
+      }
+      return [];
     case 'basis':
       if (block !== 'top') return [];
       if (index === 0) return basisItems(analysis, overrideElements(analysis, statement));

@@ -52,6 +52,11 @@ function problemText(fragment: FragmentFigures | undefined): string {
 /** Where the irreps of the active orbitals come from, in the qubits table: counted (given or apportioned) or computed. */
 const IRREP_SOURCE_TEXT: Record<string, string> = { given: 'counted (given)', proportional: 'counted (apportioned)', computed: 'computed' };
 
+
+/** "1 fragment calculation", "3 fragment calculations". */
+function countOf(count: number, noun: string): string {
+  return `${count} ${noun}${count === 1 ? '' : 's'}`;
+}
 export function estimateTables(report: EstimateReport): Table[] {
   const rows = rowsFor(report);
   const plan: Table = {
@@ -205,7 +210,7 @@ export function headerLines(report: EstimateReport): string[] {
     const totals = report.scan.totals;
     lines.push(
       report.scan.points > 0
-        ? `scan ${report.scan.points} points, ${report.scan.coordinate === 'distance' ? '' : `${report.scan.coordinate} `}${first!.toFixed(3)} to ${last!.toFixed(3)}${unit}: at each point ${totals.fragmentCalculations / report.scan.points} fragment calculations and ${countText(totals.measurementCircuitsPerPoint)} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
+        ? `scan ${report.scan.points} points, ${report.scan.coordinate === 'distance' ? '' : `${report.scan.coordinate} `}${first!.toFixed(3)} to ${last!.toFixed(3)}${unit}: at each point ${countOf(totals.fragmentCalculations / report.scan.points, 'fragment calculation')} and ${countText(totals.measurementCircuitsPerPoint)} measurement circuits per energy evaluation (counted at the structure's geometry, the same at every point), ${totals.fragmentCalculations} fragment calculations over the scan${totals.peakQubits !== null ? `, at most ${totals.peakQubits} qubits at any point` : ''}`
         : 'scan: no valid points',
     );
     if (report.scan.points > 0) lines.push(`scan point groups: ${scanSymmetryText(report.scan)}`);
