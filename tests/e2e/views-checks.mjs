@@ -9,7 +9,7 @@
  * Checks: the key lists every fragment with its cost and colour; the canvas shows pixels of every
  * fragment's colour, of the dashed cut bonds and of the scan arrow; the label toggle draws labels;
  * a highlight marks the fragment; a click on an atom posts its index; malformed messages are
- * ignored; the cost panel shows the three charts, the fragment selector and exports SVG and PNG;
+ * ignored; the cost panel shows the four charts, the fragment selector and exports SVG and PNG;
  * and no content-security-policy violation or page error happens. Each leaves a screenshot.
  *
  * Runs from run.mjs (npm run test:e2e), or alone after `npm run build && npm run package`:
@@ -371,16 +371,17 @@ export async function runViewChecks({ root, runDir, shots, toolsDir, webviewDir,
 
     // --- cost panel ---------------------------------------------------------------------------
     await page.goto(`${server.origin}/costs.html`);
-    await check('v7', 'cost panel shows the three charts and the fragment selector', async () => {
+    await check('v7', 'cost panel shows the four charts and the fragment selector', async () => {
       await waitPosted((m) => m.type === 'ready', "'ready'");
       await send({ type: 'costs', title: 'Costs: zn-site-h2s-scan.tess', data: costs });
-      for (const plot of ['qubits', 'growth', 'scan']) await page.locator(`#plot-${plot} > svg`).waitFor({ timeout: WAIT });
-      const text = Object.fromEntries(await Promise.all(['qubits', 'growth', 'scan'].map(async (plot) => [plot, await page.locator(`#plot-${plot} > svg`).evaluate((svg) => svg.textContent)])));
+      for (const plot of ['qubits', 'growth', 'shots', 'scan']) await page.locator(`#plot-${plot} > svg`).waitFor({ timeout: WAIT });
+      const text = Object.fromEntries(await Promise.all(['qubits', 'growth', 'shots', 'scan'].map(async (plot) => [plot, await page.locator(`#plot-${plot} > svg`).evaluate((svg) => svg.textContent)])));
       const selected = costs.fragments.find((f) => f.index === costs.selected);
       const wanted = {
         // Only quantum tiers have qubits, so only they get bars.
         qubits: ['Qubits per fragment (planning estimate)', 'Jordan–Wigner', 'Bravyi–Kitaev', 'tapered', ...structure.fragments.filter((f) => f.tier === 'quantum').map((f) => f.name)],
         growth: [`Cost against active-space size: ${selected.name}`, 'Pauli terms'],
+        shots: [`Shots against active-space size: ${selected.name}`],
         scan: ['Cumulative cost along the scan', 'measurement circuits'],
       };
       for (const [plot, words] of Object.entries(wanted)) {

@@ -480,8 +480,12 @@ export async function runWorkbenchChecks({ page, workspace, shots, reference, lo
     await tab.waitFor({ timeout: WAIT });
     const frame = await frameWith(page, '#plot-scan > svg');
     const titles = await frame.$$eval('.ts-figure > svg', (svgs) => svgs.map((svg) => svg.querySelector('text')?.textContent ?? ''));
-    const wanted = ['Qubits per fragment (planning estimate)', `Cost against active-space size: ${costs.fragments.find((f) => f.index === costs.selected).name} (planning estimate)`, 'Cumulative cost along the scan (planning estimate)'];
+    const selectedName = costs.fragments.find((f) => f.index === costs.selected).name;
+    const wanted = ['Qubits per fragment (planning estimate)', `Cost against active-space size: ${selectedName} (planning estimate)`, `Shots against active-space size: ${selectedName} (computed Hamiltonians)`, 'Cumulative cost along the scan (planning estimate)'];
     if (titles.join(' / ') !== wanted.join(' / ')) throw new Error(`charts: ${titles.join(' / ')}`);
+    // The sample's site is a DMET fragment: its problem is the impurity, so the shots chart says why it is empty.
+    const shotsText = await frame.$eval('#plot-shots > svg', (svg) => svg.textContent ?? '');
+    if (!shotsText.includes('Under embedding dmet')) throw new Error(`the shots chart of a DMET fragment reads '${shotsText.slice(0, 160)}'`);
     const options = await frame.$$eval('#fragment option', (rows) => rows.map((row) => row.textContent));
     if (options.join() !== costs.fragments.map((f) => f.name).join()) throw new Error(`selector offers ${options.join(', ')}`);
     const other = costs.fragments.find((f) => f.index !== costs.selected);

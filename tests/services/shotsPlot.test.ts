@@ -43,4 +43,14 @@ describe('shots against active-space size in the cost panel', () => {
     expect(svg.match(/<circle /g)).toHaveLength(2 * requests.length);
     expect(svg).toContain('× not computed (8, 10, 12, 14, 16 orbitals)');
   });
+
+  it('asks for no series under embedding dmet, where the problem is the impurity, and says why', () => {
+    // Two waters (the second moved 3 Å along x), DMET: each fragment's problem is fragment + bath.
+    const second = WATER_ROWS.map(([element, label, x, y, z]) => `  ${element} ${label}b ${(x + 3).toFixed(6)} ${y.toFixed(6)} ${z.toFixed(6)}`).join('\n');
+    const dmet = `basis cc-pvdz\nembedding dmet\nstructure {\n${WATER}\n${second}\n}\nfragment w { atoms o h1 h2; tier quantum { method vqe; ansatz uccsd; mapping jordan-wigner; active 4e 4o } }\nfragment rest { atoms rest; tier mean-field { method rhf } }\n`;
+    const analysis = analyzeDocument(dmet, {}, new LateResults());
+    expect(analysis.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    expect(analysis.shotSeriesRequests(0)).toEqual([]);
+    expect(costPlots(analysis, 0).svg.shots).toContain('Under embedding dmet the Hamiltonian is the impurity’s (fragment + bath): not computed, so no shots.');
+  });
 });

@@ -159,11 +159,19 @@ export class DocumentAnalysis {
    * of 2, 4, … orbitals and its own active space) on its own restricted mean field; empty when the
    * fragment cannot be computed or has no series.
    */
+  /**
+   * Whether a fragment's problem is a DMET impurity: its Hamiltonian needs the bath, which the
+   * engine does not build into a Hamiltonian, so neither its own nor its shot series is computed.
+   */
+  underDmet(index: number): boolean {
+    return this.estimates.plan(index)?.problem.embedding === 'dmet';
+  }
+
   shotSeriesRequests(index: number): HamiltonianRequest[] {
     let requests = this.series.get(index);
     if (!requests) {
       const computation = this.computation({ kind: 'fragment', index });
-      const meanField = computation.refusal ? null : computation.meanField;
+      const meanField = computation.refusal || this.underDmet(index) ? null : computation.meanField;
       requests = meanField ? shotSeriesWindows(this.estimates, index).map((window) => hamiltonianRequest(meanField, { kind: 'window', ...window }, null)) : [];
       this.series.set(index, requests);
     }

@@ -228,10 +228,10 @@ export interface ShotPoint {
  * bound and the grouped estimate, both from Hamiltonians computed on the fragment's own mean field
  * (canonical windows); sizes without a computed Hamiltonian are marked on the axis as not computed.
  */
-export function shotsChartSvg(points: readonly ShotPoint[], fragmentName: string, epsilonText: string): string {
+export function shotsChartSvg(points: readonly ShotPoint[], fragmentName: string, epsilonText: string, emptyMessage = 'No Hamiltonian of this fragment is computed yet: its shots need its mean field.'): string {
   const title = `Shots against active-space size: ${fragmentName} (computed Hamiltonians)`;
   const computed = points.filter((p) => p.bound !== null);
-  if (computed.length === 0) return emptyChart(title, 'No Hamiltonian of this fragment is computed yet: its shots need its mean field.');
+  if (computed.length === 0) return emptyChart(title, emptyMessage);
   const f = frame();
   const maxN = points.reduce((most, p) => Math.max(most, p.orbitals), 1);
   const toX = (n: number) => f.x0 + ((f.x1 - f.x0) * n) / maxN;

@@ -107,6 +107,9 @@ export function costsAnswer(analysis: DocumentAnalysis, fragment?: number | null
   return beyond ? { unavailable: `This spec is too large for the cost plots: ${beyond}.` } : costPlots(analysis, fragment);
 }
 
+/** Under DMET the problem is the impurity (fragment and bath), whose Hamiltonian is not computed. */
+export const DMET_SHOTS_MESSAGE = 'Under embedding dmet the Hamiltonian is the impurity’s (fragment + bath): not computed, so no shots.';
+
 /**
  * Shots against active-space size of the selected fragment, from the Hamiltonians of its shot
  * series that have arrived (the editor computes them after the fragment's own figures).
@@ -114,7 +117,8 @@ export function costsAnswer(analysis: DocumentAnalysis, fragment?: number | null
 function shotsChart(analysis: DocumentAnalysis, selected: number | null): string {
   const fragment = selected === null ? undefined : analysis.model.fragments[selected];
   const name = fragment?.name ?? 'no fragment';
-  if (!fragment || fragment.tier?.level !== 'quantum') return shotsChartSvg([], name, '');
+  if (!fragment || fragment.tier?.level !== 'quantum') return shotsChartSvg([], name, '', 'Shots are shown for quantum-tier fragments.');
+  if (analysis.underDmet(fragment.index)) return shotsChartSvg([], shortened(name, VIEW_LIMITS.fragmentName), '', DMET_SHOTS_MESSAGE);
   const epsilon = fragmentAccuracy(analysis, fragment.index);
   const points: ShotPoint[] = analysis.shotSeriesRequests(fragment.index).map((request) => {
     const size = request.space.kind === 'window' ? { orbitals: request.space.orbitals, electrons: request.space.electrons } : { orbitals: 0, electrons: 0 };

@@ -80,8 +80,8 @@ export async function runReport(options: ReportOptions, io: CliIo): Promise<numb
       analysis,
       {
         ...(activeSpaceOf ? { activeSpaces: activeSpaceOf } : {}),
-        // The shot series is plotted in HTML only.
-        seriesSpaces: (computation) => (options.format === 'html' && computation.part.kind === 'fragment' ? shotSeriesWindows(analysis.estimates, computation.part.index).map((window) => ({ kind: 'window' as const, ...window })) : []),
+        // The shot series is plotted in HTML only; not under DMET, where the problem is the impurity.
+        seriesSpaces: (computation) => (options.format === 'html' && computation.part.kind === 'fragment' && !analysis.underDmet(computation.part.index) ? shotSeriesWindows(analysis.estimates, computation.part.index).map((window) => ({ kind: 'window' as const, ...window })) : []),
       },
       io,
     );

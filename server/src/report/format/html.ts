@@ -83,6 +83,8 @@ function plots(report: EstimateReport, options: HtmlReportOptions): string[] {
             `Shots per energy evaluation of '${fragment.name}' against active-space size, from Hamiltonians computed on its own mean field in canonical windows: the (λ/ε)² bound (any state, computed λ) and the QWC grouped estimate (reference-state variances). Both are estimates built on computed Hamiltonians; sizes marked × were not computed.`,
           ),
         );
+      } else if (fragment.problem?.embedding === 'dmet') {
+        parts.push(absent(`No shots plot for '${fragment.name}': under embedding dmet its Hamiltonian is the impurity's (fragment and bath), which is not computed.`));
       } else if (!options.computed) parts.push(absent(`No shots plot for '${fragment.name}': shots need computed Hamiltonians (tessera report --mean-field).`));
     }
   }
