@@ -37,7 +37,7 @@ import {
   type Mp2Summary,
 } from '../analysis/computed';
 import { bathSize } from '../chemistry/cost/dmet';
-import { atomicProjectionSelection, canonicalWindow, irrepWindow, naturalOccupationSelection, type ActiveSelection, type SelectionReference } from '../electronic/activeSpace';
+import { atomicProjectionSelection, canonicalWindow, degenerateSplitNote, degenerateSplits, irrepWindow, naturalOccupationSelection, type ActiveSelection, type SelectionReference } from '../electronic/activeSpace';
 import { naturalOrbitalIrreps, type Mp2Outcome } from '../electronic/correlation';
 import { BOHR_IN_ANGSTROM } from '../chemistry/units';
 import { buildMolecularBasis, type BasisAtom } from '../electronic/basis';
@@ -208,13 +208,17 @@ function chooseSpace(request: HamiltonianRequest, meanField: MeanFieldOutcome, s
   if (space.kind === 'indices') return { core: [...space.core], active: [...space.active], source: space.source, orbitalKind: 'canonical', energies: canonicalEnergies(space.active) };
   const window = activeWindow(result.orbitalCount, result.electrons, space.electrons, space.orbitals);
   const open = result.electrons.alpha !== result.electrons.beta;
+  const occupations = result.occupations.alpha.map((a, p) => a + result.occupations.beta[p]!);
+  const degenerate = degenerateSplitNote(degenerateSplits(result.orbitalEnergies.alpha, occupations, window.active));
   return {
     ...window,
     orbitalKind: 'canonical',
     energies: canonicalEnergies(window.active),
     source:
       `canonical ${result.reference.toUpperCase()} orbitals in energy order: ${window.core.length} doubly occupied below frozen, ` +
-      `orbitals ${window.active[0]! + 1}–${window.active[window.active.length - 1]! + 1} active (${space.electrons}e, ${space.orbitals}o${open ? '; the singly occupied orbitals inside' : ''})`,
+      `orbitals ${window.active[0]! + 1}–${window.active[window.active.length - 1]! + 1} active (${space.electrons}e, ${space.orbitals}o${open ? '; the singly occupied orbitals inside' : ''})` +
+      // The caller ends the sentence.
+      (degenerate ? `. ${degenerate.replace(/\.$/, '')}` : ''),
   };
 }
 

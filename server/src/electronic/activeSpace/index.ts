@@ -11,3 +11,5 @@ export type { AtomicProjectionOptions, ShellTarget } from './atomicProjection';
 export { DEFAULT_OCCUPATION_WINDOW, naturalOccupationSelection } from './naturalOccupations';
 export type { NaturalOccupationOptions } from './naturalOccupations';
 export { fitToOrbitalLimit } from './fit';
+export { DEGENERACY_TOLERANCE, degenerateSplitNote, degenerateSplits } from './degenerate';
+export type { DegenerateSplit } from './degenerate';

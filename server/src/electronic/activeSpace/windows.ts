@@ -16,6 +16,7 @@
  * fewer virtual orbital in an irrep) costs d(next occupied) − d(last virtual), which grows with
  * every step in the same irrep, so taking the cheapest step each time is optimal.
  */
+import { degenerateSplitNote, degenerateSplits } from './degenerate';
 import { assembleSelection } from './describe';
 import { canonicalOrbitals, orbitalsHolding, type CanonicalOrbitals, type SelectionReference } from './reference';
 import { ActiveSelectionError, type ActiveSelection } from './selection';
@@ -117,7 +118,9 @@ function fermiLevel(orbitals: CanonicalOrbitals): number {
 }
 
 function finish(reference: SelectionReference, orbitals: CanonicalOrbitals, source: 'canonical-window' | 'irrep-window', core: readonly number[], active: readonly number[]): ActiveSelection {
+  const degenerate = degenerateSplitNote(degenerateSplits(orbitals.energies, orbitals.occupations, active));
   return assembleSelection(reference, {
+    ...(degenerate ? { notes: [degenerate] } : {}),
     source,
     orbitalKind: 'canonical',
     orbitals: { functionCount: orbitals.functionCount, orbitalCount: orbitals.orbitalCount, coefficients: orbitals.coefficients },
