@@ -3,7 +3,7 @@ import * as path from 'node:path';
 import { readTextFile } from '../language/files';
 import { analyzeDocument, type DocumentAnalysis } from '../analysis';
 import type { Mapping } from '../chemistry/qubits';
-import { UsageError, type CliIo } from './io';
+import { exitCode, EXIT_USAGE, UsageError, type CliIo } from './io';
 import { OutputError, resolveOutputTarget, writeOutputFile, type OutputContent, type ProtectedFile } from './outputFile';
 import { formatDiagnosticLine, printable, type PrintedDiagnostic } from './output';
 
@@ -109,4 +109,20 @@ export async function writeOutput(content: OutputContent, out: string | undefine
     return false;
   }
   return true;
+}
+
+/**
+ * The spec an export writes from: loaded, the output path checked against it, its problems printed;
+ * with errors nothing is exported and the exit code comes back instead of the spec.
+ */
+export function loadSpecToExport(file: string, out: string | undefined, io: CliIo, settings: SpecSettings = {}): LoadedSpec | number {
+  const spec = loadSpec(file, io, settings);
+  if (!spec) return EXIT_USAGE;
+  checkOutPath(out, spec, io);
+  printDiagnostics(spec, io);
+  if (spec.errors > 0) {
+    io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
+    return exitCode({ internal: hasInternalError(spec), errors: true });
+  }
+  return spec;
 }

@@ -11,8 +11,8 @@ import { qcSchemaExportParts, qcSchemaJsonChunks } from '../../report/export/qcs
 import { buildQcInputExport, InputExportError } from '../../report/export/qcschemaInput';
 import { fragmentXyzChunks, xyzChunks } from '../../report/export/xyz';
 import { structureData } from '../../report/structure';
-import { exitCode, EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, specTitle, writeOutput, type SpecSettings } from '../specFile';
+import { EXIT_ERRORS, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
+import { loadSpecToExport, specTitle, writeOutput, type SpecSettings } from '../specFile';
 import { VERSION } from '../version';
 
 export const EXPORT_TARGETS = ['xyz', 'qcschema', 'qcschema-input'] as const;
@@ -44,14 +44,8 @@ export async function runExport(options: ExportOptions, io: CliIo): Promise<numb
   if (!options.spec) throw new UsageError('export needs a spec file: tessera export <file.tess> --to xyz|qcschema|qcschema-input [--out <file>]');
   if (!options.to) throw new UsageError('export needs --to xyz, --to qcschema or --to qcschema-input');
   if (options.out === '') throw new UsageError('--out needs a file name');
-  const spec = loadSpec(options.spec, io, options.settings);
-  if (!spec) return EXIT_USAGE;
-  checkOutPath(options.out, spec, io);
-  printDiagnostics(spec, io);
-  if (spec.errors > 0) {
-    io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
-    return exitCode({ internal: hasInternalError(spec), errors: true });
-  }
+  const spec = loadSpecToExport(options.spec, options.out, io, options.settings);
+  if (typeof spec === 'number') return spec;
   const data = structureData(spec.analysis);
   const title = specTitle(spec);
   // Streamed: one scan point at a time, so that any scan the language accepts is written in bounded memory.

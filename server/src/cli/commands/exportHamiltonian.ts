@@ -16,7 +16,7 @@ import { canBuildExplicitly, explicitLimitNote, qubitHamiltonian } from '../../e
 import type { Mapping } from '../../chemistry/qubits';
 import type { HamiltonianSpace } from '../../analysis';
 import { exitCode, EXIT_ERRORS, EXIT_INTERRUPTED, EXIT_OK, EXIT_USAGE, UsageError, type CliIo } from '../io';
-import { checkOutPath, hasInternalError, loadSpec, printDiagnostics, writeOutput, type LoadedSpec } from '../specFile';
+import { loadSpecToExport, writeOutput, type LoadedSpec } from '../specFile';
 import { computeMeanFields } from './meanField';
 
 export const HAMILTONIAN_TARGETS = ['fcidump', 'pauli'] as const;
@@ -48,14 +48,8 @@ function chosenFragment(spec: LoadedSpec, name: string | undefined): number {
 }
 
 export async function runHamiltonianExport(options: HamiltonianExportOptions, io: CliIo): Promise<number> {
-  const spec = loadSpec(options.spec, io);
-  if (!spec) return EXIT_USAGE;
-  checkOutPath(options.out, spec, io);
-  printDiagnostics(spec, io);
-  if (spec.errors > 0) {
-    io.stderr(`tessera: ${spec.errors} error${spec.errors === 1 ? '' : 's'} in ${spec.file}: nothing exported. Fix ${spec.errors === 1 ? 'it' : 'them'} first.\n`);
-    return exitCode({ internal: hasInternalError(spec), errors: true });
-  }
+  const spec = loadSpecToExport(options.spec, options.out, io);
+  if (typeof spec === 'number') return spec;
   const index = chosenFragment(spec, options.fragment);
   const fragment = spec.analysis.model.fragments[index]!;
   const plan = spec.analysis.estimates.plan(index);
