@@ -20,6 +20,7 @@ import { loadavg } from 'node:os';
 import * as path from 'node:path';
 import { createMessageConnection, StreamMessageReader, StreamMessageWriter, type MessageConnection } from 'vscode-jsonrpc/node';
 import { ms, summarize, type Timing } from './timing';
+import { stopServer } from './server';
 
 const EDITS = 40;
 const EDIT_INTERVAL_MS = 150;
@@ -96,14 +97,7 @@ async function startServer(autoFunctionLimit: number): Promise<{ connection: Mes
     connection,
     progress,
     onProgress: (listener) => listeners.push(listener),
-    stop: async () => {
-      await Promise.race([connection.sendRequest('shutdown'), new Promise((resolve) => setTimeout(resolve, 5_000))]);
-      const exited = new Promise((resolve) => child.once('exit', resolve));
-      await connection.sendNotification('exit');
-      await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 3_000))]);
-      connection.dispose();
-      child.kill();
-    },
+    stop: () => stopServer(connection, child),
   };
 }
 

@@ -30,6 +30,7 @@ import * as path from 'node:path';
 import { CancellationTokenSource, createMessageConnection, StreamMessageReader, StreamMessageWriter, type MessageConnection } from 'vscode-jsonrpc/node';
 import { generatedSpec, type GeometryKind, type GeneratedSpec } from './generate';
 import { ms, summarize, time, type Timing } from './timing';
+import { stopServer } from './server';
 
 interface Position {
   line: number;
@@ -138,14 +139,7 @@ async function startServer(): Promise<{ connection: MessageConnection; pid: numb
     connection,
     pid: child.pid!,
     capabilities: initialized.capabilities,
-    stop: async () => {
-      await Promise.race([connection.sendRequest('shutdown'), new Promise((resolve) => setTimeout(resolve, 5_000))]);
-      const exited = new Promise((resolve) => child.once('exit', resolve));
-      await connection.sendNotification('exit');
-      await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 3_000))]);
-      connection.dispose();
-      child.kill();
-    },
+    stop: () => stopServer(connection, child),
   };
 }
 
